@@ -1,0 +1,5 @@
+/** All tables, one file per group. New groups are re-exported here so drizzle-kit and the client see them. */
+export * from "./auth";
+export * from "./orgs";
+export * from "./api-keys";
+export * from "./audit";
