@@ -1,0 +1,88 @@
+/**
+ * Auth.js configuration: JWT sessions (needed by Credentials) over the Drizzle
+ * adapter (needed by the magic-link provider to store verification tokens and
+ * create users). The JWT's `sub` is the user id; the current organisation is
+ * not in the token — it is a cookie checked against memberships per request.
+ */
+import "server-only";
+import type { NextAuthConfig } from "next-auth";
+import { DrizzleAdapter } from "@auth/drizzle-adapter";
+import Credentials from "next-auth/providers/credentials";
+import Nodemailer from "next-auth/providers/nodemailer";
+import { db } from "@/db";
+import { accounts, sessions, users, verificationTokens } from "@/db/schema";
+import { isProblemError } from "@/lib/api/problem";
+import { env } from "@/lib/env";
+import { magicLinkMail } from "@/lib/mail/templates";
+import { sendMail, smtpServerOptions } from "@/lib/mail/transport";
+import { createOrganization } from "@/lib/orgs/mutations";
+import { clientIp, consumeSignIn, resetSignInEmail } from "@/lib/rate-limit";
+import { RateLimitedSignIn } from "./errors";
+import { verifyPassword } from "./password";
+import { findUserByEmail } from "./queries";
+import { signInSchema } from "./schemas";
+import { personalOrgName } from "./sign-up";
+
+export const SESSION_MAX_AGE_SECONDS = 7 * 24 * 60 * 60;
+export const MAGIC_LINK_MAX_AGE_SECONDS = 15 * 60;
+
+async function authorizeWithPassword(raw: Partial<Record<string, unknown>>, request: Request) {
+  const parsed = signInSchema.safeParse(raw);
+  if (!parsed.success) return null;
+  const { email, password } = parsed.data;
+  try {
+    await consumeSignIn(email, clientIp(request.headers));
+  } catch (error) {
+    if (isProblemError(error)) throw new RateLimitedSignIn(error.problem.detail, error.problem.retryAfter ?? 900);
+    throw error;
+  }
+  const user = await findUserByEmail(email);
+  // Always run bcrypt, so an unknown e-mail takes as long as a wrong password.
+  if (!(await verifyPassword(password, user?.passwordHash))) return null;
+  await resetSignInEmail(email);
+  return { id: user!.id, email: user!.email, name: user!.name };
+}
+
+export function authConfig(): NextAuthConfig {
+  return {
+    adapter: DrizzleAdapter(db, {
+      usersTable: users,
+      accountsTable: accounts,
+      sessionsTable: sessions,
+      verificationTokensTable: verificationTokens,
+    }),
+    secret: env.AUTH_SECRET,
+    trustHost: true,
+    session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
+    pages: { signIn: "/sign-in", error: "/sign-in", verifyRequest: "/check-email" },
+    providers: [
+      Credentials({
+        credentials: { email: { type: "email" }, password: { type: "password" } },
+        authorize: authorizeWithPassword,
+      }),
+      Nodemailer({
+        server: smtpServerOptions(),
+        from: env.MAIL_FROM,
+        maxAge: MAGIC_LINK_MAX_AGE_SECONDS,
+        async sendVerificationRequest({ identifier, url }) {
+          const mail = magicLinkMail(url, MAGIC_LINK_MAX_AGE_SECONDS / 60);
+          await sendMail({ to: identifier, ...mail });
+        },
+      }),
+    ],
+    callbacks: {
+      session({ session, token }) {
+        if (token.sub && session.user) session.user.id = token.sub;
+        return session;
+      },
+    },
+    events: {
+      // Users created by the magic-link flow get their personal organisation here;
+      // password sign-ups create theirs in lib/auth/sign-up.ts.
+      async createUser({ user }) {
+        if (!user.id || !user.email) return;
+        await createOrganization({ name: personalOrgName(user.name, user.email), ownerUserId: user.id });
+      },
+    },
+  };
+}

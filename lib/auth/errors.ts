@@ -1,0 +1,29 @@
+/**
+ * Sign-in failures Auth.js passes through to our server actions. Codes end up
+ * in `?code=` of redirect URLs, so they never hint whether an e-mail exists.
+ */
+import { CredentialsSignin } from "next-auth";
+
+export class RateLimitedSignIn extends CredentialsSignin {
+  code = "rate_limited";
+  constructor(readonly detail: string, readonly retryAfter: number) {
+    super(detail);
+  }
+}
+
+/** The single message for an unknown e-mail and a wrong password alike. */
+export const WRONG_CREDENTIALS_MESSAGE = "That e-mail and password don't match an account. Check both and try again.";
+
+/** Messages for Auth.js error codes that land on the sign-in page as `?error=`. */
+export const AUTH_ERROR_MESSAGES: Record<string, string> = {
+  Verification: "That sign-in link has expired or was already used. Request a new one below.",
+  CredentialsSignin: WRONG_CREDENTIALS_MESSAGE,
+  AccessDenied: "You can't sign in with that account.",
+  Configuration: "Sign-in is misconfigured on the server. Try again later.",
+  SessionExpired: "Your session has expired. Sign in again to continue.",
+};
+
+export function authErrorMessage(code: string | undefined): string | null {
+  if (!code) return null;
+  return AUTH_ERROR_MESSAGES[code] ?? "Sign-in failed. Try again.";
+}

@@ -1,0 +1,116 @@
+/**
+ * Writes for organisations, memberships, API keys and the audit trail.
+ * Callers check the actor's role first (lib/auth/guards.ts); these functions
+ * only keep the data consistent and scoped by organisation id.
+ */
+import "server-only";
+import { and, eq, isNull } from "drizzle-orm";
+import { db, type Db } from "@/db";
+import { apiKeys, auditEvents, memberships, organizations } from "@/db/schema";
+import { generateApiKey } from "./api-key-format";
+import type { Role } from "./roles";
+
+type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+type Executor = Db | Tx;
+
+export type AuditInput = {
+  action: string;
+  actorUserId?: string | null;
+  actorApiKeyId?: string | null;
+  targetType?: string;
+  targetId?: string;
+  metadata?: Record<string, unknown>;
+  ip?: string | null;
+};
+
+export async function recordAuditEvent(orgId: string, event: AuditInput, executor: Executor = db): Promise<void> {
+  await executor.insert(auditEvents).values({ orgId, ...event });
+}
+
+/** URL-safe slug from a name: lowercase ASCII words joined by "-", at most 60 chars. */
+export function slugify(name: string): string {
+  const base = name
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 60)
+    .replace(/-+$/g, "");
+  return base || "org";
+}
+
+async function uniqueSlug(name: string, executor: Executor): Promise<string> {
+  const base = slugify(name);
+  for (let attempt = 0; attempt < 8; attempt++) {
+    const candidate = attempt === 0 ? base : `${base}-${crypto.randomUUID().slice(0, 6)}`;
+    const taken = await executor
+      .select({ id: organizations.id })
+      .from(organizations)
+      .where(eq(organizations.slug, candidate))
+      .limit(1);
+    if (taken.length === 0) return candidate;
+  }
+  throw new Error(`could not find a free slug for ${base}`);
+}
+
+/** Creates an organisation with `ownerUserId` as its owner, in one transaction. */
+export async function createOrganization(
+  input: { name: string; ownerUserId: string; slug?: string },
+  executor: Executor = db,
+): Promise<{ id: string; slug: string }> {
+  const run = async (tx: Executor) => {
+    const slug = input.slug ?? (await uniqueSlug(input.name, tx));
+    const id = crypto.randomUUID();
+    await tx.insert(organizations).values({ id, name: input.name, slug });
+    await tx.insert(memberships).values({ orgId: id, userId: input.ownerUserId, role: "owner" });
+    await recordAuditEvent(id, { action: "org.created", actorUserId: input.ownerUserId }, tx);
+    return { id, slug };
+  };
+  return executor === db ? db.transaction((tx) => run(tx)) : run(executor);
+}
+
+/** Adds a user to an organisation, or changes their role if already a member. */
+export async function upsertMembership(orgId: string, userId: string, role: Role, executor: Executor = db) {
+  await executor
+    .insert(memberships)
+    .values({ orgId, userId, role })
+    .onDuplicateKeyUpdate({ set: { role } });
+}
+
+/** Creates an API key; the full key is returned once and never stored. */
+export async function createApiKey(
+  orgId: string,
+  input: { name: string; role: Role; createdById: string | null },
+): Promise<{ id: string; key: string; prefix: string }> {
+  const { key, prefix, hash } = generateApiKey();
+  const id = crypto.randomUUID();
+  await db.transaction(async (tx) => {
+    await tx.insert(apiKeys).values({ id, orgId, name: input.name, prefix, hash, role: input.role, createdById: input.createdById });
+    await recordAuditEvent(
+      orgId,
+      { action: "api_key.created", actorUserId: input.createdById, targetType: "api_key", targetId: id, metadata: { prefix, role: input.role } },
+      tx,
+    );
+  });
+  return { id, key, prefix };
+}
+
+/** Revokes a key of this organisation; false when no such active key exists here. */
+export async function revokeApiKey(orgId: string, keyId: string, actorUserId: string | null): Promise<boolean> {
+  const [result] = await db
+    .update(apiKeys)
+    .set({ revokedAt: new Date() })
+    .where(and(eq(apiKeys.orgId, orgId), eq(apiKeys.id, keyId), isNull(apiKeys.revokedAt)));
+  if (result.affectedRows === 0) return false;
+  await recordAuditEvent(orgId, { action: "api_key.revoked", actorUserId, targetType: "api_key", targetId: keyId });
+  return true;
+}
+
+/** Marks a key as used now (best effort, at most once a minute per key is enough). */
+export async function touchApiKey(orgId: string, keyId: string): Promise<void> {
+  await db
+    .update(apiKeys)
+    .set({ lastUsedAt: new Date() })
+    .where(and(eq(apiKeys.orgId, orgId), eq(apiKeys.id, keyId)));
+}
