@@ -1,9 +1,18 @@
 /**
  * Chooses the kernel for one gate on raw split re/im amplitude arrays. Shared by the
  * statevector (bits = qubits) and the density matrix (bits = qubits + n for rows,
- * qubits for columns of the vectorised ρ).
+ * qubits for columns of the vectorised ρ). Matrix convention as in types.ts.
  */
-import { applyGeneral1q, applyGeneral2q, applyGeneralK, applyReal1q } from "./kernels-general";
+import { applyGeneral1q, applyGeneral2q, applyGeneralK, applyReal1q, localOffsets } from "./kernels-general";
+import {
+  applyDiagonal1q,
+  applyPermutationSubset,
+  applyPhaseSubset,
+  applySubset2x2,
+  applySubsetGeneral,
+  applySwapSubset,
+} from "./kernels-special";
+import { classifyMatrix, subMatrix, ZERO_TOL, type MatrixShape } from "./matrix-classify";
 
 /** True when every imaginary part of the interleaved matrix is exactly zero. */
 export function isRealMatrix(m: Float64Array): boolean {
@@ -11,17 +20,87 @@ export function isRealMatrix(m: Float64Array): boolean {
   return true;
 }
 
-/** ψ ← (U on index bits `bits`) ψ, in place; no argument checks (callers validate). */
-export function applyToAmplitudes(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
+/**
+ * The dense path only (no structure detection): the reference the specialised kernels
+ * are tested against.
+ */
+export function applyDense(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
   const k = bits.length;
   if (k === 1) {
     if (isRealMatrix(m)) applyReal1q(re, im, bits[0], m);
     else applyGeneral1q(re, im, bits[0], m);
-    return;
-  }
-  if (k === 2) {
+  } else if (k === 2) {
     applyGeneral2q(re, im, bits[0], bits[1], m);
+  } else {
+    applyGeneralK(re, im, bits, m);
+  }
+}
+
+/** ψ ← (U on index bits `bits`) ψ, in place, with the cheapest kernel for U's structure. */
+export function applyToAmplitudes(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
+  applyWithShape(re, im, bits, m, classifyMatrix(m, 1 << bits.length));
+}
+
+/** As applyToAmplitudes, with the matrix already classified. */
+export function applyWithShape(
+  re: Float64Array,
+  im: Float64Array,
+  bits: readonly number[],
+  m: Float64Array,
+  shape: MatrixShape,
+): void {
+  const k = bits.length;
+  const d = 1 << k;
+  const { active } = shape;
+  if (active.length === 0) return; // identity (e.g. `id`, or a gate fused with its inverse)
+  const offsets = localOffsets(bits);
+  const mask = offsets[d - 1];
+  const count = re.length >>> k;
+  if (shape.diagonal) {
+    if (k === 1 && active[active.length - 1] === 1) {
+      applyDiagonal1q(re, im, bits[0], m[0], m[1], m[6], m[7], active.length === 1);
+      return;
+    }
+    const s = active.length;
+    const offs = new Int32Array(s);
+    const pr = new Float64Array(s);
+    const pi = new Float64Array(s);
+    for (let a = 0; a < s; a++) {
+      offs[a] = offsets[active[a]];
+      pr[a] = m[2 * (active[a] * d + active[a])];
+      pi[a] = m[2 * (active[a] * d + active[a]) + 1];
+    }
+    applyPhaseSubset(re, im, mask, count, offs, pr, pi);
     return;
   }
-  applyGeneralK(re, im, bits, m);
+  if (shape.permutation) {
+    const s = active.length;
+    const dst = new Int32Array(s);
+    const src = new Int32Array(s);
+    const pr = new Float64Array(s);
+    const pi = new Float64Array(s);
+    let unitPhases = true;
+    for (let a = 0; a < s; a++) {
+      const r = active[a];
+      const c = shape.source[r];
+      dst[a] = offsets[r];
+      src[a] = offsets[c];
+      pr[a] = m[2 * (r * d + c)];
+      pi[a] = m[2 * (r * d + c) + 1];
+      if (Math.abs(pr[a] - 1) > ZERO_TOL || Math.abs(pi[a]) > ZERO_TOL) unitPhases = false;
+    }
+    if (s === 2 && unitPhases) applySwapSubset(re, im, mask, count, dst[0], dst[1]);
+    else applyPermutationSubset(re, im, mask, count, dst, src, pr, pi);
+    return;
+  }
+  if (active.length === d) {
+    applyDense(re, im, bits, m);
+    return;
+  }
+  const u = subMatrix(m, d, active);
+  if (active.length === 2) {
+    applySubset2x2(re, im, mask, count, offsets[active[0]], offsets[active[1]], u);
+    return;
+  }
+  applySubsetGeneral(re, im, mask, count, Int32Array.from(active, (a) => offsets[a]), u);
 }

@@ -6,6 +6,7 @@
  * i = Σ_j b_j · 2^(k−1−j) where b_j is index bit `bits[j]`. The matrix is 2^k × 2^k,
  * row-major, interleaved (re, im). Each kernel computes ψ' = (U ⊗ I_rest) ψ.
  */
+import { applySubsetGeneral } from "./kernels-special";
 
 /** Offsets (as index bit masks) of the 2^k local basis states, in local-index order. */
 export function localOffsets(bits: readonly number[]): Int32Array {
@@ -18,25 +19,6 @@ export function localOffsets(bits: readonly number[]): Int32Array {
     offsets[i] = off;
   }
   return offsets;
-}
-
-/** The bit positions sorted ascending (for inserting zero bits into a counter). */
-export function sortedBits(bits: readonly number[]): Int32Array {
-  return Int32Array.from(bits).sort();
-}
-
-/**
- * Base index number t (0 ≤ t < 2^(m−k)) with zero bits inserted at the sorted positions:
- * enumerates every index whose target bits are all 0, in increasing order.
- */
-export function insertZeroBits(t: number, sorted: Int32Array): number {
-  let base = t;
-  for (let j = 0; j < sorted.length; j++) {
-    const p = sorted[j];
-    const low = base & ((1 << p) - 1);
-    base = ((base >>> p) << (p + 1)) | low;
-  }
-  return base;
 }
 
 /** General 1-qubit kernel on index bit `q` (2×2 matrix). Bit 0 has its own loop: pairs are adjacent. */
@@ -99,7 +81,7 @@ export function applyReal1q(re: Float64Array, im: Float64Array, q: number, m: Fl
 }
 
 /**
- * General 2-qubit kernel: `hi`/`lo` are the index bits of the first/second operand
+ * General 2-qubit kernel: `first`/`second` are the index bits of the first/second operand
  * (local index = 2·b_first + b_second). Four amplitudes per base index, 16 complex products.
  */
 export function applyGeneral2q(
@@ -112,14 +94,9 @@ export function applyGeneral2q(
   const o1 = 1 << second;
   const o2 = 1 << first;
   const o3 = o1 | o2;
-  const sorted = first < second ? Int32Array.of(first, second) : Int32Array.of(second, first);
-  const pLo = sorted[0], pHi = sorted[1];
-  const maskLo = (1 << pLo) - 1;
-  const maskHi = (1 << pHi) - 1;
+  const notMask = ~o3;
   const count = re.length >>> 2;
-  for (let t = 0; t < count; t++) {
-    let b = ((t >>> pLo) << (pLo + 1)) | (t & maskLo);
-    b = ((b >>> pHi) << (pHi + 1)) | (b & maskHi);
+  for (let t = 0, b = 0; t < count; t++, b = ((b | o3) + 1) & notMask) {
     const i1 = b | o1, i2 = b | o2, i3 = b | o3;
     const x0 = re[b], y0 = im[b], x1 = re[i1], y1 = im[i1];
     const x2 = re[i2], y2 = im[i2], x3 = re[i3], y3 = im[i3];
@@ -136,29 +113,6 @@ export function applyGeneral2q(
 
 /** General k-qubit kernel (any k ≥ 1): gather 2^k amplitudes, multiply, scatter. */
 export function applyGeneralK(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
-  const k = bits.length;
-  const d = 1 << k;
   const offsets = localOffsets(bits);
-  const sorted = sortedBits(bits);
-  const tr = new Float64Array(d);
-  const ti = new Float64Array(d);
-  const count = re.length >>> k;
-  for (let t = 0; t < count; t++) {
-    const base = insertZeroBits(t, sorted);
-    for (let c = 0; c < d; c++) {
-      tr[c] = re[base | offsets[c]];
-      ti[c] = im[base | offsets[c]];
-    }
-    for (let r = 0; r < d; r++) {
-      let sr = 0, si = 0;
-      const row = 2 * r * d;
-      for (let c = 0; c < d; c++) {
-        const mr = m[row + 2 * c], mi = m[row + 2 * c + 1];
-        sr += mr * tr[c] - mi * ti[c];
-        si += mr * ti[c] + mi * tr[c];
-      }
-      re[base | offsets[r]] = sr;
-      im[base | offsets[r]] = si;
-    }
-  }
+  applySubsetGeneral(re, im, offsets[offsets.length - 1], re.length >>> bits.length, offsets, m);
 }

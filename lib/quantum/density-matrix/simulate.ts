@@ -1,0 +1,111 @@
+/**
+ * Density-matrix simulation with the noise model of DESIGN.md §2.
+ *
+ * Starting from ρ = |0…0⟩⟨0…0|, each top-level op in order:
+ * - gate on k qubits: its parts (fused, fusion.ts) as ρ → UρU†; then, on its k qubits,
+ *   (1) depolarizing of their 2^k-dim space with p = depolarizing1q (k = 1) or
+ *   depolarizing2q (k ≥ 2), (2) amplitude damping γ and (3) phase damping λ on each qubit
+ *   (formulas and sources in noise/channels.ts). `id` is a gate and gets the noise.
+ * - barrier: nothing. Final measurement (nothing acts on that qubit afterwards): ignored —
+ *   the expectation is taken before it. Mid-circuit measurement: non-selective projective
+ *   Z measurement (dephasing). reset: ρ → |0⟩⟨0| ⊗ Tr_q ρ.
+ * Without state noise, gates are fused across ops (between measurements/resets).
+ */
+import type { Circuit, DensityMatrix, GateApplication, NoiseModel } from "../types";
+import { checkCircuit } from "../statevector/circuit-check";
+import { GateFuser, fuseGates } from "../statevector/fusion";
+import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
+import { RunControl, type RunOptions } from "../statevector/run-control";
+import { dampQubit, depolarize, measureNonSelective, resetQubit } from "../noise/channels";
+import { hasStateNoise, validateNoiseModel } from "../noise/validate";
+import { applyUnitaryDMUnchecked } from "./kernels";
+import { createZeroDensity } from "./state";
+
+export type DensityOptions = RunOptions & MemoryLimits;
+
+type Step =
+  | { kind: "unitary"; gate: GateApplication }
+  | { kind: "noise"; qubits: number[] }
+  | { kind: "measure"; qubit: number }
+  | { kind: "reset"; qubit: number };
+
+/** For each op index, whether it is a measurement that nothing follows on its qubit. */
+function finalMeasurements(circuit: Circuit): boolean[] {
+  const final = new Array<boolean>(circuit.ops.length).fill(false);
+  const touchedLater = new Set<number>();
+  for (let i = circuit.ops.length - 1; i >= 0; i--) {
+    const op = circuit.ops[i];
+    if (op.kind === "measure") {
+      final[i] = !touchedLater.has(op.qubit);
+      touchedLater.add(op.qubit);
+    } else if (op.kind === "reset") {
+      touchedLater.add(op.qubit);
+    } else if (op.kind === "gate") {
+      for (const q of op.qubits) touchedLater.add(q);
+    }
+  }
+  return final;
+}
+
+/** The step list: unitaries (fused), noise after each gate op, measurements and resets. */
+export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
+  const steps: Step[] = [];
+  const final = finalMeasurements(circuit);
+  let fuser = new GateFuser(2);
+  const flush = (): void => {
+    for (const gate of fuser.result()) steps.push({ kind: "unitary", gate });
+    fuser = new GateFuser(2);
+  };
+  circuit.ops.forEach((op, i) => {
+    if (op.kind === "gate") {
+      if (noisy) {
+        for (const gate of fuseGates(op.parts)) steps.push({ kind: "unitary", gate });
+        steps.push({ kind: "noise", qubits: op.qubits });
+      } else {
+        for (const part of op.parts) fuser.add(part);
+      }
+    } else if (op.kind === "measure" && !final[i]) {
+      flush();
+      steps.push({ kind: "measure", qubit: op.qubit });
+    } else if (op.kind === "reset") {
+      flush();
+      steps.push({ kind: "reset", qubit: op.qubit });
+    }
+  });
+  flush();
+  return steps;
+}
+
+export function simulateDensityMatrix(
+  circuit: Circuit,
+  noise: NoiseModel | undefined,
+  opts: DensityOptions = {},
+): DensityMatrix {
+  validateNoiseModel(noise);
+  assertDensityMatrixFits(circuit.numQubits, opts);
+  checkCircuit(circuit);
+  const noisy = hasStateNoise(noise);
+  const p1 = noise?.depolarizing1q ?? 0;
+  const p2 = noise?.depolarizing2q ?? 0;
+  const gamma = noise?.amplitudeDamping ?? 0;
+  const lambda = noise?.phaseDamping ?? 0;
+  const steps = densitySteps(circuit, noisy);
+  const control = new RunControl(opts, steps.length, "simulate");
+  const rho = createZeroDensity(circuit.numQubits);
+  for (let i = 0; i < steps.length; i++) {
+    const step = steps[i];
+    if (step.kind === "unitary") {
+      applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
+    } else if (step.kind === "noise") {
+      depolarize(rho, step.qubits, step.qubits.length === 1 ? p1 : p2);
+      for (const q of step.qubits) dampQubit(rho, q, gamma, lambda);
+    } else if (step.kind === "measure") {
+      measureNonSelective(rho, step.qubit);
+    } else {
+      resetQubit(rho, step.qubit);
+    }
+    control.tick(i + 1);
+  }
+  control.finish();
+  return rho;
+}
