@@ -1,7 +1,7 @@
 /**
  * Applies the generated SQL migrations in drizzle/ to DATABASE_URL with the
  * programmatic Drizzle migrator (already-applied ones are skipped).
- * Run: node --import tsx scripts/migrate.ts
+ * Run: node --conditions=react-server --import tsx scripts/migrate.ts
  */
 import { migrate } from "drizzle-orm/mysql2/migrator";
 import { closeDb, db } from "@/db";

@@ -4,6 +4,7 @@
 #   maildev  (SMTP $SMTP_PORT 1025, web/API $MAIL_WEB_PORT 1080)
 #   payment fake (port $PAYMENT_FAKE_PORT 12111, when docker/payment-fake/server.ts exists)
 # Usage: scripts/services.sh start [--browser] | stop | status | install [--browser]
+#        scripts/services.sh reset-db ketwise_test   (drop + create an app database)
 # Starting twice is harmless; a missing Debian package is installed with apt-get.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
@@ -101,6 +102,17 @@ stop_mariadb() {
   fi
 }
 
+# Drops and recreates one of the app's databases (only <name> or <name>_test).
+reset_database() {
+  local db="$1"
+  [[ $db == "$DB_NAME" || $db == "${DB_NAME}_test" ]] || die "refusing to reset unknown database $db"
+  write_my_cnf
+  maria_ping || die "MariaDB is not running (scripts/services.sh start)"
+  mariadb --defaults-file="$MY_CNF" -u root -e \
+    "DROP DATABASE IF EXISTS \`$db\`; CREATE DATABASE \`$db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;"
+  log "database $db is empty"
+}
+
 # ---------------------------------------------------------------- Redis
 redis_ping() { [[ $(redis-cli -p "$REDIS_PORT" ping 2>/dev/null) == PONG ]]; }
 
@@ -185,7 +197,8 @@ main() {
       stop_mariadb
       ;;
     status) load_env; write_my_cnf; status ;;
-    *) die "usage: scripts/services.sh start [--browser] | stop | status | install [--browser]" ;;
+    reset-db) load_env; reset_database "${1:?usage: scripts/services.sh reset-db DATABASE}" ;;
+    *) die "usage: scripts/services.sh start [--browser] | stop | status | install [--browser] | reset-db DB" ;;
   esac
 }
 
