@@ -1,0 +1,127 @@
+/**
+ * Exact expectation values of Pauli terms without forming 2^n × 2^n matrices.
+ *
+ * A Pauli word with masks (x, z) and k = popcount(x & z) Y factors is
+ * P = i^k · X^x Z^z (per qubit Y = iXZ), so P|b⟩ = i^k (−1)^{|b & z|} |b ⊕ x⟩.
+ * - Statevector: ⟨ψ|P|ψ⟩ = Σ_b conj(ψ_{b⊕x}) · i^k (−1)^{|b&z|} · ψ_b. Pairing b with
+ *   b' = b ⊕ x (s_{b'} = (−1)^k s_b) gives, over the half b with bit h(x) = 0:
+ *   k even: (−1)^{k/2} · 2 Σ s_b Re(conj(ψ_{b'}) ψ_b);  k odd: −(−1)^{(k−1)/2} · 2 Σ s_b Im(conj(ψ_{b'}) ψ_b).
+ * - Density matrix: Tr(ρP) = Σ_b ρ_{b, b⊕x} · i^k (−1)^{|b&z|}; the same pairing with
+ *   ρ_{b',b} = conj(ρ_{b,b'}) gives 2 Σ s_b Re ρ_{b,b'} (k even) or 2 Σ s_b Im ρ_{b,b'} (k odd).
+ * - Diagonal terms (x = 0) come from the probabilities p_b: ⟨Z_z⟩ = Σ_b p_b (−1)^{|b&z|},
+ *   all of them from one pass over p (few terms) or one Walsh–Hadamard transform (many).
+ * Each off-diagonal term costs one pass over half the amplitudes (or half the
+ * diagonal band of ρ). Results are per term, in the order of `sum.terms`.
+ */
+import type { DensityMatrix, PauliSum, StateVector } from "../types";
+import { POPCOUNT16 } from "./bits";
+import { walshHadamardInPlace } from "./walsh-hadamard";
+
+/** Per-term ⟨P_i⟩ on a normalised statevector. */
+export function pauliExpectationsOnState(state: StateVector, sum: PauliSum): Float64Array {
+  const out = new Float64Array(sum.terms.length);
+  const diag: number[] = [];
+  sum.terms.forEach((t, i) => {
+    if (t.xMask === 0) diag.push(i);
+    else out[i] = offDiagonalOnState(state.re, state.im, t.xMask, t.zMask);
+  });
+  if (diag.length > 0) {
+    const p = new Float64Array(state.re.length);
+    for (let b = 0; b < p.length; b++) p[b] = state.re[b] * state.re[b] + state.im[b] * state.im[b];
+    fillDiagonal(p, sum, diag, out);
+  }
+  return out;
+}
+
+/** Per-term Tr(ρ P_i) on a density matrix of unit trace. */
+export function pauliExpectationsOnDensity(rho: DensityMatrix, sum: PauliSum): Float64Array {
+  const out = new Float64Array(sum.terms.length);
+  const d = 2 ** rho.n;
+  const diag: number[] = [];
+  sum.terms.forEach((t, i) => {
+    if (t.xMask === 0) diag.push(i);
+    else out[i] = offDiagonalOnDensity(rho, d, t.xMask, t.zMask);
+  });
+  if (diag.length > 0) {
+    const p = new Float64Array(d);
+    for (let b = 0; b < d; b++) p[b] = rho.re[b * d + b];
+    fillDiagonal(p, sum, diag, out);
+  }
+  return out;
+}
+
+/** Σ_i c_i v_i. */
+export function weightedTotal(sum: PauliSum, values: ArrayLike<number>): number {
+  let s = 0;
+  sum.terms.forEach((t, i) => (s += t.coefficient * values[i]));
+  return s;
+}
+
+/**
+ * ⟨Z_z⟩ for the listed diagonal terms from probabilities p. Few terms (≤ n): one pass
+ * over p accumulating every term; more: one Walsh–Hadamard transform of a copy of p.
+ */
+export function fillDiagonal(p: Float64Array, sum: PauliSum, diag: number[], out: Float64Array): void {
+  const n = Math.round(Math.log2(p.length));
+  if (diag.length > Math.max(n, 1)) {
+    const w = p.slice();
+    walshHadamardInPlace(w);
+    for (const i of diag) out[i] = w[sum.terms[i].zMask];
+    return;
+  }
+  const masks = Int32Array.from(diag, (i) => sum.terms[i].zMask);
+  const acc = new Float64Array(diag.length);
+  for (let b = 0; b < p.length; b++) {
+    const pb = p[b];
+    if (pb === 0) continue;
+    for (let t = 0; t < masks.length; t++) {
+      const v = b & masks[t];
+      acc[t] += (POPCOUNT16[v & 0xffff] + POPCOUNT16[v >>> 16]) & 1 ? -pb : pb;
+    }
+  }
+  diag.forEach((i, t) => (out[i] = acc[t]));
+}
+
+/** Visits the half of the indices with bit `h` clear: b = insert a 0 at bit h into i. */
+function offDiagonalOnState(re: Float64Array, im: Float64Array, x: number, z: number): number {
+  const k = (POPCOUNT16[(x & z) & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
+  const h = 31 - Math.clz32(x);
+  const low = (1 << h) - 1;
+  const half = re.length >>> 1;
+  let acc = 0;
+  if ((k & 1) === 0) {
+    for (let i = 0; i < half; i++) {
+      const b = ((i >>> h) << (h + 1)) | (i & low);
+      const c = b ^ x;
+      const v = re[c] * re[b] + im[c] * im[b];
+      const m = b & z;
+      acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -v : v;
+    }
+    return k === 0 ? 2 * acc : -2 * acc;
+  }
+  for (let i = 0; i < half; i++) {
+    const b = ((i >>> h) << (h + 1)) | (i & low);
+    const c = b ^ x;
+    const v = re[c] * im[b] - im[c] * re[b];
+    const m = b & z;
+    acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -v : v;
+  }
+  return k === 1 ? -2 * acc : 2 * acc;
+}
+
+function offDiagonalOnDensity(rho: DensityMatrix, d: number, x: number, z: number): number {
+  const k = (POPCOUNT16[(x & z) & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
+  const h = 31 - Math.clz32(x);
+  const low = (1 << h) - 1;
+  const half = d >>> 1;
+  const part = (k & 1) === 0 ? rho.re : rho.im;
+  let acc = 0;
+  for (let i = 0; i < half; i++) {
+    const b = ((i >>> h) << (h + 1)) | (i & low);
+    const v = part[b * d + (b ^ x)];
+    const m = b & z;
+    acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -v : v;
+  }
+  // i^k · (ρ_{bb'} + (−1)^k conj ρ_{bb'}): k=0: 2Re, k=2: −2Re, k=1: i·2i·Im = −2Im, k=3: −i·2i·Im = 2Im.
+  return k === 0 || k === 3 ? 2 * acc : -2 * acc;
+}

@@ -1,0 +1,70 @@
+/**
+ * Chevrotain grammar of the Pauli-sum text. It only checks the shape
+ * (signs, coefficients, words) and returns the raw tokens of each term; the
+ * analyser (`pauli-parse.ts`) turns them into masks and gives the specific errors.
+ */
+import { EmbeddedActionsParser, type IToken } from "chevrotain";
+import { Coefficient, Minus, Plus, Star, Word, pauliTokens } from "./pauli-lexer";
+
+export interface RawTerm {
+  /** The "+"/"-" before the term (absent for a first term without sign). */
+  sign?: IToken;
+  coefficient?: IToken;
+  star?: IToken;
+  words: IToken[];
+}
+
+class PauliSumGrammar extends EmbeddedActionsParser {
+  constructor() {
+    super(pauliTokens, { maxLookahead: 2 });
+    this.performSelfAnalysis();
+  }
+
+  public sum = this.RULE("sum", (): RawTerm[] => {
+    const terms: RawTerm[] = [];
+    let sign: IToken | undefined;
+    this.OPTION(() => {
+      sign = this.OR([{ ALT: () => this.CONSUME(Plus) }, { ALT: () => this.CONSUME(Minus) }]);
+    });
+    const first = this.SUBRULE(this.term);
+    terms.push({ ...first, sign });
+    this.MANY(() => {
+      const op = this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]);
+      const t = this.SUBRULE2(this.term);
+      terms.push({ ...t, sign: op });
+    });
+    return terms;
+  });
+
+  private term = this.RULE("term", (): RawTerm => {
+    const words: IToken[] = [];
+    let coefficient: IToken | undefined;
+    let star: IToken | undefined;
+    this.OR([
+      {
+        ALT: () => {
+          coefficient = this.CONSUME(Coefficient);
+          this.OPTION(() => {
+            this.OPTION2(() => {
+              star = this.CONSUME(Star);
+            });
+            this.AT_LEAST_ONE(() => {
+              words.push(this.CONSUME(Word));
+            });
+          });
+        },
+      },
+      {
+        ALT: () => {
+          this.AT_LEAST_ONE2(() => {
+            words.push(this.CONSUME2(Word));
+          });
+        },
+      },
+    ]);
+    return { coefficient, star, words };
+  });
+}
+
+/** One shared instance (chevrotain parsers are reusable: set `input`, call the rule). */
+export const pauliSumGrammar = new PauliSumGrammar();

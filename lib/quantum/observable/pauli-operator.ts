@@ -1,0 +1,100 @@
+/**
+ * Matrix-free action of a Pauli sum H = Σ c_t P_t on a complex vector (for Lanczos).
+ * P_t|b⟩ = i^k (−1)^{|b&z|} |b ⊕ x⟩ (see pauli-expectation.ts), so terms sharing an
+ * x-mask act as one "diagonal then flip": (Hv)_{b⊕x} += D_x(b) v_b with
+ * D_x(b) = Σ_{t: x_t = x} c_t i^{k_t} (−1)^{|b & z_t|}. D_x is tabulated once per x
+ * while a memory budget allows (the x = 0 table is real), otherwise evaluated per term.
+ */
+import type { PauliSum } from "../types";
+import { POPCOUNT16 } from "./bits";
+
+interface FlipGroup {
+  x: number;
+  /** Tabulated D_x (re, im), or null when evaluated term by term. */
+  re: Float64Array | null;
+  im: Float64Array | null;
+  terms: { c: number; z: number; k: number }[];
+}
+
+/** Bytes of tabulated diagonals the operator may keep (default 64 MiB). */
+export const PAULI_OPERATOR_TABLE_BYTES = 64 * 1024 * 1024;
+
+function sign(b: number, z: number): number {
+  const m = b & z;
+  return (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -1 : 1;
+}
+
+export class PauliOperator {
+  readonly dim: number;
+  private readonly groups: FlipGroup[] = [];
+
+  constructor(sum: PauliSum, tableBytes = PAULI_OPERATOR_TABLE_BYTES) {
+    this.dim = 2 ** sum.numQubits;
+    const byX = new Map<number, FlipGroup>();
+    for (const t of sum.terms) {
+      if (t.coefficient === 0) continue;
+      const k = (POPCOUNT16[(t.xMask & t.zMask) & 0xffff] + POPCOUNT16[(t.xMask & t.zMask) >>> 16]) & 3;
+      let g = byX.get(t.xMask);
+      if (!g) byX.set(t.xMask, (g = { x: t.xMask, re: null, im: null, terms: [] }));
+      g.terms.push({ c: t.coefficient, z: t.zMask, k });
+    }
+    let budget = tableBytes;
+    const bySize = [...byX.values()].sort((a, b) => b.terms.length - a.terms.length);
+    for (const g of bySize) {
+      const cost = 16 * this.dim;
+      if (g.terms.length < 2 || cost > budget) continue;
+      budget -= cost;
+      g.re = new Float64Array(this.dim);
+      g.im = new Float64Array(this.dim);
+      for (const t of g.terms) {
+        // i^k: k=0 → (1,0), 1 → (0,1), 2 → (−1,0), 3 → (0,−1)
+        const pr = t.k === 0 ? t.c : t.k === 2 ? -t.c : 0;
+        const pi = t.k === 1 ? t.c : t.k === 3 ? -t.c : 0;
+        for (let b = 0; b < this.dim; b++) {
+          const s = sign(b, t.z);
+          g.re[b] += s * pr;
+          g.im[b] += s * pi;
+        }
+      }
+    }
+    this.groups = [...byX.values()];
+  }
+
+  /** out ← H v (out is overwritten). */
+  apply(vRe: Float64Array, vIm: Float64Array, outRe: Float64Array, outIm: Float64Array): void {
+    outRe.fill(0);
+    outIm.fill(0);
+    const d = this.dim;
+    for (const g of this.groups) {
+      const x = g.x;
+      if (g.re && g.im) {
+        const dr = g.re;
+        const di = g.im;
+        for (let b = 0; b < d; b++) {
+          const c = b ^ x;
+          outRe[c] += dr[b] * vRe[b] - di[b] * vIm[b];
+          outIm[c] += dr[b] * vIm[b] + di[b] * vRe[b];
+        }
+        continue;
+      }
+      for (const t of g.terms) {
+        const z = t.z;
+        const real = (t.k & 1) === 0;
+        const f = t.k === 0 || t.k === 1 ? t.c : -t.c;
+        for (let b = 0; b < d; b++) {
+          const c = b ^ x;
+          const m = b & z;
+          const s = (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -f : f;
+          if (real) {
+            outRe[c] += s * vRe[b];
+            outIm[c] += s * vIm[b];
+          } else {
+            // multiply by i·s
+            outRe[c] -= s * vIm[b];
+            outIm[c] += s * vRe[b];
+          }
+        }
+      }
+    }
+  }
+}

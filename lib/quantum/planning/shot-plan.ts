@@ -1,0 +1,63 @@
+/**
+ * Shot planning without drawing shots (J. R. McClean et al., New J. Phys. 18, 023023
+ * (2016); D. Wecker et al., Phys. Rev. A 92, 042303 (2015)).
+ *
+ * With settings g of single-shot variance Var_g, N_g shots give Var = Σ_g Var_g / N_g.
+ * For a target standard error ε the optimal split N_g ∝ √Var_g needs
+ * N = (Σ_g √Var_g)² / ε² shots ("state-aware"; each N_g rounded up, at least 1).
+ * Without the state, Var_g ≤ (Σ_{i∈g} |c_i|)², so N ≤ (Σ_i |c_i|)² / ε² ("worst case";
+ * the identity term is constant and excluded). For a matrix observable the worst case
+ * uses Var ≤ ‖H‖² ≤ (max_i Σ_j |H_ij|)² (Gershgorin row-sum bound).
+ */
+
+export interface SettingPlan {
+  /** Per-setting shots, in setting order. */
+  perSetting: number[];
+  totalShots: number;
+}
+
+export interface ShotPlan {
+  targetPrecision: number;
+  settings: number;
+  /** Guaranteed for any state: (Σ|c_i|)²/ε², split ∝ Σ_{i∈g}|c_i|. */
+  worstCase: SettingPlan;
+  /** From the exact variances of the state, when known. */
+  stateAware: SettingPlan | null;
+}
+
+/** N_g = ⌈w_g · W / ε²⌉ (≥ 1) for weights w_g = standard deviations (or their bounds), W = Σ w. */
+export function planFromStdDevs(stdDevs: number[], epsilon: number): SettingPlan {
+  const total = stdDevs.reduce((a, b) => a + b, 0);
+  const perSetting = stdDevs.map((w) => Math.max(1, Math.ceil((w * total) / (epsilon * epsilon) - 1e-9)));
+  return { perSetting, totalShots: perSetting.reduce((a, b) => a + b, 0) };
+}
+
+export function planShots(input: { targetPrecision: number; stdDevBounds: number[]; stdDevs?: number[] | null }): ShotPlan {
+  const eps = input.targetPrecision;
+  if (!(eps > 0) || !Number.isFinite(eps)) throw new RangeError("targetPrecision must be a positive finite number");
+  return {
+    targetPrecision: eps,
+    settings: input.stdDevBounds.length,
+    worstCase: planFromStdDevs(input.stdDevBounds, eps),
+    stateAware: input.stdDevs ? planFromStdDevs(input.stdDevs, eps) : null,
+  };
+}
+
+/**
+ * Splits `total` shots over settings: one each first, the rest ∝ weights by largest
+ * remainder (even split when all weights are 0). Needs total ≥ number of settings.
+ */
+export function allocateShots(total: number, weights: number[]): number[] {
+  const g = weights.length;
+  if (g === 0) return [];
+  if (total < g) throw new RangeError(`need at least ${g} shots for ${g} settings`);
+  const wsum = weights.reduce((a, b) => a + Math.max(0, b), 0);
+  const w = wsum > 0 ? weights.map((x) => Math.max(0, x) / wsum) : weights.map(() => 1 / g);
+  const rest = total - g;
+  const exact = w.map((x) => x * rest);
+  const out = exact.map((x) => 1 + Math.floor(x));
+  let left = total - out.reduce((a, b) => a + b, 0);
+  const order = exact.map((x, i) => i).sort((a, b) => exact[b] - Math.floor(exact[b]) - (exact[a] - Math.floor(exact[a])) || a - b);
+  for (let k = 0; left > 0; k = (k + 1) % g, left--) out[order[k]]++;
+  return out;
+}
