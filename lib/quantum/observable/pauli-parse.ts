@@ -32,12 +32,16 @@ const MAX_ISSUES = 20;
 interface Factor {
   letter: PauliLetter;
   qubit: number;
+  line: number;
+  column: number;
 }
 
 interface AnalysedTerm {
   coefficient: number;
   factors: Factor[];
   dense: string | null;
+  /** Position of the dense word. */
+  denseAt: { line: number; column: number };
   origin: TermOrigin;
 }
 
@@ -129,6 +133,7 @@ function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssu
   }
   const factors: Factor[] = [];
   let dense: string | null = null;
+  let denseAt = { line: origin.line, column: origin.column };
   let sparseTok: IToken | null = null;
   for (const w of t.words) {
     if (w.tokenType === BadWord) {
@@ -152,7 +157,7 @@ function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssu
         } else if (factors.some((f) => f.qubit === qubit)) {
           issueAt(issues, w, `${name}: qubit ${qubit} appears twice in one Pauli word; write each qubit once per term`);
         } else {
-          factors.push({ letter: m[1] as PauliLetter, qubit });
+          factors.push({ letter: m[1] as PauliLetter, qubit, line: w.startLine ?? 1, column: (w.startColumn ?? 1) + (m.index ?? 0) });
         }
       }
     } else if (sparseTok !== null) {
@@ -163,11 +168,12 @@ function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssu
       issueAt(issues, w, `${name}: the dense word has ${w.image.length} letters (at most ${MAX_PAULI_QUBIT_INDEX + 1})`);
     } else {
       dense = w.image;
+      denseAt = { line: w.startLine ?? 1, column: w.startColumn ?? 1 };
     }
   }
   // "I" alone is the identity on any number of qubits, not a one-letter dense word.
   if (dense === "I") dense = null;
-  return { coefficient, factors, dense, origin };
+  return { coefficient, factors, dense, denseAt, origin };
 }
 
 function badWordMessage(image: string, name: string, afterCoefficient: boolean): string {
@@ -189,8 +195,7 @@ function checkDenseConsistency(terms: AnalysedTerm[], issues: EngineIssue[]): vo
     if (t.dense !== null && t.dense.length !== n) {
       issues.push({
         path: PATH,
-        line: t.origin.line,
-        column: t.origin.column,
+        ...t.denseAt,
         message: `dense word "${t.dense}" has ${t.dense.length} letters but the earlier dense word "${firstDense.dense}" has ${n}; dense words need one letter per qubit`,
       });
     }
@@ -198,8 +203,8 @@ function checkDenseConsistency(terms: AnalysedTerm[], issues: EngineIssue[]): vo
     if (beyond) {
       issues.push({
         path: PATH,
-        line: t.origin.line,
-        column: t.origin.column,
+        line: beyond.line,
+        column: beyond.column,
         message: `term "${t.origin.text}" names qubit ${beyond.qubit} but the dense words have ${n} letters (qubits 0 to ${n - 1})`,
       });
     }

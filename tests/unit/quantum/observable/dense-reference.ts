@@ -1,0 +1,64 @@
+/**
+ * Independent dense reference computations with mathjs (REFERENCES.md: "mathjs:
+ * complex dense matrices, Kronecker products"). Index convention of the engine:
+ * basis index bit k = qubit k, so the matrix of a dense word P0 P1 … P(n−1) in index
+ * order is kron(P(n−1), …, P1, P0) (qubit 0 is the least significant factor).
+ */
+import * as math from "mathjs";
+import type { DensityMatrix, StateVector } from "@/lib/quantum/types";
+
+type M = math.Matrix;
+
+const C = (re: number, im = 0): math.Complex => math.complex(re, im);
+
+export const PAULI: Record<string, M> = {
+  I: math.matrix([[C(1), C(0)], [C(0), C(1)]]),
+  X: math.matrix([[C(0), C(1)], [C(1), C(0)]]),
+  Y: math.matrix([[C(0), C(0, -1)], [C(0, 1), C(0)]]),
+  Z: math.matrix([[C(1), C(0)], [C(0), C(-1)]]),
+};
+
+/** Dense matrix of a dense Pauli word (qubit 0 first in the word). */
+export function wordMatrix(word: string): M {
+  let m: M = math.matrix([[C(1)]]);
+  for (let q = 0; q < word.length; q++) m = math.kron(PAULI[word[q]], m) as M;
+  return m;
+}
+
+export function sumMatrix(terms: { coefficient: number; word: string }[], n: number): M {
+  const d = 2 ** n;
+  let m: M = math.zeros(d, d) as M;
+  for (const t of terms) m = math.add(m, math.multiply(t.coefficient, wordMatrix(t.word.padEnd(n, "I")))) as M;
+  return m;
+}
+
+export function stateColumn(s: StateVector): M {
+  return math.matrix(Array.from(s.re, (r, i) => [C(r, s.im[i])]));
+}
+
+export function densityMatrixOf(rho: DensityMatrix): M {
+  const d = 2 ** rho.n;
+  const rows: math.Complex[][] = [];
+  for (let i = 0; i < d; i++) rows.push(Array.from({ length: d }, (_, j) => C(rho.re[i * d + j], rho.im[i * d + j])));
+  return math.matrix(rows);
+}
+
+/** ⟨ψ|A|ψ⟩ (real part). */
+export function denseExpectation(a: M, s: StateVector): number {
+  const v = stateColumn(s);
+  const r = math.multiply(math.ctranspose(v), math.multiply(a, v)) as M;
+  return math.re(r.get([0, 0]) as math.Complex) as number;
+}
+
+/** Tr(ρA) (real part). */
+export function denseTrace(a: M, rho: DensityMatrix): number {
+  return math.re(math.trace(math.multiply(densityMatrixOf(rho), a)) as unknown as math.Complex) as number;
+}
+
+export function complexToArrays(m: M): { real: number[][]; imag: number[][] } {
+  const arr = m.toArray() as unknown as math.Complex[][];
+  return {
+    real: arr.map((row) => row.map((z) => (typeof z === "number" ? z : z.re))),
+    imag: arr.map((row) => row.map((z) => (typeof z === "number" ? 0 : z.im))),
+  };
+}
