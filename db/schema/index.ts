@@ -3,3 +3,6 @@ export * from "./auth";
 export * from "./orgs";
 export * from "./api-keys";
 export * from "./audit";
+export * from "./runs";
+export * from "./library";
+export * from "./usage";

@@ -1,0 +1,95 @@
+/**
+ * Runs: one estimate request of an organisation, from submission to result.
+ *
+ * Lifecycle: queued → running → succeeded | failed | canceled (a queued run may
+ * also go straight to canceled or failed). `request` is the engine request as
+ * submitted (DESIGN.md §4, without `name`); `seed` is the one the run uses —
+ * the user's, or one chosen at submission — so every sampled figure is
+ * reproducible. `error` is an RFC 9457 problem document, `result` the engine's
+ * EstimateResult. `shots` is the planned total (the request's `shots`, or the
+ * shot plan for `targetPrecision`). The idempotency key is unique per org.
+ */
+import { sql } from "drizzle-orm";
+import {
+  bigint,
+  char,
+  datetime,
+  double,
+  index,
+  int,
+  mysqlEnum,
+  mysqlTable,
+  uniqueIndex,
+  varchar,
+} from "drizzle-orm/mysql-core";
+import { apiKeys } from "./api-keys";
+import { users } from "./auth";
+import { jsonText } from "./json-text";
+import { organizations } from "./orgs";
+
+export const RUN_STATUSES = ["queued", "running", "succeeded", "failed", "canceled"] as const;
+export type RunStatus = (typeof RUN_STATUSES)[number];
+export const TERMINAL_RUN_STATUSES = ["succeeded", "failed", "canceled"] as const satisfies readonly RunStatus[];
+
+export const RUN_METHODS = ["statevector", "density_matrix"] as const;
+export type RunMethod = (typeof RUN_METHODS)[number];
+
+/** RFC 9457 problem as stored on a failed run. */
+export type StoredProblem = {
+  type: string;
+  title: string;
+  status: number;
+  detail: string;
+  errors?: { path: string; message: string; line?: number; column?: number }[];
+};
+
+const ms3 = (name: string) => datetime(name, { mode: "date", fsp: 3 });
+
+export const runs = mysqlTable(
+  "runs",
+  {
+    id: varchar("id", { length: 36 })
+      .primaryKey()
+      .$defaultFn(() => crypto.randomUUID()),
+    orgId: varchar("org_id", { length: 36 })
+      .notNull()
+      .references(() => organizations.id, { onDelete: "cascade" }),
+    createdByUserId: varchar("created_by_user_id", { length: 36 }).references(() => users.id, {
+      onDelete: "set null",
+    }),
+    createdByApiKeyId: varchar("created_by_api_key_id", { length: 36 }).references(() => apiKeys.id, {
+      onDelete: "set null",
+    }),
+    name: varchar("name", { length: 120 }).notNull(),
+    request: jsonText<Record<string, unknown>>("request").notNull(),
+    method: mysqlEnum("method", RUN_METHODS).notNull(),
+    qubits: int("qubits").notNull(),
+    shots: bigint("shots", { mode: "number", unsigned: true }).notNull().default(0),
+    seed: bigint("seed", { mode: "number" }).notNull(),
+    status: mysqlEnum("status", RUN_STATUSES).notNull().default("queued"),
+    /** Fraction done in [0, 1], written at most a few times a second. */
+    progress: double("progress").notNull().default(0),
+    phase: varchar("phase", { length: 64 }),
+    error: jsonText<StoredProblem>("error"),
+    result: jsonText<Record<string, unknown>>("result"),
+    idempotencyKey: varchar("idempotency_key", { length: 255 }),
+    /** SHA-256 (hex) of the canonical submitted body, to tell a replay from a key reused for another request. */
+    requestHash: char("request_hash", { length: 64 }).notNull(),
+    /** Times a worker has started this run (re-deliveries after a crash count). */
+    attempts: int("attempts").notNull().default(0),
+    queuedAt: ms3("queued_at").notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    startedAt: ms3("started_at"),
+    finishedAt: ms3("finished_at"),
+    parseMs: double("parse_ms"),
+    simulateMs: double("simulate_ms"),
+    sampleMs: double("sample_ms"),
+  },
+  (t) => [
+    uniqueIndex("runs_org_idempotency").on(t.orgId, t.idempotencyKey),
+    index("runs_org_queued").on(t.orgId, t.queuedAt, t.id),
+    index("runs_org_status_queued").on(t.orgId, t.status, t.queuedAt, t.id),
+  ],
+);
+
+export type Run = typeof runs.$inferSelect;
+export type NewRun = typeof runs.$inferInsert;
