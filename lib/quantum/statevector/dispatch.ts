@@ -3,7 +3,7 @@
  * statevector (bits = qubits) and the density matrix (bits = qubits + n for rows,
  * qubits for columns of the vectorised ρ). Matrix convention as in types.ts.
  */
-import { applyGeneral1q, applyGeneral2q, applyGeneralK, applyReal1q, localOffsets } from "./kernels-general";
+import { applyGeneral1q, applyGeneral2q, applyGeneralK, applyReal1q, applyTwoBlock, localOffsets } from "./kernels-general";
 import {
   applyDiagonal1q,
   applyPermutationSubset,
@@ -12,7 +12,7 @@ import {
   applySubsetGeneral,
   applySwapSubset,
 } from "./kernels-special";
-import { classifyMatrix, subMatrix, ZERO_TOL, type MatrixShape } from "./matrix-classify";
+import { classifyMatrix, subMatrix, twoBlocks, ZERO_TOL, type MatrixShape } from "./matrix-classify";
 
 /** True when every imaginary part of the interleaved matrix is exactly zero. */
 export function isRealMatrix(m: Float64Array): boolean {
@@ -94,6 +94,11 @@ export function applyWithShape(
     return;
   }
   if (active.length === d) {
+    if (shape.blockOperand >= 0) {
+      const [A, B] = twoBlocks(m, shape.blockOperand);
+      applyTwoBlock(re, im, bits[shape.blockOperand], bits[1 - shape.blockOperand], A, B);
+      return;
+    }
     applyDense(re, im, bits, m);
     return;
   }

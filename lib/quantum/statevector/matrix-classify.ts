@@ -4,7 +4,9 @@
  * - identity rows (row i = e_i) are never touched: only the "active" local indices are;
  *   for a controlled-U these are the control=1 subspace, for cx/ccx the two swapped states;
  * - diagonal: only phases (rz, p, cz, crz, rzz, …);
- * - permutation-type: one non-zero per row — for a unitary its modulus is 1 (x, y, cx, swap, ccx).
+ * - permutation-type: one non-zero per row — for a unitary its modulus is 1 (x, y, cx, swap, ccx);
+ * - two-block (2-qubit only): block-diagonal in one operand's basis, U = |0⟩⟨0| ⊗ A + |1⟩⟨1| ⊗ B
+ *   (a cx fused with gates on its target), applied at the cost of a 1-qubit gate.
  * Entries with |re|, |im| ≤ ZERO_TOL count as zero (rounding noise of products of exact gates).
  */
 
@@ -20,6 +22,8 @@ export interface MatrixShape {
   source: number[];
   /** True when every imaginary part is zero. */
   real: boolean;
+  /** 2-qubit block-diagonal form: which operand (0 = first, 1 = second) selects the block; −1: none. */
+  blockOperand: number;
 }
 
 function isZero(re: number, im: number): boolean {
@@ -55,7 +59,26 @@ export function classifyMatrix(m: Float64Array, d: number): MatrixShape {
     source.push(src);
     if (!identityRow) active.push(r);
   }
-  return { active, diagonal, permutation, source, real };
+  return { active, diagonal, permutation, source, real, blockOperand: d === 4 ? twoBlockOperand(m) : -1 };
+}
+
+/** For a 4×4 matrix: 0 if block-diagonal in the first operand's basis, 1 if in the second's, else −1. */
+function twoBlockOperand(m: Float64Array): number {
+  for (const operand of [0, 1]) {
+    const bit = operand === 0 ? 2 : 1; // local-index bit of that operand
+    let ok = true;
+    for (let r = 0; r < 4 && ok; r++)
+      for (let c = 0; c < 4 && ok; c++)
+        if ((r & bit) !== (c & bit) && !isZero(m[2 * (r * 4 + c)], m[2 * (r * 4 + c) + 1])) ok = false;
+    if (ok) return operand;
+  }
+  return -1;
+}
+
+/** The two 2×2 blocks (selector operand = 0, then = 1) of a two-block 4×4 matrix. */
+export function twoBlocks(m: Float64Array, operand: number): [Float64Array, Float64Array] {
+  const idx = operand === 0 ? [[0, 1], [2, 3]] : [[0, 2], [1, 3]];
+  return [subMatrix(m, 4, idx[0]), subMatrix(m, 4, idx[1])];
 }
 
 /** The square sub-matrix on the given local indices (rows and columns), interleaved. */

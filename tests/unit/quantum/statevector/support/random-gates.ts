@@ -62,8 +62,8 @@ function phase(rng: Rng): [number, number] {
   return [Math.cos(a), Math.sin(a)];
 }
 
-export type GateKind = "dense" | "real" | "diagonal" | "phase1" | "permutation" | "swap" | "controlled" | "identity";
-export const GATE_KINDS: GateKind[] = ["dense", "real", "diagonal", "phase1", "permutation", "swap", "controlled", "identity"];
+export type GateKind = "dense" | "real" | "diagonal" | "phase1" | "permutation" | "swap" | "controlled" | "twoBlock" | "identity";
+export const GATE_KINDS: GateKind[] = ["dense", "real", "diagonal", "phase1", "permutation", "swap", "controlled", "twoBlock", "identity"];
 
 /** A random d×d matrix of the given structural kind (always unitary). */
 export function randomMatrix(rng: Rng, d: number, kind: GateKind): Float64Array {
@@ -133,6 +133,19 @@ export function randomMatrix(rng: Rng, d: number, kind: GateKind): Float64Array 
       for (let i = 0; i < d - 2; i++) set(i, i, 1, 0);
       const u = randomUnitary(rng, 2);
       for (let r = 0; r < 2; r++) for (let c = 0; c < 2; c++) set(d - 2 + r, d - 2 + c, u[2 * (2 * r + c)], u[2 * (2 * r + c) + 1]);
+      return m;
+    }
+    case "twoBlock": {
+      // block-diagonal in the basis of one operand (the first, or for d = 4 either):
+      // U = |0⟩⟨0| ⊗ A + |1⟩⟨1| ⊗ B with random unitaries A, B on the other operand(s)
+      if (d === 2) return randomUnitary(rng, 2);
+      const h = d / 2;
+      const bit = d === 4 && rng.float() < 0.5 ? 1 : h; // local-index bit of the selector operand
+      for (let sel = 0; sel < 2; sel++) {
+        const u = randomUnitary(rng, h);
+        const rows = Array.from({ length: d }, (_, i) => i).filter((i) => ((i & bit) !== 0) === (sel === 1));
+        for (let r = 0; r < h; r++) for (let c = 0; c < h; c++) set(rows[r], rows[c], u[2 * (r * h + c)], u[2 * (r * h + c) + 1]);
+      }
       return m;
     }
     case "identity":

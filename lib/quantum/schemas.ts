@@ -1,0 +1,209 @@
+/**
+ * The engine's request and result shapes (DESIGN.md §4) as zod 4 schemas — the one
+ * definition shared by forms, route handlers, the worker and the OpenAPI document
+ * (the `.describe()` texts become its descriptions). Plain zod: the API layer registers
+ * them with @asteasolutions/zod-to-openapi.
+ *
+ * Request objects are strict: an unknown field is an error, not silently dropped.
+ */
+import { z } from "zod";
+import { MAX_SEED } from "./sampling/rng";
+import { MAX_SHOTS } from "./sampling/sample-observable";
+
+/** Largest circuit source / Pauli text accepted (characters). */
+export const MAX_SOURCE_CHARS = 1_000_000;
+/** Largest parameter-sweep grid (product of the value-list lengths). */
+export const MAX_SWEEP_POINTS = 10_000;
+/** Rows and columns of a matrix observable (2^8: its eigendecomposition stays within seconds). */
+const MAX_MATRIX_DIM = 256;
+
+const probability = z.number().min(0).max(1);
+
+const matrixPart = (name: string) =>
+  z
+    .array(z.array(z.number()).max(MAX_MATRIX_DIM, `matrix observables are limited to 8 qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`))
+    .min(1)
+    .max(MAX_MATRIX_DIM, `matrix observables are limited to 8 qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`)
+    .describe(`${name} part of the matrix, row-major; row/column index bit k is qubit k`);
+
+export const circuitInputSchema = z
+  .strictObject({
+    format: z.enum(["qasm2", "qasm3"]).describe('"qasm2" (OpenQASM 2.0) or "qasm3" (the OpenQASM 3 subset with inputs)'),
+    source: z.string().min(1, "the circuit source is empty").max(MAX_SOURCE_CHARS).describe("Program text"),
+  })
+  .describe("The circuit that prepares the state");
+
+export const pauliObservableSchema = z
+  .strictObject({
+    format: z.literal("pauli"),
+    terms: z
+      .string()
+      .min(1, "the observable is empty")
+      .max(MAX_SOURCE_CHARS)
+      .describe('Weighted Pauli sum, e.g. "0.5 Z0 Z1 - 0.2 X0" or dense "XIZY"; qubit 0 first'),
+  })
+  .describe("Observable as a real-weighted sum of Pauli words");
+
+export const matrixObservableSchema = z
+  .strictObject({
+    format: z.literal("matrix"),
+    real: matrixPart("Real"),
+    imag: matrixPart("Imaginary").optional(),
+  })
+  .describe("Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)");
+
+export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema]);
+
+export const noiseModelSchema = z
+  .strictObject({
+    depolarizing1q: probability.optional().describe("Depolarizing probability after each 1-qubit gate"),
+    depolarizing2q: probability.optional().describe("Depolarizing probability after each gate on 2 or more qubits"),
+    amplitudeDamping: probability.optional().describe("Amplitude damping γ on each qubit a gate touches"),
+    phaseDamping: probability.optional().describe("Phase damping λ on each qubit a gate touches"),
+    readout: z
+      .strictObject({
+        p1Given0: probability.optional().describe("Probability of reading 1 when the qubit is 0"),
+        p0Given1: probability.optional().describe("Probability of reading 0 when the qubit is 1"),
+      })
+      .optional()
+      .describe("Readout error on sampled outcomes (the same for every qubit)"),
+  })
+  .describe("Noise model; gate noise needs the density-matrix method");
+
+export const estimateRequestSchema = z
+  .strictObject({
+    circuit: circuitInputSchema,
+    observable: observableInputSchema,
+    method: z.enum(["statevector", "density_matrix"]).optional().describe('Simulation method (default "statevector")'),
+    shots: z.int().min(0).max(MAX_SHOTS).optional().describe("Total shots over all measurement settings; 0 = exact only (default 0)"),
+    seed: z.int().min(0).max(MAX_SEED).optional().describe("PRNG seed; chosen and returned when absent"),
+    parameters: z.record(z.string(), z.number()).optional().describe("Values of the circuit's OpenQASM 3 inputs"),
+    noise: noiseModelSchema.optional(),
+    mitigateReadout: z.boolean().optional().describe("Also report the readout-mitigated sampled value"),
+    targetPrecision: z.number().positive().optional().describe("Target standard error; chooses the number of shots"),
+    shotSplit: z.enum(["optimal", "even"]).optional().describe('Shot split over settings: ∝ √Var (default "optimal") or even'),
+    sweep: z
+      .record(z.string(), z.array(z.number()).min(1).max(MAX_SWEEP_POINTS))
+      .optional()
+      .describe("Parameter grid: each named input takes every listed value (Cartesian product)"),
+  })
+  .superRefine((req, ctx) => {
+    if (req.targetPrecision !== undefined && (req.shots ?? 0) > 0) {
+      ctx.addIssue({ code: "custom", path: ["targetPrecision"], message: "give either shots or targetPrecision, not both" });
+    }
+    if (req.sweep) {
+      const points = Object.values(req.sweep).reduce((a, v) => a * v.length, 1);
+      if (points > MAX_SWEEP_POINTS) {
+        ctx.addIssue({ code: "custom", path: ["sweep"], message: `the sweep grid has ${points} points; at most ${MAX_SWEEP_POINTS}` });
+      }
+    }
+  })
+  .describe("An expectation-value run: circuit, observable and how to estimate");
+
+export type EstimateRequest = z.infer<typeof estimateRequestSchema>;
+
+const estimateSchema = z.object({
+  mean: z.number(),
+  stdErr: z.number().describe("Standard error of the mean"),
+  ci95: z.tuple([z.number(), z.number()]).describe("95 % normal interval"),
+});
+
+export const convergencePointSchema = z.object({
+  shots: z.int().describe("Shots used so far (a prefix of every setting)"),
+  mean: z.number(),
+  stdErr: z.number(),
+});
+
+export const shotPlanSchema = z
+  .object({
+    targetPrecision: z.number(),
+    settings: z.int(),
+    worstCase: z.object({ totalShots: z.number(), perSetting: z.array(z.number()) }).describe("(Σ|c_i|)²/ε², valid for any state"),
+    stateAware: z
+      .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
+      .nullable()
+      .describe("(Σ_g √Var_g)²/ε² from the state's exact variances"),
+  })
+  .describe("Shots needed for a target standard error (McClean et al. 2016)");
+
+export const estimateResultSchema = z
+  .object({
+    qubits: z.int(),
+    method: z.enum(["statevector", "density_matrix"]),
+    seed: z.int(),
+    ideal: z.object({ value: z.number() }).describe("Noiseless exact ⟨ψ|A|ψ⟩"),
+    exact: z.object({ value: z.number() }).describe("Exact value under the noise model, Tr(ρA) (no readout error)"),
+    sampled: estimateSchema
+      .extend({
+        shots: z.int(),
+        settings: z.int(),
+        convergence: z.array(convergencePointSchema).describe("Running estimate at log-spaced shot counts"),
+      })
+      .nullable()
+      .describe("Estimate from shots (readout error included), or null without shots"),
+    mitigated: estimateSchema.optional().describe("Readout-mitigated sampled value (tensored inverse)"),
+    terms: z.array(
+      z.object({
+        pauli: z.string().describe("Dense Pauli word, qubit 0 first"),
+        label: z.string().describe('Sparse label, e.g. "X0 Z3"'),
+        coefficient: z.number(),
+        exact: z.number().describe("Exact ⟨P⟩ under the noise model"),
+        sampledMean: z.number().optional(),
+        stdErr: z.number().optional(),
+        mitigatedMean: z.number().optional(),
+        mitigatedStdErr: z.number().optional(),
+        group: z.int().nullable().describe("Index of the measurement setting (null for the identity)"),
+      }),
+    ),
+    groups: z.array(
+      z.object({
+        bases: z.string().describe('Basis per qubit, qubit 0 first (X, Y, Z, I = unmeasured), or "eigenbasis"'),
+        terms: z.array(z.int()),
+        shots: z.int(),
+        counts: z.record(z.string(), z.int()).optional().describe("Histogram keyed by bitstring, qubit 0 first"),
+        distinctOutcomes: z.int().optional(),
+        variance: z.number().optional().describe("Exact single-shot variance of the setting"),
+        eigenvalues: z.array(z.number()).optional().describe("Matrix observables: value of each outcome index"),
+      }),
+    ),
+    spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable"),
+    shotPlan: shotPlanSchema.optional(),
+    sweep: z
+      .object({
+        parameters: z.array(z.string()),
+        points: z.array(
+          z.object({
+            params: z.record(z.string(), z.number()),
+            ideal: z.number(),
+            exact: z.number(),
+            sampled: estimateSchema.extend({ shots: z.int() }).nullable(),
+          }),
+        ),
+      })
+      .optional(),
+    timings: z.object({ parseMs: z.number(), simulateMs: z.number(), sampleMs: z.number(), spectrumMs: z.number() }),
+  })
+  .describe("Result of an expectation-value run");
+
+export type EstimateResult = z.infer<typeof estimateResultSchema>;
+
+export const previewResultSchema = z
+  .object({
+    qubits: z.int(),
+    method: z.enum(["statevector", "density_matrix"]),
+    gateCounts: z.record(z.string(), z.int()),
+    totalGates: z.int(),
+    twoQubitGates: z.int(),
+    depth: z.int(),
+    observable: z.object({ format: z.enum(["pauli", "matrix"]), terms: z.int(), settings: z.int() }),
+    groups: z.array(z.object({ bases: z.string(), terms: z.array(z.int()) })),
+    sweepPoints: z.int(),
+    shots: z.int().describe("Shots per sweep point (planned from targetPrecision when given)"),
+    shotPlan: shotPlanSchema.nullable(),
+    shotsPerSetting: z.array(z.int()).nullable(),
+    varianceSource: z.enum(["worst_case"]).describe("Preview plans from worst-case bounds; runs use the state's variances"),
+    notes: z.array(z.string()),
+  })
+  .describe("Cheap preview of a run: no simulation");
+
+export type PreviewResult = z.infer<typeof previewResultSchema>;
