@@ -1,0 +1,122 @@
+/**
+ * Agreement between a sampled estimate and the exact value it should scatter around.
+ *
+ * z = (mean − reference) / stdErr. Under the central limit theorem the sampled mean of N
+ * shots is approximately normal around the exact value, so the two-sided p-value is
+ * p = 2·(1 − Φ(|z|)) = erfc(|z|/√2). The verdict calls |z| ≤ 3 (p ≥ 0.0027, the common
+ * "three sigma" practice) consistent and anything beyond suspicious: at 1.96 a correct
+ * sampler would be flagged in one run of twenty, at 3 in fewer than three of a thousand.
+ *
+ * The exact value under noise never contains readout error while the raw sampled value
+ * does (DESIGN.md §2), so with readout error the raw mean is biased by design; the fair
+ * comparison is then the readout-mitigated mean, which `pickComparison` selects.
+ */
+
+export const Z_THRESHOLD = 3;
+
+/** Half-width multiplier of a 95 % normal interval (Φ⁻¹(0.975), common practice). */
+export const Z95 = 1.959963984540054;
+
+export type VerdictKind = "consistent" | "suspicious" | "exact" | "unavailable";
+
+export type Verdict = {
+  kind: VerdictKind;
+  /** (mean − reference)/stdErr; null when stdErr is 0 or a value is missing. */
+  z: number | null;
+  /** Two-sided normal p-value of |z|; null with z. */
+  p: number | null;
+  deviation: number | null;
+};
+
+/**
+ * Complementary error function, fractional error < 1.2e-7 everywhere (Chebyshev fit,
+ * W. H. Press et al., Numerical Recipes in C, 2nd ed., §6.2, `erfcc`).
+ */
+export function erfc(x: number): number {
+  const z = Math.abs(x);
+  const t = 1 / (1 + 0.5 * z);
+  const ans =
+    t *
+    Math.exp(
+      -z * z -
+        1.26551223 +
+        t *
+          (1.00002368 +
+            t *
+              (0.37409196 +
+                t *
+                  (0.09678418 +
+                    t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
+    );
+  return x >= 0 ? ans : 2 - ans;
+}
+
+/** p = 2·(1 − Φ(|z|)) = erfc(|z|/√2). */
+export function twoSidedP(z: number): number {
+  return Math.min(1, erfc(Math.abs(z) / Math.SQRT2));
+}
+
+export function zScore(mean: number, reference: number, stdErr: number): number | null {
+  if (![mean, reference, stdErr].every(Number.isFinite) || stdErr <= 0) return null;
+  return (mean - reference) / stdErr;
+}
+
+/**
+ * Verdict for a sampled mean ± stdErr against a reference. A zero standard error (every
+ * shot gave the same outcome, e.g. an eigenstate) is "exact" when the values agree to
+ * `tolerance` (relative to the larger magnitude, at least absolute 1e-12), else suspicious.
+ */
+export function agreementVerdict(
+  sample: { mean: number; stdErr: number } | null | undefined,
+  reference: number | null | undefined,
+  { threshold = Z_THRESHOLD, tolerance = 1e-9 }: { threshold?: number; tolerance?: number } = {},
+): Verdict {
+  if (!sample || reference === null || reference === undefined) {
+    return { kind: "unavailable", z: null, p: null, deviation: null };
+  }
+  const deviation = sample.mean - reference;
+  if (!Number.isFinite(deviation) || !Number.isFinite(sample.stdErr) || sample.stdErr < 0) {
+    return { kind: "unavailable", z: null, p: null, deviation: null };
+  }
+  if (sample.stdErr === 0) {
+    const scale = Math.max(Math.abs(sample.mean), Math.abs(reference), 1e-3);
+    const agrees = Math.abs(deviation) <= Math.max(tolerance * scale, 1e-12);
+    return { kind: agrees ? "exact" : "suspicious", z: null, p: null, deviation };
+  }
+  const z = deviation / sample.stdErr;
+  return { kind: Math.abs(z) <= threshold ? "consistent" : "suspicious", z, p: twoSidedP(z), deviation };
+}
+
+export type ComparisonChoice = {
+  /** Which estimate the verdict is about. */
+  basis: "raw" | "mitigated";
+  /** True when the raw mean carries readout error the exact value lacks. */
+  readoutBiased: boolean;
+};
+
+/** Chooses the estimate to compare with the exact value (see module doc). */
+export function pickComparison(opts: {
+  readout?: { p1Given0?: number | null; p0Given1?: number | null } | null;
+  hasMitigated: boolean;
+}): ComparisonChoice {
+  const e0 = opts.readout?.p1Given0 ?? 0;
+  const e1 = opts.readout?.p0Given1 ?? 0;
+  const readoutBiased = e0 > 0 || e1 > 0;
+  return { basis: readoutBiased && opts.hasMitigated ? "mitigated" : "raw", readoutBiased };
+}
+
+/** Plain-language sentence for a verdict, e.g. for the panel's summary line. */
+export function verdictSentence(v: Verdict, label: string): string {
+  switch (v.kind) {
+    case "consistent":
+      return `The ${label} mean lies ${Math.abs(v.z ?? 0).toFixed(2)} standard errors from the exact value — consistent with shot noise.`;
+    case "suspicious":
+      return v.z === null
+        ? `The ${label} mean has no spread but differs from the exact value — look at the inputs.`
+        : `The ${label} mean lies ${Math.abs(v.z).toFixed(2)} standard errors from the exact value — more than shot noise explains (p = ${v.p?.toExponential(1)}).`;
+    case "exact":
+      return `Every shot gave the same outcome; the ${label} mean equals the exact value.`;
+    default:
+      return "No sampled value to compare (the run computed exact values only).";
+  }
+}

@@ -1,0 +1,68 @@
+/**
+ * Run downloads: the whole run as JSON, the per-term table and the per-setting counts
+ * as CSV. Structural input types, so the engine's EstimateResult (DESIGN.md §4) and the
+ * API's run resource fit without a conversion.
+ *
+ * Conventions kept in the files: Pauli words and bitstrings read qubit 0 first
+ * (DESIGN.md §2); a setting is named by its bases word (e.g. "XXI"), one letter per qubit.
+ */
+import { toCsv, type CsvCell } from "./csv";
+
+export type ExportTerm = {
+  pauli: string;
+  coefficient: number;
+  exact: number | null;
+  sampledMean?: number | null;
+  stdErr?: number | null;
+  group?: number | null;
+};
+
+export type ExportGroup = {
+  bases: string;
+  terms?: readonly number[];
+  shots: number;
+  counts?: Record<string, number> | null;
+};
+
+export type ExportResult = { terms: readonly ExportTerm[]; groups: readonly ExportGroup[] };
+
+/** Pretty JSON (two-space indent, trailing newline) of any run resource. */
+export function runJson(run: unknown): string {
+  return `${JSON.stringify(run, null, 2)}\n`;
+}
+
+/** One row per Pauli term: word, coefficient, exact ⟨P⟩, sampled ⟨P⟩, its standard error, setting. */
+export function termsCsv(result: ExportResult): string {
+  const rows: CsvCell[][] = [["pauli", "coefficient", "exact", "sampled_mean", "std_err", "setting", "setting_bases"]];
+  for (const t of result.terms) {
+    const g = typeof t.group === "number" ? result.groups[t.group] : undefined;
+    rows.push([t.pauli, t.coefficient, t.exact, t.sampledMean, t.stdErr, t.group, g?.bases]);
+  }
+  return toCsv(rows);
+}
+
+/**
+ * One row per (setting, bitstring) with its count, bitstrings sorted in reading order
+ * (as binary numbers with qubit 0 as the most significant character).
+ */
+export function countsCsv(result: ExportResult): string {
+  const rows: CsvCell[][] = [["setting", "setting_bases", "bitstring", "count", "setting_shots"]];
+  result.groups.forEach((g, i) => {
+    const entries = Object.entries(g.counts ?? {}).sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
+    for (const [bits, count] of entries) rows.push([i, g.bases, bits, count, g.shots]);
+  });
+  return toCsv(rows);
+}
+
+/** A file-name stem from a run name and id: lower-case letters, digits and dashes only. */
+export function fileStem(name: string | null | undefined, id: string): string {
+  const slug = (name ?? "")
+    .normalize("NFKD")
+    .replace(/[\u0300-\u036f]/g, "")
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, "-")
+    .replace(/^-+|-+$/g, "")
+    .slice(0, 48);
+  const shortId = id.replace(/[^A-Za-z0-9]/g, "").slice(0, 8);
+  return slug ? `${slug}-${shortId}` : `run-${shortId}`;
+}

@@ -1,0 +1,68 @@
+import jStat from "jstat";
+import { describe, expect, it } from "vitest";
+import { Z95, agreementVerdict, erfc, pickComparison, twoSidedP, zScore } from "@/components/runs/verdict";
+
+describe("erfc and the two-sided p-value", () => {
+  it("matches jStat's normal CDF: p = 2(1 − Φ(|z|)) (reference library jstat)", () => {
+    for (const z of [0, 0.3, 1, 1.959963984540054, 2.5, 3, 4, 5.5]) {
+      const ref = 2 * (1 - jStat.normal.cdf(z, 0, 1));
+      expect(twoSidedP(z)).toBeCloseTo(ref, 6);
+      expect(twoSidedP(-z)).toBeCloseTo(ref, 6);
+    }
+  });
+  it("erfc(0) = 1, erfc(1) = 0.157299207 (A&S Table 7.1, value from memory), erfc(−x) = 2 − erfc(x)", () => {
+    expect(erfc(0)).toBeCloseTo(1, 7);
+    expect(erfc(1)).toBeCloseTo(0.157299207, 7);
+    expect(erfc(-0.7)).toBeCloseTo(2 - erfc(0.7), 12);
+  });
+  it("Z95 is the 97.5 % normal quantile (jstat inverse CDF)", () => {
+    expect(Z95).toBeCloseTo(jStat.normal.inv(0.975, 0, 1), 9);
+    expect(twoSidedP(Z95)).toBeCloseTo(0.05, 6);
+  });
+});
+
+describe("agreementVerdict", () => {
+  it("computes z = (mean − exact)/stdErr", () => {
+    expect(zScore(-1.1372, -1.1380, 0.0008)).toBeCloseTo(1, 9);
+    expect(zScore(1, 1, 0)).toBeNull();
+  });
+  it("calls |z| ≤ 3 consistent and beyond suspicious (three-sigma rule, common practice)", () => {
+    expect(agreementVerdict({ mean: 0.51, stdErr: 0.01 }, 0.5).kind).toBe("consistent");
+    expect(agreementVerdict({ mean: 0.529, stdErr: 0.01 }, 0.5).kind).toBe("consistent");
+    const off = agreementVerdict({ mean: 0.55, stdErr: 0.01 }, 0.5);
+    expect(off.kind).toBe("suspicious");
+    expect(off.z).toBeCloseTo(5, 9);
+    expect(off.p).toBeLessThan(1e-6);
+  });
+  it("treats zero spread as exact only when the values agree", () => {
+    expect(agreementVerdict({ mean: 1, stdErr: 0 }, 1).kind).toBe("exact");
+    expect(agreementVerdict({ mean: 1, stdErr: 0 }, 0.9).kind).toBe("suspicious");
+  });
+  it("is unavailable without a sample", () => {
+    expect(agreementVerdict(null, 1).kind).toBe("unavailable");
+  });
+  it("about 95 % of normal draws fall within the 95 % interval (simulation, seeded LCG)", () => {
+    // Box–Muller normals from a fixed linear congruential generator (Numerical Recipes constants).
+    let s = 12345;
+    const u = () => ((s = (1664525 * s + 1013904223) % 2 ** 32) + 0.5) / 2 ** 32;
+    let inside = 0;
+    let consistent = 0;
+    const n = 20_000;
+    for (let i = 0; i < n; i++) {
+      const z = Math.sqrt(-2 * Math.log(u())) * Math.cos(2 * Math.PI * u());
+      if (Math.abs(z) <= Z95) inside++;
+      if (agreementVerdict({ mean: 0.2 + 0.01 * z, stdErr: 0.01 }, 0.2).kind === "consistent") consistent++;
+    }
+    expect(inside / n).toBeGreaterThan(0.94);
+    expect(inside / n).toBeLessThan(0.96);
+    expect(consistent / n).toBeGreaterThan(0.995); // P(|z| ≤ 3) = 0.9973
+  });
+});
+
+describe("pickComparison — readout error biases the raw mean (DESIGN.md §2)", () => {
+  it("compares the mitigated mean when readout error is present and mitigation ran", () => {
+    expect(pickComparison({ readout: { p1Given0: 0.02 }, hasMitigated: true })).toEqual({ basis: "mitigated", readoutBiased: true });
+    expect(pickComparison({ readout: { p1Given0: 0.02 }, hasMitigated: false })).toEqual({ basis: "raw", readoutBiased: true });
+    expect(pickComparison({ readout: null, hasMitigated: false })).toEqual({ basis: "raw", readoutBiased: false });
+  });
+});
