@@ -40,6 +40,14 @@ export const envSchema = z.object({
   MARIADB_PORT: port.default(3307),
   REDIS_PORT: port.default(6380),
   PORT: port.default(3000),
+  /** Jobs one worker process runs at once (each in its own engine thread). */
+  WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+  /** Requests per minute per API key or user on /api/v1 (raised only for load tests). */
+  API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(300),
+  /** Run submissions per minute per person (all their keys and their session together). */
+  RUN_SUBMIT_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(60),
+  /** Queued + running runs an organisation may hold before submissions answer 429. */
+  RUNS_MAX_UNFINISHED: z.coerce.number().int().min(1).default(100),
 });
 
 export type Env = z.infer<typeof envSchema>;
