@@ -6,6 +6,8 @@ const root = fileURLToPath(new URL(".", import.meta.url));
 export default defineConfig({
   resolve: { alias: { "@": root, "server-only": `${root}tests/support/server-only.ts` } },
   test: {
+    // next-auth imports "next/server" without an extension; let Vite resolve it.
+    server: { deps: { inline: ["next-auth"] } },
     projects: [
       {
         extends: true,
@@ -17,6 +19,8 @@ export default defineConfig({
           name: "integration",
           include: ["tests/integration/**/*.test.ts"],
           environment: "node",
+          setupFiles: ["tests/support/test-env.ts"],
+          globalSetup: ["tests/support/integration-global-setup.ts"],
           testTimeout: 60_000,
           hookTimeout: 120_000,
           fileParallelism: false,
@@ -28,6 +32,8 @@ export default defineConfig({
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
           environment: "node",
+          setupFiles: ["tests/support/test-env.ts"],
+          globalSetup: ["tests/support/e2e-global-setup.ts"],
           testTimeout: 180_000,
           hookTimeout: 180_000,
           fileParallelism: false,

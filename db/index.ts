@@ -15,7 +15,8 @@ type Holder = { pool?: mysql.Pool; db?: Db };
 // One pool per process, also across Next dev hot reloads.
 const holder = ((globalThis as { __ketwiseDb?: Holder }).__ketwiseDb ??= {});
 
-function connect(): Db {
+/** The connected client itself (for libraries that check its class, like the Auth.js adapter). */
+export function getDb(): Db {
   holder.pool ??= mysql.createPool({
     uri: env.DATABASE_URL,
     timezone: "Z",
@@ -29,7 +30,7 @@ function connect(): Db {
 
 /** Lazily connected database; importing this module opens nothing. */
 export const db: Db = new Proxy({} as Db, {
-  get: (_t, key) => Reflect.get(connect(), key),
+  get: (_t, key) => Reflect.get(getDb(), key),
 });
 
 /** Closes the pool (scripts and tests call this so the process can exit). */

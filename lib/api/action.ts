@@ -16,16 +16,10 @@ import type { z } from "zod";
 import { authorizeMember, requireCurrentOrg, type OrgAccess } from "@/lib/auth/guards";
 import { requireUser } from "@/lib/auth/session";
 import type { Role } from "@/lib/orgs/roles";
+import type { ActionState, FieldErrors } from "./action-state";
 import { isProblemError, newErrorId, zodFieldErrors } from "./problem";
 
-export type FieldErrors = Record<string, string[]>;
-
-export type ActionState<T = unknown> =
-  | { status: "idle" }
-  | { status: "success"; message?: string; data?: T }
-  | { status: "error"; message: string; fieldErrors?: FieldErrors; code?: number };
-
-export const idleState: ActionState = { status: "idle" };
+export { idleState, type ActionState, type FieldErrors } from "./action-state";
 
 function toFieldErrors(list: { path: string; message: string }[]): FieldErrors {
   const out: FieldErrors = {};
@@ -45,6 +39,19 @@ export function errorState(error: unknown): ActionState<never> {
   return { status: "error", message: `Something went wrong on our side (error id ${id}). Try again.`, code: 500 };
 }
 
+/** Text fields of the form, minus anything that looks like a secret. */
+function echoValues(formData: FormData): Record<string, string> {
+  const out: Record<string, string> = {};
+  for (const [key, value] of formData) {
+    if (typeof value === "string" && !/password|secret|token|^\$/i.test(key)) out[key] = value;
+  }
+  return out;
+}
+
+function withValues<T>(state: ActionState<T>, formData: FormData): ActionState<T> {
+  return state.status === "error" ? { ...state, values: echoValues(formData) } : state;
+}
+
 type Body<S extends z.ZodType, C, T> = (input: z.infer<S>, ctx: C) => Promise<ActionState<T> | void>;
 
 function parse<S extends z.ZodType>(schema: S, formData: FormData) {
@@ -62,11 +69,11 @@ const invalid = (error: z.ZodError): ActionState<never> => ({
 export function formAction<S extends z.ZodType, T = unknown>(schema: S, body: Body<S, FormData, T>) {
   return async (_prev: ActionState<T>, formData: FormData): Promise<ActionState<T>> => {
     const parsed = parse(schema, formData);
-    if (!parsed.success) return invalid(parsed.error);
+    if (!parsed.success) return withValues(invalid(parsed.error), formData);
     try {
-      return (await body(parsed.data, formData)) ?? { status: "success" };
+      return withValues((await body(parsed.data, formData)) ?? { status: "success" }, formData);
     } catch (error) {
-      return errorState(error);
+      return withValues(errorState(error), formData);
     }
   };
 }
@@ -77,10 +84,10 @@ export function userAction<S extends z.ZodType, T = unknown>(schema: S, body: Bo
     try {
       const user = await requireUser();
       const parsed = parse(schema, formData);
-      if (!parsed.success) return invalid(parsed.error);
-      return (await body(parsed.data, { userId: user.id })) ?? { status: "success" };
+      if (!parsed.success) return withValues(invalid(parsed.error), formData);
+      return withValues((await body(parsed.data, { userId: user.id })) ?? { status: "success" }, formData);
     } catch (error) {
-      return errorState(error);
+      return withValues(errorState(error), formData);
     }
   };
 }
@@ -100,10 +107,10 @@ export function orgAction<S extends z.ZodType, T = unknown>(
           ? await authorizeMember((await requireUser()).id, orgId, role)
           : await requireCurrentOrg(role);
       const parsed = parse(schema, formData);
-      if (!parsed.success) return invalid(parsed.error);
-      return (await body(parsed.data, access)) ?? { status: "success" };
+      if (!parsed.success) return withValues(invalid(parsed.error), formData);
+      return withValues((await body(parsed.data, access)) ?? { status: "success" }, formData);
     } catch (error) {
-      return errorState(error);
+      return withValues(errorState(error), formData);
     }
   };
 }

@@ -9,7 +9,7 @@ import type { NextAuthConfig } from "next-auth";
 import { DrizzleAdapter } from "@auth/drizzle-adapter";
 import Credentials from "next-auth/providers/credentials";
 import Nodemailer from "next-auth/providers/nodemailer";
-import { db } from "@/db";
+import { getDb } from "@/db";
 import { accounts, sessions, users, verificationTokens } from "@/db/schema";
 import { isProblemError } from "@/lib/api/problem";
 import { env } from "@/lib/env";
@@ -26,7 +26,8 @@ import { personalOrgName } from "./sign-up";
 export const SESSION_MAX_AGE_SECONDS = 7 * 24 * 60 * 60;
 export const MAGIC_LINK_MAX_AGE_SECONDS = 15 * 60;
 
-async function authorizeWithPassword(raw: Partial<Record<string, unknown>>, request: Request) {
+/** Credentials check: rate limit (IP + e-mail), then bcrypt; null for any mismatch. Exported for tests. */
+export async function authorizeWithPassword(raw: Partial<Record<string, unknown>>, request: Request) {
   const parsed = signInSchema.safeParse(raw);
   if (!parsed.success) return null;
   const { email, password } = parsed.data;
@@ -45,7 +46,7 @@ async function authorizeWithPassword(raw: Partial<Record<string, unknown>>, requ
 
 export function authConfig(): NextAuthConfig {
   return {
-    adapter: DrizzleAdapter(db, {
+    adapter: DrizzleAdapter(getDb(), {
       usersTable: users,
       accountsTable: accounts,
       sessionsTable: sessions,

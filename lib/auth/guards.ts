@@ -12,6 +12,7 @@
  */
 import "server-only";
 import { cookies } from "next/headers";
+import { cache } from "react";
 import { forbidden, notFound } from "@/lib/api/problem";
 import { getMembership, listMembershipsForUser, type MembershipWithOrg, type OrgSummary } from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
@@ -54,15 +55,15 @@ export function pickCurrentOrg(memberships: MembershipWithOrg[], preferredOrgId:
 
 export type CurrentOrg = { user: SessionUser; current: OrgAccess | null; memberships: MembershipWithOrg[] };
 
-/** The signed-in user, their memberships and the organisation chosen in the UI. */
-export async function getCurrentOrg(): Promise<CurrentOrg> {
+/** The signed-in user, their memberships and the organisation chosen in the UI (once per request). */
+export const getCurrentOrg = cache(async (): Promise<CurrentOrg> => {
   const user = await requireUser();
   const memberships = await listMembershipsForUser(user.id);
   const preferred = (await cookies()).get(ORG_COOKIE)?.value;
   const picked = pickCurrentOrg(memberships, preferred);
   const current = picked ? { userId: user.id, org: picked.org, role: picked.role } : null;
   return { user, current, memberships };
-}
+});
 
 /** For actions on "the current organisation": OrgAccess with at least `role`, or 401/404/403. */
 export async function requireCurrentOrg(role: Role = "viewer"): Promise<OrgAccess> {

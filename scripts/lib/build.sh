@@ -6,7 +6,7 @@ build_if_stale() {
   if [[ -f $stamp && -z ${FORCE_BUILD:-} ]]; then
     local newer
     newer="$(cd "$ROOT" && find app components lib db public worker next.config.mjs postcss.config.mjs \
-      tsconfig.json package-lock.json -newer "$stamp" -type f -print -quit 2>/dev/null || true)"
+      tsconfig.json tsconfig.build.json package-lock.json -newer "$stamp" -type f -print -quit 2>/dev/null || true)"
     if [[ -z $newer ]]; then log "build in $dist is up to date"; return 0; fi
   fi
   log "building the app (next build → $dist)"

@@ -1,0 +1,42 @@
+import type { Metadata } from "next";
+import Link from "next/link";
+import { Alert } from "@/components/ui/alert";
+import { buttonClasses } from "@/components/ui/button";
+import { env } from "@/lib/env";
+
+export const metadata: Metadata = { title: "Check your e-mail" };
+
+export default async function CheckEmailPage({
+  searchParams,
+}: {
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const raw = (await searchParams).email;
+  const email = typeof raw === "string" ? raw : null;
+  const localInbox = env.NODE_ENV !== "production" || env.SMTP_HOST === "127.0.0.1";
+  return (
+    <div className="grid gap-6">
+      <div className="grid gap-1.5">
+        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">Check your e-mail</h1>
+        <p className="text-sm leading-6 text-ink-2">
+          If {email ? <strong className="font-medium text-ink">{email}</strong> : "that address"} can sign
+          in, a link is on its way. It works once and expires in 15 minutes.
+        </p>
+      </div>
+      {localInbox ? (
+        <Alert tone="info" title="Running locally?">
+          Mail goes to the local inbox at{" "}
+          <a href={`http://localhost:${env.MAIL_WEB_PORT}`}>localhost:{env.MAIL_WEB_PORT}</a>.
+        </Alert>
+      ) : null}
+      <div className="flex flex-wrap gap-2">
+        <Link href="/sign-in?tab=link" className={buttonClasses({ variant: "secondary" })}>
+          Send another link
+        </Link>
+        <Link href="/sign-in" className={buttonClasses({ variant: "ghost" })}>
+          Sign in with a password
+        </Link>
+      </div>
+    </div>
+  );
+}

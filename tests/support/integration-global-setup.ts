@@ -1,0 +1,12 @@
+/**
+ * Global setup of the integration project: applies the migrations to the test
+ * database (a no-op when `npm test` already did), so single files can run alone.
+ */
+import "./test-env";
+import { migrate } from "drizzle-orm/mysql2/migrator";
+
+export default async function setup(): Promise<void> {
+  const { db, closeDb } = await import("@/db");
+  await migrate(db, { migrationsFolder: "drizzle" });
+  await closeDb();
+}
