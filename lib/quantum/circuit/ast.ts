@@ -75,4 +75,6 @@ export type Stmt =
 export interface ProgramAst {
   statements: Stmt[];
   source: string;
+  /** Where the first token starts (null for a program of only comments and blanks). */
+  firstToken: { line: number; column: number } | null;
 }

@@ -5,7 +5,7 @@
  * counts, indices, duplicated qubits, undefined registers and parameters, broadcast
  * sizes, non-finite constant expressions.
  */
-import type { Expr, GateCallStmt, Operand, Pos, Stmt } from "./ast";
+import type { Expr, GateCallStmt, Operand, Pos, ProgramAst, Stmt } from "./ast";
 import { circuitError, plural, semanticError, syntaxError, unsupported3 } from "./circuit-errors";
 import { compileExpr, isReservedName, type Compiled, type ExprContext } from "./expressions";
 import { checkArity, GateScope, type Expanded } from "./gate-definitions";
@@ -46,9 +46,9 @@ class ProgramCompiler {
     };
   }
 
-  run(statements: Stmt[]): CompiledProgram {
+  run(statements: Stmt[], firstToken: { line: number; column: number } | null): CompiledProgram {
     if (this.format === "qasm2" && statements[0]?.kind !== "version") {
-      const at = statements[0]?.pos ?? { line: 1, column: 1 };
+      const at = firstToken ?? { line: 1, column: 1 };
       throw syntaxError("an OpenQASM 2.0 program must start with 'OPENQASM 2.0;'", at);
     }
     statements.forEach((s, i) => this.statement(s, i));
@@ -154,8 +154,10 @@ class ProgramCompiler {
     this.gates.chargeInstances(expanded.length * (instances.length - 1), s.namePos);
     const parts = expanded.map((x) => this.template(x));
     for (const qubits of instances) {
-      const dup = qubits.find((q, i) => qubits.indexOf(q) !== i);
-      if (dup !== undefined) throw semanticError(`qubit ${this.regs.qubitLabel(dup)} used twice in one gate`, s.pos);
+      const second = qubits.findIndex((q, i) => qubits.indexOf(q) !== i);
+      if (second >= 0) {
+        throw semanticError(`qubit ${this.regs.qubitLabel(qubits[second])} used twice in one gate`, s.args[second].pos);
+      }
       this.touch(qubits);
       const partQubits = parts.map((t) => t.formals.map((f) => qubits[f]));
       this.push({ kind: "gate", name: s.name, qubits, params, parts, partQubits, line: s.pos.line }, s.pos);
@@ -226,6 +228,6 @@ function describe(name: string, isRegister: boolean, size: number, unit: string)
   return isRegister ? `${name} has ${plural(size, unit)}` : `${name} is a single ${unit}`;
 }
 
-export function compileProgram(format: QasmFormat, statements: Stmt[], source: string): CompiledProgram {
-  return new ProgramCompiler(format, source).run(statements);
+export function compileProgram(format: QasmFormat, ast: ProgramAst): CompiledProgram {
+  return new ProgramCompiler(format, ast.source).run(ast.statements, ast.firstToken);
 }

@@ -127,9 +127,9 @@ export class GateScope {
       }
       if (target.kind === "user" && target.body === null) throw this.opaqueError(target, stmt.namePos);
       checkArity(target, stmt.params.length, stmt.args.length, stmt.namePos);
-      const dup = formals.find((f, i) => formals.indexOf(f) !== i);
-      if (dup !== undefined) {
-        throw semanticError(`qubit argument '${gate.qubits[dup]}' used twice in one gate`, stmt.pos);
+      const second = formals.findIndex((f, i) => formals.indexOf(f) !== i);
+      if (second >= 0) {
+        throw semanticError(`qubit argument '${gate.qubits[formals[second]]}' used twice in one gate`, stmt.args[second].pos);
       }
       for (const e of stmt.params) {
         compileExpr(e, { format: this.format, source: this.source, scope, unknownName: (n) => this.unknownInBody(gate, n) });

@@ -16,5 +16,7 @@ export function parseSource(format: QasmFormat, source: string): ProgramAst {
   parser.input = lexed.tokens;
   const statements = parser.program();
   if (parser.errors.length > 0) throw fromRecognitionError(parser.errors[0]);
-  return { statements, source };
+  const first = lexed.tokens[0];
+  const firstToken = first ? { line: first.startLine ?? 1, column: first.startColumn ?? 1 } : null;
+  return { statements, source, firstToken };
 }

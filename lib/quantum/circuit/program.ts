@@ -50,7 +50,7 @@ export function parseProgram(format: QasmFormat, source: string): ParsedProgram 
   }
   let compiled: CompiledProgram;
   try {
-    compiled = compileProgram(format, parseSource(format, source).statements, source);
+    compiled = compileProgram(format, parseSource(format, source));
   } catch (e) {
     // Pathological nesting (thousands of parentheses) exhausts the call stack.
     if (!isEngineError(e) && e instanceof RangeError) {
