@@ -7,23 +7,18 @@
  * Request objects are strict: an unknown field is an error, not silently dropped.
  */
 import { z } from "zod";
-import { MAX_SEED } from "./sampling/rng";
-import { MAX_SHOTS } from "./sampling/sample-observable";
+import { MAX_MATRIX_QUBITS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
 
-/** Largest circuit source / Pauli text accepted (characters). */
-export const MAX_SOURCE_CHARS = 1_000_000;
-/** Largest parameter-sweep grid (product of the value-list lengths). */
-export const MAX_SWEEP_POINTS = 10_000;
-/** Rows and columns of a matrix observable (2^8: its eigendecomposition stays within seconds). */
-const MAX_MATRIX_DIM = 256;
+/** Rows and columns of a matrix observable (its eigendecomposition stays within seconds). */
+const MAX_MATRIX_DIM = 2 ** MAX_MATRIX_QUBITS;
 
 const probability = z.number().min(0).max(1);
 
 const matrixPart = (name: string) =>
   z
-    .array(z.array(z.number()).max(MAX_MATRIX_DIM, `matrix observables are limited to 8 qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`))
+    .array(z.array(z.number()).max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`))
     .min(1)
-    .max(MAX_MATRIX_DIM, `matrix observables are limited to 8 qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`)
+    .max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`)
     .describe(`${name} part of the matrix, row-major; row/column index bit k is qubit k`);
 
 export const circuitInputSchema = z

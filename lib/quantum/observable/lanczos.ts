@@ -14,11 +14,12 @@
  */
 import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { EngineError } from "../errors";
+import { MAX_SPECTRUM_QUBITS } from "../estimate/limits";
 import type { PauliSum } from "../types";
 import { createRng, nextUniform } from "../sampling/rng";
 import { PauliOperator } from "./pauli-operator";
 
-export const MAX_LANCZOS_QUBITS = 16;
+export const MAX_LANCZOS_QUBITS = MAX_SPECTRUM_QUBITS;
 
 export interface LanczosOptions {
   tol?: number;

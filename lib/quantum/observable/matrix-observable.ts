@@ -6,6 +6,7 @@
  */
 import Complex from "complex.js";
 import { EngineError } from "../errors";
+import { MAX_MATRIX_QUBITS } from "../estimate/limits";
 
 /** Hermitian matrix, row-major d×d, split re/im (symmetrised (H + H†)/2 after the check). */
 export interface HermitianMatrix {
@@ -20,8 +21,6 @@ export interface MatrixObservableInput {
   imag?: number[][];
 }
 
-/** Largest matrix observable accepted (256 × 256: its eigendecomposition stays within seconds). */
-export const MAX_MATRIX_QUBITS = 8;
 export const HERMITIAN_RELATIVE_TOLERANCE = 1e-10;
 
 type Path = (string | number)[];

@@ -11,10 +11,10 @@
 import { uniformFloat64 } from "pure-rand/distribution/uniformFloat64";
 import { xoroshiro128plus } from "pure-rand/generator/xoroshiro128plus";
 import type { JumpableRandomGenerator } from "pure-rand/types/JumpableRandomGenerator";
+import { MAX_SEED } from "../estimate/limits";
 
 export type Rng = JumpableRandomGenerator;
 
-export const MAX_SEED = 0xffffffff;
 
 export function createRng(seed: number): Rng {
   return xoroshiro128plus(seed >>> 0);

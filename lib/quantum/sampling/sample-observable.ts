@@ -10,6 +10,7 @@
  * means, a convergence series and, when asked, the readout-mitigated values.
  */
 import { EngineError } from "../errors";
+import { MAX_SHOTS } from "../estimate/limits";
 import { indexToBitstring } from "../observable/bits";
 import type { MeasurementSetting } from "../observable/grouping";
 import type { HermitianEigen } from "../observable/hermitian-eigen";
@@ -31,8 +32,6 @@ export type PreparedObservable =
   | { kind: "pauli"; sum: PauliSum; settings: MeasurementSetting[] }
   | { kind: "matrix"; matrix: HermitianMatrix; eigen: HermitianEigen };
 
-/** Largest shot count of one request. */
-export const MAX_SHOTS = 100_000_000;
 /** Histograms with more distinct outcomes than this are not returned (only their size). */
 export const MAX_COUNT_KEYS = 4096;
 const LAW_CACHE_BYTES = 256 * 1024 * 1024;

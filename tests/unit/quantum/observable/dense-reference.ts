@@ -47,12 +47,14 @@ export function densityMatrixOf(rho: DensityMatrix): M {
 export function denseExpectation(a: M, s: StateVector): number {
   const v = stateColumn(s);
   const r = math.multiply(math.ctranspose(v), math.multiply(a, v)) as M;
-  return math.re(r.get([0, 0]) as math.Complex) as number;
+  const z = r.get([0, 0]) as math.Complex | number;
+  return typeof z === "number" ? z : z.re;
 }
 
 /** Tr(ρA) (real part). */
 export function denseTrace(a: M, rho: DensityMatrix): number {
-  return math.re(math.trace(math.multiply(densityMatrixOf(rho), a)) as unknown as math.Complex) as number;
+  const z = math.trace(math.multiply(densityMatrixOf(rho), a) as M) as unknown as math.Complex | number;
+  return typeof z === "number" ? z : z.re;
 }
 
 export function complexToArrays(m: M): { real: number[][]; imag: number[][] } {
