@@ -1,5 +1,6 @@
 import type { Metadata, Viewport } from "next";
 import type { ReactNode } from "react";
+import { themeInitScript } from "@/components/shell/theme";
 import { fontVariables } from "./fonts/fonts";
 import "./globals.css";
 
@@ -17,10 +18,14 @@ export const viewport: Viewport = {
   ],
 };
 
-/** Root layout: fonts, global tokens, nothing else (route groups add their own chrome). */
+/** Root layout: fonts, global tokens, the theme choice; route groups add their own chrome. */
 export default function RootLayout({ children }: { children: ReactNode }) {
   return (
     <html lang="en" className={fontVariables} suppressHydrationWarning>
+      <head>
+        {/* Applies a stored light/dark choice before first paint (see components/shell/theme.ts). */}
+        <script dangerouslySetInnerHTML={{ __html: themeInitScript }} />
+      </head>
       <body className="min-h-dvh">{children}</body>
     </html>
   );

@@ -7,7 +7,7 @@ export const controlClasses =
   "placeholder:text-ink-3 transition-[border-color,box-shadow] duration-150 " +
   "hover:border-ink-3/70 focus-visible:outline-none focus-visible:border-focus focus-visible:ring-3 focus-visible:ring-focus/25 " +
   "disabled:cursor-not-allowed disabled:bg-surface-2 disabled:text-ink-3 " +
-  "aria-invalid:border-danger aria-invalid:focus-visible:ring-danger/25 read-only:bg-surface-2";
+  "aria-invalid:border-danger aria-invalid:focus-visible:ring-danger/25";
 
 export const controlSizes = {
   sm: "h-8 px-2.5 text-[13px]",

@@ -67,7 +67,7 @@ export function Field({
     : child;
 
   return (
-    <div className={cn("grid gap-1.5", className)}>
+    <div className={cn("grid content-start gap-1.5", className)}>
       <div className="flex items-baseline justify-between gap-3">
         <Label htmlFor={controlId} required={required} optional={optional}>
           {label}

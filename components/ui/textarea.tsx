@@ -15,6 +15,7 @@ export function Textarea({ mono, className, rows = 4, ...rest }: TextareaProps) 
       rows={rows}
       className={cn(
         controlClasses,
+        "read-only:bg-surface-2",
         "min-h-16 resize-y px-3 py-2 leading-relaxed",
         mono && "font-mono text-[13px] leading-6",
         className,
