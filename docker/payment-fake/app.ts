@@ -121,7 +121,7 @@ export async function startPaymentFake(opts: PaymentFakeOptions): Promise<Runnin
     async close() {
       clearInterval(tick);
       dispatcher.stop();
-      fake.saveNow();
+      fake.close();
       server.closeAllConnections();
       await new Promise<void>((resolve) => server.close(() => resolve()));
     },

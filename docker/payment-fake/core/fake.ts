@@ -46,6 +46,7 @@ export class Fake {
   private listeners: ((event: EventRec) => void)[] = [];
   private saveTimer: NodeJS.Timeout | null = null;
   private override: number | null = null;
+  private closed = false;
 
   constructor(
     readonly config: FakeConfig,
@@ -110,21 +111,32 @@ export class Fake {
   }
 
   scheduleSave(): void {
-    if (!this.config.dataFile || this.saveTimer) return;
+    if (!this.config.dataFile || this.saveTimer || this.closed) return;
     this.saveTimer = setTimeout(() => {
       this.saveTimer = null;
-      this.saveNow();
+      try {
+        this.saveNow();
+      } catch (e) {
+        console.error(`[payment-fake] could not save state to ${this.config.dataFile}:`, e);
+      }
     }, 50);
     this.saveTimer.unref();
   }
 
+  /** Writes the state file at once (atomically: temp file, then rename). */
   saveNow(): void {
     if (this.saveTimer) clearTimeout(this.saveTimer);
     this.saveTimer = null;
     const file = this.config.dataFile;
-    if (!file) return;
+    if (!file || this.closed) return;
     writeFileSync(`${file}.tmp`, JSON.stringify(this.state));
     renameSync(`${file}.tmp`, file);
+  }
+
+  /** Final save; afterwards nothing is written any more. */
+  close(): void {
+    this.saveNow();
+    this.closed = true;
   }
 }
 

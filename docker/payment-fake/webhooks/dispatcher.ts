@@ -115,6 +115,8 @@ export class WebhookDispatcher {
       delivery.status = "failed";
       return;
     }
+    // Deliver to the endpoint configured now (it may have changed since a restart).
+    if (this.settings.url) delivery.url = this.settings.url;
     const payload = JSON.stringify(event, null, 2);
     const signature = signPayload(payload, this.settings.secret, Math.floor(this.fake.realNowMs() / 1000));
     let status: number | null = null;
