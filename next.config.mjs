@@ -4,9 +4,10 @@ const nextConfig = {
   distDir: process.env.NEXT_DIST_DIR || ".next",
   poweredByHeader: false,
   serverExternalPackages: ["mysql2", "bullmq", "ioredis", "bcryptjs"],
-  // The build type-checks what it ships (app, components, lib, db); tests,
-  // scripts, the worker and docker/ are checked by `npm run typecheck`.
-  typescript: { tsconfigPath: "tsconfig.build.json" },
+  // Types are checked once, over the whole project (tests, scripts, worker
+  // included), by `npm test` / `npm run typecheck` — not again by every build.
+  // The build's own tsconfig keeps Next's edits out of tsconfig.json.
+  typescript: { tsconfigPath: "tsconfig.build.json", ignoreBuildErrors: true },
 };
 
 export default nextConfig;

@@ -1,5 +1,5 @@
 #!/usr/bin/env bash
-# npm test: services (+ Chromium) → fresh test database → migrations → every Vitest project.
+# npm test: services (+ Chromium) → fresh test database → migrations → type check → every Vitest project.
 # Extra arguments go to vitest, e.g. `npm test -- --project unit`.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
@@ -16,6 +16,8 @@ redis-cli -p "$REDIS_PORT" -n 1 flushdb >/dev/null
 node --conditions=react-server --import tsx scripts/migrate.ts
 
 export NEXT_TELEMETRY_DISABLED=1
+log "type-checking the whole project (tsc --noEmit)"
+npx tsc --noEmit -p tsconfig.json || die "type errors (above) — fix them before the tests run"
 status=0
 npx vitest run "$@" || status=$?
 log "npm test finished in $((SECONDS - started)) s (exit $status)"

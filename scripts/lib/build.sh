@@ -11,6 +11,6 @@ build_if_stale() {
   fi
   log "building the app (next build → $dist)"
   local started=$SECONDS
-  (cd "$ROOT" && NEXT_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build) || die "next build failed"
+  (cd "$ROOT" && NODE_ENV=production NEXT_DIST_DIR="$dist" NEXT_TELEMETRY_DISABLED=1 npx next build) || die "next build failed"
   log "built in $((SECONDS - started)) s"
 }

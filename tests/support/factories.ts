@@ -35,8 +35,9 @@ export async function createTestUser(label = "user") {
 
 export async function createUserWithOrg(label = "owner") {
   const user = await createTestUser(label);
-  const org = await createOrganization({ name: `Org ${uniqueSuffix()}`, ownerUserId: user.id });
-  return { user, orgId: org.id, slug: org.slug };
+  const name = `Org ${uniqueSuffix()}`;
+  const org = await createOrganization({ name, ownerUserId: user.id });
+  return { user, orgId: org.id, slug: org.slug, name };
 }
 
 export async function addMember(orgId: string, userId: string, role: Role): Promise<void> {
