@@ -51,10 +51,10 @@ function finalMeasurements(circuit: Circuit): boolean[] {
 export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
   const steps: Step[] = [];
   const final = finalMeasurements(circuit);
-  let fuser = new GateFuser(2);
+  let fuser = new GateFuser();
   const flush = (): void => {
     for (const gate of fuser.result()) steps.push({ kind: "unitary", gate });
-    fuser = new GateFuser(2);
+    fuser = new GateFuser();
   };
   circuit.ops.forEach((op, i) => {
     if (op.kind === "gate") {

@@ -55,7 +55,7 @@ export function circuitGates(circuit: Circuit, fuse = true): GateApplication[] {
   const parts: GateApplication[] = [];
   for (const op of circuit.ops) if (op.kind === "gate") parts.push(...op.parts);
   if (!fuse) return parts;
-  const fuser = new GateFuser(2);
+  const fuser = new GateFuser();
   for (const p of parts) fuser.add(p);
   return fuser.result();
 }

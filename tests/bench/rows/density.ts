@@ -1,0 +1,44 @@
+/**
+ * Density-matrix row: 10 qubits (ρ has 4^10 entries = the size of a 20-qubit state), 100
+ * noisy gates (ry on qubit i, then cx(i, i+1), alternating) with every channel switched on.
+ * Reported as time ÷ (100 × one baseline pass over ρ): the number of memcpy-equivalent
+ * passes one noisy gate costs (unitary + depolarizing + damping on each qubit).
+ */
+import { simulateDensityMatrix } from "@/lib/quantum/density-matrix/simulate";
+import type { Circuit, CircuitOp } from "@/lib/quantum/types";
+import { CX, ry } from "../ansatz";
+import { type BenchRow, fmtMs, timeMs } from "../bench-kit";
+
+const N = 10;
+const GATES = 100;
+
+function noisyCircuit(): Circuit {
+  const ops: CircuitOp[] = [];
+  for (let g = 0; g < GATES; g++) {
+    const q = (g >> 1) % N;
+    if (g % 2 === 0) {
+      const m = ry(0.3 + 0.1 * g);
+      ops.push({ kind: "gate", name: "ry", qubits: [q], params: [], parts: [{ name: "ry", qubits: [q], matrix: m }], line: g + 1 });
+    } else {
+      const t = (q + 1) % N;
+      ops.push({ kind: "gate", name: "cx", qubits: [q, t], params: [], parts: [{ name: "cx", qubits: [q, t], matrix: CX }], line: g + 1 });
+    }
+  }
+  return { numQubits: N, numClbits: 0, ops, qubitLabels: [], hasMidCircuitMeasurement: false, hasReset: false };
+}
+
+export const densityRow: BenchRow = (ctx) => {
+  const circuit = noisyCircuit();
+  const noise = { depolarizing1q: 0.001, depolarizing2q: 0.01, amplitudeDamping: 0.002, phaseDamping: 0.003 };
+  const ms = timeMs(() => simulateDensityMatrix(circuit, noise), 3, 1);
+  const base = ctx.copyMs(2 * N);
+  const perGate = ms / (GATES * base);
+  return [
+    {
+      row: `density matrix n=${N}, ${GATES} noisy gates (passes per noisy gate)`,
+      measured: `${fmtMs(ms)} vs ${GATES} × ${fmtMs(base)}`,
+      value: perGate,
+      target: "",
+    },
+  ];
+};
