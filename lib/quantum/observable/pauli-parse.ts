@@ -22,6 +22,8 @@ export interface TermOrigin {
 export interface ParsedPauliSum extends PauliSum {
   /** Length of the dense words when the text used any (all must agree), else null. */
   denseLength: number | null;
+  /** Where the first dense word is written (null without dense words). */
+  denseAt: { line: number; column: number } | null;
   /** `origins[i]` is where `terms[i]` first appears. */
   origins: TermOrigin[];
 }
@@ -214,11 +216,13 @@ function checkDenseConsistency(terms: AnalysedTerm[], issues: EngineIssue[]): vo
 function combine(analysed: AnalysedTerm[]): ParsedPauliSum {
   let numQubits = 0;
   let denseLength: number | null = null;
+  let denseAt: { line: number; column: number } | null = null;
   const byKey = new Map<string, { term: PauliTerm; origin: TermOrigin }>();
   for (const a of analysed) {
     const masks = { x: 0, z: 0 };
     if (a.dense !== null) {
       denseLength = a.dense.length;
+      denseAt ??= a.denseAt;
       numQubits = Math.max(numQubits, a.dense.length);
       for (let q = 0; q < a.dense.length; q++) setLetter(masks, q, a.dense[q] as PauliLetter);
     }
@@ -236,6 +240,7 @@ function combine(analysed: AnalysedTerm[]): ParsedPauliSum {
   return {
     numQubits,
     denseLength,
+    denseAt,
     terms: entries.map((e) => ({ ...e.term, word: masksToWord(e.term.xMask, e.term.zMask, numQubits) })),
     origins: entries.map((e) => e.origin),
   };

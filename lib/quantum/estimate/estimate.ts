@@ -1,0 +1,148 @@
+/**
+ * `estimate(request, { onProgress, signal })` — the engine contract of DESIGN.md §4.
+ *
+ * Order: validate (zod) → parse the circuit and the observable (sizes checked before any
+ * state is allocated) → for each parameter point (one, or the sweep grid): bind, simulate,
+ * exact values, sampling → spectrum (Lanczos for Pauli sums with n ≤ 16, eigenvalues of
+ * a matrix observable). The main result describes the first grid point; with a sweep,
+ * `sweep.points` lists every point. The seed is the request's or a fresh one, returned.
+ */
+import { parseProgram } from "../circuit";
+import { EngineError } from "../errors";
+import { lanczosExtremes } from "../observable/lanczos";
+import { sparseLabel } from "../observable/pauli-word";
+import { chooseSeed } from "../sampling/rng";
+import type { PreparedObservable } from "../sampling/sample-observable";
+import type { EstimateResult } from "../schemas";
+import type { ProgressFn } from "../types";
+import { evaluatePoint, type PointResult } from "./evaluate-point";
+import { MAX_DENSITY_MATRIX_QUBITS, MAX_SPECTRUM_QUBITS, MAX_STATEVECTOR_QUBITS } from "./limits";
+import { prepareObservable } from "./prepare-observable";
+import { Progress } from "./progress";
+import { pointSeed, sweepGrid } from "./sweep-grid";
+import { validateRequest, type NormalisedRequest } from "./validate-request";
+
+export interface EstimateOptions {
+  onProgress?: ProgressFn;
+  signal?: AbortSignal;
+}
+
+/** Rejects circuits beyond the method's qubit ceiling before anything is allocated. */
+export function checkQubitLimit(n: number, method: NormalisedRequest["method"]): void {
+  const max = method === "statevector" ? MAX_STATEVECTOR_QUBITS : MAX_DENSITY_MATRIX_QUBITS;
+  if (n > max) {
+    const kind = method === "statevector" ? "statevector" : "density-matrix";
+    const message = `the circuit has ${n} qubits; the ${kind} method handles at most ${max}`;
+    throw new EngineError("too_large", message, [{ path: ["circuit", "source"], message }]);
+  }
+  if (n < 1) {
+    const message = "the circuit declares no qubits";
+    throw new EngineError("invalid_request", message, [{ path: ["circuit", "source"], message }]);
+  }
+}
+
+export async function estimate(request: unknown, options: EstimateOptions = {}): Promise<EstimateResult> {
+  const root = Progress.root(options.onProgress, options.signal);
+  root.span(0, 0.02, "parse").report(0);
+  const t0 = performance.now();
+  const req = validateRequest(request);
+  const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
+  const n = program.numQubits;
+  checkQubitLimit(n, req.method);
+  const grid = sweepGrid(req.parameters, req.sweep, program.inputs);
+  const circuits = grid.points.length === 1 ? [program.bind(grid.points[0])] : null;
+  const obs = prepareObservable(req.raw.observable, n);
+  const seed = req.raw.seed ?? chooseSeed();
+  const parseMs = performance.now() - t0;
+
+  const spectrumShare = obs.kind === "pauli" && n <= MAX_SPECTRUM_QUBITS ? 0.1 : 0;
+  const work = root.span(0.02, 1 - spectrumShare);
+  const results: PointResult[] = [];
+  for (let k = 0; k < grid.points.length; k++) {
+    const circuit = circuits ? circuits[0] : program.bind(grid.points[k]);
+    const span = work.span(k / grid.points.length, (k + 1) / grid.points.length, "simulate");
+    const r = await evaluatePoint(circuit, obs, req, pointSeed(seed, k), span);
+    // Later sweep points keep only their summary (a 10,000-point grid must stay small).
+    results.push(k === 0 ? r : { ...r, termValues: null, sampling: r.sampling && { ...r.sampling, terms: [], groups: [] } });
+  }
+
+  const t1 = performance.now();
+  const spectrum = await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum"));
+  const spectrumMs = performance.now() - t1;
+  root.span(0, 1, "done").report(1);
+  return assemble(req, obs, n, seed, grid, results, spectrum, {
+    parseMs,
+    simulateMs: results.reduce((a, r) => a + r.simulateMs, 0),
+    sampleMs: results.reduce((a, r) => a + r.sampleMs, 0),
+    spectrumMs,
+  });
+}
+
+async function spectrumOf(obs: PreparedObservable, n: number, progress: Progress): Promise<{ min: number; max: number } | undefined> {
+  if (obs.kind === "matrix") {
+    const v = obs.eigen.values;
+    return { min: v[0], max: v[v.length - 1] };
+  }
+  if (n > MAX_SPECTRUM_QUBITS) return undefined;
+  progress.report(0);
+  const r = await lanczosExtremes(obs.sum, { tick: (f) => progress.tick(f) });
+  return { min: r.min, max: r.max };
+}
+
+function assemble(
+  req: NormalisedRequest,
+  obs: PreparedObservable,
+  n: number,
+  seed: number,
+  grid: ReturnType<typeof sweepGrid>,
+  results: PointResult[],
+  spectrum: { min: number; max: number } | undefined,
+  timings: EstimateResult["timings"],
+): EstimateResult {
+  const main = results[0];
+  const s = main.sampling;
+  const groupOf = new Map<number, number>();
+  if (obs.kind === "pauli") obs.settings.forEach((g, k) => g.terms.forEach((i) => groupOf.set(i, k)));
+  const terms: EstimateResult["terms"] =
+    obs.kind === "pauli"
+      ? obs.sum.terms.map((t, i) => ({
+          pauli: t.word,
+          label: sparseLabel(t.xMask, t.zMask),
+          coefficient: t.coefficient,
+          exact: main.termValues![i],
+          ...(s ? s.terms[i] : {}),
+          group: groupOf.get(i) ?? null,
+        }))
+      : [];
+  const groups: EstimateResult["groups"] = s
+    ? s.groups
+    : obs.kind === "pauli"
+      ? obs.settings.map((g) => ({ bases: g.bases, terms: g.terms, shots: 0 }))
+      : [{ bases: "eigenbasis", terms: [], shots: 0, eigenvalues: Array.from(obs.eigen.values) }];
+  const result: EstimateResult = {
+    qubits: n,
+    method: req.method,
+    seed,
+    ideal: { value: main.ideal },
+    exact: { value: main.exact },
+    sampled: s ? s.sampled : null,
+    terms,
+    groups,
+    timings,
+  };
+  if (s?.mitigated) result.mitigated = s.mitigated;
+  if (spectrum) result.spectrum = spectrum;
+  if (s?.plan) result.shotPlan = s.plan;
+  if (grid.names.length > 0) {
+    result.sweep = {
+      parameters: grid.names,
+      points: results.map((r, k) => ({
+        params: grid.points[k],
+        ideal: r.ideal,
+        exact: r.exact,
+        sampled: r.sampling ? { mean: r.sampling.sampled.mean, stdErr: r.sampling.sampled.stdErr, ci95: r.sampling.sampled.ci95, shots: r.sampling.sampled.shots } : null,
+      })),
+    };
+  }
+  return result;
+}

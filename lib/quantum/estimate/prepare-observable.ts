@@ -1,0 +1,39 @@
+/**
+ * The request's observable over the circuit's n qubits: a padded Pauli sum with its
+ * measurement settings, or a validated Hermitian matrix (dimension 2^n) with its
+ * eigendecomposition (computed once; needed for eigenbasis sampling and the spectrum).
+ */
+import { EngineError } from "../errors";
+import { groupQubitWise } from "../observable/grouping";
+import { hermitianEigen } from "../observable/hermitian-eigen";
+import { parseMatrixObservable } from "../observable/matrix-observable";
+import { parsePauliSum } from "../observable/pauli-parse";
+import { highestQubit, padPauliSum } from "../observable/pauli-word";
+import type { PreparedObservable } from "../sampling/sample-observable";
+import type { EstimateRequest } from "../schemas";
+
+export function prepareObservable(input: EstimateRequest["observable"], n: number): PreparedObservable {
+  if (input.format === "matrix") {
+    const matrix = parseMatrixObservable(input, n);
+    return { kind: "matrix", matrix, eigen: hermitianEigen(matrix) };
+  }
+  const parsed = parsePauliSum(input.terms);
+  const plural = n === 1 ? "" : "s";
+  if (parsed.denseLength !== null && parsed.denseLength !== n) {
+    const at = parsed.denseAt ?? { line: 1, column: 1 };
+    const message = `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`;
+    throw new EngineError("observable_invalid", message, [{ path: ["observable", "terms"], message, line: at.line, column: at.column }]);
+  }
+  if (parsed.numQubits > n) {
+    let worst = 0;
+    parsed.terms.forEach((t, i) => {
+      if (highestQubit(t) > highestQubit(parsed.terms[worst])) worst = i;
+    });
+    const q = Math.max(highestQubit(parsed.terms[worst]), parsed.numQubits - 1);
+    const at = parsed.origins[worst];
+    const message = `observable acts on qubit ${q} but the circuit has ${n} qubit${plural}`;
+    throw new EngineError("observable_invalid", message, [{ path: ["observable", "terms"], message, line: at.line, column: at.column }]);
+  }
+  const sum = padPauliSum(parsed, n);
+  return { kind: "pauli", sum, settings: groupQubitWise(sum) };
+}

@@ -1,0 +1,54 @@
+/**
+ * Request validation: the zod schema first (issues → EngineError "invalid_request" with
+ * their paths), then the checks that need no parsing: method limits, gate noise only
+ * with the density-matrix method. Defaults are applied here (DESIGN.md §4).
+ */
+import { EngineError, type EngineIssue } from "../errors";
+import { hasStateNoise } from "../noise/validate";
+import { estimateRequestSchema, type EstimateRequest } from "../schemas";
+import type { NoiseModel } from "../types";
+
+export interface NormalisedRequest {
+  raw: EstimateRequest;
+  method: "statevector" | "density_matrix";
+  shots: number;
+  targetPrecision: number | null;
+  split: "optimal" | "even";
+  noise: NoiseModel | undefined;
+  readout: { e0: number; e1: number };
+  mitigate: boolean;
+  parameters: Record<string, number>;
+  sweep: Record<string, number[]> | null;
+}
+
+export function validateRequest(request: unknown): NormalisedRequest {
+  const parsed = estimateRequestSchema.safeParse(request);
+  if (!parsed.success) {
+    const issues: EngineIssue[] = parsed.error.issues.map((i) => ({
+      path: i.path.map((p) => (typeof p === "number" ? p : String(p))),
+      message: i.message,
+    }));
+    const first = issues[0];
+    const where = first.path.length ? ` (at ${first.path.join(".")})` : "";
+    throw new EngineError("invalid_request", `invalid request: ${first.message}${where}`, issues);
+  }
+  const raw = parsed.data;
+  const method = raw.method ?? "statevector";
+  if (method === "statevector" && hasStateNoise(raw.noise)) {
+    const field = (["depolarizing1q", "depolarizing2q", "amplitudeDamping", "phaseDamping"] as const).find((f) => (raw.noise?.[f] ?? 0) > 0)!;
+    const message = `noise.${field} acts on the state and needs method "density_matrix" (the statevector method supports readout error only)`;
+    throw new EngineError("unsupported", message, [{ path: ["noise", field], message }]);
+  }
+  return {
+    raw,
+    method,
+    shots: raw.shots ?? 0,
+    targetPrecision: raw.targetPrecision ?? null,
+    split: raw.shotSplit ?? "optimal",
+    noise: raw.noise,
+    readout: { e0: raw.noise?.readout?.p1Given0 ?? 0, e1: raw.noise?.readout?.p0Given1 ?? 0 },
+    mitigate: raw.mitigateReadout ?? false,
+    parameters: raw.parameters ?? {},
+    sweep: raw.sweep && Object.keys(raw.sweep).length > 0 ? raw.sweep : null,
+  };
+}
