@@ -18,6 +18,18 @@ export function readTheme(): ThemePreference {
   }
 }
 
+const CHANGE_EVENT = "kw-theme-change";
+
+/** Subscribes to theme changes (this tab and others); for useSyncExternalStore. */
+export function subscribeTheme(onChange: () => void): () => void {
+  window.addEventListener(CHANGE_EVENT, onChange);
+  window.addEventListener("storage", onChange);
+  return () => {
+    window.removeEventListener(CHANGE_EVENT, onChange);
+    window.removeEventListener("storage", onChange);
+  };
+}
+
 export function applyTheme(pref: ThemePreference): void {
   const c = document.documentElement.classList;
   c.remove("light", "dark");
@@ -28,4 +40,5 @@ export function applyTheme(pref: ThemePreference): void {
   } catch {
     /* storage unavailable: the choice lasts for this page only */
   }
+  window.dispatchEvent(new Event(CHANGE_EVENT));
 }

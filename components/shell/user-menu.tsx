@@ -1,10 +1,10 @@
 "use client";
 
-import { useEffect, useState } from "react";
+import { useSyncExternalStore } from "react";
 import { cn } from "@/components/ui/cn";
 import { IconSignOut } from "@/components/ui/icons";
 import { Menu, MenuItem, MenuLabel, MenuLink, MenuSeparator } from "@/components/ui/menu";
-import { applyTheme, readTheme, type ThemePreference } from "./theme";
+import { applyTheme, readTheme, subscribeTheme, type ThemePreference } from "./theme";
 
 export type ShellUser = { name?: string | null; email: string };
 
@@ -33,8 +33,7 @@ export function UserMenu({
   signOutAction: SignOutAction;
   accountHref?: string;
 }) {
-  const [theme, setTheme] = useState<ThemePreference>("system");
-  useEffect(() => setTheme(readTheme()), []);
+  const theme = useSyncExternalStore(subscribeTheme, readTheme, () => "system" as ThemePreference);
 
   return (
     <Menu
@@ -65,7 +64,6 @@ export function UserMenu({
             onClick={(e) => {
               e.stopPropagation();
               applyTheme(t.value);
-              setTheme(t.value);
             }}
             className={cn(
               "flex-1 justify-center px-1.5 py-1 text-[13px]",

@@ -68,12 +68,21 @@ export function Menu({
   const onPanelKey = (e: React.KeyboardEvent) => {
     const list = items();
     const i = list.indexOf(document.activeElement as HTMLElement);
-    if (e.key === "ArrowDown") (e.preventDefault(), focusAt(i + 1));
-    else if (e.key === "ArrowUp") (e.preventDefault(), focusAt(i - 1));
-    else if (e.key === "Home") (e.preventDefault(), focusAt(0));
-    else if (e.key === "End") (e.preventDefault(), focusAt(list.length - 1));
-    else if (e.key === "Escape") (e.preventDefault(), close(true));
-    else if (e.key === "Tab") close(false);
+    const moves: Record<string, number> = {
+      ArrowDown: i + 1,
+      ArrowUp: i - 1,
+      Home: 0,
+      End: list.length - 1,
+    };
+    if (e.key in moves) {
+      e.preventDefault();
+      focusAt(moves[e.key]);
+    } else if (e.key === "Escape") {
+      e.preventDefault();
+      close(true);
+    } else if (e.key === "Tab") {
+      close(false);
+    }
   };
 
   return (
@@ -88,7 +97,10 @@ export function Menu({
         className={triggerClassName}
         onClick={() => setOpen((o) => !o)}
         onKeyDown={(e) => {
-          if (e.key === "ArrowDown" && !open) (e.preventDefault(), setOpen(true));
+          if (e.key === "ArrowDown" && !open) {
+            e.preventDefault();
+            setOpen(true);
+          }
         }}
       >
         {trigger}
