@@ -144,7 +144,7 @@ describe("API conventions", () => {
   });
 
   it("parses decimal amounts into the SDK's Decimal type", async () => {
-    const price = await h.stripe.prices.create({ product_data: { name: "Tiny" }, currency: "usd", unit_amount_decimal: "0.0125" });
+    const price = await h.stripe.prices.create({ product_data: { name: "Tiny" }, currency: "usd", unit_amount_decimal: Stripe.Decimal.from("0.0125") });
     expect(price.unit_amount).toBeNull();
     expect(String(price.unit_amount_decimal)).toBe("0.0125");
   });

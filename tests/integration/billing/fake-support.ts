@@ -7,7 +7,7 @@
  */
 import { createServer, type IncomingMessage, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
-import type Stripe from "stripe";
+import Stripe from "stripe";
 import { startPaymentFake, type RunningPaymentFake } from "@/docker/payment-fake/app";
 import { getPlan } from "@/lib/billing/plans";
 import { createStripe } from "@/lib/billing/stripe-client";
@@ -87,8 +87,9 @@ export interface Harness {
 }
 
 export async function startHarness(opts: { dataFile?: string } = {}): Promise<Harness> {
-  let stripe: Stripe | undefined;
-  const receiver = new WebhookReceiver(() => stripe!);
+  // The receiver verifies with the SDK client, which needs the fake's port first.
+  const ref: { stripe?: Stripe } = {};
+  const receiver = new WebhookReceiver(() => ref.stripe!);
   await receiver.start();
   const fake = await startPaymentFake({
     port: 0,
@@ -99,12 +100,13 @@ export async function startHarness(opts: { dataFile?: string } = {}): Promise<Ha
     dataFile: opts.dataFile ?? null,
     tickMs: 200,
   });
-  stripe = createStripe({
+  const stripe = createStripe({
     STRIPE_SECRET_KEY: API_KEY,
     STRIPE_API_HOST: "127.0.0.1",
     STRIPE_API_PORT: fake.port,
     STRIPE_API_PROTOCOL: "http",
   });
+  ref.stripe = stripe;
   const admin = async (path: string, body?: Record<string, unknown>) => {
     const res = await fetch(`${fake.url}${path}`, {
       method: body === undefined ? "GET" : "POST",
@@ -166,14 +168,14 @@ export async function createLabCatalog(stripe: Stripe, suffix: string): Promise<
   const shots = await stripe.prices.create({
     product_data: { name: `${lab.name} shots overage` },
     currency: lab.currency,
-    unit_amount_decimal: String(lab.overage!.shotsPer1000Cents),
+    unit_amount_decimal: Stripe.Decimal.from(lab.overage!.shotsPer1000Cents),
     recurring: { interval: "month", usage_type: "metered", meter: shotsMeter.id },
     transform_quantity: { divide_by: 1000, round: "up" },
   });
   const seconds = await stripe.prices.create({
     product_data: { name: `${lab.name} simulation-seconds overage` },
     currency: lab.currency,
-    unit_amount_decimal: lab.overage!.simulationSecondCentsDecimal,
+    unit_amount_decimal: Stripe.Decimal.from(lab.overage!.simulationSecondCentsDecimal),
     recurring: { interval: "month", usage_type: "metered", meter: secondsMeter.id },
   });
   return { seat, shots, seconds, shotsMeter, secondsMeter };
