@@ -26,13 +26,9 @@ import { apiKeys } from "./api-keys";
 import { users } from "./auth";
 import { jsonText } from "./json-text";
 import { organizations } from "./orgs";
+import { RUN_METHODS, RUN_STATUSES } from "../../lib/runs/constants";
 
-export const RUN_STATUSES = ["queued", "running", "succeeded", "failed", "canceled"] as const;
-export type RunStatus = (typeof RUN_STATUSES)[number];
-export const TERMINAL_RUN_STATUSES = ["succeeded", "failed", "canceled"] as const satisfies readonly RunStatus[];
-
-export const RUN_METHODS = ["statevector", "density_matrix"] as const;
-export type RunMethod = (typeof RUN_METHODS)[number];
+export { RUN_METHODS, RUN_STATUSES, TERMINAL_RUN_STATUSES, type RunMethod, type RunStatus } from "../../lib/runs/constants";
 
 /** RFC 9457 problem as stored on a failed run. */
 export type StoredProblem = {

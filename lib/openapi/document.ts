@@ -1,0 +1,56 @@
+/**
+ * The OpenAPI 3.1 document of API v1, generated from the zod schemas by
+ * @asteasolutions/zod-to-openapi (built once per process).
+ */
+import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
+import { circuitSchema, observableSchema } from "@/lib/library/schemas";
+import { estimateRequestSchema, estimateResultSchema } from "@/lib/quantum/schemas";
+import { quotaVerdictSchema, runSchema, runSummarySchema } from "@/lib/runs/schemas";
+import { usageReportSchema } from "@/lib/usage/schemas";
+import { problemSchema } from "./common-schemas";
+import { registerPaths } from "./paths";
+
+type Document = ReturnType<OpenApiGeneratorV31["generateDocument"]>;
+let cached: Document | undefined;
+
+export function buildOpenApiDocument(serverUrl?: string): Document {
+  const registry = new OpenAPIRegistry();
+  registry.registerComponent("securitySchemes", "bearerKey", {
+    type: "http",
+    scheme: "bearer",
+    description: "An organisation API key: `Authorization: Bearer kw_xxxxxxxx_…` (created on the API keys page, shown once).",
+  });
+  registry.registerComponent("securitySchemes", "session", {
+    type: "apiKey",
+    in: "cookie",
+    name: "authjs.session-token",
+    description: "The browser session of a signed-in member (the app's own pages use it).",
+  });
+  registry.register("Problem", problemSchema);
+  registry.register("EstimateRequest", estimateRequestSchema);
+  registry.register("EstimateResult", estimateResultSchema);
+  registry.register("Run", runSchema);
+  registry.register("RunSummary", runSummarySchema);
+  registry.register("QuotaVerdict", quotaVerdictSchema);
+  registry.register("Circuit", circuitSchema);
+  registry.register("Observable", observableSchema);
+  registry.register("UsageReport", usageReportSchema);
+  registerPaths(registry);
+  return new OpenApiGeneratorV31(registry.definitions).generateDocument({
+    openapi: "3.1.0",
+    info: {
+      title: "Ketwise API",
+      version: "1.0.0",
+      description:
+        "Expectation values ⟨ψ|A|ψ⟩ of observables on circuit states — exact, sampled and noisy. " +
+        "Submit a run, poll it until it is terminal, read the result. Errors are RFC 9457 problem documents.",
+    },
+    servers: serverUrl ? [{ url: serverUrl }] : [],
+  });
+}
+
+/** The document, generated on first use. */
+export function getOpenApiDocument(serverUrl?: string): Document {
+  cached ??= buildOpenApiDocument(serverUrl);
+  return cached;
+}

@@ -1,0 +1,174 @@
+/**
+ * The API v1 operations for the OpenAPI document: one entry per route
+ * handler under app/api/v1, with the same zod schemas the handlers use.
+ */
+import type { OpenAPIRegistry, RouteConfig } from "@asteasolutions/zod-to-openapi";
+import { z } from "zod";
+import {
+  circuitCreateSchema,
+  circuitPageSchema,
+  circuitSchema,
+  libraryListQuerySchema,
+  observableCreateSchema,
+  observablePageSchema,
+  observableSchema,
+} from "@/lib/library/schemas";
+import { runCreateSchema, runListQuerySchema, runPageSchema, runPreviewSchema, runSchema } from "@/lib/runs/schemas";
+import { usageReportSchema } from "@/lib/usage/schemas";
+import { problemSchema } from "./common-schemas";
+import { bellRunExample } from "./examples";
+
+const PROBLEM_TEXT: Record<number, string> = {
+  400: "Bad request: malformed JSON or query, or the engine rejected the circuit or observable (with line and column)",
+  401: "No, malformed, unknown or revoked API key, or no session",
+  402: "Over a plan limit (qubits for the method, monthly shots or simulation-seconds)",
+  403: "The key's or member's role is too weak",
+  404: "No such item in this organisation",
+  409: "Conflict with the item's current state",
+  413: "Request body larger than the limit",
+  415: "Body is not JSON",
+  422: "Body does not match the schema (each field error with its path)",
+  429: "Rate limit, or too many unfinished runs (see Retry-After)",
+  503: "The job queue is unavailable; nothing was created",
+};
+
+function problems(...codes: number[]): RouteConfig["responses"] {
+  return Object.fromEntries(
+    codes.map((code) => [code, { description: PROBLEM_TEXT[code], content: { "application/problem+json": { schema: problemSchema } } }]),
+  );
+}
+
+const json = <T extends z.ZodType>(schema: T, description: string) => ({
+  description,
+  content: { "application/json": { schema } },
+});
+
+const idParams = z.object({ id: z.uuid().describe("The item's id") });
+const security: Record<string, string[]>[] = [{ bearerKey: [] }, { session: [] }];
+const common = [401, 403, 429];
+
+function route(registry: OpenAPIRegistry, config: RouteConfig) {
+  registry.registerPath({ security, ...config });
+}
+
+export function registerPaths(registry: OpenAPIRegistry): void {
+  route(registry, {
+    method: "post",
+    path: "/api/v1/runs",
+    operationId: "createRun",
+    tags: ["Runs"],
+    summary: "Queue a run",
+    description:
+      "Validates the request, checks the plan's limits, stores the run as `queued` and answers 202 with its `Location`. " +
+      "With an `Idempotency-Key`, a repeated request answers the original run; the same key with another body is 422.",
+    request: {
+      headers: z.object({ "idempotency-key": z.string().max(255).optional().describe("Makes retries safe: the same key returns the same run") }),
+      body: { required: true, content: { "application/json": { schema: runCreateSchema, example: bellRunExample } } },
+    },
+    responses: {
+      202: {
+        ...json(runSchema, "Queued (or the original run of a repeated Idempotency-Key)"),
+        headers: z.object({ location: z.string().describe("URL of the run") }),
+      },
+      ...problems(400, 402, 413, 415, 422, 503, ...common),
+    },
+  });
+  route(registry, {
+    method: "get",
+    path: "/api/v1/runs",
+    operationId: "listRuns",
+    tags: ["Runs"],
+    summary: "List runs, newest first",
+    request: { query: runListQuerySchema },
+    responses: { 200: json(runPageSchema, "A page of runs"), ...problems(400, ...common) },
+  });
+  route(registry, {
+    method: "post",
+    path: "/api/v1/runs/preview",
+    operationId: "previewRun",
+    tags: ["Runs"],
+    summary: "Preview a run without simulating it",
+    description: "Parses the circuit and observable and answers at once: qubits, gate counts, depth, measurement settings, the shot plan for `targetPrecision`, and whether the plan would accept the run now.",
+    request: { body: { required: true, content: { "application/json": { schema: runCreateSchema, example: bellRunExample } } } },
+    responses: { 200: json(runPreviewSchema, "The preview"), ...problems(400, 413, 415, 422, ...common) },
+  });
+  route(registry, {
+    method: "get",
+    path: "/api/v1/runs/{id}",
+    operationId: "getRun",
+    tags: ["Runs"],
+    summary: "Get a run (poll until its status is succeeded, failed or canceled)",
+    request: { params: idParams },
+    responses: { 200: json(runSchema, "The run"), ...problems(404, ...common) },
+  });
+  route(registry, {
+    method: "post",
+    path: "/api/v1/runs/{id}/cancel",
+    operationId: "cancelRun",
+    tags: ["Runs"],
+    summary: "Cancel a queued or running run",
+    request: { params: idParams },
+    responses: { 200: json(runSchema, "The canceled run"), ...problems(404, 409, ...common) },
+  });
+
+  for (const kind of [
+    { name: "circuits", tag: "Circuits", create: circuitCreateSchema, item: circuitSchema, page: circuitPageSchema, one: "circuit" },
+    { name: "observables", tag: "Observables", create: observableCreateSchema, item: observableSchema, page: observablePageSchema, one: "observable" },
+  ] as const) {
+    const op = kind.one[0].toUpperCase() + kind.one.slice(1);
+    route(registry, {
+      method: "get",
+      path: `/api/v1/${kind.name}`,
+      operationId: `list${op}s`,
+      tags: [kind.tag],
+      summary: `List saved ${kind.name}, newest first`,
+      request: { query: libraryListQuerySchema },
+      responses: { 200: json(kind.page, `A page of ${kind.name}`), ...problems(400, ...common) },
+    });
+    route(registry, {
+      method: "post",
+      path: `/api/v1/${kind.name}`,
+      operationId: `create${op}`,
+      tags: [kind.tag],
+      summary: `Save a ${kind.one} in the library`,
+      request: { body: { required: true, content: { "application/json": { schema: kind.create } } } },
+      responses: { 201: json(kind.item, `The saved ${kind.one}`), ...problems(400, 409, 413, 415, 422, ...common) },
+    });
+    route(registry, {
+      method: "get",
+      path: `/api/v1/${kind.name}/{id}`,
+      operationId: `get${op}`,
+      tags: [kind.tag],
+      summary: `Get a saved ${kind.one}`,
+      request: { params: idParams },
+      responses: { 200: json(kind.item, `The ${kind.one}`), ...problems(404, ...common) },
+    });
+    route(registry, {
+      method: "delete",
+      path: `/api/v1/${kind.name}/{id}`,
+      operationId: `delete${op}`,
+      tags: [kind.tag],
+      summary: `Delete a saved ${kind.one}`,
+      request: { params: idParams },
+      responses: { 204: { description: "Deleted" }, ...problems(404, ...common) },
+    });
+  }
+
+  route(registry, {
+    method: "get",
+    path: "/api/v1/usage",
+    operationId: "getUsage",
+    tags: ["Usage"],
+    summary: "This period's usage against the plan's quotas",
+    responses: { 200: json(usageReportSchema, "The usage report"), ...problems(...common) },
+  });
+  registry.registerPath({
+    method: "get",
+    path: "/api/v1/openapi.json",
+    operationId: "getOpenApiDocument",
+    tags: ["Meta"],
+    summary: "This document",
+    security: [],
+    responses: { 200: { description: "OpenAPI 3.1 document", content: { "application/json": { schema: z.record(z.string(), z.unknown()) } } } },
+  });
+}

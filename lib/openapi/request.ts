@@ -1,0 +1,77 @@
+/**
+ * Reading API v1 requests: a JSON body under a size limit, validated by the
+ * one zod schema of its shape; query strings likewise. Failures are problems:
+ * 413 body too large, 415 not JSON, 400 malformed JSON or query, 422 body does
+ * not match the schema (each issue with its dotted field path; an unknown field
+ * is named in its own issue).
+ */
+import type { z } from "zod";
+import { badRequest, ProblemError, validationFailed, type ProblemFieldError } from "@/lib/api/problem";
+
+/** Field errors from a zod failure; unknown keys get one entry each, at their own path. */
+export function schemaErrors(error: z.ZodError): ProblemFieldError[] {
+  return error.issues.flatMap((issue) => {
+    const base = issue.path.map(String);
+    if (issue.code === "unrecognized_keys") {
+      return issue.keys.map((key) => ({ path: [...base, key].join("."), message: "unknown field" }));
+    }
+    return [{ path: base.join(".") || "(root)", message: issue.message }];
+  });
+}
+
+const tooLarge = (max: number) =>
+  new ProblemError({
+    type: "/problems/body-too-large",
+    title: "Request body too large",
+    status: 413,
+    detail: `The request body is larger than ${Math.round(max / 1024 / 1024)} MiB.`,
+  });
+
+async function readText(req: Request, maxBytes: number): Promise<string> {
+  const declared = Number(req.headers.get("content-length") ?? "0");
+  if (declared > maxBytes) throw tooLarge(maxBytes);
+  if (!req.body) return "";
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let total = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    total += value.byteLength;
+    if (total > maxBytes) {
+      await reader.cancel();
+      throw tooLarge(maxBytes);
+    }
+    chunks.push(value);
+  }
+  return Buffer.concat(chunks).toString("utf8");
+}
+
+export async function readJsonBody<S extends z.ZodType>(req: Request, schema: S, maxBytes: number): Promise<z.output<S>> {
+  const type = req.headers.get("content-type") ?? "";
+  if (!/^application\/(?:[\w.+-]+\+)?json\b/i.test(type)) {
+    throw new ProblemError({
+      type: "/problems/unsupported-media-type",
+      title: "Unsupported media type",
+      status: 415,
+      detail: "Send the body as JSON with `Content-Type: application/json`.",
+    });
+  }
+  const text = await readText(req, maxBytes);
+  let value: unknown;
+  try {
+    value = JSON.parse(text);
+  } catch (error) {
+    throw badRequest(`The body is not valid JSON (${error instanceof Error ? error.message : "parse error"}).`);
+  }
+  const parsed = schema.safeParse(value);
+  if (!parsed.success) throw validationFailed("The request body does not match the schema.", schemaErrors(parsed.error));
+  return parsed.data;
+}
+
+export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.output<S> {
+  const params = Object.fromEntries(new URL(req.url).searchParams);
+  const parsed = schema.safeParse(params);
+  if (!parsed.success) throw badRequest("The query string is not valid.", schemaErrors(parsed.error));
+  return parsed.data;
+}

@@ -1,0 +1,42 @@
+/**
+ * The job catalogue: every job name with the zod schema of its payload. The
+ * producer (lib/queue/enqueue.ts) validates before adding; the worker's
+ * registry validates again before running the handler (a malformed job is
+ * dropped with a log line, never retried).
+ */
+import { z } from "zod";
+
+export const RUNS_QUEUE = "ketwise-runs";
+
+export const runJobSchema = z.strictObject({
+  orgId: z.uuid(),
+  runId: z.uuid(),
+});
+export type RunJob = z.infer<typeof runJobSchema>;
+
+export const runFinishedMailSchema = z.strictObject({
+  orgId: z.uuid(),
+  runId: z.uuid(),
+});
+export type RunFinishedMailJob = z.infer<typeof runFinishedMailSchema>;
+
+export const JOB_SCHEMAS = {
+  "run.execute": runJobSchema,
+  "run.finished-mail": runFinishedMailSchema,
+} as const;
+
+export type JobName = keyof typeof JOB_SCHEMAS;
+export type JobPayload<N extends JobName> = z.infer<(typeof JOB_SCHEMAS)[N]>;
+
+/**
+ * Retry policy for infrastructure faults (database or Redis unreachable, a
+ * crashed engine thread): 5 attempts with exponential backoff 1 s, 2 s, 4 s,
+ * 8 s. User errors never throw out of a handler, so they are never retried.
+ */
+export const JOB_ATTEMPTS = 5;
+export const JOB_BACKOFF = { type: "exponential", delay: 1_000 } as const;
+
+/** Stalled-job recovery: a job whose worker stopped renewing its lock is re-queued after ≤ lock + interval. */
+export const LOCK_DURATION_MS = 10_000;
+export const STALLED_INTERVAL_MS = 5_000;
+export const MAX_STALLED_COUNT = 2;

@@ -1,0 +1,22 @@
+/**
+ * Run vocabulary shared by the database schema, the zod schemas, the worker
+ * and the UI. Dependency-free so client components may import it.
+ *
+ * Lifecycle: queued → running → succeeded | failed | canceled; a queued run
+ * may also be canceled (or failed, when it can never start).
+ */
+export const RUN_STATUSES = ["queued", "running", "succeeded", "failed", "canceled"] as const;
+export type RunStatus = (typeof RUN_STATUSES)[number];
+
+export const TERMINAL_RUN_STATUSES = ["succeeded", "failed", "canceled"] as const satisfies readonly RunStatus[];
+export type TerminalRunStatus = (typeof TERMINAL_RUN_STATUSES)[number];
+
+export function isTerminalStatus(status: RunStatus): status is TerminalRunStatus {
+  return (TERMINAL_RUN_STATUSES as readonly string[]).includes(status);
+}
+
+export const RUN_METHODS = ["statevector", "density_matrix"] as const;
+export type RunMethod = (typeof RUN_METHODS)[number];
+
+/** Longest run name; the API, the form and the column agree on it. */
+export const RUN_NAME_MAX = 120;

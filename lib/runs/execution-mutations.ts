@@ -1,0 +1,143 @@
+/**
+ * The worker's writes to a run. Exactly-once comes from two guards:
+ * - `attempts` is a fencing token: claiming increments it, and progress and
+ *   the final write only apply while the run is still `running` with the same
+ *   attempt (a superseded attempt — e.g. after stalled-job recovery — writes
+ *   nothing);
+ * - usage rows are unique per (run, metric) and written with INSERT IGNORE in
+ *   the same transaction as the final status.
+ */
+import "server-only";
+import { and, count, eq, inArray } from "drizzle-orm";
+import { db } from "@/db";
+import { organizations, runs, type Run, type StoredProblem } from "@/db/schema";
+import { getPlan, type Plan } from "@/lib/billing/plans";
+import { recordRunUsage, type RunUsage } from "@/lib/usage/mutations";
+import { periodOf } from "@/lib/usage/period";
+import { isTerminalStatus, type RunStatus } from "./constants";
+
+export type ClaimResult =
+  | { kind: "missing" }
+  | { kind: "terminal"; status: RunStatus }
+  | { kind: "busy"; running: number; limit: number }
+  | { kind: "claimed"; run: Run; attempt: number; plan: Plan; redelivered: boolean };
+
+/**
+ * Marks a run `running` for a new attempt. A queued run starts only while the
+ * organisation has fewer running runs than its plan's `concurrentRuns` (the
+ * organisation row is locked so two workers cannot both take the last slot);
+ * a run already `running` is a re-delivery (crash, stall) and keeps its slot.
+ */
+export async function claimRun(orgId: string, runId: string): Promise<ClaimResult> {
+  return db.transaction(async (tx) => {
+    const [run] = await tx
+      .select()
+      .from(runs)
+      .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)))
+      .for("update");
+    if (!run) return { kind: "missing" } as const;
+    if (isTerminalStatus(run.status)) return { kind: "terminal", status: run.status } as const;
+    const [org] = await tx
+      .select({ plan: organizations.plan })
+      .from(organizations)
+      .where(eq(organizations.id, orgId))
+      .for("update");
+    const plan = getPlan(org.plan);
+    const redelivered = run.status === "running";
+    if (!redelivered) {
+      const [{ running }] = await tx
+        .select({ running: count() })
+        .from(runs)
+        .where(and(eq(runs.orgId, orgId), eq(runs.status, "running")));
+      if (running >= plan.limits.concurrentRuns) {
+        return { kind: "busy", running, limit: plan.limits.concurrentRuns } as const;
+      }
+    }
+    const attempt = run.attempts + 1;
+    const startedAt = new Date();
+    await tx
+      .update(runs)
+      .set({ status: "running", attempts: attempt, startedAt, progress: 0, phase: "starting" })
+      .where(eq(runs.id, runId));
+    return {
+      kind: "claimed",
+      run: { ...run, status: "running", attempts: attempt, startedAt },
+      attempt,
+      plan,
+      redelivered,
+    } as const;
+  });
+}
+
+const current = (orgId: string, runId: string, attempt: number) =>
+  and(eq(runs.orgId, orgId), eq(runs.id, runId), eq(runs.status, "running"), eq(runs.attempts, attempt));
+
+/** Writes progress; false when the run is no longer this attempt's (canceled or superseded). */
+export async function writeProgress(orgId: string, runId: string, attempt: number, progress: number, phase: string) {
+  const [result] = await db
+    .update(runs)
+    .set({ progress: Math.min(1, Math.max(0, progress)), phase: phase.slice(0, 64) })
+    .where(current(orgId, runId, attempt));
+  return result.affectedRows > 0;
+}
+
+/** True while the run is `running` under this attempt. */
+export async function isCurrentAttempt(orgId: string, runId: string, attempt: number): Promise<boolean> {
+  const rows = await db.select({ id: runs.id }).from(runs).where(current(orgId, runId, attempt)).limit(1);
+  return rows.length > 0;
+}
+
+export type RunFinish = {
+  status: "succeeded" | "failed";
+  result?: Record<string, unknown>;
+  error?: StoredProblem;
+  timings?: { parseMs: number; simulateMs: number; sampleMs: number };
+  usage: RunUsage;
+};
+
+/**
+ * Result, status, timings and usage rows in ONE transaction, applied only
+ * while this attempt still owns the run. Returns false when it did not.
+ */
+export async function finishRun(orgId: string, runId: string, attempt: number, finish: RunFinish): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const finishedAt = new Date();
+    const [result] = await tx
+      .update(runs)
+      .set({
+        status: finish.status,
+        progress: finish.status === "succeeded" ? 1 : undefined,
+        phase: finish.status === "succeeded" ? "done" : "failed",
+        result: finish.result ?? null,
+        error: finish.error ?? null,
+        finishedAt,
+        ...(finish.timings ?? {}),
+      })
+      .where(current(orgId, runId, attempt));
+    if (result.affectedRows === 0) return false;
+    await recordRunUsage(tx, orgId, runId, periodOf(finishedAt), finish.usage);
+    return true;
+  });
+}
+
+/** Meters the compute a canceled run consumed (once; nothing if the run is not canceled). */
+export async function recordCanceledRunUsage(orgId: string, runId: string, simulationSeconds: number): Promise<void> {
+  await db.transaction(async (tx) => {
+    const [run] = await tx
+      .select({ status: runs.status, finishedAt: runs.finishedAt })
+      .from(runs)
+      .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)))
+      .for("update");
+    if (run?.status !== "canceled") return;
+    await recordRunUsage(tx, orgId, runId, periodOf(run.finishedAt ?? new Date()), { simulationSeconds });
+  });
+}
+
+/** Fails a run that has not finished (malformed row, retries exhausted). False if it already had. */
+export async function failUnfinishedRun(orgId: string, runId: string, problem: StoredProblem): Promise<boolean> {
+  const [result] = await db
+    .update(runs)
+    .set({ status: "failed", error: problem, finishedAt: new Date(), phase: "failed" })
+    .where(and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])));
+  return result.affectedRows > 0;
+}

@@ -1,0 +1,40 @@
+/**
+ * The cheap, synchronous part of a submission: the engine's preview (parse,
+ * qubits, gate counts, settings, shot plan — no simulation) and the quota
+ * verdict for the organisation's plan. Engine errors become 400 problems.
+ */
+import "server-only";
+import { ProblemError } from "@/lib/api/problem";
+import { previewRequest } from "@/lib/quantum";
+import { isEngineError } from "@/lib/quantum/errors";
+import type { EstimateRequest, PreviewResult } from "@/lib/quantum/schemas";
+import { quotaVerdict } from "@/lib/usage/quotas";
+import { engineProblem } from "./problems";
+import type { QuotaVerdict } from "./schemas";
+
+export async function previewOrThrow(request: EstimateRequest): Promise<PreviewResult> {
+  try {
+    return await previewRequest(request);
+  } catch (error) {
+    if (isEngineError(error)) throw new ProblemError(engineProblem(error));
+    throw error;
+  }
+}
+
+/** Total shots a run will draw: the planned shots per point times the sweep points. */
+export function plannedShots(preview: PreviewResult): number {
+  return preview.shots * Math.max(1, preview.sweepPoints);
+}
+
+export async function previewRun(
+  org: { id: string; plan: string },
+  request: EstimateRequest,
+): Promise<PreviewResult & { quota: QuotaVerdict }> {
+  const preview = await previewOrThrow(request);
+  const quota = await quotaVerdict(org.id, org.plan, {
+    method: preview.method,
+    qubits: preview.qubits,
+    shots: plannedShots(preview),
+  });
+  return { ...preview, quota };
+}

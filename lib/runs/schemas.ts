@@ -1,0 +1,121 @@
+/**
+ * Zod schemas of the runs resource — ONE schema per request shape, shared by
+ * the REST API, the browser forms and the OpenAPI document.
+ *
+ * The body of `POST /api/v1/runs` (and of `/runs/preview`) is the engine
+ * request (lib/quantum/schemas.ts, strict: unknown fields are errors) plus an
+ * optional `name`.
+ */
+import { z } from "zod";
+import { estimateRequestSchema, estimateResultSchema, previewResultSchema } from "@/lib/quantum/schemas";
+import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
+import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES } from "./constants";
+
+export const runNameSchema = z
+  .string()
+  .trim()
+  .min(1, "the name is empty")
+  .max(RUN_NAME_MAX, `at most ${RUN_NAME_MAX} characters`)
+  .describe("A label for the run (default: derived from the circuit)");
+
+export const runCreateSchema = estimateRequestSchema
+  .safeExtend({ name: runNameSchema.optional() })
+  .describe("A run to queue: the engine request plus an optional name");
+export type RunCreateInput = z.infer<typeof runCreateSchema>;
+
+/** `Idempotency-Key` header: printable ASCII, at most 255 characters. */
+export const idempotencyKeySchema = z
+  .string()
+  .min(1)
+  .max(255)
+  .regex(/^[\x21-\x7e]+$/, "printable ASCII without spaces");
+
+export const runStatusSchema = z.enum(RUN_STATUSES);
+export const runMethodSchema = z.enum(RUN_METHODS);
+
+export const runCreatorSchema = z
+  .object({ type: z.enum(["user", "api_key"]), id: z.string() })
+  .nullable()
+  .describe("Who submitted the run (null once that user or key is deleted)");
+
+export const runTimingsSchema = z.object({
+  queueMs: z.number().nullable().describe("Queued → started"),
+  runMs: z.number().nullable().describe("Started → finished"),
+  parseMs: z.number().nullable(),
+  simulateMs: z.number().nullable(),
+  sampleMs: z.number().nullable(),
+});
+
+const runBase = {
+  id: z.uuid(),
+  name: z.string(),
+  status: runStatusSchema,
+  progress: z.number().min(0).max(1).describe("Fraction done, 0–1"),
+  phase: z.string().nullable().describe("What the engine is doing now"),
+  method: runMethodSchema,
+  qubits: z.int(),
+  shots: z.int().describe("Planned total shots (0 = exact only)"),
+  seed: z.int().describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
+  createdBy: runCreatorSchema,
+  queuedAt: timestampSchema,
+  startedAt: timestampSchema.nullable(),
+  finishedAt: timestampSchema.nullable(),
+  timings: runTimingsSchema,
+  error: problemSchema.nullable().describe("Why the run failed or was canceled"),
+};
+
+export const runSummarySchema = z
+  .object({
+    ...runBase,
+    summary: z
+      .object({
+        ideal: z.number(),
+        exact: z.number(),
+        sampledMean: z.number().nullable(),
+        sampledStdErr: z.number().nullable(),
+      })
+      .nullable()
+      .describe("Headline values of a succeeded run"),
+  })
+  .describe("A run without its request and full result");
+
+export const runSchema = z
+  .object({
+    ...runBase,
+    request: estimateRequestSchema,
+    result: estimateResultSchema.nullable().describe("The engine's result once succeeded"),
+  })
+  .describe("A run with its request and, once succeeded, its result");
+
+export type RunView = z.infer<typeof runSchema>;
+export type RunSummaryView = z.infer<typeof runSummarySchema>;
+
+export const runListQuerySchema = z.strictObject({
+  status: runStatusSchema.optional().describe("Only runs in this status"),
+  cursor: cursorParamSchema.optional(),
+  limit: limitParamSchema,
+});
+export type RunListQuery = z.infer<typeof runListQuerySchema>;
+
+export const runPageSchema = pageSchema(runSummarySchema).describe("Runs, newest first");
+
+export const quotaRefusalSchema = z.object({
+  limit: z.enum(["max_qubits", "monthly_shots", "monthly_simulation_seconds", "unfinished_runs"]),
+  status: z.union([z.literal(402), z.literal(429)]).describe("The status a submission would get"),
+  detail: z.string(),
+});
+
+export const quotaVerdictSchema = z
+  .object({
+    allowed: z.boolean(),
+    plan: z.object({ id: z.string(), name: z.string() }),
+    period: z.string().describe("Billing period, YYYY-MM (UTC)"),
+    shots: z.int().describe("Total shots the run would draw (all sweep points)"),
+    refusals: z.array(quotaRefusalSchema),
+  })
+  .describe("Whether the organisation's plan would accept this run now");
+export type QuotaVerdict = z.infer<typeof quotaVerdictSchema>;
+
+export const runPreviewSchema = previewResultSchema
+  .extend({ quota: quotaVerdictSchema })
+  .describe("Cheap preview of a run (no simulation) with the quota verdict");

@@ -1,0 +1,75 @@
+/**
+ * The Ketwise worker process: `node --conditions=react-server --import tsx worker/index.ts`.
+ *
+ * Runs queued jobs (lib/queue/jobs.ts) with WORKER_CONCURRENCY jobs at once,
+ * each run's engine in its own thread (engine-pool.ts) so the event loop keeps
+ * the queue locks, progress writes and cancellation checks going.
+ * Env: DATABASE_URL, REDIS_URL, WORKER_CONCURRENCY (default 2), SMTP_* for mail.
+ *
+ * Faults: infrastructure errors are retried with backoff (JOB_ATTEMPTS); a job
+ * whose worker died is re-queued by BullMQ's stalled-job check after at most
+ * LOCK_DURATION_MS + STALLED_INTERVAL_MS; when retries run out the run is
+ * marked failed with a clear problem. SIGTERM/SIGINT: stop taking jobs, let
+ * active ones finish for up to SHUTDOWN_GRACE_MS, then exit (anything still
+ * running is recovered by another worker as a stalled job).
+ */
+import { Worker, type Job } from "bullmq";
+import { closeDb } from "@/db";
+import { env } from "@/lib/env";
+import { workerConnection } from "@/lib/queue/connection";
+import { closeQueue } from "@/lib/queue/enqueue";
+import { LOCK_DURATION_MS, MAX_STALLED_COUNT, RUNS_QUEUE, STALLED_INTERVAL_MS } from "@/lib/queue/jobs";
+import { EnginePool } from "./engine-pool";
+import { failRunAfterRetries } from "./give-up";
+import { log } from "./log";
+import { buildRegistry, dispatch } from "./registry";
+import { startSweeper } from "./sweeper";
+
+const SHUTDOWN_GRACE_MS = 10_000;
+
+async function main(): Promise<void> {
+  const concurrency = env.WORKER_CONCURRENCY;
+  const started = performance.now();
+  const pool = new EnginePool(concurrency);
+  await pool.start();
+  const registry = buildRegistry({ engine: pool });
+
+  const worker = new Worker(RUNS_QUEUE, (job: Job, token?: string) => dispatch(registry, job, token), {
+    connection: workerConnection(),
+    concurrency,
+    lockDuration: LOCK_DURATION_MS,
+    stalledInterval: STALLED_INTERVAL_MS,
+    maxStalledCount: MAX_STALLED_COUNT,
+  });
+  worker.on("error", (error) => log("queue connection error", error));
+  worker.on("failed", (job, error) => {
+    if (!job) return;
+    log(`job ${job.id} (${job.name}) attempt ${job.attemptsMade} failed`, error);
+    void failRunAfterRetries(job, error);
+  });
+  await worker.waitUntilReady();
+  const sweeper = startSweeper();
+  log(`ready: ${concurrency} engine thread(s), queue "${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`);
+
+  let stopping = false;
+  const shutdown = async (signal: string) => {
+    if (stopping) return;
+    stopping = true;
+    log(`${signal}: finishing active jobs (up to ${SHUTDOWN_GRACE_MS / 1000} s)`);
+    sweeper.stop();
+    const grace = new Promise<"timeout">((resolve) => setTimeout(() => resolve("timeout"), SHUTDOWN_GRACE_MS).unref());
+    const outcome = await Promise.race([worker.close().then(() => "closed" as const), grace]);
+    if (outcome === "timeout") log("grace period over; unfinished jobs will be recovered by another worker");
+    await pool.close();
+    await Promise.allSettled([closeQueue(), closeDb()]);
+    log("stopped");
+    process.exit(0);
+  };
+  process.on("SIGTERM", () => void shutdown("SIGTERM"));
+  process.on("SIGINT", () => void shutdown("SIGINT"));
+}
+
+main().catch((error: unknown) => {
+  log("worker failed to start", error);
+  process.exit(1);
+});
