@@ -4,20 +4,31 @@
  * eigendecomposition (computed once; needed for eigenbasis sampling and the spectrum).
  */
 import { EngineError } from "../errors";
-import { groupQubitWise } from "../observable/grouping";
+import { groupQubitWise, type MeasurementSetting } from "../observable/grouping";
 import { hermitianEigen } from "../observable/hermitian-eigen";
-import { parseMatrixObservable } from "../observable/matrix-observable";
+import { parseMatrixObservable, type HermitianMatrix } from "../observable/matrix-observable";
 import { parsePauliSum } from "../observable/pauli-parse";
 import { highestQubit, padPauliSum } from "../observable/pauli-word";
 import type { PreparedObservable } from "../sampling/sample-observable";
 import type { EstimateRequest } from "../schemas";
+import type { PauliSum } from "../types";
 
+export type ObservableShape = { kind: "pauli"; sum: PauliSum; settings: MeasurementSetting[] } | { kind: "matrix"; matrix: HermitianMatrix };
+
+/** Parsed, checked observable without the (costly) eigendecomposition — for previews. */
+export function parseObservableForCircuit(input: EstimateRequest["observable"], n: number): ObservableShape {
+  if (input.format === "matrix") return { kind: "matrix", matrix: parseMatrixObservable(input, n) };
+  return pauliForCircuit(input.terms, n);
+}
+
+/** The observable ready for estimation (matrix observables get their eigendecomposition). */
 export function prepareObservable(input: EstimateRequest["observable"], n: number): PreparedObservable {
-  if (input.format === "matrix") {
-    const matrix = parseMatrixObservable(input, n);
-    return { kind: "matrix", matrix, eigen: hermitianEigen(matrix) };
-  }
-  const parsed = parsePauliSum(input.terms);
+  const shape = parseObservableForCircuit(input, n);
+  return shape.kind === "matrix" ? { ...shape, eigen: hermitianEigen(shape.matrix) } : shape;
+}
+
+function pauliForCircuit(terms: string, n: number): ObservableShape {
+  const parsed = parsePauliSum(terms);
   const plural = n === 1 ? "" : "s";
   if (parsed.denseLength !== null && parsed.denseLength !== n) {
     const at = parsed.denseAt ?? { line: 1, column: 1 };

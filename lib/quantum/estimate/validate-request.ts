@@ -24,10 +24,12 @@ export interface NormalisedRequest {
 export function validateRequest(request: unknown): NormalisedRequest {
   const parsed = estimateRequestSchema.safeParse(request);
   if (!parsed.success) {
-    const issues: EngineIssue[] = parsed.error.issues.map((i) => ({
-      path: i.path.map((p) => (typeof p === "number" ? p : String(p))),
-      message: i.message,
-    }));
+    const issues: EngineIssue[] = parsed.error.issues.flatMap((i) => {
+      const path = i.path.map((p) => (typeof p === "number" ? p : String(p)));
+      if (i.code === "unrecognized_keys") return i.keys.map((k) => ({ path: [...path, k], message: `unknown field "${k}"` }));
+      if (i.code === "invalid_type" && /received undefined/.test(i.message)) return [{ path, message: `${path.join(".") || "value"} is required` }];
+      return [{ path, message: i.message }];
+    });
     const first = issues[0];
     const where = first.path.length ? ` (at ${first.path.join(".")})` : "";
     throw new EngineError("invalid_request", `invalid request: ${first.message}${where}`, issues);

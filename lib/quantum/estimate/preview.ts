@@ -1,0 +1,78 @@
+/**
+ * `previewRequest(request)` — the cheap, synchronous preview a request handler may
+ * compute (DESIGN.md §3, §5): validation, qubit count, gate counts and depth, the
+ * measurement settings and a shot plan. No state is simulated: exact variances would
+ * need the state, so the plan uses the worst-case bounds — Σ_{i∈g}|c_i| per Pauli
+ * setting, the Gershgorin row-sum bound for a matrix — and says so. The same errors
+ * as `estimate` are thrown for the same bad input.
+ */
+import { circuitStats, parseProgram } from "../circuit";
+import { allocateShots, planShots } from "../planning/shot-plan";
+import { gershgorinBound } from "../sampling/sample-observable";
+import type { PreviewResult } from "../schemas";
+import { assertNoMidCircuitMeasurement } from "../statevector/simulate";
+import { EngineError } from "../errors";
+import { checkQubitLimit } from "./estimate";
+import { MAX_SHOTS } from "./limits";
+import { parseObservableForCircuit } from "./prepare-observable";
+import { sweepGrid } from "./sweep-grid";
+import { validateRequest } from "./validate-request";
+
+export function previewRequest(request: unknown): PreviewResult {
+  const req = validateRequest(request);
+  const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
+  const n = program.numQubits;
+  checkQubitLimit(n, req.method);
+  const grid = sweepGrid(req.parameters, req.sweep, program.inputs);
+  const circuit = program.bind(grid.points[0]);
+  if (req.method === "statevector") assertNoMidCircuitMeasurement(circuit);
+  const stats = circuitStats(circuit);
+  const obs = parseObservableForCircuit(req.raw.observable, n);
+  const groups =
+    obs.kind === "pauli" ? obs.settings.map((g) => ({ bases: g.bases, terms: g.terms })) : [{ bases: "eigenbasis", terms: [] as number[] }];
+  const bounds =
+    obs.kind === "pauli"
+      ? obs.settings.map((g) => g.terms.reduce((a, i) => a + Math.abs(obs.sum.terms[i].coefficient), 0))
+      : [gershgorinBound(obs.matrix)];
+  const notes: string[] = [];
+  let shotPlan: PreviewResult["shotPlan"] = null;
+  let shots = req.shots;
+  let perSetting: number[] | null = null;
+  if (req.targetPrecision !== null) {
+    shotPlan = planShots({ targetPrecision: req.targetPrecision, stdDevBounds: bounds, stdDevs: null });
+    shots = shotPlan.worstCase.totalShots;
+    perSetting = shotPlan.worstCase.perSetting;
+    notes.push(
+      "The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016); the run computes the state's exact variances and usually needs fewer shots.",
+    );
+    if (shots > MAX_SHOTS) notes.push(`The worst-case plan exceeds the limit of ${MAX_SHOTS} shots; the state-aware plan of the run may still fit.`);
+  } else if (shots > 0) {
+    if (shots < groups.length) {
+      const message = `at least one shot per measurement setting is needed: ${groups.length} settings need shots ≥ ${groups.length}`;
+      throw new EngineError("invalid_request", message, [{ path: ["shots"], message }]);
+    }
+    perSetting = allocateShots(shots, req.split === "even" ? bounds.map(() => 1) : bounds);
+    if (req.split === "optimal" && groups.length > 1) {
+      notes.push("The per-setting split shown uses worst-case bounds; the run splits ∝ √Var_g from the state's exact variances.");
+    }
+  }
+  if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0) notes.push("The observable is a multiple of the identity: no measurement is needed.");
+  return {
+    qubits: n,
+    method: req.method,
+    gateCounts: stats.gateCounts,
+    totalGates: stats.totalGates,
+    twoQubitGates: stats.twoQubitGates,
+    depth: stats.depth,
+    observable: { format: obs.kind, terms: obs.kind === "pauli" ? obs.sum.terms.length : 0, settings: groups.length },
+    groups,
+    stateBytes: req.method === "statevector" ? 16 * 2 ** n : 16 * 4 ** n,
+    sweepPoints: grid.points.length,
+    shots,
+    totalShots: shots * grid.points.length,
+    shotPlan,
+    shotsPerSetting: perSetting,
+    varianceSource: "worst_case",
+    notes,
+  };
+}

@@ -1,0 +1,39 @@
+/**
+ * Public entry point of the Ketwise engine (DESIGN.md §4). Pure TypeScript over typed
+ * arrays: no database, queue or network. Everything else in lib/quantum is internal.
+ */
+export { estimate, type EstimateOptions } from "./estimate/estimate";
+export { previewRequest } from "./estimate/preview";
+export * from "./estimate/limits";
+export {
+  estimateRequestSchema,
+  estimateResultSchema,
+  previewResultSchema,
+  shotPlanSchema,
+  convergencePointSchema,
+  circuitInputSchema,
+  observableInputSchema,
+  pauliObservableSchema,
+  matrixObservableSchema,
+  noiseModelSchema,
+  type EstimateRequest,
+  type EstimateResult,
+  type PreviewResult,
+} from "./schemas";
+export { EngineError, isEngineError, type EngineErrorCode, type EngineIssue } from "./errors";
+
+// Circuits: parsing, statistics, OpenQASM 2.0 export of measurement / Hadamard-test circuits.
+export { parseProgram, circuitStats, measurementCircuitQasm, hadamardTestQasm, CIRCUIT_LIMITS } from "./circuit";
+export type { ParsedProgram, CircuitStats, ProgramInput, QasmFormat } from "./circuit";
+
+// Observables.
+export { parsePauliSum, type ParsedPauliSum, type TermOrigin } from "./observable/pauli-parse";
+export { padPauliSum, sparseLabel, masksToWord } from "./observable/pauli-word";
+export { groupQubitWise, type MeasurementSetting } from "./observable/grouping";
+export { parseMatrixObservable, type HermitianMatrix, type MatrixObservableInput } from "./observable/matrix-observable";
+export { lanczosExtremes, type LanczosOptions, type LanczosResult } from "./observable/lanczos";
+
+// Planning (no shots).
+export { planShots, planFromStdDevs, allocateShots, type ShotPlan, type SettingPlan } from "./planning/shot-plan";
+
+export type { Circuit, NoiseModel, PauliSum, PauliTerm, ProgressFn } from "./types";
