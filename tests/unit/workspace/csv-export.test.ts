@@ -4,7 +4,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { csvField, toCsv } from "@/lib/export/csv";
-import { countsCsv, fileStem, runJson, termsCsv } from "@/lib/export/run-export";
+import { countsCsv, fileStem, runJson, termsCsv, type ExportResult } from "@/lib/export/run-export";
 
 /** Reads CSV text with Python's csv module (an outside RFC 4180 reader). */
 function pythonReadCsv(text: string): string[][] {
@@ -46,7 +46,7 @@ describe("csvField — RFC 4180 §2 quoting rules", () => {
   });
 });
 
-const result = {
+const result: ExportResult = {
   terms: [
     { pauli: "ZZ", coefficient: 1, exact: 1, sampledMean: 1, stdErr: 0, group: 0 },
     { pauli: "XX", coefficient: 0.5, exact: 1, sampledMean: 0.98, stdErr: 0.0063, group: 1 },

@@ -1,6 +1,10 @@
-import jStat from "jstat";
+import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
 import { Z95, agreementVerdict, erfc, pickComparison, twoSidedP, zScore } from "@/components/runs/verdict";
+/** jstat (statistics reference library, REFERENCES.md) ships no type declarations. */
+const { jStat } = createRequire(import.meta.url)("jstat") as {
+  jStat: { normal: { cdf: (x: number, m: number, s: number) => number; inv: (p: number, m: number, s: number) => number } };
+};
 
 describe("erfc and the two-sided p-value", () => {
   it("matches jStat's normal CDF: p = 2(1 − Φ(|z|)) (reference library jstat)", () => {

@@ -1,0 +1,76 @@
+/**
+ * Plain-language help for each noise probability (semantics in DESIGN.md §2; channel
+ * forms from Nielsen & Chuang ch. 8) and a few starting profiles. The profiles are
+ * invented round numbers for trying things out, not data of any device.
+ */
+export type NoiseKey = "depolarizing1q" | "depolarizing2q" | "amplitudeDamping" | "phaseDamping" | "p1Given0" | "p0Given1";
+
+export const NOISE_FIELDS: { key: NoiseKey; label: string; symbol: string; help: string; gate: boolean }[] = [
+  {
+    key: "depolarizing1q",
+    label: "Depolarizing, 1-qubit gates",
+    symbol: "p₁",
+    help: "After every one-qubit gate, with this probability the qubit is replaced by a completely random state.",
+    gate: true,
+  },
+  {
+    key: "depolarizing2q",
+    label: "Depolarizing, multi-qubit gates",
+    symbol: "p₂",
+    help: "The same after every gate on two or more qubits, for all of its qubits together.",
+    gate: true,
+  },
+  {
+    key: "amplitudeDamping",
+    label: "Amplitude damping",
+    symbol: "γ",
+    help: "Energy loss: after each gate, every qubit it touches decays from 1 towards 0 with this probability.",
+    gate: true,
+  },
+  {
+    key: "phaseDamping",
+    label: "Phase damping",
+    symbol: "λ",
+    help: "Loss of phase: after each gate, superpositions on the touched qubits fade (coherences shrink by √(1−λ)).",
+    gate: true,
+  },
+  {
+    key: "p1Given0",
+    label: "Readout: 1 when it was 0",
+    symbol: "e₀",
+    help: "Chance that a qubit in 0 is read as 1. Affects sampled outcomes only, never the exact value.",
+    gate: false,
+  },
+  {
+    key: "p0Given1",
+    label: "Readout: 0 when it was 1",
+    symbol: "e₁",
+    help: "Chance that a qubit in 1 is read as 0. Affects sampled outcomes only, never the exact value.",
+    gate: false,
+  },
+];
+
+export type NoiseProfileValues = Record<NoiseKey, string>;
+
+export type NoiseProfile = { id: string; name: string; values: NoiseProfileValues; builtIn?: boolean };
+
+export const BUILT_IN_PROFILES: NoiseProfile[] = [
+  {
+    id: "builtin:readout-only",
+    name: "Readout only (2 % / 4 %)",
+    builtIn: true,
+    values: { depolarizing1q: "", depolarizing2q: "", amplitudeDamping: "", phaseDamping: "", p1Given0: "0.02", p0Given1: "0.04" },
+  },
+  {
+    id: "builtin:light",
+    name: "Light gate noise",
+    builtIn: true,
+    values: { depolarizing1q: "0.001", depolarizing2q: "0.01", amplitudeDamping: "0.0005", phaseDamping: "0.001", p1Given0: "0.01", p0Given1: "0.02" },
+  },
+  {
+    id: "builtin:heavy",
+    name: "Heavy gate noise",
+    builtIn: true,
+    values: { depolarizing1q: "0.005", depolarizing2q: "0.04", amplitudeDamping: "0.002", phaseDamping: "0.005", p1Given0: "0.03", p0Given1: "0.06" },
+  },
+];

@@ -1,0 +1,162 @@
+"use client";
+/**
+ * The live preview beside the composer: what the run will be (qubits, gates, depth),
+ * how it will be measured (settings), how many shots it will draw and whether the plan
+ * accepts it now. Updated as the user types; the last good answer stays visible (dimmed)
+ * while the next one is computed or while the draft has errors.
+ */
+import { Alert } from "@/components/ui/alert";
+import { Badge } from "@/components/ui/badge";
+import { Card, CardBody, CardHeader } from "@/components/ui/card";
+import { cn } from "@/components/ui/cn";
+import { IconError, IconSuccess } from "@/components/ui/icons";
+import { Skeleton } from "@/components/ui/skeleton";
+import { Spinner } from "@/components/ui/spinner";
+import type { ApiError } from "@/lib/swr/api-client";
+import type { Preview } from "@/lib/swr/types";
+
+const fmt = new Intl.NumberFormat("en-US");
+
+function Stat({ label, value }: { label: string; value: React.ReactNode }) {
+  return (
+    <div className="grid gap-0.5 rounded-md border border-line bg-surface-2/50 px-3 py-2">
+      <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">{label}</dt>
+      <dd className="figures text-lg leading-6 text-ink">{value}</dd>
+    </div>
+  );
+}
+
+function Status({ pending, error, preview }: { pending: boolean; error?: ApiError; preview?: Preview }) {
+  if (pending)
+    return (
+      <span className="inline-flex items-center gap-1.5 text-xs text-ink-2">
+        <Spinner className="size-3.5" /> Checking…
+      </span>
+    );
+  if (error)
+    return (
+      <span className="inline-flex items-center gap-1.5 text-xs font-medium text-danger">
+        <IconError className="size-3.5" /> {error.errors.length > 1 ? `${error.errors.length} problems` : "Needs a fix"}
+      </span>
+    );
+  if (preview && !preview.quota.allowed)
+    return (
+      <span className="inline-flex items-center gap-1.5 text-xs font-medium text-warn">
+        <IconError className="size-3.5" /> Over a plan limit
+      </span>
+    );
+  if (preview)
+    return (
+      <span className="inline-flex items-center gap-1.5 text-xs font-medium text-ok">
+        <IconSuccess className="size-3.5" /> Ready to run
+      </span>
+    );
+  return null;
+}
+
+export function PreviewPanel({ preview, error, pending }: { preview?: Preview; error?: ApiError; pending: boolean }) {
+  const stale = pending || !!error;
+  const gates = preview ? Object.entries(preview.gateCounts).sort((a, b) => b[1] - a[1]) : [];
+  const totalShots = preview ? preview.shots * Math.max(1, preview.sweepPoints) : 0;
+  return (
+    <Card aria-labelledby="preview-title">
+      <CardHeader
+        title={<span id="preview-title">Preview</span>}
+        actions={<Status pending={pending} error={error} preview={preview} />}
+      />
+      <CardBody className="grid gap-4" aria-live="polite" aria-busy={pending}>
+        {error && error.status !== 400 && error.status !== 422 ? (
+          <Alert tone="error" compact role="alert" title={error.title}>
+            {error.message}
+          </Alert>
+        ) : error ? (
+          <p className="text-[13px] leading-5 text-ink-2">Fix the marked problems to see the run’s figures. Your draft is kept.</p>
+        ) : null}
+        {!preview ? (
+          error ? null : (
+            <div className="grid grid-cols-2 gap-2" aria-label="Loading the preview">
+              <Skeleton className="h-14" />
+              <Skeleton className="h-14" />
+              <Skeleton className="h-14" />
+              <Skeleton className="h-14" />
+            </div>
+          )
+        ) : (
+          <div className={cn("grid gap-4 transition-opacity", stale && "opacity-55")}>
+            <dl className="grid grid-cols-2 gap-2">
+              <Stat label="Qubits" value={preview.qubits} />
+              <Stat label="Depth" value={preview.depth} />
+              <Stat label="Gates" value={fmt.format(preview.totalGates)} />
+              <Stat label="2-qubit gates" value={fmt.format(preview.twoQubitGates)} />
+            </dl>
+            {gates.length ? (
+              <div className="flex flex-wrap gap-1" aria-label="Gate counts">
+                {gates.slice(0, 14).map(([name, n]) => (
+                  <Badge key={name} className="figures">
+                    {name} ×{n}
+                  </Badge>
+                ))}
+                {gates.length > 14 ? <Badge>+{gates.length - 14} more</Badge> : null}
+              </div>
+            ) : null}
+            <section className="grid gap-2" aria-label="Measurement settings">
+              <h3 className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
+                Measurement settings · {preview.observable.settings}
+              </h3>
+              <ul className="grid max-h-44 gap-1 overflow-y-auto pr-1">
+                {preview.groups.map((g, i) => (
+                  <li key={i} className="flex items-center justify-between gap-3 text-[12.5px]">
+                    <span className="font-mono tracking-[0.12em] text-ink">{g.bases}</span>
+                    <span className="figures text-ink-3">
+                      {g.terms.length} term{g.terms.length === 1 ? "" : "s"}
+                      {preview.shotsPerSetting ? ` · ${fmt.format(preview.shotsPerSetting[i] ?? 0)} shots` : ""}
+                    </span>
+                  </li>
+                ))}
+              </ul>
+            </section>
+            <section className="grid gap-1.5 rounded-md border border-line px-3 py-2.5 text-[13px]" aria-label="Shot plan and cost">
+              <div className="flex justify-between gap-3">
+                <span className="text-ink-2">Shots per point</span>
+                <span className="figures text-ink">{preview.shots ? fmt.format(preview.shots) : "exact only"}</span>
+              </div>
+              {preview.sweepPoints > 1 ? (
+                <div className="flex justify-between gap-3">
+                  <span className="text-ink-2">Sweep points</span>
+                  <span className="figures text-ink">{fmt.format(preview.sweepPoints)}</span>
+                </div>
+              ) : null}
+              {preview.shotPlan ? (
+                <p className="text-xs leading-5 text-ink-3">
+                  For a standard error of {preview.shotPlan.targetPrecision}: at most{" "}
+                  <span className="figures">{fmt.format(preview.shotPlan.worstCase.totalShots)}</span> shots for any state; the run
+                  plans from the state’s own variances, usually fewer.
+                </p>
+              ) : null}
+              <div className="mt-1 flex justify-between gap-3 border-t border-line pt-1.5">
+                <span className="text-ink-2">Counts against {preview.quota.plan.name}</span>
+                <span className="figures font-medium text-ink">{fmt.format(preview.quota.shots ?? totalShots)} shots</span>
+              </div>
+            </section>
+            {preview.quota.refusals.length ? (
+              <Alert tone="warning" compact title="The plan would refuse this run now">
+                <ul className="grid gap-1">
+                  {preview.quota.refusals.map((r) => (
+                    <li key={r.limit}>{r.detail}</li>
+                  ))}
+                </ul>
+              </Alert>
+            ) : null}
+            {preview.notes.length ? (
+              <ul className="grid gap-1 text-xs leading-5 text-ink-2">
+                {preview.notes.map((n, i) => (
+                  <li key={i}>· {n}</li>
+                ))}
+              </ul>
+            ) : null}
+          </div>
+        )}
+      </CardBody>
+    </Card>
+  );
+}

@@ -1,0 +1,56 @@
+"use client";
+/**
+ * Values to start the composer with, from the URL: `?from=<run id>` (run again with
+ * changes), or `?circuit=<id>` and/or `?observable=<id>` (from the library). Loaded once.
+ */
+import type { ReadonlyURLSearchParams } from "next/navigation";
+import { useEffect, useState } from "react";
+import { apiFetch } from "@/lib/swr/api-client";
+import { useWorkspaceOrg } from "@/lib/swr/org-context";
+import type { LibraryCircuit, LibraryObservable, Page, Run } from "@/lib/swr/types";
+import { DEFAULT_VALUES, fromRequest, type ComposerValues } from "./composer-model";
+
+export type Prefill = { state: "none" } | { state: "loading" } | { state: "ready"; values: ComposerValues } | { state: "failed"; message: string };
+
+export function usePrefill(search: ReadonlyURLSearchParams): Prefill {
+  const { orgId } = useWorkspaceOrg();
+  const from = search.get("from");
+  const circuitId = search.get("circuit");
+  const observableId = search.get("observable");
+  const wanted = !!(from || circuitId || observableId);
+  const [state, setState] = useState<Prefill>(wanted ? { state: "loading" } : { state: "none" });
+
+  useEffect(() => {
+    if (!wanted) return;
+    let live = true;
+    (async () => {
+      if (from) {
+        const run = await apiFetch<Run>(orgId, `/api/v1/runs/${encodeURIComponent(from)}`);
+        return fromRequest(run.request, `${run.name} (again)`);
+      }
+      const v: ComposerValues = structuredClone(DEFAULT_VALUES);
+      if (circuitId) {
+        const page = await apiFetch<Page<LibraryCircuit>>(orgId, "/api/v1/circuits?limit=100");
+        const c = page.data.find((x) => x.id === circuitId);
+        if (c) {
+          v.circuit = { format: c.format, source: c.source };
+          v.name = c.name;
+        }
+      }
+      if (observableId) {
+        const page = await apiFetch<Page<LibraryObservable>>(orgId, "/api/v1/observables?limit=100");
+        const o = page.data.find((x) => x.id === observableId);
+        if (o?.format === "matrix" && o.matrix) v.observable = { format: "matrix", terms: "", matrixText: JSON.stringify(o.matrix) };
+        else if (o) v.observable = { format: "pauli", terms: o.terms ?? "", matrixText: "" };
+      }
+      return v;
+    })()
+      .then((values) => live && setState({ state: "ready", values }))
+      .catch((e: unknown) => live && setState({ state: "failed", message: e instanceof Error ? e.message : "could not load" }));
+    return () => {
+      live = false;
+    };
+  }, [wanted, from, circuitId, observableId, orgId]);
+
+  return state;
+}

@@ -1,0 +1,55 @@
+/**
+ * Client-side shapes of the REST API v1 resources the workspace reads: the runs
+ * resource's and the engine's own zod-inferred types, imported as types only so no
+ * schema or engine code is pulled into the browser bundle by this module.
+ */
+import type { EstimateRequest, EstimateResult, PreviewResult } from "@/lib/quantum/schemas";
+import type { ProblemDocument } from "@/lib/openapi/common-schemas";
+import type { QuotaVerdict, RunCreateInput, RunSummaryView, RunView } from "@/lib/runs/schemas";
+import { RUN_STATUSES, TERMINAL_RUN_STATUSES, isTerminalStatus, type RunMethod, type RunStatus } from "@/lib/runs/constants";
+
+export type { EstimateRequest, EstimateResult, PreviewResult, QuotaVerdict, RunCreateInput, RunMethod, RunStatus };
+export { RUN_STATUSES, TERMINAL_RUN_STATUSES };
+
+export const isTerminal = isTerminalStatus;
+
+export type ApiProblem = ProblemDocument;
+
+/** A run as `GET /api/v1/runs/:id` returns it. */
+export type Run = RunView;
+
+/** A row of `GET /api/v1/runs`. */
+export type RunSummary = RunSummaryView;
+
+export type Page<T> = { data: T[]; nextCursor: string | null };
+
+export type LibraryCircuit = {
+  id: string;
+  name: string;
+  description: string;
+  tags: string[];
+  format: "qasm2" | "qasm3";
+  source: string;
+  qubits: number;
+  createdAt: string;
+  updatedAt?: string;
+};
+
+export type LibraryObservable = {
+  id: string;
+  name: string;
+  description: string;
+  tags: string[];
+  format: "pauli" | "matrix";
+  terms?: string | null;
+  matrix?: { real: number[][]; imag?: number[][] } | null;
+  qubits: number;
+  createdAt: string;
+  updatedAt?: string;
+};
+
+/** `POST /api/v1/runs/preview`: the engine's preview plus the plan's verdict. */
+export type Preview = PreviewResult & { quota: QuotaVerdict };
+
+export type UsageMeter = { metric: string; used: number; limit: number | null; unit?: string };
+export type Usage = { period: string; meters: UsageMeter[]; [k: string]: unknown };
