@@ -19,7 +19,8 @@ import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
 import { touchApiKey } from "@/lib/orgs/mutations";
 import { findActiveApiKeyByHash, listMembershipsForUser, type OrgSummary } from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
-import { BUDGETS, consume, type Budget } from "@/lib/rate-limit";
+import { env } from "@/lib/env";
+import { consume, type Budget } from "@/lib/rate-limit";
 import { forbidden, notFound, problemResponse, sessionExpired, toProblem, unauthorized } from "./problem";
 
 export type Actor =
@@ -36,7 +37,7 @@ export type OrgContext<P = Record<string, string>> = {
 export type WithOrgOptions = {
   /** Weakest role allowed (default viewer). */
   role?: Role;
-  /** Per-actor budget (default BUDGETS.api); false turns the limit off. */
+  /** Per-actor budget (default API_RATE_LIMIT_PER_MINUTE per minute); false turns the limit off. */
   rateLimit?: Budget | false;
 };
 
@@ -101,7 +102,8 @@ export function withOrg<P = Record<string, string>>(
       const ctx = await resolveOrgContext(req, options.role ?? "viewer");
       if (options.rateLimit !== false) {
         const actorKey = ctx.actor.kind === "user" ? `u:${ctx.actor.userId}` : `k:${ctx.actor.apiKeyId}`;
-        await consume("api", options.rateLimit ?? BUDGETS.api, actorKey, "Too many API requests.");
+        const budget = options.rateLimit ?? { points: env.API_RATE_LIMIT_PER_MINUTE, duration: 60 };
+        await consume("api", budget, actorKey, "Too many API requests.");
       }
       const params = (route ? await route.params : {}) as P;
       return await handler(req, { ...ctx, params });

@@ -3,8 +3,8 @@
  *
  * Sign-in: at most 10 attempts per e-mail and 50 per IP address in 15 minutes;
  * a successful sign-in clears the e-mail's counter. Magic-link requests: 5 per
- * e-mail and 20 per IP per 15 minutes. API: 300 requests per minute per key or
- * user (route handlers may ask for a different budget).
+ * e-mail and 20 per IP per 15 minutes. API (withOrg): API_RATE_LIMIT_PER_MINUTE
+ * requests per minute per key or user (route handlers may ask for another budget).
  * A limit answers `ProblemError` 429 with Retry-After in seconds.
  */
 import "server-only";
@@ -19,7 +19,6 @@ export const BUDGETS = {
   signInIp: { points: 50, duration: 15 * 60 },
   magicLinkEmail: { points: 5, duration: 15 * 60 },
   magicLinkIp: { points: 20, duration: 15 * 60 },
-  api: { points: 300, duration: 60 },
 } satisfies Record<string, Budget>;
 
 const limiters = new Map<string, RateLimiterRedis>();

@@ -31,7 +31,7 @@ export default async function setup(): Promise<() => Promise<void>> {
     if (error instanceof Error && error.message.startsWith("port ")) throw error;
   }
 
-  const env = {
+  const env: NodeJS.ProcessEnv = {
     ...process.env,
     NODE_ENV: "production",
     NEXT_DIST_DIR: ".next-e2e",

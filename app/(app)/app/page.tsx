@@ -45,10 +45,12 @@ export default async function DashboardPage({
           <CardHeader eyebrow="Plan" title={plan?.name ?? org.plan} />
           <CardBody className="text-sm leading-6 text-ink-2">
             {plan ? (
-              <span className="figures">
-                up to {plan.limits.maxStatevectorQubits} qubits (statevector) ·{" "}
-                {plan.limits.monthlyShots.toLocaleString("en-US")} shots / month
-              </span>
+              <>
+                Up to <span className="figures text-ink">{plan.limits.maxStatevectorQubits}</span> qubits
+                (statevector) and{" "}
+                <span className="figures text-ink">{plan.limits.monthlyShots.toLocaleString("en-US")}</span> shots
+                a month.
+              </>
             ) : null}
           </CardBody>
         </Card>

@@ -20,7 +20,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   const error = authErrorMessage(one(params.error));
   if (!error && (await getSessionUser())) redirect(callbackUrl);
 
-  const tab = one(params.tab) === "link" ? "link" : "password";
+  // A dead magic link lands here: offer a new link first.
+  const tabParam = one(params.tab) ?? (one(params.error) === "Verification" ? "link" : undefined);
+  const tab = tabParam === "link" ? "link" : "password";
   const email = one(params.email);
   const tabHref = (t: string) => `/sign-in?${new URLSearchParams({ tab: t, callbackUrl })}`;
 
