@@ -7,7 +7,8 @@
  */
 import type { Fake } from "../core/fake";
 import type { SubscriptionRec } from "../core/state";
-import { renderInvoice, renderSubscription } from "../resources/render-billing";
+import { renderSubscription } from "../resources/render-billing";
+import { renderInvoice } from "../resources/render-invoice";
 import { attemptPayment } from "./invoicing";
 import { endSubscription, renewSubscription } from "./subscriptions";
 

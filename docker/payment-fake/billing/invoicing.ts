@@ -14,7 +14,8 @@ import type { Fake } from "../core/fake";
 import { newId, randomText } from "../core/ids";
 import type { InvoiceLineRec, InvoiceRec } from "../core/state";
 import { renderCustomer } from "../resources/render-catalog";
-import { renderInvoice, renderSubscription } from "../resources/render-billing";
+import { renderSubscription } from "../resources/render-billing";
+import { renderInvoice } from "../resources/render-invoice";
 import { chargeDecline, paymentMethodFor } from "./payments";
 
 export const RETRY_DAYS = [3, 5, 7] as const;

@@ -2,7 +2,8 @@
 import type { Fake } from "../core/fake";
 import type { CheckoutSessionRec, InvoiceRec, PortalSessionRec } from "../core/state";
 import { formatCents, formatDate, formatUnitDecimal } from "../billing/money";
-import { priceOf, invoiceUrls } from "../resources/render-billing";
+import { priceOf } from "../resources/render-billing";
+import { invoiceUrls } from "../resources/render-invoice";
 import { cardForm, esc, page, type CardFormOptions } from "./layout";
 
 export function checkoutView(fake: Fake, s: CheckoutSessionRec, form: Omit<CardFormOptions, "action" | "button"> = {}): string {

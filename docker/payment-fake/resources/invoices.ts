@@ -14,7 +14,7 @@ import { attemptPayment, type LineInput } from "../billing/invoicing";
 import { itemLines, licensedLines, meteredLines, pendingItems } from "../billing/lines";
 import { addMonths } from "../core/clock";
 import { resolvePaymentMethodParam } from "./payment-methods";
-import { renderInvoice, renderInvoiceLine } from "./render-billing";
+import { renderInvoice, renderInvoiceLine } from "./render-invoice";
 import type { ApiRouter } from "./types";
 
 const listSchema = z.strictObject({
