@@ -16,7 +16,7 @@ import { checkCircuit } from "../statevector/circuit-check";
 import { GateFuser, fuseGates } from "../statevector/fusion";
 import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
 import { RunControl, type RunOptions } from "../statevector/run-control";
-import { dampQubit, depolarize, measureNonSelective, resetQubit } from "../noise/channels";
+import { dampQubit, depolarize, measureNonSelective, noiseAfter1q, resetQubit } from "../noise/channels";
 import { hasStateNoise, validateNoiseModel } from "../noise/validate";
 import { applyUnitaryDMUnchecked } from "./kernels";
 import { createZeroDensity } from "./state";
@@ -97,8 +97,12 @@ export function simulateDensityMatrix(
     if (step.kind === "unitary") {
       applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
     } else if (step.kind === "noise") {
-      depolarize(rho, step.qubits, step.qubits.length === 1 ? p1 : p2);
-      for (const q of step.qubits) dampQubit(rho, q, gamma, lambda);
+      if (step.qubits.length === 1) {
+        noiseAfter1q(rho, step.qubits[0], p1, gamma, lambda);
+      } else {
+        depolarize(rho, step.qubits, p2);
+        for (const q of step.qubits) dampQubit(rho, q, gamma, lambda);
+      }
     } else if (step.kind === "measure") {
       measureNonSelective(rho, step.qubit);
     } else {

@@ -111,6 +111,40 @@ export function dampQubit(rho: DensityMatrix, q: number, gamma: number, lambda: 
   }
 }
 
+/**
+ * The full noise after a 1-qubit gate in ONE pass: depolarizing p (as `depolarize`), then
+ * amplitude damping γ and phase damping λ (as `dampQubit`) on qubit q. Per 2×2 block
+ * [[a, b], [c, e]] over q: a' = (1−p)a + p(a+e)/2, e' = (1−p)e + p(a+e)/2, b' = (1−p)b,
+ * c' = (1−p)c; then a'' = a' + γe', e'' = (1−γ)e', b'' = √(1−γ)√(1−λ)·b', likewise c''.
+ */
+export function noiseAfter1q(rho: DensityMatrix, q: number, p: number, gamma: number, lambda: number): void {
+  if (p === 0 && gamma === 0 && lambda === 0) return;
+  const { re, im } = rho;
+  const c1 = 1 << q;
+  const r1 = 1 << (q + rho.n);
+  const rc = r1 | c1;
+  const notMask = ~rc;
+  const keep = 1 - p;
+  const mix = p / 2;
+  const coh = keep * Math.sqrt(1 - gamma) * Math.sqrt(1 - lambda);
+  const pop = 1 - gamma;
+  const count = re.length >>> 2;
+  for (let t = 0, b = 0; t < count; t++, b = ((b | rc) + 1) & notMask) {
+    const i11 = b | rc;
+    const ar = re[b], ai = im[b], er = re[i11], ei = im[i11];
+    const tr = mix * (ar + er), ti = mix * (ai + ei);
+    const er1 = keep * er + tr, ei1 = keep * ei + ti;
+    re[b] = keep * ar + tr + gamma * er1;
+    im[b] = keep * ai + ti + gamma * ei1;
+    re[i11] = pop * er1;
+    im[i11] = pop * ei1;
+    re[b | c1] *= coh;
+    im[b | c1] *= coh;
+    re[b | r1] *= coh;
+    im[b | r1] *= coh;
+  }
+}
+
 /** Amplitude damping with γ on qubit q (N&C §8.3.5; formula in dampQubit). */
 export function amplitudeDamp(rho: DensityMatrix, q: number, gamma: number): void {
   dampQubit(rho, q, gamma, 0);

@@ -1,3 +1,3 @@
 /** Noise channels (in-place on a density matrix) and noise-model validation. */
-export { depolarize, dampQubit, amplitudeDamp, phaseDamp, measureNonSelective, resetQubit } from "./channels";
+export { depolarize, dampQubit, amplitudeDamp, phaseDamp, measureNonSelective, resetQubit, noiseAfter1q } from "./channels";
 export { validateNoiseModel, hasStateNoise } from "./validate";
