@@ -9,7 +9,7 @@ import type { Expr, GateCallStmt, Operand, Pos, ProgramAst, Stmt } from "./ast";
 import { circuitError, plural, semanticError, syntaxError, unsupported3 } from "./circuit-errors";
 import { compileExpr, isReservedName, type Compiled, type ExprContext } from "./expressions";
 import { checkArity, GateScope, type Expanded } from "./gate-definitions";
-import { QELIB1, QELIB1_ADDITIONS, STDGATES } from "./gate-library";
+import { QELIB1, QELIB1_ADDITIONS, STDGATES, type PrimitiveGate } from "./gate-library";
 import type { QasmFormat } from "./parse-source";
 import { LIMITS, type CompiledOp, type CompiledProgram, type PartTemplate, type ProgramInput } from "./program-ir";
 import { broadcast, RegisterTable } from "./registers";
@@ -28,6 +28,7 @@ class ProgramCompiler {
   private mid = false;
   private reset = false;
   private included = false;
+  private readonly matrixCache = new Map<PrimitiveGate, Map<string, Float64Array>>();
   private readonly topCtx: ExprContext;
 
   constructor(
@@ -170,11 +171,27 @@ class ProgramCompiler {
       gate: x.gate,
       formals: x.formals,
       params: x.params,
-      constMatrix: constant ? x.gate.matrix(x.params.map((p) => p.constant as number)) : null,
+      constMatrix: constant ? this.constantMatrix(x.gate, x.params.map((p) => p.constant as number)) : null,
       slot: constant ? -1 : this.slots.length,
     };
     if (!constant) this.slots.push(t);
     return t;
+  }
+
+  /** One shared matrix per (gate, constant parameters) — e.g. every `cx` uses the same array. */
+  private constantMatrix(gate: PrimitiveGate, params: number[]): Float64Array {
+    let byParams = this.matrixCache.get(gate);
+    if (byParams === undefined) {
+      byParams = new Map();
+      this.matrixCache.set(gate, byParams);
+    }
+    const key = params.join(",");
+    let m = byParams.get(key);
+    if (m === undefined) {
+      m = gate.matrix(params);
+      byParams.set(key, m);
+    }
+    return m;
   }
 
   private barrier(args: Operand[], pos: Pos): void {

@@ -75,6 +75,7 @@ export class GateScope {
     for (const [name, gate] of table) {
       const existing = this.gates.get(name);
       if (existing !== undefined && existing.kind === "user") {
+        if (replaceable) continue; // the program's own definition of a later addition wins
         throw semanticError(`gate '${name}' is defined by the program (line ${existing.pos.line}) and again by ${origin}`, existing.pos);
       }
       this.gates.set(name, { kind: "primitive", name, gate, origin, replaceable });

@@ -12,16 +12,22 @@
  */
 import { createToken, Lexer, type TokenType } from "chevrotain";
 
+function charRange(from: number, to: number): string[] {
+  return Array.from({ length: to - from + 1 }, (_, i) => String.fromCharCode(from + i));
+}
+
 export const Identifier = createToken({
   name: "Identifier",
   label: "a name",
-  // ASCII names; Latin-1/Latin Extended/Greek letters (θ, π) and ℇ are OpenQASM 3 only
+  // ASCII names; Latin-1/Latin Extended letters, Greek letters (θ, π) and ℇ are OpenQASM 3 only
   // (the OpenQASM 2.0 lexer uses AsciiIdentifier instead).
-  pattern: /[A-Za-z_\u00C0-\u024F\u0370-\u03FF\u2107][A-Za-z0-9_\u00C0-\u024F\u0370-\u03FF\u2107]*/,
+  pattern: /[A-Za-z_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F\u0370-\u03FF\u2107][A-Za-z0-9_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F\u0370-\u03FF\u2107]*/,
   start_chars_hint: [
     ..."abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ_",
-    ...Array.from({ length: 0x24f - 0xc0 + 1 }, (_, i) => String.fromCharCode(0xc0 + i)),
-    ...Array.from({ length: 0x3ff - 0x370 + 1 }, (_, i) => String.fromCharCode(0x370 + i)),
+    ...charRange(0xc0, 0xd6),
+    ...charRange(0xd8, 0xf6),
+    ...charRange(0xf8, 0x24f),
+    ...charRange(0x370, 0x3ff),
     "\u2107",
   ],
 });
