@@ -6,3 +6,4 @@ export * from "./audit";
 export * from "./runs";
 export * from "./library";
 export * from "./usage";
+export * from "./billing";
