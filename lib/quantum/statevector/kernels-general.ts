@@ -56,9 +56,13 @@ export function applyGeneral1q(re: Float64Array, im: Float64Array, q: number, m:
   }
   const half = 1 << q; // even for q ≥ 1
   const step = half << 1;
-  for (let blk = 0; blk < len; blk += step) {
-    const end = blk + half;
-    for (let i = blk, j = blk + half; i < end; i += 2, j += 2) {
+  // for q = 1 one flat loop (blocks of 4 amplitudes: pairs (i, i+2) and (i+1, i+3))
+  const inner = q === 1 ? len : half;
+  const outerStep = q === 1 ? len : step;
+  const inc = q === 1 ? 4 : 2;
+  for (let blk = 0; blk < len; blk += outerStep) {
+    const end = blk + inner;
+    for (let i = blk, j = blk + half; i < end; i += inc, j += inc) {
       const x0 = re[i], y0 = im[i], x1 = re[j], y1 = im[j];
       const u0 = re[i + 1], v0 = im[i + 1], u1 = re[j + 1], v1 = im[j + 1];
       re[i] = ar * x0 - ai * y0 + br * x1 - bi * y1;
