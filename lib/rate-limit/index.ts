@@ -8,7 +8,7 @@
  * A limit answers `ProblemError` 429 with Retry-After in seconds.
  */
 import "server-only";
-import { RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
+import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
 import { getRedis } from "./redis";
 
@@ -27,7 +27,15 @@ function limiter(name: string, budget: Budget): RateLimiterRedis {
   const id = `${name}:${budget.points}:${budget.duration}`;
   let found = limiters.get(id);
   if (!found) {
-    found = new RateLimiterRedis({ storeClient: getRedis(), keyPrefix: `kw:rl:${name}`, ...budget });
+    // While Redis is unreachable, limit per process in memory instead of failing every request.
+    const insuranceLimiter = new RateLimiterMemory({ keyPrefix: `kw:rl:${name}`, ...budget });
+    found = new RateLimiterRedis({
+      storeClient: getRedis(),
+      keyPrefix: `kw:rl:${name}`,
+      ...budget,
+      rejectIfRedisNotReady: true,
+      insuranceLimiter,
+    });
     limiters.set(id, found);
   }
   return found;
