@@ -16,7 +16,7 @@
 import { Worker, type Job } from "bullmq";
 import { closeDb } from "@/db";
 import { env } from "@/lib/env";
-import { workerConnection } from "@/lib/queue/connection";
+import { queuePrefix, workerConnection } from "@/lib/queue/connection";
 import { closeQueue } from "@/lib/queue/enqueue";
 import { LOCK_DURATION_MS, MAX_STALLED_COUNT, RUNS_QUEUE, STALLED_INTERVAL_MS } from "@/lib/queue/jobs";
 import { EnginePool } from "./engine-pool";
@@ -36,6 +36,7 @@ async function main(): Promise<void> {
 
   const worker = new Worker(RUNS_QUEUE, (job: Job, token?: string) => dispatch(registry, job, token), {
     connection: workerConnection(),
+    prefix: queuePrefix(),
     concurrency,
     lockDuration: LOCK_DURATION_MS,
     stalledInterval: STALLED_INTERVAL_MS,
@@ -49,7 +50,7 @@ async function main(): Promise<void> {
   });
   await worker.waitUntilReady();
   const sweeper = startSweeper();
-  log(`ready: ${concurrency} engine thread(s), queue "${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`);
+  log(`ready: ${concurrency} engine thread(s), queue "${queuePrefix()}:${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`);
 
   let stopping = false;
   const shutdown = async (signal: string) => {

@@ -9,6 +9,16 @@
 import type { ConnectionOptions } from "bullmq";
 import { env } from "@/lib/env";
 
+/**
+ * Key prefix of the queues: one per database (`kw:<database>`), so the
+ * development app, the test suite and a benchmark sharing one Redis never take
+ * each other's jobs.
+ */
+export function queuePrefix(): string {
+  const name = /\/(\w+)(?:\?.*)?$/.exec(env.DATABASE_URL)?.[1] ?? "app";
+  return `kw:${name}`;
+}
+
 export function workerConnection(): ConnectionOptions {
   return { url: env.REDIS_URL, maxRetriesPerRequest: null };
 }

@@ -6,7 +6,7 @@
 import "server-only";
 import { Queue } from "bullmq";
 import { JOB_ATTEMPTS, JOB_BACKOFF, JOB_SCHEMAS, RUNS_QUEUE, type JobName, type JobPayload } from "./jobs";
-import { producerConnection } from "./connection";
+import { producerConnection, queuePrefix } from "./connection";
 
 export class QueueUnavailableError extends Error {
   constructor(cause: unknown) {
@@ -22,7 +22,7 @@ const holder = ((globalThis as { __ketwiseQueue?: Holder }).__ketwiseQueue ??= {
 
 export function getRunsQueue(): Queue {
   if (!holder.queue) {
-    holder.queue = new Queue(RUNS_QUEUE, { connection: producerConnection() });
+    holder.queue = new Queue(RUNS_QUEUE, { connection: producerConnection(), prefix: queuePrefix() });
     // Connection errors surface per call; without a listener they would be logged as unhandled.
     holder.queue.on("error", () => {});
   }

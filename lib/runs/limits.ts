@@ -1,7 +1,7 @@
 /**
  * System limits of the API v1 (not plan limits — those live in
- * lib/billing/plans.ts): the per-actor request budget, the per-person run
- * submission budget and the request body size.
+ * lib/billing/plans.ts): the per-person run submission budget and the request
+ * body size. (The per-key / per-user request budget is withOrg's.)
  */
 import "server-only";
 import { env } from "@/lib/env";
@@ -13,9 +13,6 @@ import type { Budget } from "@/lib/rate-limit";
  * characters each ≈ 3.3 MB.
  */
 export const MAX_BODY_BYTES = 4 * 1024 * 1024;
-
-/** Requests per minute per API key or signed-in user on /api/v1. */
-export const apiBudget = (): Budget => ({ points: env.API_RATE_LIMIT_PER_MINUTE, duration: 60 });
 
 /** Run submissions per minute per person (their session and all keys they created together). */
 export const runSubmitBudget = (): Budget => ({ points: env.RUN_SUBMIT_LIMIT_PER_MINUTE, duration: 60 });
