@@ -74,7 +74,7 @@ describe("parseProgram never throws anything but an EngineError", () => {
       fc.property(fc.constantFrom("qasm2" as const, "qasm3" as const), fc.string({ unit: "binary", maxLength: 200 }), (format, s) => {
         exercise(format, s);
       }),
-      { numRuns: 300, seed: 1 },
+      { numRuns: 200, seed: 1 },
     );
   });
 
@@ -83,7 +83,7 @@ describe("parseProgram never throws anything but an EngineError", () => {
       fc.property(fc.constantFrom("qasm2" as const, "qasm3" as const), tokenSoup, (format, s) => {
         exercise(format, `OPENQASM ${format === "qasm2" ? "2.0" : "3.0"};\n${s}`);
       }),
-      { numRuns: 400, seed: 2 },
+      { numRuns: 300, seed: 2 },
     );
   });
 
@@ -93,7 +93,7 @@ describe("parseProgram never throws anything but an EngineError", () => {
       fc.property(mutation, ([[format, source], edits]) => {
         codes.add(exercise(format, mutate(source, edits)));
       }),
-      { numRuns: 400, seed: 3 },
+      { numRuns: 300, seed: 3 },
     );
     // The mutations reach both the syntax and the semantic checks (and some stay valid).
     expect(codes.has("qasm_syntax")).toBe(true);
