@@ -5,7 +5,7 @@
  * (for one customer or for anyone). `peek` asks without using up a queued
  * failure, so callers can check before changing anything.
  */
-import type { Decline } from "../core/errors";
+import { cardError, invalidRequest, type ApiError, type Decline } from "../core/errors";
 import type { Fake } from "../core/fake";
 import { newId } from "../core/ids";
 import type { PaymentMethodRec } from "../core/state";
@@ -56,6 +56,17 @@ export function attachPaymentMethod(fake: Fake, pm: PaymentMethodRec, customerId
     customer.default_payment_method = pm.id;
     fake.emit("customer.updated", renderCustomer(fake, customer), before, customerId);
   }
+}
+
+/**
+ * The API error for a failed charge: a card problem is a 402 card_error; no
+ * saved card at all is a 400 invalid request, as with the provider.
+ */
+export function chargeError(decline: Decline): ApiError {
+  if (decline.code === NO_PAYMENT_METHOD.code) {
+    return invalidRequest("This customer has no attached payment source or default payment method.", undefined, "resource_missing");
+  }
+  return cardError(decline);
 }
 
 /** A failure queued for this customer (or anyone), used up unless `peek`. */

@@ -12,7 +12,7 @@
  * payment_behavior `error_if_incomplete` refuses the whole change with a 402
  * when that immediate charge would fail; nothing is changed then.
  */
-import { cardError, invalidRequest, noSuch } from "../core/errors";
+import { invalidRequest, noSuch } from "../core/errors";
 import type { Fake } from "../core/fake";
 import { newId } from "../core/ids";
 import type { SubItemRec, SubscriptionRec } from "../core/state";
@@ -20,7 +20,7 @@ import { priceOf, renderSubscription } from "../resources/render-billing";
 import { invoiceNow, type LineInput } from "./invoicing";
 import { claimItems, isMetered, itemLines, pendingItems, productName } from "./lines";
 import { formatDate, lineAmount } from "./money";
-import { chargeDecline, paymentMethodFor } from "./payments";
+import { chargeDecline, chargeError, paymentMethodFor } from "./payments";
 
 export interface ItemChange {
   id?: string;
@@ -152,7 +152,7 @@ export function changeItems(
   const due = invoiceLines.reduce((s, l) => s + l.amount, 0) + (fake.state.customers[sub.customer]?.balance ?? 0);
   if (opts.proration === "always_invoice" && opts.errorIfIncomplete && invoiceLines.length > 0 && due > 0) {
     const decline = chargeDecline(fake, sub.customer, paymentMethodFor(fake, sub.customer, sub.default_payment_method), { peek: true });
-    if (decline) throw cardError(decline);
+    if (decline) throw chargeError(decline);
   }
 
   const before = renderSubscription(fake, sub);

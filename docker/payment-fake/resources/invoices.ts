@@ -5,12 +5,13 @@
  * prorations, seats for the coming period), computed without saving.
  */
 import { z } from "zod";
-import { cardError, invalidRequest, noSuch } from "../core/errors";
+import { invalidRequest, noSuch } from "../core/errors";
 import type { Fake } from "../core/fake";
 import type { InvoiceRec } from "../core/state";
 import { newestFirst, paginate } from "../http/list";
 import { expand, inRange, listShape, oneOf, parseParams, rangeFilter, str } from "../http/params";
 import { attemptPayment, type LineInput } from "../billing/invoicing";
+import { chargeError } from "../billing/payments";
 import { itemLines, licensedLines, meteredLines, pendingItems } from "../billing/lines";
 import { addMonths } from "../core/clock";
 import { resolvePaymentMethodParam } from "./payment-methods";
@@ -116,7 +117,7 @@ export function registerInvoices(router: ApiRouter): void {
     const pm = p.payment_method ? resolvePaymentMethodParam(fake, p.payment_method, "payment_method", inv.customer) : null;
     if (pm && !pm.customer) pm.customer = inv.customer;
     const paid = attemptPayment(fake, inv, { automatic: false, paymentMethod: pm?.id });
-    if (!paid && inv.last_payment_error) throw cardError(inv.last_payment_error);
+    if (!paid && inv.last_payment_error) throw chargeError(inv.last_payment_error);
     return renderInvoice(fake, inv);
   });
 

@@ -6,13 +6,13 @@
  * endpoints (`/v1/subscription_items`).
  */
 import { z } from "zod";
-import { cardError, invalidRequest, noSuch } from "../core/errors";
+import { invalidRequest, noSuch } from "../core/errors";
 import type { Fake } from "../core/fake";
 import type { SubscriptionRec } from "../core/state";
 import { newestFirst, paginate } from "../http/list";
 import { bool, emptyable, expand, int, listShape, mergeMetadata, metadata, oneOf, parseParams, str } from "../http/params";
 import { isMetered } from "../billing/lines";
-import { chargeDecline, paymentMethodFor } from "../billing/payments";
+import { chargeDecline, chargeError, paymentMethodFor } from "../billing/payments";
 import { endSubscription, startSubscription } from "../billing/subscriptions";
 import { changeItems, prorationLines, type ItemChange } from "../billing/update";
 import { priceOf, renderSubscription, renderSubscriptionItem } from "./render-billing";
@@ -126,7 +126,7 @@ export function registerSubscriptions(router: ApiRouter): void {
     const amount = items.reduce((s, it) => s + (it.quantity ?? 0) * (priceOf(fake, it.price).unit_amount ?? 0), 0);
     if (p.payment_behavior === "error_if_incomplete" && amount > 0) {
       const decline = chargeDecline(fake, customer.id, paymentMethodFor(fake, customer.id, pmId), { peek: true });
-      if (decline) throw cardError(decline);
+      if (decline) throw chargeError(decline);
     }
     const sub = startSubscription(fake, {
       customer: customer.id,

@@ -220,3 +220,32 @@ describe("billing portal", () => {
     expect(sub.status).toBe("past_due");
   });
 });
+
+describe("creating subscriptions through the API", () => {
+  it("charges the saved card, or stays incomplete without one, or refuses with error_if_incomplete", async () => {
+    const withCard = await h.stripe.customers.create({ email: "api-card@lab.example" });
+    const pm = await h.stripe.paymentMethods.attach("pm_card_visa", { customer: withCard.id });
+    const active = await h.stripe.subscriptions.create({
+      customer: withCard.id,
+      items: [{ price: catalog.seat.id, quantity: 2 }],
+      default_payment_method: pm.id,
+    });
+    expect(active.status).toBe("active");
+    expect((await h.stripe.invoices.retrieve(active.latest_invoice as string)).amount_paid).toBe(2 * seatCents);
+
+    const noCard = await h.stripe.customers.create({ email: "api-nocard@lab.example" });
+    await expect(
+      h.stripe.subscriptions.create({ customer: noCard.id, items: [{ price: catalog.seat.id }], payment_behavior: "error_if_incomplete" }),
+    ).rejects.toMatchObject({ statusCode: 400, type: "StripeInvalidRequestError" });
+    expect((await h.stripe.subscriptions.list({ customer: noCard.id, status: "all" })).data).toHaveLength(0);
+    const incomplete = await h.stripe.subscriptions.create({ customer: noCard.id, items: [{ price: catalog.seat.id }] });
+    expect(incomplete.status).toBe("incomplete");
+    expect((await h.stripe.invoices.retrieve(incomplete.latest_invoice as string)).status).toBe("open");
+
+    await expect(h.stripe.paymentMethods.attach("pm_card_chargeDeclined", { customer: noCard.id })).rejects.toMatchObject({
+      statusCode: 402,
+      code: "card_declined",
+      decline_code: "generic_decline",
+    });
+  });
+});
