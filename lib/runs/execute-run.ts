@@ -32,12 +32,18 @@ export type ExecuteOutcome =
 
 export type Logger = (message: string, error?: unknown) => void;
 
-export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger): Promise<ExecuteOutcome> {
+export type ExecuteOptions = {
+  /** Overrides the plan's maxRunSeconds (tests of the time limit). */
+  timeLimitMs?: number;
+};
+
+export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger, options: ExecuteOptions = {}): Promise<ExecuteOutcome> {
   const { orgId, runId } = job;
   const claim = await claimRun(orgId, runId);
   if (claim.kind === "missing" || claim.kind === "terminal") return { kind: claim.kind };
   if (claim.kind === "busy") return claim;
   const { run, attempt, plan } = claim;
+  log(`run ${runId}: attempt ${attempt} started${claim.redelivered ? " (re-delivered)" : ""}`);
 
   const parsed = estimateRequestSchema.safeParse({ ...run.request, seed: run.seed });
   if (!parsed.success) {
@@ -53,7 +59,7 @@ export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger)
     controller.abort();
   };
   const ticker = startProgressTicker({ orgId, runId, attempt }, () => stop("canceled"), log);
-  const timer = setTimeout(() => stop("time-limit"), plan.limits.maxRunSeconds * 1000);
+  const timer = setTimeout(() => stop("time-limit"), options.timeLimitMs ?? plan.limits.maxRunSeconds * 1000);
   let outcome;
   try {
     outcome = await engine.run(parsed.data, { onProgress: ticker.report, signal: controller.signal });

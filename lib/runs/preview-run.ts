@@ -21,9 +21,13 @@ export async function previewOrThrow(request: EstimateRequest): Promise<PreviewR
   }
 }
 
-/** Total shots a run will draw: the planned shots per point times the sweep points. */
+/**
+ * Total shots a run will draw over all sweep points. With `targetPrecision`
+ * the preview plans from worst-case variance bounds, so this reserves at least
+ * what the run will use; usage meters the shots actually drawn.
+ */
 export function plannedShots(preview: PreviewResult): number {
-  return preview.shots * Math.max(1, preview.sweepPoints);
+  return preview.totalShots;
 }
 
 export async function previewRun(

@@ -1,17 +1,21 @@
 /**
- * The run path end to end against the real MariaDB, Redis and worker process:
- * submit → 202 + Location → poll → succeeded, with a result equal to calling
- * `estimate()` directly; usage rows written once; Idempotency-Key replays.
+ * The run path end to end against the real MariaDB, Redis and a real worker
+ * process (2 engine threads): submit → 202 + Location → poll → succeeded with
+ * the result `estimate()` gives; Idempotency-Key; the plan's concurrent-run
+ * slots; cancel (queued and running, stopping within a second); a malformed
+ * row and an engine error found only in the worker; the plan's time limit.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
 import { estimate } from "@/lib/quantum";
-import { closeQueue } from "@/lib/queue/enqueue";
+import { closeQueue, enqueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
-import { listRunUsage } from "@/lib/usage/queries";
+import { executeRun } from "@/lib/runs/execute-run";
 import { createTestApiKey, createUserWithOrg } from "../../support/factories";
 import { api, pollRun } from "./support/api";
-import { bellRequest } from "./support/requests";
+import { insertRawRun, runRow, usageOf } from "./support/db-helpers";
+import { inProcessEngine } from "./support/in-process-engine";
+import { bellRequest, longRunRequest, smallRequest } from "./support/requests";
 import { startWorker, type WorkerProcess } from "./support/worker-process";
 
 let worker: WorkerProcess;
@@ -19,8 +23,7 @@ let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
 let key: string;
 
 beforeAll(async () => {
-  worker = await startWorker();
-  owner = await createUserWithOrg("runs");
+  [worker, owner] = await Promise.all([startWorker({ concurrency: 2 }), createUserWithOrg("runs")]);
   key = (await createTestApiKey(owner.orgId, "member", owner.user.id)).key;
 });
 
@@ -32,11 +35,11 @@ afterAll(async () => {
 });
 
 const withoutTimings = (result: Record<string, unknown>) => ({ ...result, timings: undefined });
+const metrics = (rows: { metric: string; quantity: number }[]) => Object.fromEntries(rows.map((u) => [u.metric, u.quantity]));
 
 describe("submit → poll → result", () => {
-  it("answers 202 with Location, and the run finishes with the same result estimate() gives", async () => {
-    const body = { name: "Bell CHSH", ...bellRequest() };
-    const res = await api("POST", "/api/v1/runs", { key, body });
+  it("answers 202 with Location, and the run finishes with the result estimate() gives", async () => {
+    const res = await api("POST", "/api/v1/runs", { key, body: { name: "Bell CHSH", ...bellRequest() } });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     expect(res.headers.get("location")).toBe(`/api/v1/runs/${res.body.id}`);
     expect(res.body).toMatchObject({ name: "Bell CHSH", status: "queued", qubits: 2, shots: 1000, seed: 11, method: "statevector" });
@@ -48,14 +51,116 @@ describe("submit → poll → result", () => {
     expect(withoutTimings(run.result)).toEqual(withoutTimings(direct as unknown as Record<string, unknown>));
     // Tsirelson's bound: √2(ZZ + XX) on the Bell state is 2√2 (Cirel'son 1980).
     expect(run.result.exact.value).toBeCloseTo(2 * Math.SQRT2, 12);
-    expect(new Date(run.startedAt).getTime()).toBeGreaterThanOrEqual(new Date(run.queuedAt).getTime());
-    expect(new Date(run.finishedAt).getTime()).toBeGreaterThanOrEqual(new Date(run.startedAt).getTime());
+    expect(Date.parse(run.startedAt)).toBeGreaterThanOrEqual(Date.parse(run.queuedAt));
+    expect(Date.parse(run.finishedAt)).toBeGreaterThanOrEqual(Date.parse(run.startedAt));
+    expect(run.timings.simulateMs).toBeGreaterThanOrEqual(0);
 
-    const usage = await listRunUsage(owner.orgId, run.id);
-    const byMetric = Object.fromEntries(usage.map((u) => [u.metric, u.quantity]));
-    expect(byMetric.runs).toBe(1);
-    expect(byMetric.shots).toBe(1000);
-    expect(byMetric.simulation_seconds).toBeGreaterThan(0);
+    const usage = await usageOf(owner.orgId, run.id);
     expect(usage).toHaveLength(3);
+    expect(metrics(usage)).toMatchObject({ runs: 1, shots: 1000 });
+    expect(metrics(usage).simulation_seconds).toBeGreaterThan(0);
+    expect(usage[0].period).toBe(new Date(run.finishedAt).toISOString().slice(0, 7));
+  });
+
+  it("chooses and stores a seed when none is given, and the result uses it", async () => {
+    const { seed: _seed, ...request } = bellRequest();
+    const res = await api("POST", "/api/v1/runs", { key, body: request });
+    expect(res.status).toBe(202);
+    expect(Number.isInteger(res.body.seed)).toBe(true);
+    const run = await pollRun(key, res.body.id);
+    expect(run.result.seed).toBe(res.body.seed);
+    expect(run.name).toBe("2-qubit statevector run, 2 terms");
+  });
+});
+
+describe("Idempotency-Key", () => {
+  it("returns the original run for a repeated key and refuses the key with another body", async () => {
+    const headers = { "idempotency-key": `test-${crypto.randomUUID()}` };
+    const first = await api("POST", "/api/v1/runs", { key, body: smallRequest(1), headers });
+    const again = await api("POST", "/api/v1/runs", { key, body: smallRequest(1), headers });
+    expect(first.status).toBe(202);
+    expect(again.status).toBe(202);
+    expect(again.body.id).toBe(first.body.id);
+    expect(again.headers.get("idempotent-replayed")).toBe("true");
+    const other = await api("POST", "/api/v1/runs", { key, body: smallRequest(2), headers });
+    expect(other.status).toBe(422);
+    expect(other.body.type).toBe("/problems/idempotency-key-reused");
+    const list = await api("GET", "/api/v1/runs?limit=100", { key });
+    expect(list.body.data.filter((r: { id: string }) => r.id === first.body.id)).toHaveLength(1);
+    await pollRun(key, first.body.id);
+  });
+});
+
+describe("concurrency slots and cancellation", () => {
+  it("runs one at a time on Sandbox, cancels a queued run at once and a running one within a second", async () => {
+    const long = await api("POST", "/api/v1/runs", { key, body: longRunRequest(40) });
+    expect(long.status, JSON.stringify(long.body)).toBe(202);
+    await pollRun(key, long.body.id, { until: (r) => r.status === "running" && r.progress > 0, timeoutMs: 60_000 });
+
+    // Sandbox allows 1 concurrent run: the second waits queued although a thread is free.
+    const second = await api("POST", "/api/v1/runs", { key, body: smallRequest(3) });
+    await new Promise((r) => setTimeout(r, 1500));
+    expect((await api("GET", `/api/v1/runs/${second.body.id}`, { key })).body.status).toBe("queued");
+    const canceledQueued = await api("POST", `/api/v1/runs/${second.body.id}/cancel`, { key });
+    expect(canceledQueued.status).toBe(200);
+    expect(canceledQueued.body.status).toBe("canceled");
+
+    const canceledAt = Date.now();
+    const canceled = await api("POST", `/api/v1/runs/${long.body.id}/cancel`, { key });
+    expect(canceled.status).toBe(200);
+    expect(canceled.body.status).toBe("canceled");
+    while (!worker.output().includes(`run ${long.body.id}: canceled`)) {
+      expect(Date.now() - canceledAt, "the worker stops a canceled run within a second").toBeLessThan(1000);
+      await new Promise((r) => setTimeout(r, 20));
+    }
+    // The slot and the engine thread are free again: a new run finishes.
+    const third = await api("POST", "/api/v1/runs", { key, body: smallRequest(4) });
+    expect((await pollRun(key, third.body.id, { timeoutMs: 60_000 })).status).toBe("succeeded");
+
+    const after = await api("GET", `/api/v1/runs/${long.body.id}`, { key });
+    expect(after.body.status).toBe("canceled");
+    expect(after.body.result).toBeNull();
+    // A canceled run meters only the engine time it used; never a run or shots.
+    expect(Object.keys(metrics(await usageOf(owner.orgId, long.body.id)))).toEqual(["simulation_seconds"]);
+    expect(await usageOf(owner.orgId, second.body.id)).toHaveLength(0);
+    // Canceling again is a no-op; a finished run cannot be canceled.
+    expect((await api("POST", `/api/v1/runs/${long.body.id}/cancel`, { key })).status).toBe(200);
+    const finished = await api("POST", `/api/v1/runs/${third.body.id}/cancel`, { key });
+    expect(finished.status).toBe(409);
+  });
+});
+
+describe("faults found only in the worker", () => {
+  it("fails a malformed run row without retrying", async () => {
+    const runId = await insertRawRun(owner.orgId, { circuit: { format: "qasm9", source: "x" } });
+    await enqueue("run.execute", { orgId: owner.orgId, runId }, { jobId: runId });
+    const run = await pollRun(key, runId);
+    expect(run.status).toBe("failed");
+    expect(run.error.type).toBe("/problems/run-malformed");
+    expect(run.error.detail).toMatch(/circuit/);
+    expect((await runRow(owner.orgId, runId)).attempts).toBe(1);
+  });
+
+  it("fails with the engine's problem (line and column) when the engine rejects the stored request", async () => {
+    const request = bellRequest({ circuit: { format: "qasm2", source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nfoo q[0];\n' } });
+    const runId = await insertRawRun(owner.orgId, request);
+    await enqueue("run.execute", { orgId: owner.orgId, runId }, { jobId: runId });
+    const run = await pollRun(key, runId);
+    expect(run.status).toBe("failed");
+    expect(run.error.status).toBe(400);
+    expect(run.error.type).toMatch(/^\/problems\/engine\//);
+    expect(run.error.errors[0]).toMatchObject({ path: "circuit.source", line: 4 });
+    expect(Object.keys(metrics(await usageOf(owner.orgId, runId)))).toEqual(["simulation_seconds"]);
+  });
+
+  it("stops a run at its time limit with a clear problem", async () => {
+    const runId = await insertRawRun(owner.orgId, longRunRequest(40), { method: "density_matrix", qubits: 8 });
+    const outcome = await executeRun({ orgId: owner.orgId, runId }, inProcessEngine, () => {}, { timeLimitMs: 300 });
+    expect(outcome.kind).toBe("failed");
+    const row = await runRow(owner.orgId, runId);
+    expect(row.status).toBe("failed");
+    expect(row.error?.type).toBe("/problems/run-time-limit");
+    expect(row.error?.detail).toMatch(/Sandbox/);
+    expect(Object.keys(metrics(await usageOf(owner.orgId, runId)))).toEqual(["simulation_seconds"]);
   });
 });
