@@ -1,0 +1,17 @@
+/**
+ * Request shapes of the API-keys page (client-safe). A key's role is at most
+ * its creator's; `organization` keys (shared automation) are for admins.
+ */
+import { z } from "zod";
+
+export const KEY_ROLES = ["viewer", "member", "admin"] as const;
+
+export const createApiKeySchema = z.object({
+  name: z.string().trim().min(1, "Name the key (e.g. the notebook or pipeline that uses it).").max(80, "Use at most 80 characters."),
+  role: z.enum(KEY_ROLES, { error: "Choose the key's role." }),
+  scope: z.enum(["personal", "organization"], { error: "Choose personal or organisation key." }).default("personal"),
+});
+
+export const revokeApiKeySchema = z.object({ keyId: z.uuid({ error: "Choose a key." }) });
+
+export type CreateApiKeyInput = z.infer<typeof createApiKeySchema>;
