@@ -2,8 +2,7 @@ import type { ReactNode } from "react";
 import { AppShell } from "@/components/shell/app-shell";
 import { Alert } from "@/components/ui/alert";
 import { getPlan, isPlanId } from "@/lib/billing/plans";
-import { getCurrentOrg } from "@/lib/auth/guards";
-import { requireUserOrRedirect } from "@/lib/auth/session";
+import { getCurrentOrgOrRedirect } from "@/lib/auth/guards";
 import { ROLE_LABELS } from "@/lib/orgs/roles";
 import { signOutAction } from "../(auth)/sign-out/actions";
 import { switchOrgAction } from "./actions";
@@ -14,8 +13,7 @@ function planName(id: string): string {
 
 /** The signed-in frame: every page below it has a user and a current organisation. */
 export default async function AppLayout({ children }: { children: ReactNode }) {
-  const user = await requireUserOrRedirect("/app");
-  const { current, memberships } = await getCurrentOrg();
+  const { user, current, memberships } = await getCurrentOrgOrRedirect("/app");
   const orgs = memberships.map((m) => ({
     id: m.org.id,
     name: m.org.name,

@@ -23,6 +23,9 @@ import { findUserByEmail } from "./queries";
 import { signInSchema } from "./schemas";
 import { personalOrgName } from "./sign-up";
 
+/** Auth.js errors that are ordinary user outcomes (wrong password, dead link, stale cookie): one log line, no stack. */
+const EXPECTED_AUTH_ERRORS = new Set(["CredentialsSignin", "Verification", "JWTSessionError"]);
+
 export const SESSION_MAX_AGE_SECONDS = 7 * 24 * 60 * 60;
 export const MAGIC_LINK_MAX_AGE_SECONDS = 15 * 60;
 
@@ -54,6 +57,13 @@ export function authConfig(): NextAuthConfig {
     }),
     secret: env.AUTH_SECRET,
     trustHost: true,
+    logger: {
+      error(error) {
+        const type = (error as { type?: string }).type;
+        if (type && EXPECTED_AUTH_ERRORS.has(type)) console.warn(`[auth] ${type}`);
+        else console.error("[auth]", error);
+      },
+    },
     session: { strategy: "jwt", maxAge: SESSION_MAX_AGE_SECONDS },
     pages: { signIn: "/sign-in", error: "/sign-in", verifyRequest: "/check-email" },
     providers: [

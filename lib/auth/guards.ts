@@ -5,6 +5,7 @@
  *   requireMembership(orgId)      → OrgAccess, or 401 / 404
  *   requireRole(orgId, "admin")   → OrgAccess, or 401 / 404 / 403
  *   getCurrentOrg()               → the organisation chosen in the UI (cookie)
+ *   getCurrentOrgOrRedirect()     → the same for pages (signed out → /sign-in)
  *
  * Not a member (or no such organisation) answers 404, never 403, so ids of
  * other tenants leak nothing. 403 only when the user is a member whose role
@@ -16,7 +17,7 @@ import { cache } from "react";
 import { forbidden, notFound } from "@/lib/api/problem";
 import { getMembership, listMembershipsForUser, type MembershipWithOrg, type OrgSummary } from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
-import { requireUser, type SessionUser } from "./session";
+import { requireUser, requireUserOrRedirect, type SessionUser } from "./session";
 
 export type OrgAccess = { userId: string; org: OrgSummary; role: Role };
 
@@ -55,15 +56,26 @@ export function pickCurrentOrg(memberships: MembershipWithOrg[], preferredOrgId:
 
 export type CurrentOrg = { user: SessionUser; current: OrgAccess | null; memberships: MembershipWithOrg[] };
 
-/** The signed-in user, their memberships and the organisation chosen in the UI (once per request). */
-export const getCurrentOrg = cache(async (): Promise<CurrentOrg> => {
-  const user = await requireUser();
-  const memberships = await listMembershipsForUser(user.id);
+// Once per request and user: memberships plus the one chosen by the org cookie.
+const currentOrgFor = cache(async (userId: string) => {
+  const memberships = await listMembershipsForUser(userId);
   const preferred = (await cookies()).get(ORG_COOKIE)?.value;
   const picked = pickCurrentOrg(memberships, preferred);
-  const current = picked ? { userId: user.id, org: picked.org, role: picked.role } : null;
-  return { user, current, memberships };
+  const current: OrgAccess | null = picked ? { userId, org: picked.org, role: picked.role } : null;
+  return { current, memberships };
 });
+
+/** For actions: the signed-in user, their memberships and the organisation chosen in the UI; 401 when signed out. */
+export async function getCurrentOrg(): Promise<CurrentOrg> {
+  const user = await requireUser();
+  return { user, ...(await currentOrgFor(user.id)) };
+}
+
+/** For pages and layouts: the same, but signed-out visitors are redirected to sign-in. */
+export async function getCurrentOrgOrRedirect(callbackPath = "/app"): Promise<CurrentOrg> {
+  const user = await requireUserOrRedirect(callbackPath);
+  return { user, ...(await currentOrgFor(user.id)) };
+}
 
 /** For actions on "the current organisation": OrgAccess with at least `role`, or 401/404/403. */
 export async function requireCurrentOrg(role: Role = "viewer"): Promise<OrgAccess> {

@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { PageHeader } from "@/components/shell/page-header";
 import { Alert } from "@/components/ui/alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
-import { getCurrentOrg } from "@/lib/auth/guards";
+import { getCurrentOrgOrRedirect } from "@/lib/auth/guards";
 import { getPlan, isPlanId } from "@/lib/billing/plans";
 import { listMembers } from "@/lib/orgs/queries";
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from "@/lib/orgs/roles";
@@ -14,7 +14,7 @@ export default async function DashboardPage({
 }: {
   searchParams: Promise<Record<string, string | string[] | undefined>>;
 }) {
-  const { current } = await getCurrentOrg();
+  const { current } = await getCurrentOrgOrRedirect("/app");
   if (!current) return null;
   const { org, role } = current;
   const [members, params] = await Promise.all([listMembers(org.id), searchParams]);

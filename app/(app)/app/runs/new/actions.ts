@@ -29,7 +29,8 @@ export async function circuitOutlineAction(input: {
   if (typeof input?.source !== "string" || (input.format !== "qasm2" && input.format !== "qasm3")) {
     return { ok: false, message: "No circuit to draw." };
   }
-  if (input.source.length > MAX_SOURCE) return { ok: false, message: "The circuit is too long to draw here." };
+  if (input.source.length > MAX_SOURCE)
+    return { ok: false, message: "The circuit is too long to draw here." };
   try {
     const program = parseProgram(input.format, input.source);
     const placeholders: string[] = [];
