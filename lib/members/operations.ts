@@ -6,7 +6,7 @@ import { changeMemberRole, removeMember, transferOwnership } from "./mutations";
 import { defineOperation } from "./operation";
 import { changeRoleSchema, removeMemberSchema, transferOwnershipSchema } from "./schemas";
 
-const who = (t: { name: string | null; email: string }) => t.name ?? t.email;
+const who = (t: { name: string | null; email: string | null }) => t.name ?? t.email ?? "That member";
 
 export const changeRoleOp = defineOperation({
   name: "member.change-role",
