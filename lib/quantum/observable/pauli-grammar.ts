@@ -9,6 +9,10 @@ import { Coefficient, Minus, Plus, Star, Word, pauliTokens } from "./pauli-lexer
 export interface RawTerm {
   /** The "+"/"-" before the term (absent for a first term without sign). */
   sign?: IToken;
+  /** A second sign directly before the coefficient, as in "X0 + -0.5 Z1" (checked by the analyser). */
+  innerSign?: IToken;
+  /** Any further signs (always rejected). */
+  extraSigns: IToken[];
   coefficient?: IToken;
   star?: IToken;
   words: IToken[];
@@ -22,16 +26,19 @@ class PauliSumGrammar extends EmbeddedActionsParser {
 
   public sum = this.RULE("sum", (): RawTerm[] => {
     const terms: RawTerm[] = [];
-    let sign: IToken | undefined;
-    this.OPTION(() => {
-      sign = this.OR([{ ALT: () => this.CONSUME(Plus) }, { ALT: () => this.CONSUME(Minus) }]);
+    const signs: IToken[] = [];
+    this.MANY(() => {
+      signs.push(this.OR([{ ALT: () => this.CONSUME(Plus) }, { ALT: () => this.CONSUME(Minus) }]));
     });
     const first = this.SUBRULE(this.term);
-    terms.push({ ...first, sign });
-    this.MANY(() => {
-      const op = this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]);
+    terms.push({ ...first, ...splitSigns(signs) });
+    this.MANY2(() => {
+      const ops: IToken[] = [];
+      this.AT_LEAST_ONE(() => {
+        ops.push(this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]));
+      });
       const t = this.SUBRULE2(this.term);
-      terms.push({ ...t, sign: op });
+      terms.push({ ...t, ...splitSigns(ops) });
     });
     return terms;
   });
@@ -48,7 +55,7 @@ class PauliSumGrammar extends EmbeddedActionsParser {
             this.OPTION2(() => {
               star = this.CONSUME(Star);
             });
-            this.AT_LEAST_ONE(() => {
+            this.AT_LEAST_ONE2(() => {
               words.push(this.CONSUME(Word));
             });
           });
@@ -56,14 +63,19 @@ class PauliSumGrammar extends EmbeddedActionsParser {
       },
       {
         ALT: () => {
-          this.AT_LEAST_ONE2(() => {
+          this.AT_LEAST_ONE3(() => {
             words.push(this.CONSUME2(Word));
           });
         },
       },
     ]);
-    return { coefficient, star, words };
+    return { coefficient, star, words, extraSigns: [] };
   });
+}
+
+/** The first sign is the joining operator; a second one is kept for the analyser; more are extra. */
+function splitSigns(signs: IToken[]): Pick<RawTerm, "sign" | "innerSign" | "extraSigns"> {
+  return { sign: signs[0], innerSign: signs[1], extraSigns: signs.slice(2) };
 }
 
 /** One shared instance (chevrotain parsers are reusable: set `input`, call the rule). */

@@ -11,7 +11,7 @@ import { pauliSumGrammar, type RawTerm } from "./pauli-grammar";
 import { BadWord, ImagNumber, Minus, NonFinite, Star, pauliLexer } from "./pauli-lexer";
 import { masksToWord, setLetter, type PauliLetter } from "./pauli-word";
 
-/** Where a (combined) term was first written. */
+/** Where a (combined) term was first written (its coefficient or word; the sign is not included). */
 export interface TermOrigin {
   line: number;
   column: number;
@@ -100,14 +100,17 @@ function describeSyntaxError(err: IRecognitionException, tokens: IToken[]): { me
   return { message, line, column };
 }
 
-function termText(t: RawTerm, text: string): { text: string; line: number; column: number } {
-  const toks = [t.coefficient, t.star, ...t.words].filter((x): x is IToken => x !== undefined);
+function termText(t: RawTerm, text: string): { text: string; bare: string; line: number; column: number } {
+  const slice = (from: IToken, to: IToken) => text.slice(from.startOffset, (to.endOffset ?? to.startOffset) + 1).replace(/\s+/g, " ");
+  const toks = [t.innerSign, t.coefficient, t.star, ...t.words].filter((x): x is IToken => x !== undefined);
   const first = toks[0];
   const lastTok = toks[toks.length - 1];
-  const body = text.slice(first.startOffset, (lastTok.endOffset ?? lastTok.startOffset) + 1).replace(/\s+/g, " ");
-  const lead = t.sign ?? first;
+  const body = slice(first, lastTok);
+  const bareToks = toks.filter((x) => x !== t.innerSign);
+  const lead = first;
   return {
     text: t.sign?.tokenType === Minus ? `-${body}` : body,
+    bare: slice(bareToks[0], lastTok),
     line: lead.startLine ?? 1,
     column: lead.startColumn ?? 1,
   };
@@ -118,10 +121,19 @@ function issueAt(issues: EngineIssue[], tok: IToken, message: string): void {
 }
 
 function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssue[]): AnalysedTerm {
-  const origin = termText(t, text);
+  const { bare: _bare, ...origin } = termText(t, text);
   const name = `term ${index + 1} ("${origin.text}")`;
   let coefficient = t.sign?.tokenType === Minus ? -1 : 1;
   const c = t.coefficient;
+  if (t.innerSign) {
+    // "X0 + -0.5 Z1": a sign may stand directly before a number, nothing more.
+    const extra = t.extraSigns[0] ?? t.innerSign;
+    if (t.extraSigns.length > 0 || !c || c.tokenType === NonFinite) {
+      issueAt(issues, extra, `two signs in a row before "${_bare}"; write one "+" or "-" (a second sign may only stand directly before a number)`);
+    } else if (t.innerSign.tokenType === Minus) {
+      coefficient = -coefficient;
+    }
+  }
   if (c) {
     if (c.tokenType === ImagNumber) {
       issueAt(issues, c, `${name} has a complex coefficient ${c.image}; a Pauli sum with non-real coefficients is not an observable`);

@@ -45,6 +45,8 @@ describe("Pauli-sum syntax forms", () => {
     expect(words("-X0")).toEqual([[-1, "X"]]);
     expect(words("+ 3 * Z0")).toEqual([[3, "Z"]]);
     expect(words("\u2212X0 \u2212 Z0")).toEqual([[-1, "X"], [-1, "Z"]]);
+    // a second sign directly before a number, as machine-written sums often have
+    expect(words("X0 + -0.5 Z1 - -2 Z0")).toEqual([[1, "XI"], [-0.5, "IZ"], [2, "ZI"]]);
   });
 
   it("a bare number is a multiple of the identity; 'I' alone is the identity", () => {
@@ -89,7 +91,10 @@ describe("Pauli-sum errors: code, path, line, column, message", () => {
     ["2 3", "observable_syntax", 1, 3, 'missing "+" or "-" before "3"'],
     ["X0 * 2", "observable_syntax", 1, 4, /put the coefficient before the Pauli word/],
     ["2 * + X0", "observable_syntax", 1, 5, 'expected a Pauli word after "*", found "+"'],
-    ["+ - X0", "observable_syntax", 1, 3, 'expected a term after "+", found "-"'],
+    ["+ - X0", "observable_invalid", 1, 3, 'two signs in a row before "X0"; write one "+" or "-" (a second sign may only stand directly before a number)'],
+    ["Z0 - - -0.5 X1", "observable_invalid", 1, 8, /two signs in a row before "0.5 X1"/],
+    ["Z0 +", "observable_syntax", 1, 5, 'expected a term after "+", found the end of the text'],
+    ["Z0 + * X1", "observable_syntax", 1, 6, 'expected a term after "+", found "*"'],
     ["XZ ZX", "observable_invalid", 1, 4, 'missing "+" or "-" between "XZ" and "ZX"'],
     ["Y1 Z", "observable_invalid", 1, 4, /mixes sparse factors \("Y1"\) with a dense word \("Z"\)/],
     ["XZ0", "observable_invalid", 1, 1, /mixes dense letters and qubit numbers/],
