@@ -10,10 +10,16 @@ import { Badge } from "@/components/ui/badge";
 import { Dialog } from "@/components/ui/dialog";
 import { Input } from "@/components/ui/input";
 import { Skeleton } from "@/components/ui/skeleton";
-import { useCircuits, useObservables } from "@/lib/swr/use-library";
-import type { LibraryCircuit, LibraryObservable } from "@/lib/swr/types";
+import { useWorkspaceOrg } from "@/lib/swr/org-context";
+import { fetchCircuit, fetchObservable, useCircuits, useObservables } from "@/lib/swr/use-library";
+import type {
+  LibraryCircuit,
+  LibraryCircuitSummary,
+  LibraryObservable,
+  LibraryObservableSummary,
+} from "@/lib/swr/types";
 
-type Item = LibraryCircuit | LibraryObservable;
+type Item = LibraryCircuitSummary | LibraryObservableSummary;
 
 function matches(item: Item, q: string): boolean {
   if (!q) return true;
@@ -34,10 +40,12 @@ function PickerList<T extends Item>({
   items: T[] | undefined;
   loading: boolean;
   error: Error | undefined;
-  onPick: (item: T) => void;
+  onPick: (item: T) => Promise<void>;
   kind: "circuit" | "observable";
 }) {
   const [q, setQ] = useState("");
+  const [busy, setBusy] = useState<string | null>(null);
+  const [pickError, setPickError] = useState<string | null>(null);
   const shown = useMemo(() => (items ?? []).filter((i) => matches(i, q)), [items, q]);
   return (
     <div className="grid gap-3">
@@ -49,6 +57,11 @@ function PickerList<T extends Item>({
         onChange={(e) => setQ(e.target.value)}
         autoFocus
       />
+      {pickError ? (
+        <Alert tone="error" compact role="alert">
+          {pickError}
+        </Alert>
+      ) : null}
       {error ? (
         <Alert tone="error" compact role="alert">
           The library could not be loaded: {error.message}
@@ -67,12 +80,27 @@ function PickerList<T extends Item>({
           </Link>
         </p>
       ) : (
-        <ul className="grid max-h-[50vh] gap-1.5 overflow-y-auto pr-1" aria-label={`Saved ${kind}s`}>
+        <ul
+          className="grid max-h-[50vh] gap-1.5 overflow-y-auto pr-1"
+          aria-label={`Saved ${kind}s`}
+        >
           {shown.map((item) => (
             <li key={item.id}>
               <button
                 type="button"
-                onClick={() => onPick(item)}
+                disabled={busy !== null}
+                aria-busy={busy === item.id || undefined}
+                onClick={async () => {
+                  setBusy(item.id);
+                  setPickError(null);
+                  try {
+                    await onPick(item);
+                  } catch (e) {
+                    setPickError(e instanceof Error ? e.message : "Could not load it.");
+                  } finally {
+                    setBusy(null);
+                  }
+                }}
                 className="grid w-full gap-1 rounded-md border border-line px-3 py-2 text-left hover:border-accent/50 hover:bg-accent-soft/40 focus-visible:border-focus"
               >
                 <span className="flex items-center justify-between gap-3">
@@ -81,7 +109,9 @@ function PickerList<T extends Item>({
                     {item.qubits} qubit{item.qubits === 1 ? "" : "s"} · {item.format}
                   </span>
                 </span>
-                {item.description ? <span className="line-clamp-2 text-[12.5px] text-ink-2">{item.description}</span> : null}
+                {item.description ? (
+                  <span className="line-clamp-2 text-[12.5px] text-ink-2">{item.description}</span>
+                ) : null}
                 {item.tags.length ? (
                   <span className="flex flex-wrap gap-1">
                     {item.tags.map((t) => (
@@ -98,11 +128,32 @@ function PickerList<T extends Item>({
   );
 }
 
-export function CircuitPicker({ open, onClose, onPick }: { open: boolean; onClose: () => void; onPick: (c: LibraryCircuit) => void }) {
+export function CircuitPicker({
+  open,
+  onClose,
+  onPick,
+}: {
+  open: boolean;
+  onClose: () => void;
+  onPick: (c: LibraryCircuit) => void;
+}) {
+  const { orgId } = useWorkspaceOrg();
   const { data, error, isLoading } = useCircuits({ limit: 100 });
   return (
-    <Dialog open={open} onClose={onClose} title="Saved circuits" description="Load a circuit of your organisation into the editor." size="lg">
-      <PickerList kind="circuit" items={data?.data} loading={isLoading} error={error} onPick={onPick} />
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title="Saved circuits"
+      description="Load a circuit of your organisation into the editor."
+      size="lg"
+    >
+      <PickerList
+        kind="circuit"
+        items={data?.data}
+        loading={isLoading}
+        error={error}
+        onPick={async (c) => onPick(await fetchCircuit(orgId, c.id))}
+      />
     </Dialog>
   );
 }
@@ -116,10 +167,23 @@ export function ObservablePicker({
   onClose: () => void;
   onPick: (o: LibraryObservable) => void;
 }) {
+  const { orgId } = useWorkspaceOrg();
   const { data, error, isLoading } = useObservables({ limit: 100 });
   return (
-    <Dialog open={open} onClose={onClose} title="Saved observables" description="Load an observable of your organisation." size="lg">
-      <PickerList kind="observable" items={data?.data} loading={isLoading} error={error} onPick={onPick} />
+    <Dialog
+      open={open}
+      onClose={onClose}
+      title="Saved observables"
+      description="Load an observable of your organisation."
+      size="lg"
+    >
+      <PickerList
+        kind="observable"
+        items={data?.data}
+        loading={isLoading}
+        error={error}
+        onPick={async (o) => onPick(await fetchObservable(orgId, o.id))}
+      />
     </Dialog>
   );
 }

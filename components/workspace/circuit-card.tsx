@@ -37,7 +37,8 @@ export function CircuitCard({
   const [notice, setNotice] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const format = watch("circuit.format");
   const fieldError = formState.errors.circuit?.source?.message;
-  const allIssues: SourceIssue[] = fieldError && !issues.length ? [{ message: fieldError }] : issues;
+  const allIssues: SourceIssue[] =
+    fieldError && !issues.length ? [{ message: fieldError }] : issues;
 
   const load = (text: string, from: string) => {
     const isQasm3 = /^\s*(\/\/[^\n]*\n\s*)*OPENQASM\s+3/.test(text);
@@ -51,39 +52,46 @@ export function CircuitCard({
       <CardHeader
         title="Circuit"
         description="OpenQASM 2.0, or OpenQASM 3 with input parameters. Qubit 0 is drawn on top."
-        actions={
-          readOnly ? null : (
-            <>
-              <Button variant="ghost" size="sm" icon={<IconBook />} onClick={() => setPicking(true)}>
-                Library
-              </Button>
-              <UploadButton
-                slot="circuit"
-                onLoad={(f) => load(f.text, `“${f.name}”`)}
-                onReject={(m) => setNotice({ tone: "error", text: m })}
-              />
-            </>
-          )
-        }
       />
       <CardBody className="grid gap-3">
-        <Controller
-          control={control}
-          name="circuit.format"
-          render={({ field }) => (
-            <Segmented
-              legend="Language"
-              hideLegend
-              size="sm"
-              value={field.value}
-              onChange={field.onChange}
-              options={[
-                { value: "qasm2", label: "OpenQASM 2.0" },
-                { value: "qasm3", label: "OpenQASM 3" },
-              ]}
-            />
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <Controller
+            control={control}
+            name="circuit.format"
+            render={({ field }) => (
+              <Segmented
+                legend="Language"
+                hideLegend
+                size="sm"
+                value={field.value}
+                onChange={field.onChange}
+                options={[
+                  { value: "qasm2", label: "OpenQASM 2.0" },
+                  { value: "qasm3", label: "OpenQASM 3" },
+                ]}
+              />
+            )}
+          />
+          {readOnly ? null : (
+            <div className="flex items-center gap-1">
+              <>
+                <Button
+                  variant="ghost"
+                  size="sm"
+                  icon={<IconBook />}
+                  onClick={() => setPicking(true)}
+                >
+                  Library
+                </Button>
+                <UploadButton
+                  slot="circuit"
+                  onLoad={(f) => load(f.text, `“${f.name}”`)}
+                  onReject={(m) => setNotice({ tone: "error", text: m })}
+                />
+              </>
+            </div>
           )}
-        />
+        </div>
         <FileDropZone
           slot="circuit"
           onLoad={(f) => load(f.text, `“${f.name}”`)}
@@ -103,7 +111,7 @@ export function CircuitCard({
                 describedBy="circuit-issues"
                 onSubmit={onSubmit}
                 readOnly={readOnly}
-                placeholder="OPENQASM 2.0; include &quot;qelib1.inc&quot; …"
+                placeholder='OPENQASM 2.0; include "qelib1.inc" …'
               />
             )}
           />
@@ -118,9 +126,16 @@ export function CircuitCard({
         )}
         {outline && outline.qubits > 0 ? (
           <div className={outlineStale ? "opacity-60 transition-opacity" : "transition-opacity"}>
-            <CircuitDiagram qubits={outline.qubits} ops={outline.ops} qubitLabels={outline.qubitLabels} omitted={outline.omitted} />
+            <CircuitDiagram
+              qubits={outline.qubits}
+              ops={outline.ops}
+              qubitLabels={outline.qubitLabels}
+              omitted={outline.omitted}
+            />
             {outline.placeholders.length ? (
-              <p className="mt-1 text-xs text-ink-3">Drawn with {outline.placeholders.join(", ")} = 0 until a value is given.</p>
+              <p className="mt-1 text-xs text-ink-3">
+                Drawn with {outline.placeholders.join(", ")} = 0 until a value is given.
+              </p>
             ) : null}
           </div>
         ) : null}

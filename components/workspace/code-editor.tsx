@@ -87,7 +87,14 @@ export function CodeEditor({
     const diagnostics: Diagnostic[] = [];
     for (const issue of issues) {
       const r = issueRange(text, issue);
-      if (r) diagnostics.push({ from: r.from, to: Math.max(r.to, r.from), severity: "error", message: r.message, source: "engine" });
+      if (r)
+        diagnostics.push({
+          from: r.from,
+          to: Math.max(r.to, r.from),
+          severity: "error",
+          message: r.message,
+          source: "engine",
+        });
     }
     view.dispatch(setDiagnostics(view.state, diagnostics));
   }, [issues, value]);

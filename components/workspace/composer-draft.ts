@@ -14,7 +14,8 @@ function mergeInto(defaults: unknown, stored: unknown): unknown {
   if (defaults && typeof defaults === "object") {
     if (!stored || typeof stored !== "object" || Array.isArray(stored)) return defaults;
     const out: Record<string, unknown> = {};
-    for (const [k, v] of Object.entries(defaults)) out[k] = mergeInto(v, (stored as Record<string, unknown>)[k]);
+    for (const [k, v] of Object.entries(defaults))
+      out[k] = mergeInto(v, (stored as Record<string, unknown>)[k]);
     return out;
   }
   return typeof stored === typeof defaults ? stored : defaults;
@@ -35,7 +36,10 @@ function cleanAxes(axes: unknown): ComposerValues["sweepAxes"] {
 
 function cleanParams(p: unknown): Record<string, string> {
   if (!p || typeof p !== "object" || Array.isArray(p)) return {};
-  return Object.fromEntries(Object.entries(p).filter(([, v]) => typeof v === "string")) as Record<string, string>;
+  return Object.fromEntries(Object.entries(p).filter(([, v]) => typeof v === "string")) as Record<
+    string,
+    string
+  >;
 }
 
 /** Parses stored draft text; null when absent or unreadable. */
@@ -51,7 +55,11 @@ export function readDraft(text: string | null): ComposerValues | null {
   const values = (data as { values?: unknown }).values;
   const merged = mergeInto(DEFAULT_VALUES, values) as ComposerValues;
   const raw = (values ?? {}) as Record<string, unknown>;
-  return { ...merged, parameters: cleanParams(raw.parameters), sweepAxes: cleanAxes(raw.sweepAxes) };
+  return {
+    ...merged,
+    parameters: cleanParams(raw.parameters),
+    sweepAxes: cleanAxes(raw.sweepAxes),
+  };
 }
 
 export function writeDraft(values: ComposerValues): string {

@@ -71,7 +71,9 @@ export type FormIssue = { path: string; message: string };
 /** Evenly spaced values from `from` to `to` inclusive (n ≥ 2), or [from] when n = 1. */
 export function linspace(from: number, to: number, n: number): number[] {
   if (n <= 1) return [from];
-  return Array.from({ length: n }, (_, i) => (i === n - 1 ? to : from + ((to - from) * i) / (n - 1)));
+  return Array.from({ length: n }, (_, i) =>
+    i === n - 1 ? to : from + ((to - from) * i) / (n - 1),
+  );
 }
 
 const NUMBER = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
@@ -134,12 +136,16 @@ export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Bu
           return { format: "matrix" as const, ...m };
         })();
 
-  const request: EstimateRequest = { circuit: { format: v.circuit.format, source: v.circuit.source }, observable };
+  const request: EstimateRequest = {
+    circuit: { format: v.circuit.format, source: v.circuit.source },
+    observable,
+  };
   if (v.method !== "statevector") request.method = v.method;
 
   if (v.budget === "shots") {
     const shots = num("shots", v.shots, "int");
-    if (shots === undefined && !issues.some((i) => i.path === "shots")) issues.push({ path: "shots", message: "give the number of shots" });
+    if (shots === undefined && !issues.some((i) => i.path === "shots"))
+      issues.push({ path: "shots", message: "give the number of shots" });
     if (shots !== undefined) request.shots = shots;
   } else if (v.budget === "precision") {
     const eps = num("targetPrecision", v.targetPrecision);
@@ -181,7 +187,8 @@ export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Bu
       if (swept.has(name)) continue;
       const x = num(`parameters.${name}`, v.parameters[name] ?? "");
       if (x === undefined) {
-        if (!issues.some((i) => i.path === `parameters.${name}`)) issues.push({ path: `parameters.${name}`, message: "give a value" });
+        if (!issues.some((i) => i.path === `parameters.${name}`))
+          issues.push({ path: `parameters.${name}`, message: "give a value" });
       } else params[name] = x;
     }
     if (Object.keys(params).length) request.parameters = params;
@@ -194,8 +201,13 @@ export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Bu
       const points = num(`sweepAxes.${i}.points`, a.points, "int");
       if (!a.name) issues.push({ path: `sweepAxes.${i}.name`, message: "choose a parameter" });
       if (from === undefined || to === undefined || points === undefined) {
-        for (const [k, x] of [["from", from], ["to", to], ["points", points]] as const) {
-          if (x === undefined && !issues.some((j) => j.path === `sweepAxes.${i}.${k}`)) issues.push({ path: `sweepAxes.${i}.${k}`, message: "required" });
+        for (const [k, x] of [
+          ["from", from],
+          ["to", to],
+          ["points", points],
+        ] as const) {
+          if (x === undefined && !issues.some((j) => j.path === `sweepAxes.${i}.${k}`))
+            issues.push({ path: `sweepAxes.${i}.${k}`, message: "required" });
         }
         return;
       }
@@ -212,8 +224,10 @@ export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Bu
 
 /** Maps a request path (from the shared schema or the API) to the form field showing it. */
 export function formPath(requestPath: string, sweptNames: readonly string[] = []): string {
-  if (requestPath.startsWith("observable.real") || requestPath.startsWith("observable.imag")) return "observable.matrixText";
-  if (requestPath === "observable" || requestPath.startsWith("observable.format")) return "observable.terms";
+  if (requestPath.startsWith("observable.real") || requestPath.startsWith("observable.imag"))
+    return "observable.matrixText";
+  if (requestPath === "observable" || requestPath.startsWith("observable.format"))
+    return "observable.terms";
   if (requestPath.startsWith("sweep")) {
     const name = requestPath.split(".")[1];
     const i = sweptNames.indexOf(name);
@@ -230,7 +244,8 @@ export function formPath(requestPath: string, sweptNames: readonly string[] = []
   return requestPath;
 }
 
-const str = (x: number | undefined | null) => (typeof x === "number" && Number.isFinite(x) ? String(x) : "");
+const str = (x: number | undefined | null) =>
+  typeof x === "number" && Number.isFinite(x) ? String(x) : "";
 
 /**
  * A request (e.g. of an earlier run) → form values, for "run again with changes".
@@ -241,8 +256,14 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
   const noise = req.noise;
   const sweepAxes: SweepAxis[] = Object.entries(req.sweep ?? {})
     .slice(0, 2)
-    .map(([n, values]) => ({ name: n, from: str(values[0]), to: str(values[values.length - 1]), points: String(values.length) }));
-  const budget: Budget = req.targetPrecision !== undefined ? "precision" : (req.shots ?? 0) > 0 ? "shots" : "exact";
+    .map(([n, values]) => ({
+      name: n,
+      from: str(values[0]),
+      to: str(values[values.length - 1]),
+      points: String(values.length),
+    }));
+  const budget: Budget =
+    req.targetPrecision !== undefined ? "precision" : (req.shots ?? 0) > 0 ? "shots" : "exact";
   return {
     ...DEFAULT_VALUES,
     name,
@@ -253,12 +274,17 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
         : {
             format: "matrix",
             terms: DEFAULT_VALUES.observable.terms,
-            matrixText: JSON.stringify(req.observable.imag ? { real: req.observable.real, imag: req.observable.imag } : { real: req.observable.real }),
+            matrixText: JSON.stringify(
+              req.observable.imag
+                ? { real: req.observable.real, imag: req.observable.imag }
+                : { real: req.observable.real },
+            ),
           },
     method: req.method ?? "statevector",
     budget,
     shots: budget === "shots" ? String(req.shots) : DEFAULT_VALUES.shots,
-    targetPrecision: budget === "precision" ? String(req.targetPrecision) : DEFAULT_VALUES.targetPrecision,
+    targetPrecision:
+      budget === "precision" ? String(req.targetPrecision) : DEFAULT_VALUES.targetPrecision,
     shotSplit: req.shotSplit ?? "optimal",
     seed: str(req.seed),
     mitigateReadout: !!req.mitigateReadout,
@@ -270,7 +296,9 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
       phaseDamping: str(noise?.phaseDamping),
       readout: { p1Given0: str(noise?.readout?.p1Given0), p0Given1: str(noise?.readout?.p0Given1) },
     },
-    parameters: Object.fromEntries(Object.entries(req.parameters ?? {}).map(([k, v]) => [k, String(v)])),
+    parameters: Object.fromEntries(
+      Object.entries(req.parameters ?? {}).map(([k, v]) => [k, String(v)]),
+    ),
     sweepAxes,
   };
 }

@@ -13,7 +13,10 @@ export type ComposerContext = { inputNames: readonly string[] | undefined };
 export type ComposerOutput = { body: RunCreateInput };
 
 /** Issues (request or form paths) → a flat `{ path: FieldError }` record, first message per field. */
-export function issuesToFlat(issues: FormIssue[], swept: readonly string[]): Record<string, FieldError> {
+export function issuesToFlat(
+  issues: FormIssue[],
+  swept: readonly string[],
+): Record<string, FieldError> {
   const flat: Record<string, FieldError> = {};
   for (const i of issues) {
     const path = formPath(i.path, swept);
@@ -22,16 +25,24 @@ export function issuesToFlat(issues: FormIssue[], swept: readonly string[]): Rec
   return flat;
 }
 
-export const composerResolver: Resolver<ComposerValues, ComposerContext, ComposerOutput> = async (values, context, options) => {
+export const composerResolver: Resolver<ComposerValues, ComposerContext, ComposerOutput> = async (
+  values,
+  context,
+  options,
+) => {
   const { request, name, issues } = toRequest(values, context?.inputNames);
   const swept = values.sweepAxes.map((a) => a.name);
   const all: FormIssue[] = [...issues];
   const parsed = runCreateSchema.safeParse(name ? { ...request, name } : request);
   if (!parsed.success) {
-    for (const i of parsed.error.issues) all.push({ path: i.path.map(String).join("."), message: i.message });
+    for (const i of parsed.error.issues)
+      all.push({ path: i.path.map(String).join("."), message: i.message });
   }
   if (all.length || !parsed.success) {
-    return { values: {} as Record<string, never>, errors: toNestErrors(issuesToFlat(all, swept), options) };
+    return {
+      values: {} as Record<string, never>,
+      errors: toNestErrors(issuesToFlat(all, swept), options),
+    };
   }
   return { values: { body: parsed.data }, errors: {} };
 };

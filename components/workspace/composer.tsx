@@ -19,7 +19,13 @@ import type { Run } from "@/lib/swr/types";
 import { usePreview } from "@/lib/swr/use-preview";
 import { CircuitCard } from "./circuit-card";
 import { draftKey, readDraft, writeDraft } from "./composer-draft";
-import { DEFAULT_VALUES, formPath, fromRequest, toRequest, type ComposerValues } from "./composer-model";
+import {
+  DEFAULT_VALUES,
+  formPath,
+  fromRequest,
+  toRequest,
+  type ComposerValues,
+} from "./composer-model";
 import { composerResolver, type ComposerContext, type ComposerOutput } from "./composer-resolver";
 import { EstimateCard } from "./estimate-card";
 import { NoiseCard } from "./noise-card";
@@ -70,7 +76,10 @@ export function Composer() {
     const sub = watch((values) => {
       if (!loaded.current) return;
       clearTimeout(t);
-      t = setTimeout(() => window.localStorage.setItem(draftKey(orgId), writeDraft(values as ComposerValues)), 300);
+      t = setTimeout(
+        () => window.localStorage.setItem(draftKey(orgId), writeDraft(values as ComposerValues)),
+        300,
+      );
     });
     return () => {
       clearTimeout(t);
@@ -81,16 +90,25 @@ export function Composer() {
   const values = watch();
   const built = useMemo(() => toRequest(values, inputNames), [values, inputNames]);
   const numericParams = built.request.parameters ?? {};
-  const { outline, stale } = useCircuitOutline(values.circuit.format, values.circuit.source, numericParams);
+  const { outline, stale } = useCircuitOutline(
+    values.circuit.format,
+    values.circuit.source,
+    numericParams,
+  );
 
   // Inputs of the circuit: give new ones a starting value, forget sweeps of vanished ones.
   useEffect(() => {
     if (!outline) return;
     const names = outline.inputs.map((i) => i.name);
     setInputNames(names);
-    for (const n of names) if (form.getValues(`parameters.${n}`) === undefined) setValue(`parameters.${n}`, "0");
+    for (const n of names)
+      if (form.getValues(`parameters.${n}`) === undefined) setValue(`parameters.${n}`, "0");
     const axes = form.getValues("sweepAxes");
-    if (axes.some((a) => !names.includes(a.name))) setValue("sweepAxes", axes.filter((a) => names.includes(a.name)));
+    if (axes.some((a) => !names.includes(a.name)))
+      setValue(
+        "sweepAxes",
+        axes.filter((a) => names.includes(a.name)),
+      );
   }, [outline, form, setValue]);
 
   const preview = usePreview(built.issues.length ? null : { ...built.request });
@@ -107,7 +125,13 @@ export function Composer() {
     if (!previewError) return;
     for (const e of previewError.errors) {
       const p = formPath(e.path, swept);
-      if (EDITOR_PATHS.includes(p) || p.startsWith("circuit") || p.startsWith("observable") || p === "root") continue;
+      if (
+        EDITOR_PATHS.includes(p) ||
+        p.startsWith("circuit") ||
+        p.startsWith("observable") ||
+        p === "root"
+      )
+        continue;
       setError(p as Path<ComposerValues>, { type: "server", message: e.message });
       serverPaths.current.push(p);
     }
@@ -130,7 +154,8 @@ export function Composer() {
           setSubmitError(error);
           for (const e of error.errors) {
             const p = formPath(e.path, swept);
-            if (!EDITOR_PATHS.includes(p) && p !== "root") setError(p as Path<ComposerValues>, { type: "server", message: e.message });
+            if (!EDITOR_PATHS.includes(p) && p !== "root")
+              setError(p as Path<ComposerValues>, { type: "server", message: e.message });
           }
         }
       })(),
@@ -188,22 +213,43 @@ export function Composer() {
               {restored === "draft" ? "Your draft was restored." : "Filled in from your selection."}
             </Alert>
           ) : null}
-          <CircuitCard issues={circuitIssues} outline={outline} outlineStale={stale} onSubmit={submit} readOnly={readOnly} />
+          <CircuitCard
+            issues={circuitIssues}
+            outline={outline}
+            outlineStale={stale}
+            onSubmit={submit}
+            readOnly={readOnly}
+          />
           <ObservableCard
             issues={observableIssues}
             summary={preview.data && !previewError ? preview.data.observable : null}
             onSubmit={submit}
             readOnly={readOnly}
           />
-          {values.circuit.format === "qasm3" && inputs.length ? <ParametersCard inputs={inputs} readOnly={readOnly} /> : null}
+          {values.circuit.format === "qasm3" && inputs.length ? (
+            <ParametersCard inputs={inputs} readOnly={readOnly} />
+          ) : null}
           <EstimateCard readOnly={readOnly} />
           <NoiseCard readOnly={readOnly} />
         </div>
-        <aside className="grid content-start gap-4 lg:sticky lg:top-4 lg:self-start" aria-label="Preview and submit">
+        <aside
+          className="grid content-start gap-4 lg:sticky lg:top-4 lg:self-start"
+          aria-label="Preview and submit"
+        >
           <PreviewPanel preview={preview.data} error={previewError} pending={preview.pending} />
           <div className="grid gap-3 rounded-lg border border-line bg-surface p-4 shadow-card">
-            <Field label="Run name" optional hint="Shown in the runs list; defaults to the circuit’s." error={formState.errors.name?.message}>
-              <Input autoComplete="off" placeholder="e.g. Bell pair, ZZ + XX" readOnly={readOnly} {...form.register("name")} />
+            <Field
+              label="Run name"
+              optional
+              hint="Shown in the runs list; defaults to the circuit’s."
+              error={formState.errors.name?.message}
+            >
+              <Input
+                autoComplete="off"
+                placeholder="e.g. Bell pair, ZZ + XX"
+                readOnly={readOnly}
+                {...form.register("name")}
+              />
             </Field>
             {submitError ? (
               <Alert tone="error" compact role="alert" title={submitError.title}>
@@ -214,7 +260,13 @@ export function Composer() {
                 Check the marked fields.
               </Alert>
             ) : null}
-            <Button type="submit" size="lg" loading={formState.isSubmitting} disabled={readOnly} className="w-full">
+            <Button
+              type="submit"
+              size="lg"
+              loading={formState.isSubmitting}
+              disabled={readOnly}
+              className="w-full"
+            >
               Run
             </Button>
             <p className="text-center text-xs text-ink-3">

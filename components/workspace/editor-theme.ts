@@ -24,16 +24,27 @@ export const editorChrome = EditorView.theme({
     color: "var(--color-ink-3)",
     borderRight: "1px solid var(--color-line)",
   },
-  ".cm-activeLineGutter": { backgroundColor: "var(--color-surface-3)", color: "var(--color-ink-2)" },
-  ".cm-activeLine": { backgroundColor: "color-mix(in oklch, var(--color-surface-3) 45%, transparent)" },
-  ".cm-lineNumbers .cm-gutterElement": { padding: "0 8px 0 10px", fontVariantNumeric: "tabular-nums" },
+  ".cm-activeLineGutter": {
+    backgroundColor: "var(--color-surface-3)",
+    color: "var(--color-ink-2)",
+  },
+  ".cm-activeLine": {
+    backgroundColor: "color-mix(in oklch, var(--color-surface-3) 45%, transparent)",
+  },
+  ".cm-lineNumbers .cm-gutterElement": {
+    padding: "0 8px 0 10px",
+    fontVariantNumeric: "tabular-nums",
+  },
   ".cm-lintRange-error": {
     backgroundImage: "none",
     textDecoration: "underline wavy var(--color-danger)",
     textDecorationThickness: "1px",
     textUnderlineOffset: "3px",
   },
-  ".cm-lintRange-warning": { backgroundImage: "none", textDecoration: "underline wavy var(--color-warn)" },
+  ".cm-lintRange-warning": {
+    backgroundImage: "none",
+    textDecoration: "underline wavy var(--color-warn)",
+  },
   ".cm-tooltip": {
     backgroundColor: "var(--color-surface)",
     border: "1px solid var(--color-line-strong)",
@@ -56,7 +67,11 @@ const style = HighlightStyle.define([
   { tag: t.string, color: "var(--color-ok)" },
   { tag: t.comment, color: "var(--color-ink-3)", fontStyle: "italic" },
   { tag: t.standard(t.variableName), color: "var(--color-ink)", fontWeight: "600" },
-  { tag: t.definition(t.variableName), color: "var(--color-accent-ink)", textDecoration: "underline" },
+  {
+    tag: t.definition(t.variableName),
+    color: "var(--color-accent-ink)",
+    textDecoration: "underline",
+  },
   { tag: t.function(t.variableName), color: "var(--color-info)" },
   { tag: t.operator, color: "var(--color-ink-2)" },
   { tag: t.punctuation, color: "var(--color-ink-3)" },

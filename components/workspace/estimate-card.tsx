@@ -19,7 +19,10 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
   const e = formState.errors;
   return (
     <Card>
-      <CardHeader title="Estimate" description="Exact values are always computed; shots add the sampled estimate with its error bar." />
+      <CardHeader
+        title="Estimate"
+        description="Exact values are always computed; shots add the sampled estimate with its error bar."
+      />
       <CardBody className="grid gap-4">
         <div className="flex flex-wrap gap-x-6 gap-y-4">
           <Controller
@@ -31,8 +34,16 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
                 value={field.value}
                 onChange={field.onChange}
                 options={[
-                  { value: "statevector", label: "Statevector", hint: "Pure state, fastest; no gate noise" },
-                  { value: "density_matrix", label: "Density matrix", hint: "Mixed state; needed for gate noise" },
+                  {
+                    value: "statevector",
+                    label: "Statevector",
+                    hint: "Pure state, fastest; no gate noise",
+                  },
+                  {
+                    value: "density_matrix",
+                    label: "Density matrix",
+                    hint: "Mixed state; needed for gate noise",
+                  },
                 ]}
               />
             )}
@@ -57,8 +68,18 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
         {budget === "exact" ? null : (
           <div className="grid gap-4 sm:grid-cols-3">
             {budget === "shots" ? (
-              <Field label="Total shots" hint="Over all measurement settings." error={e.shots?.message}>
-                <Input mono inputMode="numeric" autoComplete="off" readOnly={readOnly} {...register("shots")} />
+              <Field
+                label="Total shots"
+                hint="Over all measurement settings."
+                error={e.shots?.message}
+              >
+                <Input
+                  mono
+                  inputMode="numeric"
+                  autoComplete="off"
+                  readOnly={readOnly}
+                  {...register("shots")}
+                />
               </Field>
             ) : (
               <Field
@@ -66,7 +87,13 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
                 hint="Shots are chosen to reach it (e.g. 0.0016 ≈ 1 kcal/mol in hartree)."
                 error={e.targetPrecision?.message}
               >
-                <Input mono inputMode="decimal" autoComplete="off" readOnly={readOnly} {...register("targetPrecision")} />
+                <Input
+                  mono
+                  inputMode="decimal"
+                  autoComplete="off"
+                  readOnly={readOnly}
+                  {...register("targetPrecision")}
+                />
               </Field>
             )}
             <Field label="Shot split" hint="Optimal puts shots where the variance is.">
@@ -79,8 +106,20 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
                 {...register("shotSplit")}
               />
             </Field>
-            <Field label="Seed" optional hint="Same seed, same numbers. Blank: one is chosen and kept." error={e.seed?.message}>
-              <Input mono inputMode="numeric" autoComplete="off" placeholder="random" readOnly={readOnly} {...register("seed")} />
+            <Field
+              label="Seed"
+              optional
+              hint="Same seed, same numbers. Blank: one is chosen and kept."
+              error={e.seed?.message}
+            >
+              <Input
+                mono
+                inputMode="numeric"
+                autoComplete="off"
+                placeholder="random"
+                readOnly={readOnly}
+                {...register("seed")}
+              />
             </Field>
             <Controller
               control={control}

@@ -105,7 +105,12 @@ export function UploadButton({
           else onLoad(r);
         }}
       />
-      <Button variant="ghost" size="sm" icon={<IconUpload />} onClick={() => input.current?.click()}>
+      <Button
+        variant="ghost"
+        size="sm"
+        icon={<IconUpload />}
+        onClick={() => input.current?.click()}
+      >
         {label}
       </Button>
     </>

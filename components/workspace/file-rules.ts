@@ -5,8 +5,15 @@
  */
 export type FileSlot = "circuit" | "observable";
 
-export const FILE_RULES: Record<FileSlot, { extensions: string[]; maxBytes: number; what: string }> = {
-  circuit: { extensions: [".qasm", ".qasm3", ".qasm2", ".txt"], maxBytes: 1_000_000, what: "an OpenQASM file (.qasm)" },
+export const FILE_RULES: Record<
+  FileSlot,
+  { extensions: string[]; maxBytes: number; what: string }
+> = {
+  circuit: {
+    extensions: [".qasm", ".qasm3", ".qasm2", ".txt"],
+    maxBytes: 1_000_000,
+    what: "an OpenQASM file (.qasm)",
+  },
   observable: {
     extensions: [".txt", ".pauli", ".json"],
     maxBytes: 4_000_000,
@@ -20,7 +27,9 @@ export function extensionOf(name: string): string {
 }
 
 function formatBytes(n: number): string {
-  return n >= 1_000_000 ? `${(n / 1_000_000).toFixed(n % 1_000_000 ? 1 : 0)} MB` : `${Math.ceil(n / 1000)} kB`;
+  return n >= 1_000_000
+    ? `${(n / 1_000_000).toFixed(n % 1_000_000 ? 1 : 0)} MB`
+    : `${Math.ceil(n / 1000)} kB`;
 }
 
 /** null when acceptable, else a message for the user. */

@@ -38,7 +38,10 @@ export const IconBook = (p: SVGProps<SVGSVGElement>) => (
     <path d="M3 3.25A1.25 1.25 0 0 1 4.25 2H13v10H4.25A1.25 1.25 0 0 0 3 13.25zM3 13.25A1.25 1.25 0 0 0 4.25 14.5H13" />
   </Svg>
 );
-export const IconSort = ({ dir, ...p }: SVGProps<SVGSVGElement> & { dir: "asc" | "desc" | false }) => (
+export const IconSort = ({
+  dir,
+  ...p
+}: SVGProps<SVGSVGElement> & { dir: "asc" | "desc" | false }) => (
   <Svg {...p} className="size-3.5">
     <path d="M5 6.5 8 3.5l3 3" opacity={dir === "asc" ? 1 : 0.35} />
     <path d="M5 9.5 8 12.5l3-3" opacity={dir === "desc" ? 1 : 0.35} />

@@ -2,7 +2,15 @@ import { IconError } from "@/components/ui/icons";
 import type { SourceIssue } from "./issue-ranges";
 
 /** The engine's issues for one editor as text (the inline markers' accessible twin). */
-export function IssueList({ id, issues, max = 6 }: { id: string; issues: SourceIssue[]; max?: number }) {
+export function IssueList({
+  id,
+  issues,
+  max = 6,
+}: {
+  id: string;
+  issues: SourceIssue[];
+  max?: number;
+}) {
   if (!issues.length) return <div id={id} aria-live="polite" />;
   return (
     <ul id={id} aria-live="polite" className="grid gap-1 text-[12.5px] leading-5 text-danger">
@@ -20,7 +28,9 @@ export function IssueList({ id, issues, max = 6 }: { id: string; issues: SourceI
           </span>
         </li>
       ))}
-      {issues.length > max ? <li className="text-ink-3">… and {issues.length - max} more.</li> : null}
+      {issues.length > max ? (
+        <li className="text-ink-3">… and {issues.length - max} more.</li>
+      ) : null}
     </ul>
   );
 }

@@ -15,7 +15,11 @@ export function issueRange(text: string, issue: SourceIssue): IssueRange | null 
   for (let i = 0; i < lineIndex; i++) lineStart += lines[i].length + 1;
   const lineText = lines[lineIndex];
   if (!issue.column || issue.column < 1) {
-    return { from: lineStart, to: lineStart + Math.max(lineText.length, 0), message: issue.message };
+    return {
+      from: lineStart,
+      to: lineStart + Math.max(lineText.length, 0),
+      message: issue.message,
+    };
   }
   const col = Math.min(issue.column - 1, lineText.length);
   const rest = lineText.slice(col);

@@ -12,12 +12,17 @@ import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
 import type { ComposerValues } from "./composer-model";
-import { BUILT_IN_PROFILES, NOISE_FIELDS, type NoiseKey, type NoiseProfile, type NoiseProfileValues } from "./noise-help";
+import {
+  BUILT_IN_PROFILES,
+  NOISE_FIELDS,
+  type NoiseKey,
+  type NoiseProfile,
+  type NoiseProfileValues,
+} from "./noise-help";
 
 const path = (k: NoiseKey) =>
   (k === "p1Given0" || k === "p0Given1" ? `noise.readout.${k}` : `noise.${k}`) as
-    | "noise.depolarizing1q"
-    | "noise.readout.p1Given0";
+    "noise.depolarizing1q" | "noise.readout.p1Given0";
 
 export function currentNoiseValues(v: ComposerValues["noise"]): NoiseProfileValues {
   return {
@@ -46,7 +51,9 @@ export function NoiseCard({
   const method = watch("method");
   const noise = watch("noise");
   const errors = formState.errors.noise;
-  const gateNoise = NOISE_FIELDS.some((f) => f.gate && Number(noise[f.key as "depolarizing1q"]) > 0);
+  const gateNoise = NOISE_FIELDS.some(
+    (f) => f.gate && Number(noise[f.key as "depolarizing1q"]) > 0,
+  );
   const all = [...BUILT_IN_PROFILES, ...profiles];
 
   const apply = (id: string) => {
@@ -81,7 +88,12 @@ export function NoiseCard({
           <>
             <div className="flex flex-wrap items-end gap-3">
               <Field label="Start from a profile" className="min-w-64 flex-1">
-                <Select placeholder="Choose a profile…" defaultValue="" disabled={readOnly} onChange={(e) => apply(e.target.value)}>
+                <Select
+                  placeholder="Choose a profile…"
+                  defaultValue=""
+                  disabled={readOnly}
+                  onChange={(e) => apply(e.target.value)}
+                >
                   <optgroup label="Starting points">
                     {BUILT_IN_PROFILES.map((p) => (
                       <option key={p.id} value={p.id}>
@@ -119,7 +131,14 @@ export function NoiseCard({
                     hint={f.help}
                     error={err}
                   >
-                    <Input mono inputMode="decimal" autoComplete="off" placeholder="0" readOnly={readOnly} {...register(path(f.key))} />
+                    <Input
+                      mono
+                      inputMode="decimal"
+                      autoComplete="off"
+                      placeholder="0"
+                      readOnly={readOnly}
+                      {...register(path(f.key))}
+                    />
                   </Field>
                 );
               })}
@@ -130,7 +149,11 @@ export function NoiseCard({
                 compact
                 title="Gate noise needs the density-matrix method"
                 actions={
-                  <Button size="sm" variant="secondary" onClick={() => setValue("method", "density_matrix", { shouldDirty: true })}>
+                  <Button
+                    size="sm"
+                    variant="secondary"
+                    onClick={() => setValue("method", "density_matrix", { shouldDirty: true })}
+                  >
                     Use density matrix
                   </Button>
                 }

@@ -3,9 +3,21 @@
  * forms from Nielsen & Chuang ch. 8) and a few starting profiles. The profiles are
  * invented round numbers for trying things out, not data of any device.
  */
-export type NoiseKey = "depolarizing1q" | "depolarizing2q" | "amplitudeDamping" | "phaseDamping" | "p1Given0" | "p0Given1";
+export type NoiseKey =
+  | "depolarizing1q"
+  | "depolarizing2q"
+  | "amplitudeDamping"
+  | "phaseDamping"
+  | "p1Given0"
+  | "p0Given1";
 
-export const NOISE_FIELDS: { key: NoiseKey; label: string; symbol: string; help: string; gate: boolean }[] = [
+export const NOISE_FIELDS: {
+  key: NoiseKey;
+  label: string;
+  symbol: string;
+  help: string;
+  gate: boolean;
+}[] = [
   {
     key: "depolarizing1q",
     label: "Depolarizing, 1-qubit gates",
@@ -52,25 +64,51 @@ export const NOISE_FIELDS: { key: NoiseKey; label: string; symbol: string; help:
 
 export type NoiseProfileValues = Record<NoiseKey, string>;
 
-export type NoiseProfile = { id: string; name: string; values: NoiseProfileValues; builtIn?: boolean };
+export type NoiseProfile = {
+  id: string;
+  name: string;
+  values: NoiseProfileValues;
+  builtIn?: boolean;
+};
 
 export const BUILT_IN_PROFILES: NoiseProfile[] = [
   {
     id: "builtin:readout-only",
     name: "Readout only (2 % / 4 %)",
     builtIn: true,
-    values: { depolarizing1q: "", depolarizing2q: "", amplitudeDamping: "", phaseDamping: "", p1Given0: "0.02", p0Given1: "0.04" },
+    values: {
+      depolarizing1q: "",
+      depolarizing2q: "",
+      amplitudeDamping: "",
+      phaseDamping: "",
+      p1Given0: "0.02",
+      p0Given1: "0.04",
+    },
   },
   {
     id: "builtin:light",
     name: "Light gate noise",
     builtIn: true,
-    values: { depolarizing1q: "0.001", depolarizing2q: "0.01", amplitudeDamping: "0.0005", phaseDamping: "0.001", p1Given0: "0.01", p0Given1: "0.02" },
+    values: {
+      depolarizing1q: "0.001",
+      depolarizing2q: "0.01",
+      amplitudeDamping: "0.0005",
+      phaseDamping: "0.001",
+      p1Given0: "0.01",
+      p0Given1: "0.02",
+    },
   },
   {
     id: "builtin:heavy",
     name: "Heavy gate noise",
     builtIn: true,
-    values: { depolarizing1q: "0.005", depolarizing2q: "0.04", amplitudeDamping: "0.002", phaseDamping: "0.005", p1Given0: "0.03", p0Given1: "0.06" },
+    values: {
+      depolarizing1q: "0.005",
+      depolarizing2q: "0.04",
+      amplitudeDamping: "0.002",
+      phaseDamping: "0.005",
+      p1Given0: "0.03",
+      p0Given1: "0.06",
+    },
   },
 ];

@@ -42,7 +42,11 @@ export function ObservableCard({
   const terms = watch("observable.terms");
   const e = formState.errors.observable;
   const fieldMessage = format === "pauli" ? e?.terms?.message : e?.matrixText?.message;
-  const shownIssues: SourceIssue[] = issues.length ? issues : fieldMessage ? [{ message: fieldMessage }] : [];
+  const shownIssues: SourceIssue[] = issues.length
+    ? issues
+    : fieldMessage
+      ? [{ message: fieldMessage }]
+      : [];
   const support = format === "pauli" ? pauliSupport(terms) : [];
 
   const loadFile = (f: LoadedFile) => {
@@ -57,12 +61,13 @@ export function ObservableCard({
   };
 
   const pick = (o: LibraryObservable) => {
-    if (o.format === "matrix" && o.matrix) {
+    if (o.format === "matrix") {
       setValue("observable.format", "matrix", { shouldDirty: true });
-      setValue("observable.matrixText", JSON.stringify(o.matrix), { shouldDirty: true });
+      const m = o.imag ? { real: o.real, imag: o.imag } : { real: o.real };
+      setValue("observable.matrixText", JSON.stringify(m), { shouldDirty: true });
     } else {
       setValue("observable.format", "pauli", { shouldDirty: true });
-      setValue("observable.terms", o.terms ?? "", { shouldDirty: true });
+      setValue("observable.terms", o.terms, { shouldDirty: true });
     }
     setNotice({ tone: "success", text: `Loaded “${o.name}” from the library.` });
     setPicking(false);
@@ -73,36 +78,51 @@ export function ObservableCard({
       <CardHeader
         title="Observable"
         description="A weighted Pauli sum such as 0.5 Z0 Z1 − 0.2 X0 (or dense words like XIZY), or a Hermitian matrix."
-        actions={
-          readOnly ? null : (
-            <>
-              <Button variant="ghost" size="sm" icon={<IconBook />} onClick={() => setPicking(true)}>
-                Library
-              </Button>
-              <UploadButton slot="observable" onLoad={loadFile} onReject={(m) => setNotice({ tone: "error", text: m })} />
-            </>
-          )
-        }
       />
       <CardBody className="grid gap-3">
-        <Controller
-          control={control}
-          name="observable.format"
-          render={({ field }) => (
-            <Segmented
-              legend="Observable form"
-              hideLegend
-              size="sm"
-              value={field.value}
-              onChange={field.onChange}
-              options={[
-                { value: "pauli", label: "Pauli sum" },
-                { value: "matrix", label: "Matrix (JSON)" },
-              ]}
-            />
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <Controller
+            control={control}
+            name="observable.format"
+            render={({ field }) => (
+              <Segmented
+                legend="Observable form"
+                hideLegend
+                size="sm"
+                value={field.value}
+                onChange={field.onChange}
+                options={[
+                  { value: "pauli", label: "Pauli sum" },
+                  { value: "matrix", label: "Matrix (JSON)" },
+                ]}
+              />
+            )}
+          />
+          {readOnly ? null : (
+            <div className="flex items-center gap-1">
+              <>
+                <Button
+                  variant="ghost"
+                  size="sm"
+                  icon={<IconBook />}
+                  onClick={() => setPicking(true)}
+                >
+                  Library
+                </Button>
+                <UploadButton
+                  slot="observable"
+                  onLoad={loadFile}
+                  onReject={(m) => setNotice({ tone: "error", text: m })}
+                />
+              </>
+            </div>
           )}
-        />
-        <FileDropZone slot="observable" onLoad={loadFile} onReject={(m) => setNotice({ tone: "error", text: m })}>
+        </div>
+        <FileDropZone
+          slot="observable"
+          onLoad={loadFile}
+          onReject={(m) => setNotice({ tone: "error", text: m })}
+        >
           {format === "pauli" ? (
             <Controller
               control={control}
@@ -142,14 +162,23 @@ export function ObservableCard({
           {summary ? (
             <>
               {summary.terms} term{summary.terms === 1 ? "" : "s"}
-              {format === "pauli" && support.length ? <> · acts on qubit{support.length === 1 ? "" : "s"} {formatQubitSet(support)}</> : null}
+              {format === "pauli" && support.length ? (
+                <>
+                  {" "}
+                  · acts on qubit{support.length === 1 ? "" : "s"} {formatQubitSet(support)}
+                </>
+              ) : null}
               {" · "}
               {summary.settings} measurement setting{summary.settings === 1 ? "" : "s"}
             </>
           ) : format === "pauli" && support.length ? (
-            <>acts on qubit{support.length === 1 ? "" : "s"} {formatQubitSet(support)}</>
+            <>
+              acts on qubit{support.length === 1 ? "" : "s"} {formatQubitSet(support)}
+            </>
           ) : (
-            <span className="font-sans text-ink-3">Drop a .txt Pauli sum or a .json matrix on the editor to load it.</span>
+            <span className="font-sans text-ink-3">
+              Drop a .txt Pauli sum or a .json matrix on the editor to load it.
+            </span>
           )}
         </p>
         {notice ? (

@@ -19,13 +19,20 @@ function sweepSummary(a: ComposerValues["sweepAxes"][number]): string | null {
   const from = parseNumber(a.from);
   const to = parseNumber(a.to);
   const n = parseNumber(a.points);
-  if (from === null || to === null || n === null || [from, to, n].some(Number.isNaN) || n < 1) return null;
+  if (from === null || to === null || n === null || [from, to, n].some(Number.isNaN) || n < 1)
+    return null;
   const values = linspace(from, to, Math.round(n));
   const step = values.length > 1 ? values[1] - values[0] : 0;
   return `${values.length} value${values.length === 1 ? "" : "s"}${values.length > 1 ? `, step ${Number(step.toPrecision(4))}` : ""}`;
 }
 
-export function ParametersCard({ inputs, readOnly }: { inputs: { name: string; type: string }[]; readOnly?: boolean }) {
+export function ParametersCard({
+  inputs,
+  readOnly,
+}: {
+  inputs: { name: string; type: string }[];
+  readOnly?: boolean;
+}) {
   const { register, watch, setValue, formState } = useFormContext<ComposerValues>();
   const axes = watch("sweepAxes");
   const errors = formState.errors;
@@ -37,7 +44,15 @@ export function ParametersCard({ inputs, readOnly }: { inputs: { name: string; t
     const from = cur !== null && !Number.isNaN(cur) ? cur : 0;
     setValue(
       "sweepAxes",
-      [...axes, { name, from: String(from), to: String(Number((from + Math.PI).toFixed(5))), points: axes.length ? "11" : "21" }],
+      [
+        ...axes,
+        {
+          name,
+          from: String(from),
+          to: String(Number((from + Math.PI).toFixed(5))),
+          points: axes.length ? "11" : "21",
+        },
+      ],
       { shouldDirty: true },
     );
   };
@@ -54,8 +69,9 @@ export function ParametersCard({ inputs, readOnly }: { inputs: { name: string; t
         title="Parameters"
         description={
           <>
-            Values of the circuit’s <code className="font-mono text-[12px]">input</code> declarations, in radians. Sweep one input for a line
-            chart, two for a heat map of the landscape.
+            Values of the circuit’s <code className="font-mono text-[12px]">input</code>{" "}
+            declarations, in radians. Sweep one input for a line chart, two for a heat map of the
+            landscape.
           </>
         }
       />
@@ -67,7 +83,10 @@ export function ParametersCard({ inputs, readOnly }: { inputs: { name: string; t
             const axisErr = swept ? errors.sweepAxes?.[i] : undefined;
             const summary = swept ? sweepSummary(axes[i]) : null;
             return (
-              <li key={input.name} className="grid gap-3 rounded-md border border-line p-3 sm:grid-cols-[10rem_minmax(0,1fr)_auto] sm:items-start">
+              <li
+                key={input.name}
+                className="grid gap-3 rounded-md border border-line p-3 sm:grid-cols-[10rem_minmax(0,1fr)_auto] sm:items-start"
+              >
                 <div className="flex items-center gap-2 pt-1.5">
                   <span className="font-mono text-sm font-semibold text-ink">{input.name}</span>
                   <Badge>{input.type}</Badge>
@@ -77,24 +96,59 @@ export function ParametersCard({ inputs, readOnly }: { inputs: { name: string; t
                   <div className="grid gap-2">
                     <div className="grid grid-cols-3 gap-2">
                       <Field label="From" error={axisErr?.from?.message}>
-                        <Input mono size="sm" inputMode="decimal" readOnly={readOnly} {...register(`sweepAxes.${i}.from`)} />
+                        <Input
+                          mono
+                          size="sm"
+                          inputMode="decimal"
+                          readOnly={readOnly}
+                          {...register(`sweepAxes.${i}.from`)}
+                        />
                       </Field>
                       <Field label="To" error={axisErr?.to?.message}>
-                        <Input mono size="sm" inputMode="decimal" readOnly={readOnly} {...register(`sweepAxes.${i}.to`)} />
+                        <Input
+                          mono
+                          size="sm"
+                          inputMode="decimal"
+                          readOnly={readOnly}
+                          {...register(`sweepAxes.${i}.to`)}
+                        />
                       </Field>
-                      <Field label="Points" error={axisErr?.points?.message ?? axisErr?.name?.message}>
-                        <Input mono size="sm" inputMode="numeric" readOnly={readOnly} {...register(`sweepAxes.${i}.points`)} />
+                      <Field
+                        label="Points"
+                        error={axisErr?.points?.message ?? axisErr?.name?.message}
+                      >
+                        <Input
+                          mono
+                          size="sm"
+                          inputMode="numeric"
+                          readOnly={readOnly}
+                          {...register(`sweepAxes.${i}.points`)}
+                        />
                       </Field>
                     </div>
                     {summary ? <p className="figures text-xs text-ink-3">{summary}</p> : null}
                   </div>
                 ) : (
-                  <Field label={`Value of ${input.name}`} error={errors.parameters?.[input.name]?.message}>
-                    <Input mono size="sm" inputMode="decimal" readOnly={readOnly} {...register(`parameters.${input.name}`)} />
+                  <Field
+                    label={`Value of ${input.name}`}
+                    error={errors.parameters?.[input.name]?.message}
+                  >
+                    <Input
+                      mono
+                      size="sm"
+                      inputMode="decimal"
+                      readOnly={readOnly}
+                      {...register(`parameters.${input.name}`)}
+                    />
                   </Field>
                 )}
                 {readOnly ? null : swept ? (
-                  <Button variant="ghost" size="sm" className="sm:mt-6" onClick={() => stopSweep(input.name)}>
+                  <Button
+                    variant="ghost"
+                    size="sm"
+                    className="sm:mt-6"
+                    onClick={() => stopSweep(input.name)}
+                  >
                     Fixed value
                   </Button>
                 ) : (
@@ -113,7 +167,9 @@ export function ParametersCard({ inputs, readOnly }: { inputs: { name: string; t
             );
           })}
         </ul>
-        {typeof errors.sweepAxes?.message === "string" ? <p className="mt-2 text-[12.5px] text-danger">{errors.sweepAxes.message}</p> : null}
+        {typeof errors.sweepAxes?.message === "string" ? (
+          <p className="mt-2 text-[12.5px] text-danger">{errors.sweepAxes.message}</p>
+        ) : null}
       </CardBody>
     </Card>
   );

@@ -24,7 +24,13 @@ export function formatQubitSet(qubits: readonly number[]): string {
   for (let i = 0; i < qubits.length; i++) {
     let j = i;
     while (j + 1 < qubits.length && qubits[j + 1] === qubits[j] + 1) j++;
-    parts.push(j - i >= 2 ? `${qubits[i]}–${qubits[j]}` : j > i ? `${qubits[i]}, ${qubits[j]}` : `${qubits[i]}`);
+    parts.push(
+      j - i >= 2
+        ? `${qubits[i]}–${qubits[j]}`
+        : j > i
+          ? `${qubits[i]}, ${qubits[j]}`
+          : `${qubits[i]}`,
+    );
     i = j;
   }
   return parts.join(", ");

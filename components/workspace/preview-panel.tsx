@@ -26,7 +26,15 @@ function Stat({ label, value }: { label: string; value: React.ReactNode }) {
   );
 }
 
-function Status({ pending, error, preview }: { pending: boolean; error?: ApiError; preview?: Preview }) {
+function Status({
+  pending,
+  error,
+  preview,
+}: {
+  pending: boolean;
+  error?: ApiError;
+  preview?: Preview;
+}) {
   if (pending)
     return (
       <span className="inline-flex items-center gap-1.5 text-xs text-ink-2">
@@ -36,7 +44,8 @@ function Status({ pending, error, preview }: { pending: boolean; error?: ApiErro
   if (error)
     return (
       <span className="inline-flex items-center gap-1.5 text-xs font-medium text-danger">
-        <IconError className="size-3.5" /> {error.errors.length > 1 ? `${error.errors.length} problems` : "Needs a fix"}
+        <IconError className="size-3.5" />{" "}
+        {error.errors.length > 1 ? `${error.errors.length} problems` : "Needs a fix"}
       </span>
     );
   if (preview && !preview.quota.allowed)
@@ -54,7 +63,15 @@ function Status({ pending, error, preview }: { pending: boolean; error?: ApiErro
   return null;
 }
 
-export function PreviewPanel({ preview, error, pending }: { preview?: Preview; error?: ApiError; pending: boolean }) {
+export function PreviewPanel({
+  preview,
+  error,
+  pending,
+}: {
+  preview?: Preview;
+  error?: ApiError;
+  pending: boolean;
+}) {
   const stale = pending || !!error;
   const gates = preview ? Object.entries(preview.gateCounts).sort((a, b) => b[1] - a[1]) : [];
   const totalShots = preview ? preview.shots * Math.max(1, preview.sweepPoints) : 0;
@@ -70,7 +87,9 @@ export function PreviewPanel({ preview, error, pending }: { preview?: Preview; e
             {error.message}
           </Alert>
         ) : error ? (
-          <p className="text-[13px] leading-5 text-ink-2">Fix the marked problems to see the run’s figures. Your draft is kept.</p>
+          <p className="text-[13px] leading-5 text-ink-2">
+            Fix the marked problems to see the run’s figures. Your draft is kept.
+          </p>
         ) : null}
         {!preview ? (
           error ? null : (
@@ -109,16 +128,23 @@ export function PreviewPanel({ preview, error, pending }: { preview?: Preview; e
                     <span className="font-mono tracking-[0.12em] text-ink">{g.bases}</span>
                     <span className="figures text-ink-3">
                       {g.terms.length} term{g.terms.length === 1 ? "" : "s"}
-                      {preview.shotsPerSetting ? ` · ${fmt.format(preview.shotsPerSetting[i] ?? 0)} shots` : ""}
+                      {preview.shotsPerSetting
+                        ? ` · ${fmt.format(preview.shotsPerSetting[i] ?? 0)} shots`
+                        : ""}
                     </span>
                   </li>
                 ))}
               </ul>
             </section>
-            <section className="grid gap-1.5 rounded-md border border-line px-3 py-2.5 text-[13px]" aria-label="Shot plan and cost">
+            <section
+              className="grid gap-1.5 rounded-md border border-line px-3 py-2.5 text-[13px]"
+              aria-label="Shot plan and cost"
+            >
               <div className="flex justify-between gap-3">
                 <span className="text-ink-2">Shots per point</span>
-                <span className="figures text-ink">{preview.shots ? fmt.format(preview.shots) : "exact only"}</span>
+                <span className="figures text-ink">
+                  {preview.shots ? fmt.format(preview.shots) : "exact only"}
+                </span>
               </div>
               {preview.sweepPoints > 1 ? (
                 <div className="flex justify-between gap-3">
@@ -129,13 +155,17 @@ export function PreviewPanel({ preview, error, pending }: { preview?: Preview; e
               {preview.shotPlan ? (
                 <p className="text-xs leading-5 text-ink-3">
                   For a standard error of {preview.shotPlan.targetPrecision}: at most{" "}
-                  <span className="figures">{fmt.format(preview.shotPlan.worstCase.totalShots)}</span> shots for any state; the run
-                  plans from the state’s own variances, usually fewer.
+                  <span className="figures">
+                    {fmt.format(preview.shotPlan.worstCase.totalShots)}
+                  </span>{" "}
+                  shots for any state; the run plans from the state’s own variances, usually fewer.
                 </p>
               ) : null}
               <div className="mt-1 flex justify-between gap-3 border-t border-line pt-1.5">
                 <span className="text-ink-2">Counts against {preview.quota.plan.name}</span>
-                <span className="figures font-medium text-ink">{fmt.format(preview.quota.shots ?? totalShots)} shots</span>
+                <span className="figures font-medium text-ink">
+                  {fmt.format(preview.quota.shots ?? totalShots)} shots
+                </span>
               </div>
             </section>
             {preview.quota.refusals.length ? (

@@ -7,17 +7,81 @@
 import { StreamLanguage, type StreamParser } from "@codemirror/language";
 
 const KEYWORDS = new Set([
-  "OPENQASM", "include", "qreg", "creg", "qubit", "bit", "gate", "opaque", "measure", "reset",
-  "barrier", "if", "input", "output", "const", "let", "def", "return", "for", "while", "in", "else",
+  "OPENQASM",
+  "include",
+  "qreg",
+  "creg",
+  "qubit",
+  "bit",
+  "gate",
+  "opaque",
+  "measure",
+  "reset",
+  "barrier",
+  "if",
+  "input",
+  "output",
+  "const",
+  "let",
+  "def",
+  "return",
+  "for",
+  "while",
+  "in",
+  "else",
 ]);
 const TYPES = new Set(["float", "angle", "int", "uint", "bool", "complex", "duration", "stretch"]);
 const CONSTANTS = new Set(["pi", "π", "tau", "τ", "euler", "ℇ", "true", "false"]);
 const FUNCTIONS = new Set(["sin", "cos", "tan", "exp", "ln", "sqrt", "arcsin", "arccos", "arctan"]);
 /** Gates of qelib1.inc (arXiv:1707.03429) and stdgates.inc, plus the built-ins U and CX. */
 export const STANDARD_GATES = new Set([
-  "U", "CX", "u", "u0", "u1", "u2", "u3", "p", "phase", "id", "x", "y", "z", "h", "s", "sdg", "t", "tdg",
-  "sx", "sxdg", "rx", "ry", "rz", "cx", "cy", "cz", "ch", "csx", "crx", "cry", "crz", "cu1", "cp", "cphase",
-  "cu3", "cu", "ccx", "cswap", "swap", "rxx", "rzz", "rccx", "rc3x", "c3x", "c3sqrtx", "c4x", "gphase",
+  "U",
+  "CX",
+  "u",
+  "u0",
+  "u1",
+  "u2",
+  "u3",
+  "p",
+  "phase",
+  "id",
+  "x",
+  "y",
+  "z",
+  "h",
+  "s",
+  "sdg",
+  "t",
+  "tdg",
+  "sx",
+  "sxdg",
+  "rx",
+  "ry",
+  "rz",
+  "cx",
+  "cy",
+  "cz",
+  "ch",
+  "csx",
+  "crx",
+  "cry",
+  "crz",
+  "cu1",
+  "cp",
+  "cphase",
+  "cu3",
+  "cu",
+  "ccx",
+  "cswap",
+  "swap",
+  "rxx",
+  "rzz",
+  "rccx",
+  "rc3x",
+  "c3x",
+  "c3sqrtx",
+  "c4x",
+  "gphase",
 ]);
 
 export type QasmState = { inBlockComment: boolean; afterGateKeyword: boolean };
@@ -46,7 +110,9 @@ export const qasmStreamParser: StreamParser<QasmState> = {
     if (stream.match(/^"[^"\n]*"?/)) return "string";
     if (stream.match(/^(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?(?:im)?/)) return "number";
     if (stream.match(/^(?:->|==|!=|<=|>=|\*\*|[-+*/^=<>!%&|~])/)) return "operator";
-    const word = stream.match(/^[A-Za-z_\u0370-\u03ff\u2107][\w\u0370-\u03ff]*/) as RegExpMatchArray | null;
+    const word = stream.match(
+      /^[A-Za-z_\u0370-\u03ff\u2107][\w\u0370-\u03ff]*/,
+    ) as RegExpMatchArray | null;
     if (word) {
       const w = word[0];
       if (state.afterGateKeyword) {

@@ -6,7 +6,12 @@
 import { useId, type ReactNode } from "react";
 import { cn } from "@/components/ui/cn";
 
-export type Segment<T extends string> = { value: T; label: ReactNode; hint?: string; disabled?: boolean };
+export type Segment<T extends string> = {
+  value: T;
+  label: ReactNode;
+  hint?: string;
+  disabled?: boolean;
+};
 
 export function Segmented<T extends string>({
   legend,
@@ -31,7 +36,11 @@ export function Segmented<T extends string>({
   const group = name ?? auto;
   return (
     <fieldset className={cn("grid gap-1.5", className)}>
-      <legend className={cn("mb-1.5 text-[13px] leading-5 font-medium text-ink", hideLegend && "sr-only")}>{legend}</legend>
+      <legend
+        className={cn("mb-1.5 text-[13px] leading-5 font-medium text-ink", hideLegend && "sr-only")}
+      >
+        {legend}
+      </legend>
       <div className="inline-flex w-fit flex-wrap rounded-lg border border-line bg-surface-2 p-0.5">
         {options.map((o) => {
           const id = `${group}-${o.value}`;

@@ -9,7 +9,11 @@ import { circuitOutlineAction } from "@/app/(app)/app/runs/new/actions";
 import type { CircuitOutline } from "@/components/circuit-diagram/outline";
 import { useDebounced } from "@/lib/swr/use-debounced";
 
-export function useCircuitOutline(format: "qasm2" | "qasm3", source: string, parameters: Record<string, number>) {
+export function useCircuitOutline(
+  format: "qasm2" | "qasm3",
+  source: string,
+  parameters: Record<string, number>,
+) {
   const key = useDebounced(JSON.stringify({ format, source, parameters }), 350);
   const [outline, setOutline] = useState<CircuitOutline | null>(null);
   const [stale, setStale] = useState(false);
@@ -17,7 +21,11 @@ export function useCircuitOutline(format: "qasm2" | "qasm3", source: string, par
 
   useEffect(() => {
     const mine = ++seq.current;
-    const input = JSON.parse(key) as { format: "qasm2" | "qasm3"; source: string; parameters: Record<string, number> };
+    const input = JSON.parse(key) as {
+      format: "qasm2" | "qasm3";
+      source: string;
+      parameters: Record<string, number>;
+    };
     if (!input.source.trim()) {
       setOutline(null);
       return;

@@ -7,10 +7,15 @@ import type { ReadonlyURLSearchParams } from "next/navigation";
 import { useEffect, useState } from "react";
 import { apiFetch } from "@/lib/swr/api-client";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";
-import type { LibraryCircuit, LibraryObservable, Page, Run } from "@/lib/swr/types";
+import type { Run } from "@/lib/swr/types";
+import { fetchCircuit, fetchObservable } from "@/lib/swr/use-library";
 import { DEFAULT_VALUES, fromRequest, type ComposerValues } from "./composer-model";
 
-export type Prefill = { state: "none" } | { state: "loading" } | { state: "ready"; values: ComposerValues } | { state: "failed"; message: string };
+export type Prefill =
+  | { state: "none" }
+  | { state: "loading" }
+  | { state: "ready"; values: ComposerValues }
+  | { state: "failed"; message: string };
 
 export function usePrefill(search: ReadonlyURLSearchParams): Prefill {
   const { orgId } = useWorkspaceOrg();
@@ -30,23 +35,31 @@ export function usePrefill(search: ReadonlyURLSearchParams): Prefill {
       }
       const v: ComposerValues = structuredClone(DEFAULT_VALUES);
       if (circuitId) {
-        const page = await apiFetch<Page<LibraryCircuit>>(orgId, "/api/v1/circuits?limit=100");
-        const c = page.data.find((x) => x.id === circuitId);
-        if (c) {
-          v.circuit = { format: c.format, source: c.source };
-          v.name = c.name;
-        }
+        const c = await fetchCircuit(orgId, circuitId);
+        v.circuit = { format: c.format, source: c.source };
+        v.name = c.name;
       }
       if (observableId) {
-        const page = await apiFetch<Page<LibraryObservable>>(orgId, "/api/v1/observables?limit=100");
-        const o = page.data.find((x) => x.id === observableId);
-        if (o?.format === "matrix" && o.matrix) v.observable = { format: "matrix", terms: "", matrixText: JSON.stringify(o.matrix) };
-        else if (o) v.observable = { format: "pauli", terms: o.terms ?? "", matrixText: "" };
+        const o = await fetchObservable(orgId, observableId);
+        v.observable =
+          o.format === "matrix"
+            ? {
+                format: "matrix",
+                terms: "",
+                matrixText: JSON.stringify(
+                  o.imag ? { real: o.real, imag: o.imag } : { real: o.real },
+                ),
+              }
+            : { format: "pauli", terms: o.terms, matrixText: "" };
       }
       return v;
     })()
       .then((values) => live && setState({ state: "ready", values }))
-      .catch((e: unknown) => live && setState({ state: "failed", message: e instanceof Error ? e.message : "could not load" }));
+      .catch(
+        (e: unknown) =>
+          live &&
+          setState({ state: "failed", message: e instanceof Error ? e.message : "could not load" }),
+      );
     return () => {
       live = false;
     };

@@ -11,7 +11,14 @@ export async function WorkspaceFrame({ children }: { children: ReactNode }) {
   const { current, user } = await getCurrentOrg();
   if (!current) return null;
   return (
-    <WorkspaceOrgProvider value={{ orgId: current.org.id, orgName: current.org.name, role: current.role, userId: user.id }}>
+    <WorkspaceOrgProvider
+      value={{
+        orgId: current.org.id,
+        orgName: current.org.name,
+        role: current.role,
+        userId: user.id,
+      }}
+    >
       {children}
     </WorkspaceOrgProvider>
   );

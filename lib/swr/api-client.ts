@@ -13,7 +13,13 @@ export class ApiError extends Error {
   readonly title: string;
   readonly type: string;
   readonly errors: ApiFieldError[];
-  constructor(p: { status: number; title: string; detail: string; type?: string; errors?: ApiFieldError[] }) {
+  constructor(p: {
+    status: number;
+    title: string;
+    detail: string;
+    type?: string;
+    errors?: ApiFieldError[];
+  }) {
     super(p.detail || p.title);
     this.name = "ApiError";
     this.status = p.status;
@@ -38,7 +44,12 @@ async function toApiError(res: Response): Promise<ApiError> {
   } catch {
     // Not JSON (proxy page, crash): fall through to a generic message.
   }
-  const b = (body ?? {}) as Partial<{ title: string; detail: string; type: string; errors: ApiFieldError[] }>;
+  const b = (body ?? {}) as Partial<{
+    title: string;
+    detail: string;
+    type: string;
+    errors: ApiFieldError[];
+  }>;
   return new ApiError({
     status: res.status,
     title: typeof b.title === "string" ? b.title : res.statusText || "Request failed",
@@ -65,7 +76,11 @@ export async function apiFetch<T>(orgId: string, path: string, init: ApiInit = {
     res = await fetch(path, { ...init, headers, body, credentials: "same-origin" });
   } catch (e) {
     if (e instanceof DOMException && e.name === "AbortError") throw e;
-    throw new ApiError({ status: 0, title: "Network error", detail: "Could not reach Ketwise. Check your connection and try again." });
+    throw new ApiError({
+      status: 0,
+      title: "Network error",
+      detail: "Could not reach Ketwise. Check your connection and try again.",
+    });
   }
   if (!res.ok) throw await toApiError(res);
   if (res.status === 204) return undefined as T;
@@ -78,9 +93,13 @@ export function orgFetcher<T>([orgId, path]: readonly [string, string, ...unknow
 }
 
 /** Builds "/path?x=1&y=2", skipping empty values. */
-export function withQuery(path: string, params: Record<string, string | number | null | undefined>): string {
+export function withQuery(
+  path: string,
+  params: Record<string, string | number | null | undefined>,
+): string {
   const q = new URLSearchParams();
-  for (const [k, v] of Object.entries(params)) if (v !== null && v !== undefined && v !== "") q.set(k, String(v));
+  for (const [k, v] of Object.entries(params))
+    if (v !== null && v !== undefined && v !== "") q.set(k, String(v));
   const s = q.toString();
   return s ? `${path}?${s}` : path;
 }

@@ -11,7 +11,13 @@ export type WorkspaceOrg = { orgId: string; orgName: string; role: Role; userId:
 
 const OrgContext = createContext<WorkspaceOrg | null>(null);
 
-export function WorkspaceOrgProvider({ value, children }: { value: WorkspaceOrg; children: ReactNode }) {
+export function WorkspaceOrgProvider({
+  value,
+  children,
+}: {
+  value: WorkspaceOrg;
+  children: ReactNode;
+}) {
   return <OrgContext.Provider value={value}>{children}</OrgContext.Provider>;
 }
 

@@ -6,9 +6,31 @@
 import type { EstimateRequest, EstimateResult, PreviewResult } from "@/lib/quantum/schemas";
 import type { ProblemDocument } from "@/lib/openapi/common-schemas";
 import type { QuotaVerdict, RunCreateInput, RunSummaryView, RunView } from "@/lib/runs/schemas";
-import { RUN_STATUSES, TERMINAL_RUN_STATUSES, isTerminalStatus, type RunMethod, type RunStatus } from "@/lib/runs/constants";
+import type {
+  CircuitView,
+  ObservableView,
+  circuitSummarySchema,
+  observableSummarySchema,
+} from "@/lib/library/schemas";
+import type { UsageReport } from "@/lib/usage/schemas";
+import type { z } from "zod";
+import {
+  RUN_STATUSES,
+  TERMINAL_RUN_STATUSES,
+  isTerminalStatus,
+  type RunMethod,
+  type RunStatus,
+} from "@/lib/runs/constants";
 
-export type { EstimateRequest, EstimateResult, PreviewResult, QuotaVerdict, RunCreateInput, RunMethod, RunStatus };
+export type {
+  EstimateRequest,
+  EstimateResult,
+  PreviewResult,
+  QuotaVerdict,
+  RunCreateInput,
+  RunMethod,
+  RunStatus,
+};
 export { RUN_STATUSES, TERMINAL_RUN_STATUSES };
 
 export const isTerminal = isTerminalStatus;
@@ -23,33 +45,13 @@ export type RunSummary = RunSummaryView;
 
 export type Page<T> = { data: T[]; nextCursor: string | null };
 
-export type LibraryCircuit = {
-  id: string;
-  name: string;
-  description: string;
-  tags: string[];
-  format: "qasm2" | "qasm3";
-  source: string;
-  qubits: number;
-  createdAt: string;
-  updatedAt?: string;
-};
-
-export type LibraryObservable = {
-  id: string;
-  name: string;
-  description: string;
-  tags: string[];
-  format: "pauli" | "matrix";
-  terms?: string | null;
-  matrix?: { real: number[][]; imag?: number[][] } | null;
-  qubits: number;
-  createdAt: string;
-  updatedAt?: string;
-};
+/** Library list rows (no source / terms) and full items (`GET /api/v1/circuits/:id` …). */
+export type LibraryCircuitSummary = z.infer<typeof circuitSummarySchema>;
+export type LibraryCircuit = CircuitView;
+export type LibraryObservableSummary = z.infer<typeof observableSummarySchema>;
+export type LibraryObservable = ObservableView;
 
 /** `POST /api/v1/runs/preview`: the engine's preview plus the plan's verdict. */
 export type Preview = PreviewResult & { quota: QuotaVerdict };
 
-export type UsageMeter = { metric: string; used: number; limit: number | null; unit?: string };
-export type Usage = { period: string; meters: UsageMeter[]; [k: string]: unknown };
+export type Usage = UsageReport;

@@ -16,8 +16,14 @@ export function usePreview(request: object | null, delay = 450) {
   const body = useDebounced(request ? JSON.stringify(request) : null, delay);
   const swr = useSWR<Preview, ApiError>(
     body ? ([orgId, "/api/v1/runs/preview", body] as const) : null,
-    ([o, path, b]: readonly [string, string, string]) => apiFetch<Preview>(o, path, { method: "POST", json: JSON.parse(b) }),
-    { keepPreviousData: true, revalidateOnFocus: false, shouldRetryOnError: false, dedupingInterval: 30_000 },
+    ([o, path, b]: readonly [string, string, string]) =>
+      apiFetch<Preview>(o, path, { method: "POST", json: JSON.parse(b) }),
+    {
+      keepPreviousData: true,
+      revalidateOnFocus: false,
+      shouldRetryOnError: false,
+      dedupingInterval: 30_000,
+    },
   );
   const pending = (request ? JSON.stringify(request) : null) !== body || swr.isValidating;
   return { ...swr, pending };

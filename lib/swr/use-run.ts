@@ -10,8 +10,12 @@ export const RUN_POLL_MS = 800;
 /** One run, polled every 0.8 s until it is terminal (then no more requests). */
 export function useRun(id: string | null) {
   const { orgId } = useWorkspaceOrg();
-  return useSWR<Run>(id ? ([orgId, `/api/v1/runs/${encodeURIComponent(id)}`] as const) : null, orgFetcher, {
-    refreshInterval: (run) => (run && isTerminal(run.status) ? 0 : RUN_POLL_MS),
-    revalidateOnFocus: false,
-  });
+  return useSWR<Run>(
+    id ? ([orgId, `/api/v1/runs/${encodeURIComponent(id)}`] as const) : null,
+    orgFetcher,
+    {
+      refreshInterval: (run) => (run && isTerminal(run.status) ? 0 : RUN_POLL_MS),
+      revalidateOnFocus: false,
+    },
+  );
 }
