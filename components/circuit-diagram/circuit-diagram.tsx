@@ -7,7 +7,23 @@
 import { cn } from "@/components/ui/cn";
 import { layoutCircuit, rowY, type DiagramLayout, type DiagramOp, type PlacedOp } from "./layout";
 
-function Tile({ x, y, w, h, label, param, dashed }: { x: number; y: number; w: number; h: number; label: string; param?: string; dashed?: boolean }) {
+function Tile({
+  x,
+  y,
+  w,
+  h,
+  label,
+  param,
+  dashed,
+}: {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+  label: string;
+  param?: string;
+  dashed?: boolean;
+}) {
   return (
     <g>
       <rect
@@ -31,7 +47,13 @@ function Tile({ x, y, w, h, label, param, dashed }: { x: number; y: number; w: n
         {label}
       </text>
       {param ? (
-        <text x={x + w / 2} y={y + h / 2 + 10} textAnchor="middle" className="fill-ink-2 font-mono" fontSize={9.5}>
+        <text
+          x={x + w / 2}
+          y={y + h / 2 + 10}
+          textAnchor="middle"
+          className="fill-ink-2 font-mono"
+          fontSize={9.5}
+        >
           {param}
         </text>
       ) : null}
@@ -68,7 +90,9 @@ function Item({ it, layout }: { it: PlacedOp; layout: DiagramLayout }) {
   const g = layout.geometry;
   const tileH = g.rowHeight - 14;
   const y = (q: number) => rowY(layout, q);
-  const stem = (a: number, b: number) => <line x1={cx} x2={cx} y1={y(a)} y2={y(b)} className="stroke-ink" strokeWidth={1.3} />;
+  const stem = (a: number, b: number) => (
+    <line x1={cx} x2={cx} y1={y(a)} y2={y(b)} className="stroke-ink" strokeWidth={1.3} />
+  );
   const role = it.role;
 
   if (role.kind === "barrier") {
@@ -85,7 +109,16 @@ function Item({ it, layout }: { it: PlacedOp; layout: DiagramLayout }) {
     );
   }
   if (role.kind === "measure" || role.kind === "reset") {
-    return <Tile x={cx - it.width / 2} y={y(it.top) - tileH / 2} w={it.width} h={tileH} label={it.label} dashed />;
+    return (
+      <Tile
+        x={cx - it.width / 2}
+        y={y(it.top) - tileH / 2}
+        w={it.width}
+        h={tileH}
+        label={it.label}
+        dashed
+      />
+    );
   }
   if (role.kind === "swap") {
     return (
@@ -106,12 +139,24 @@ function Item({ it, layout }: { it: PlacedOp; layout: DiagramLayout }) {
         {controls.map((q) => (
           <Dot key={`c${q}`} cx={cx} cy={y(q)} />
         ))}
-        {role.target === "x" ? targets.map((q) => <XTarget key={`t${q}`} cx={cx} cy={y(q)} />) : null}
+        {role.target === "x"
+          ? targets.map((q) => <XTarget key={`t${q}`} cx={cx} cy={y(q)} />)
+          : null}
         {role.target === "z" ? targets.map((q) => <Dot key={`t${q}`} cx={cx} cy={y(q)} />) : null}
-        {role.target === "swap" ? targets.map((q) => <Cross key={`t${q}`} cx={cx} cy={y(q)} />) : null}
+        {role.target === "swap"
+          ? targets.map((q) => <Cross key={`t${q}`} cx={cx} cy={y(q)} />)
+          : null}
         {role.target === "box"
           ? targets.map((q) => (
-              <Tile key={`t${q}`} x={cx - it.width / 2} y={y(q) - tileH / 2} w={it.width} h={tileH} label={it.label} param={it.paramLabel} />
+              <Tile
+                key={`t${q}`}
+                x={cx - it.width / 2}
+                y={y(q) - tileH / 2}
+                w={it.width}
+                h={tileH}
+                label={it.label}
+                param={it.paramLabel}
+              />
             ))
           : null}
       </g>
@@ -122,10 +167,23 @@ function Item({ it, layout }: { it: PlacedOp; layout: DiagramLayout }) {
   const h = y(it.bottom) - y(it.top) + tileH;
   return (
     <g>
-      <Tile x={cx - it.width / 2} y={top} w={it.width} h={h} label={it.label} param={it.paramLabel} />
+      <Tile
+        x={cx - it.width / 2}
+        y={top}
+        w={it.width}
+        h={h}
+        label={it.label}
+        param={it.paramLabel}
+      />
       {it.qubits.length > 1
         ? it.qubits.map((q, k) => (
-            <text key={q} x={cx - it.width / 2 + 4} y={y(q) + 3} className="fill-ink-3 font-mono" fontSize={8.5}>
+            <text
+              key={q}
+              x={cx - it.width / 2 + 4}
+              y={y(q) + 3}
+              className="fill-ink-3 font-mono"
+              fontSize={8.5}
+            >
               {k}
             </text>
           ))
@@ -149,8 +207,13 @@ export function CircuitDiagram({
   className?: string;
   title?: string;
 }) {
-  const labels = qubitLabels?.length === qubits ? qubitLabels : Array.from({ length: qubits }, (_, i) => `q[${i}]`);
-  const layout = layoutCircuit(qubits, ops, { labelChars: Math.max(...labels.map((l) => l.length), 4) });
+  const labels =
+    qubitLabels?.length === qubits
+      ? qubitLabels
+      : Array.from({ length: qubits }, (_, i) => `q[${i}]`);
+  const layout = layoutCircuit(qubits, ops, {
+    labelChars: Math.max(...labels.map((l) => l.length), 4),
+  });
   const more = omitted + layout.truncated;
   const wireEnd = layout.width - layout.geometry.gutter / 2;
   return (

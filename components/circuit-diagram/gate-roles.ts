@@ -10,7 +10,10 @@ export type GateRole =
   | { kind: "controlled"; controls: number; target: "x" | "z" | "swap" | "box"; label: string }
   | { kind: "swap" };
 
-const CONTROLLED: Record<string, { controls: number; target: "x" | "z" | "swap" | "box"; label: string }> = {
+const CONTROLLED: Record<
+  string,
+  { controls: number; target: "x" | "z" | "swap" | "box"; label: string }
+> = {
   cx: { controls: 1, target: "x", label: "x" },
   cnot: { controls: 1, target: "x", label: "x" },
   ccx: { controls: 2, target: "x", label: "x" },

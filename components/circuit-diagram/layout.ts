@@ -81,9 +81,15 @@ function describe(op: DiagramOp): Pick<PlacedOp, "role" | "label" | "paramLabel"
   return { role, label, paramLabel: params };
 }
 
-function boxWidth(label: string, paramLabel: string, role: PlacedOp["role"], g: DiagramGeometry): number {
+function boxWidth(
+  label: string,
+  paramLabel: string,
+  role: PlacedOp["role"],
+  g: DiagramGeometry,
+): number {
   if (role.kind === "barrier") return 12;
-  if (role.kind === "swap" || (role.kind === "controlled" && role.target !== "box")) return g.minBox - 6;
+  if (role.kind === "swap" || (role.kind === "controlled" && role.target !== "box"))
+    return g.minBox - 6;
   const chars = Math.max(label.length, paramLabel.length * 0.85);
   return Math.max(g.minBox, Math.ceil(chars * g.charWidth + 2 * g.padX));
 }
@@ -91,9 +97,16 @@ function boxWidth(label: string, paramLabel: string, role: PlacedOp["role"], g: 
 export function layoutCircuit(
   numQubits: number,
   ops: readonly DiagramOp[],
-  { maxOps = 400, geometry = DEFAULT_GEOMETRY, labelChars = 4 }: { maxOps?: number; geometry?: DiagramGeometry; labelChars?: number } = {},
+  {
+    maxOps = 400,
+    geometry = DEFAULT_GEOMETRY,
+    labelChars = 4,
+  }: { maxOps?: number; geometry?: DiagramGeometry; labelChars?: number } = {},
 ): DiagramLayout {
-  const g = { ...geometry, labelWidth: Math.max(geometry.labelWidth, Math.ceil(labelChars * geometry.charWidth) + 20) };
+  const g = {
+    ...geometry,
+    labelWidth: Math.max(geometry.labelWidth, Math.ceil(labelChars * geometry.charWidth) + 20),
+  };
   const nextFree = new Array<number>(numQubits).fill(0);
   const items: PlacedOp[] = [];
   const shown = ops.slice(0, maxOps);
@@ -106,7 +119,16 @@ export function layoutCircuit(
     for (let r = top; r <= bottom; r++) column = Math.max(column, nextFree[r]);
     for (let r = top; r <= bottom; r++) nextFree[r] = column + 1;
     const d = describe(op);
-    items.push({ op, index, column, qubits, top, bottom, ...d, width: boxWidth(d.label, d.paramLabel, d.role, g) });
+    items.push({
+      op,
+      index,
+      column,
+      qubits,
+      top,
+      bottom,
+      ...d,
+      width: boxWidth(d.label, d.paramLabel, d.role, g),
+    });
   });
   const count = items.reduce((m, it) => Math.max(m, it.column + 1), 0);
   const widths = new Array<number>(count).fill(0);

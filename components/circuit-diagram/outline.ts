@@ -16,4 +16,6 @@ export type CircuitOutline = {
   placeholders: string[];
 };
 
-export type OutlineAnswer = { ok: true; outline: CircuitOutline } | { ok: false; message: string; line?: number; column?: number };
+export type OutlineAnswer =
+  | { ok: true; outline: CircuitOutline }
+  | { ok: false; message: string; line?: number; column?: number };

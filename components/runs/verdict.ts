@@ -46,7 +46,13 @@ export function erfc(x: number): number {
               (0.37409196 +
                 t *
                   (0.09678418 +
-                    t * (-0.18628806 + t * (0.27886807 + t * (-1.13520398 + t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
+                    t *
+                      (-0.18628806 +
+                        t *
+                          (0.27886807 +
+                            t *
+                              (-1.13520398 +
+                                t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
     );
   return x >= 0 ? ans : 2 - ans;
 }
@@ -84,7 +90,12 @@ export function agreementVerdict(
     return { kind: agrees ? "exact" : "suspicious", z: null, p: null, deviation };
   }
   const z = deviation / sample.stdErr;
-  return { kind: Math.abs(z) <= threshold ? "consistent" : "suspicious", z, p: twoSidedP(z), deviation };
+  return {
+    kind: Math.abs(z) <= threshold ? "consistent" : "suspicious",
+    z,
+    p: twoSidedP(z),
+    deviation,
+  };
 }
 
 export type ComparisonChoice = {
