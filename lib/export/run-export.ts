@@ -33,7 +33,9 @@ export function runJson(run: unknown): string {
 
 /** One row per Pauli term: word, coefficient, exact ⟨P⟩, sampled ⟨P⟩, its standard error, setting. */
 export function termsCsv(result: ExportResult): string {
-  const rows: CsvCell[][] = [["pauli", "coefficient", "exact", "sampled_mean", "std_err", "setting", "setting_bases"]];
+  const rows: CsvCell[][] = [
+    ["pauli", "coefficient", "exact", "sampled_mean", "std_err", "setting", "setting_bases"],
+  ];
   for (const t of result.terms) {
     const g = typeof t.group === "number" ? result.groups[t.group] : undefined;
     rows.push([t.pauli, t.coefficient, t.exact, t.sampledMean, t.stdErr, t.group, g?.bases]);

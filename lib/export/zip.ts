@@ -19,8 +19,10 @@ const SAFE_NAME = /^(?!\/)(?!.*(?:^|\/)\.\.(?:\/|$))[^\\:*?"<>|\u0000-\u001f]+$/
 export function zipTextFiles(files: readonly TextFile[], mtime = new Date()): Uint8Array {
   const tree: Zippable = {};
   for (const f of files) {
-    if (!SAFE_NAME.test(f.name)) throw new ZipInputError(`unsafe file name in archive: ${JSON.stringify(f.name)}`);
-    if (Object.hasOwn(tree, f.name)) throw new ZipInputError(`duplicate file name in archive: ${f.name}`);
+    if (!SAFE_NAME.test(f.name))
+      throw new ZipInputError(`unsafe file name in archive: ${JSON.stringify(f.name)}`);
+    if (Object.hasOwn(tree, f.name))
+      throw new ZipInputError(`duplicate file name in archive: ${f.name}`);
     tree[f.name] = [strToU8(f.text), { level: 6, mtime }];
   }
   return zipSync(tree);

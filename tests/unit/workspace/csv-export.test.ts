@@ -13,7 +13,11 @@ function pythonReadCsv(text: string): string[][] {
   writeFileSync(file, text, "utf8");
   const out = execFileSync(
     "python3",
-    ["-c", "import csv,json,sys; print(json.dumps(list(csv.reader(open(sys.argv[1], newline='', encoding='utf-8')))))", file],
+    [
+      "-c",
+      "import csv,json,sys; print(json.dumps(list(csv.reader(open(sys.argv[1], newline='', encoding='utf-8')))))",
+      file,
+    ],
     { encoding: "utf8" },
   );
   return JSON.parse(out) as string[][];
@@ -37,11 +41,20 @@ describe("csvField — RFC 4180 §2 quoting rules", () => {
     expect(csvField(Number.POSITIVE_INFINITY)).toBe("");
   });
   it("ends every record with CRLF (§2 rule 1)", () => {
-    expect(toCsv([["a", 1], ["b", 2]])).toBe("a,1\r\nb,2\r\n");
+    expect(
+      toCsv([
+        ["a", 1],
+        ["b", 2],
+      ]),
+    ).toBe("a,1\r\nb,2\r\n");
     expect(toCsv([])).toBe("");
   });
   it("round-trips awkward text through Python's csv reader", () => {
-    const rows = [["name", "note"], ["Bell, ZZ", 'a "quoted" word'], ["multi\nline", "π/4 — ⟨ψ|A|ψ⟩"]];
+    const rows = [
+      ["name", "note"],
+      ["Bell, ZZ", 'a "quoted" word'],
+      ["multi\nline", "π/4 — ⟨ψ|A|ψ⟩"],
+    ];
     expect(pythonReadCsv(toCsv(rows))).toEqual(rows);
   });
 });
@@ -61,14 +74,28 @@ const result: ExportResult = {
 describe("run CSV exports", () => {
   it("writes one row per term with its setting's bases", () => {
     const rows = pythonReadCsv(termsCsv(result));
-    expect(rows[0]).toEqual(["pauli", "coefficient", "exact", "sampled_mean", "std_err", "setting", "setting_bases"]);
+    expect(rows[0]).toEqual([
+      "pauli",
+      "coefficient",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "setting",
+      "setting_bases",
+    ]);
     expect(rows[2]).toEqual(["XX", "0.5", "1", "0.98", "0.0063", "1", "XX"]);
     expect(rows[3]).toEqual(["II", "-0.25", "1", "", "", "", ""]);
     expect(rows).toHaveLength(4);
   });
   it("writes counts per setting, bitstrings in reading order, and the totals match the shots", () => {
     const rows = pythonReadCsv(countsCsv(result)).slice(1);
-    expect(rows.map((r) => `${r[1]}:${r[2]}`)).toEqual(["ZZ:00", "ZZ:11", "XX:00", "XX:01", "XX:11"]);
+    expect(rows.map((r) => `${r[1]}:${r[2]}`)).toEqual([
+      "ZZ:00",
+      "ZZ:11",
+      "XX:00",
+      "XX:01",
+      "XX:11",
+    ]);
     for (const [i, g] of result.groups.entries()) {
       const sum = rows.filter((r) => r[0] === String(i)).reduce((s, r) => s + Number(r[3]), 0);
       expect(sum).toBe(g.shots);

@@ -3,7 +3,12 @@ import { formatAngle } from "@/components/circuit-diagram/angle";
 import { gateRole } from "@/components/circuit-diagram/gate-roles";
 import { layoutCircuit, type DiagramOp } from "@/components/circuit-diagram/layout";
 
-const g = (name: string, qubits: number[], params: number[] = []): DiagramOp => ({ kind: "gate", name, qubits, params });
+const g = (name: string, qubits: number[], params: number[] = []): DiagramOp => ({
+  kind: "gate",
+  name,
+  qubits,
+  params,
+});
 
 describe("layoutCircuit — as-soon-as-possible columns (common practice)", () => {
   it("puts a Bell preparation in two columns", () => {
@@ -24,7 +29,15 @@ describe("layoutCircuit — as-soon-as-possible columns (common practice)", () =
     ]);
   });
   it("never lets two operations share a row in the same column", () => {
-    const ops: DiagramOp[] = [g("h", [0]), g("cx", [0, 3]), g("x", [1]), g("cz", [1, 2]), { kind: "barrier", qubits: [0, 1, 2, 3] }, g("h", [2]), { kind: "measure", qubit: 3 }];
+    const ops: DiagramOp[] = [
+      g("h", [0]),
+      g("cx", [0, 3]),
+      g("x", [1]),
+      g("cz", [1, 2]),
+      { kind: "barrier", qubits: [0, 1, 2, 3] },
+      g("h", [2]),
+      { kind: "measure", qubit: 3 },
+    ];
     const l = layoutCircuit(4, ops);
     const used = new Set<string>();
     for (const it of l.items) {
@@ -45,7 +58,11 @@ describe("layoutCircuit — as-soon-as-possible columns (common practice)", () =
     expect(l.width).toBeGreaterThan(l.columns[1].x + l.columns[1].width);
   });
   it("truncates beyond maxOps and reports how many were left out", () => {
-    const l = layoutCircuit(1, Array.from({ length: 10 }, () => g("x", [0])), { maxOps: 4 });
+    const l = layoutCircuit(
+      1,
+      Array.from({ length: 10 }, () => g("x", [0])),
+      { maxOps: 4 },
+    );
     expect(l.items).toHaveLength(4);
     expect(l.truncated).toBe(6);
   });

@@ -20,13 +20,22 @@ describe("zipTextFiles", () => {
     writeFileSync(file, zipTextFiles(files));
     const out = execFileSync(
       "python3",
-      ["-c", "import zipfile,json,sys; z=zipfile.ZipFile(sys.argv[1]); assert z.testzip() is None; print(json.dumps({n: z.read(n).decode('utf-8') for n in z.namelist()}))", file],
+      [
+        "-c",
+        "import zipfile,json,sys; z=zipfile.ZipFile(sys.argv[1]); assert z.testzip() is None; print(json.dumps({n: z.read(n).decode('utf-8') for n in z.namelist()}))",
+        file,
+      ],
       { encoding: "utf8" },
     );
     expect(JSON.parse(out)).toEqual(Object.fromEntries(files.map((f) => [f.name, f.text])));
   });
   it("rejects duplicate and unsafe names with a specific error", () => {
-    expect(() => zipTextFiles([{ name: "a", text: "" }, { name: "a", text: "" }])).toThrow(/duplicate file name/);
+    expect(() =>
+      zipTextFiles([
+        { name: "a", text: "" },
+        { name: "a", text: "" },
+      ]),
+    ).toThrow(/duplicate file name/);
     expect(() => zipTextFiles([{ name: "../evil", text: "" }])).toThrow(ZipInputError);
     expect(() => zipTextFiles([{ name: "/abs", text: "" }])).toThrow(/unsafe file name/);
   });
