@@ -43,7 +43,7 @@ const stored = {
 
 export const circuitSchema = z
   .object({ ...stored, format: circuitInputSchema.shape.format, source: z.string() })
-  .describe("A saved circuit");
+  .meta({ id: "Circuit", description: "A saved circuit" });
 export const circuitSummarySchema = z
   .object({ ...stored, format: circuitInputSchema.shape.format })
   .describe("A saved circuit without its source");
@@ -53,7 +53,7 @@ export const observableSchema = z
     z.object({ ...stored, ...pauliObservableSchema.shape }),
     z.object({ ...stored, ...matrixObservableSchema.shape }),
   ])
-  .describe("A saved observable");
+  .meta({ id: "Observable", description: "A saved observable" });
 export const observableSummarySchema = z
   .object({ ...stored, format: z.enum(["pauli", "matrix"]) })
   .describe("A saved observable without its terms or matrix");

@@ -19,7 +19,7 @@ export const problemSchema = z
     detail: z.string(),
     errors: z.array(problemFieldErrorSchema).optional(),
   })
-  .describe("RFC 9457 problem details");
+  .meta({ id: "Problem", description: "RFC 9457 problem details" });
 
 export type ProblemDocument = z.infer<typeof problemSchema>;
 

@@ -1,13 +1,10 @@
 /**
  * The OpenAPI 3.1 document of API v1, generated from the zod schemas by
- * @asteasolutions/zod-to-openapi (built once per process).
+ * @asteasolutions/zod-to-openapi (built once per process). Shared shapes are
+ * named components because their schemas carry a zod `.meta({ id })`
+ * (Problem, Run, RunSummary, QuotaVerdict, Circuit, Observable, UsageReport).
  */
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
-import { circuitSchema, observableSchema } from "@/lib/library/schemas";
-import { estimateRequestSchema, estimateResultSchema } from "@/lib/quantum/schemas";
-import { quotaVerdictSchema, runSchema, runSummarySchema } from "@/lib/runs/schemas";
-import { usageReportSchema } from "@/lib/usage/schemas";
-import { problemSchema } from "./common-schemas";
 import { registerPaths } from "./paths";
 
 type Document = ReturnType<OpenApiGeneratorV31["generateDocument"]>;
@@ -26,15 +23,6 @@ export function buildOpenApiDocument(serverUrl?: string): Document {
     name: "authjs.session-token",
     description: "The browser session of a signed-in member (the app's own pages use it).",
   });
-  registry.register("Problem", problemSchema);
-  registry.register("EstimateRequest", estimateRequestSchema);
-  registry.register("EstimateResult", estimateResultSchema);
-  registry.register("Run", runSchema);
-  registry.register("RunSummary", runSummarySchema);
-  registry.register("QuotaVerdict", quotaVerdictSchema);
-  registry.register("Circuit", circuitSchema);
-  registry.register("Observable", observableSchema);
-  registry.register("UsageReport", usageReportSchema);
   registerPaths(registry);
   return new OpenApiGeneratorV31(registry.definitions).generateDocument({
     openapi: "3.1.0",

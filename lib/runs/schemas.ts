@@ -77,7 +77,7 @@ export const runSummarySchema = z
       .nullable()
       .describe("Headline values of a succeeded run"),
   })
-  .describe("A run without its request and full result");
+  .meta({ id: "RunSummary", description: "A run without its request and full result" });
 
 export const runSchema = z
   .object({
@@ -85,7 +85,7 @@ export const runSchema = z
     request: estimateRequestSchema,
     result: estimateResultSchema.nullable().describe("The engine's result once succeeded"),
   })
-  .describe("A run with its request and, once succeeded, its result");
+  .meta({ id: "Run", description: "A run with its request and, once succeeded, its result" });
 
 export type RunView = z.infer<typeof runSchema>;
 export type RunSummaryView = z.infer<typeof runSummarySchema>;
@@ -113,7 +113,7 @@ export const quotaVerdictSchema = z
     shots: z.int().describe("Total shots the run would draw (all sweep points)"),
     refusals: z.array(quotaRefusalSchema),
   })
-  .describe("Whether the organisation's plan would accept this run now");
+  .meta({ id: "QuotaVerdict", description: "Whether the organisation's plan would accept this run now" });
 export type QuotaVerdict = z.infer<typeof quotaVerdictSchema>;
 
 export const runPreviewSchema = previewResultSchema

@@ -31,6 +31,6 @@ export const usageReportSchema = z
       maxRunSeconds: z.int(),
     }),
   })
-  .describe("This period's usage against the plan's quotas");
+  .meta({ id: "UsageReport", description: "This period's usage against the plan's quotas" });
 
 export type UsageReport = z.infer<typeof usageReportSchema>;

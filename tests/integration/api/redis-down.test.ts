@@ -1,0 +1,48 @@
+/**
+ * Redis unreachable (pointed at a closed port): a submission answers 503
+ * with nothing half-written (no run row is left behind), while reads keep
+ * working (rate limits fall back to per-process memory).
+ */
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { eq } from "drizzle-orm";
+import { closeDb, db } from "@/db";
+import { runs } from "@/db/schema";
+import { closeQueue } from "@/lib/queue/enqueue";
+import { closeRedis } from "@/lib/rate-limit/redis";
+import { createTestApiKey, createUserWithOrg } from "../../support/factories";
+import { api } from "../runs/support/api";
+import { bellRequest } from "../runs/support/requests";
+
+// Before anything reads the environment (lib/env reads it lazily, once per test file).
+process.env.REDIS_URL = "redis://127.0.0.1:1/1";
+
+let org: Awaited<ReturnType<typeof createUserWithOrg>>;
+let key: string;
+
+beforeAll(async () => {
+  org = await createUserWithOrg("redis-down");
+  key = (await createTestApiKey(org.orgId, "member", org.user.id)).key;
+});
+
+afterAll(async () => {
+  await closeQueue();
+  await closeRedis();
+  await closeDb();
+});
+
+describe("Redis down", () => {
+  it("answers 503 on submit and leaves no run behind", async () => {
+    const started = Date.now();
+    const res = await api("POST", "/api/v1/runs", { key, body: bellRequest(), headers: { "idempotency-key": "redis-down-1" } });
+    expect(res.status, JSON.stringify(res.body)).toBe(503);
+    expect(res.body.type).toBe("/problems/queue-unavailable");
+    expect(res.body.detail).toMatch(/Nothing was created/);
+    expect(Number(res.headers.get("retry-after"))).toBeGreaterThan(0);
+    expect(Date.now() - started).toBeLessThan(10_000);
+    expect(await db.select().from(runs).where(eq(runs.orgId, org.orgId))).toHaveLength(0);
+    // Reads still answer.
+    const list = await api("GET", "/api/v1/runs", { key });
+    expect(list.status).toBe(200);
+    expect(list.body.data).toEqual([]);
+  });
+});
