@@ -84,7 +84,7 @@ start_mariadb() {
     log "MariaDB started on 127.0.0.1:$MARIADB_PORT"
   fi
   local pw="${DB_PASSWORD//\'/\'\'}" sql=""
-  for db in "$DB_NAME" "${DB_NAME}_test"; do
+  for db in "$DB_NAME" "${DB_NAME}_test" "${DB_NAME}_bench"; do
     sql+="CREATE DATABASE IF NOT EXISTS \`$db\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;"
   done
   for host in 127.0.0.1 localhost; do
@@ -92,6 +92,7 @@ start_mariadb() {
     sql+="ALTER USER '$DB_USER'@'$host' IDENTIFIED BY '$pw';"
     sql+="GRANT ALL PRIVILEGES ON \`$DB_NAME\`.* TO '$DB_USER'@'$host';"
     sql+="GRANT ALL PRIVILEGES ON \`${DB_NAME}_test\`.* TO '$DB_USER'@'$host';"
+    sql+="GRANT ALL PRIVILEGES ON \`${DB_NAME}_bench\`.* TO '$DB_USER'@'$host';"
   done
   mariadb --defaults-file="$MY_CNF" -u root -e "$sql" || die "could not create the app user and databases"
 }
@@ -102,10 +103,10 @@ stop_mariadb() {
   fi
 }
 
-# Drops and recreates one of the app's databases (only <name> or <name>_test).
+# Drops and recreates one of the app's databases (only <name>, <name>_test or <name>_bench).
 reset_database() {
   local db="$1"
-  [[ $db == "$DB_NAME" || $db == "${DB_NAME}_test" ]] || die "refusing to reset unknown database $db"
+  [[ $db == "$DB_NAME" || $db == "${DB_NAME}_test" || $db == "${DB_NAME}_bench" ]] || die "refusing to reset unknown database $db"
   write_my_cnf
   maria_ping || die "MariaDB is not running (scripts/services.sh start)"
   mariadb --defaults-file="$MY_CNF" -u root -e \
