@@ -3,7 +3,15 @@
  * statevector (bits = qubits) and the density matrix (bits = qubits + n for rows,
  * qubits for columns of the vectorised ρ). Matrix convention as in types.ts.
  */
-import { applyGeneral1q, applyGeneral2q, applyGeneralK, applyReal1q, applyTwoBlock, localOffsets } from "./kernels-general";
+import {
+  applyGeneral1q,
+  applyGeneral2q,
+  applyGeneralK,
+  applyReal1q,
+  applyReal2q,
+  applyTwoBlock,
+  localOffsets,
+} from "./kernels-general";
 import {
   applyDiagonal1q,
   applyPermutationSubset,
@@ -97,6 +105,10 @@ export function applyWithShape(
     if (shape.blockOperand >= 0) {
       const [A, B] = twoBlocks(m, shape.blockOperand);
       applyTwoBlock(re, im, bits[shape.blockOperand], bits[1 - shape.blockOperand], A, B);
+      return;
+    }
+    if (k === 2 && shape.real) {
+      applyReal2q(re, im, bits[0], bits[1], m);
       return;
     }
     applyDense(re, im, bits, m);

@@ -11,6 +11,7 @@ export const COST = {
   real1q: 0.8,
   twoBlock: 1,
   dense2q: 1.7,
+  real2q: 1,
   /** per touched fraction */
   diagonal: 0.7,
   swap: 0.6,
@@ -28,7 +29,7 @@ export function gateCost(m: Float64Array, k: number): number {
   if (shape.permutation) return (s === 2 ? COST.swap : COST.permutation) * frac;
   if (s < d && s === 2) return COST.subset2x2 * frac;
   if (k === 1) return shape.real ? COST.real1q : COST.dense1q;
-  if (k === 2 && s === d) return shape.blockOperand >= 0 ? COST.twoBlock : COST.dense2q;
+  if (k === 2 && s === d) return shape.blockOperand >= 0 ? COST.twoBlock : shape.real ? COST.real2q : COST.dense2q;
   // dense s×s block on the touched fraction: s complex products per amplitude (a 1q pass does 2)
   return COST.dense2q * (s / 4) * frac;
 }

@@ -177,6 +177,38 @@ export function applyGeneral2q(
   }
 }
 
+/** 2-qubit kernel for a REAL 4×4 matrix (e.g. ry layers fused with cx/cz): half the products. */
+export function applyReal2q(
+  re: Float64Array,
+  im: Float64Array,
+  first: number,
+  second: number,
+  m: Float64Array,
+): void {
+  const o1 = 1 << second;
+  const o2 = 1 << first;
+  const o3 = o1 | o2;
+  const notMask = ~o3;
+  const count = re.length >>> 2;
+  const a0 = m[0], a1 = m[2], a2 = m[4], a3 = m[6];
+  const b0 = m[8], b1 = m[10], b2 = m[12], b3 = m[14];
+  const c0 = m[16], c1 = m[18], c2 = m[20], c3 = m[22];
+  const d0 = m[24], d1 = m[26], d2 = m[28], d3 = m[30];
+  for (let t = 0, b = 0; t < count; t++, b = ((b | o3) + 1) & notMask) {
+    const i1 = b | o1, i2 = b | o2, i3 = b | o3;
+    const x0 = re[b], y0 = im[b], x1 = re[i1], y1 = im[i1];
+    const x2 = re[i2], y2 = im[i2], x3 = re[i3], y3 = im[i3];
+    re[b] = a0 * x0 + a1 * x1 + a2 * x2 + a3 * x3;
+    im[b] = a0 * y0 + a1 * y1 + a2 * y2 + a3 * y3;
+    re[i1] = b0 * x0 + b1 * x1 + b2 * x2 + b3 * x3;
+    im[i1] = b0 * y0 + b1 * y1 + b2 * y2 + b3 * y3;
+    re[i2] = c0 * x0 + c1 * x1 + c2 * x2 + c3 * x3;
+    im[i2] = c0 * y0 + c1 * y1 + c2 * y2 + c3 * y3;
+    re[i3] = d0 * x0 + d1 * x1 + d2 * x2 + d3 * x3;
+    im[i3] = d0 * y0 + d1 * y1 + d2 * y2 + d3 * y3;
+  }
+}
+
 /** General k-qubit kernel (any k ≥ 1): gather 2^k amplitudes, multiply, scatter. */
 export function applyGeneralK(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
   const offsets = localOffsets(bits);
