@@ -10,8 +10,8 @@
  *   ρ_{b',b} = conj(ρ_{b,b'}) gives 2 Σ s_b Re ρ_{b,b'} (k even) or 2 Σ s_b Im ρ_{b,b'} (k odd).
  * - Diagonal terms (x = 0) come from the probabilities p_b: ⟨Z_z⟩ = Σ_b p_b (−1)^{|b&z|},
  *   all of them from one pass over p (few terms) or one Walsh–Hadamard transform (many).
- * Each off-diagonal term costs one pass over half the amplitudes (or half the
- * diagonal band of ρ). Results are per term, in the order of `sum.terms`.
+ * Each off-diagonal term costs one pass over the amplitudes (pairs visited once when
+ * possible) or over the band ρ_{b,b⊕x} of ρ. Results are per term, in the order of `sum.terms`.
  */
 import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { POPCOUNT16 } from "./bits";
@@ -21,9 +21,11 @@ import { walshHadamardInPlace } from "./walsh-hadamard";
 export function pauliExpectationsOnState(state: StateVector, sum: PauliSum): Float64Array {
   const out = new Float64Array(sum.terms.length);
   const diag: number[] = [];
+  const bits = Math.min(state.n, LOW_BITS);
+  const signs = new SignTables(bits);
   sum.terms.forEach((t, i) => {
     if (t.xMask === 0) diag.push(i);
-    else out[i] = offDiagonalOnState(state.re, state.im, t.xMask, t.zMask);
+    else out[i] = offDiagonalOnState(state.re, state.im, t.xMask, t.zMask, signs, bits);
   });
   if (diag.length > 0) {
     const p = new Float64Array(state.re.length);
@@ -82,31 +84,70 @@ export function fillDiagonal(p: Float64Array, sum: PauliSum, diag: number[], out
   diag.forEach((i, t) => (out[i] = acc[t]));
 }
 
-/** Visits the half of the indices with bit `h` clear: b = insert a 0 at bit h into i. */
-function offDiagonalOnState(re: Float64Array, im: Float64Array, x: number, z: number): number {
-  const k = (POPCOUNT16[(x & z) & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
-  const h = 31 - Math.clz32(x);
-  const low = (1 << h) - 1;
-  const half = re.length >>> 1;
-  let acc = 0;
-  if ((k & 1) === 0) {
-    for (let i = 0; i < half; i++) {
-      const b = ((i >>> h) << (h + 1)) | (i & low);
-      const c = b ^ x;
-      const v = re[c] * re[b] + im[c] * im[b];
-      const m = b & z;
-      acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -v : v;
+/** Low index bits handled through a ±1 sign table (2^LOW_BITS entries per z pattern). */
+const LOW_BITS = 10;
+
+/** Sign tables s[lo] = (−1)^{|lo & zl|}, cached per low z pattern for one call. */
+class SignTables {
+  private readonly cache = new Map<number, Float64Array>();
+  constructor(private readonly bits: number) {}
+  get(zl: number): Float64Array {
+    let t = this.cache.get(zl);
+    if (!t) {
+      t = new Float64Array(1 << this.bits);
+      for (let lo = 0; lo < t.length; lo++) {
+        const m = lo & zl;
+        t[lo] = (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -1 : 1;
+      }
+      this.cache.set(zl, t);
     }
-    return k === 0 ? 2 * acc : -2 * acc;
+    return t;
   }
-  for (let i = 0; i < half; i++) {
-    const b = ((i >>> h) << (h + 1)) | (i & low);
-    const c = b ^ x;
-    const v = re[c] * im[b] - im[c] * re[b];
-    const m = b & z;
-    acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -v : v;
+}
+
+/**
+ * Off-diagonal ⟨P⟩ on a statevector. Indices split as b = hi·2^L + lo (L = min(n, 10)):
+ * s_b = s_hi · s_lo with s_lo from a table, so the inner loop is branch-free and reads the
+ * amplitudes in runs. When x has a bit in the high part, only the hi with that bit clear are
+ * visited (each pair b, b ⊕ x once, doubled); otherwise the full sum Σ_b is taken.
+ * Re S and Im S with S = Σ_b s_b conj(ψ_{b⊕x}) ψ_b give ⟨P⟩ = Re(i^k S).
+ */
+function offDiagonalOnState(re: Float64Array, im: Float64Array, x: number, z: number, signs: SignTables, bits: number): number {
+  const k = (POPCOUNT16[(x & z) & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
+  const lowSize = 1 << bits;
+  const lowMask = lowSize - 1;
+  const xl = x & lowMask;
+  const xh = x >>> bits;
+  const zh = z >>> bits;
+  const sl = signs.get(z & lowMask);
+  const hiCount = re.length >>> bits;
+  const wantRe = (k & 1) === 0;
+  const hb = xh === 0 ? -1 : 31 - Math.clz32(xh);
+  let acc = 0;
+  for (let hi = 0; hi < hiCount; hi++) {
+    if (hb >= 0 && (hi >>> hb) & 1) continue;
+    const bOff = hi << bits;
+    const cOff = (hi ^ xh) << bits;
+    let part = 0;
+    if (wantRe) {
+      for (let lo = 0; lo < lowSize; lo++) {
+        const c = cOff + (lo ^ xl);
+        const b = bOff + lo;
+        part += sl[lo] * (re[c] * re[b] + im[c] * im[b]);
+      }
+    } else {
+      for (let lo = 0; lo < lowSize; lo++) {
+        const c = cOff + (lo ^ xl);
+        const b = bOff + lo;
+        part += sl[lo] * (re[c] * im[b] - im[c] * re[b]);
+      }
+    }
+    const m = hi & zh;
+    acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -part : part;
   }
-  return k === 1 ? -2 * acc : 2 * acc;
+  if (hb >= 0) acc *= 2; // pairs visited once
+  // ⟨P⟩ = Re(i^k S): k=0 → Re S, 1 → −Im S, 2 → −Re S, 3 → Im S
+  return k === 0 || k === 3 ? acc : -acc;
 }
 
 function offDiagonalOnDensity(rho: DensityMatrix, d: number, x: number, z: number): number {

@@ -2,13 +2,15 @@
  * Draws the shots of one measurement setting and accumulates what the statistics need.
  *
  * The outcome law is the setting's distribution (rotated state, readout included —
- * readout.ts); shots are drawn with an alias table in O(2^n + shots). Per shot the
- * setting value O(b) (and its mitigated value) is added to running sums; at the
- * prefix sizes in `checkpoints` the sums are recorded for the convergence chart.
- * Values are memoised per outcome (a dense table when 2^n is small next to the shot
- * count, else a Map), so a setting costs O(shots + distinct outcomes · terms).
+ * readout.ts). Shots are drawn in chunks of ≤ 2^20 with multinomial.ts: sorted outcomes
+ * (histogram and per-outcome values computed run by run, sequentially), then the per-shot
+ * values are shuffled into a random order and summed; at the prefix sizes in
+ * `checkpoints` the running sums are recorded for the convergence chart. Chunks are
+ * independent, so the whole sequence is i.i.d. Values are memoised per outcome (a dense
+ * table when 2^n is small next to the shot count, else a Map). Cost O(2^n + shots +
+ * distinct outcomes · terms), memory O(2^n + chunk).
  */
-import { AliasTable } from "./alias-table";
+import { cumulative, drawSortedOutcomes, shuffleTogether } from "./multinomial";
 import type { Rng } from "./rng";
 import type { SettingModel } from "./setting-model";
 
@@ -29,7 +31,7 @@ export interface SettingSample {
   termMitSumSq: Float64Array | null;
 }
 
-const CHUNK = 1 << 15;
+const CHUNK = 1 << 20;
 
 type Lookup = (b: number) => number;
 
@@ -64,13 +66,18 @@ export interface DrawSettingInput {
 export async function drawSetting(input: DrawSettingInput): Promise<SettingSample> {
   const { distribution, shots, rng, model, checkpoints } = input;
   const dim = distribution.length;
-  const alias = new AliasTable(distribution);
+  const cdf = cumulative(distribution);
   const value = memoise((b) => model.value(b), dim, shots);
   const mitFn = model.mitigated;
   const mitigated = mitFn ? memoise(mitFn, dim, shots) : null;
   const dense = dim <= 1 << 24 && dim <= 4 * shots;
   const hist = dense ? new Float64Array(dim) : null;
   const map = dense ? null : new Map<number, number>();
+  const size = Math.min(CHUNK, shots);
+  const outcomes = new Int32Array(size);
+  const scratch = new Float64Array(size);
+  const vals = new Float64Array(size);
+  const mitVals = mitigated ? new Float64Array(size) : null;
   let sum = 0;
   let sumSq = 0;
   let mitSum = 0;
@@ -78,47 +85,56 @@ export async function drawSetting(input: DrawSettingInput): Promise<SettingSampl
   const recorded: SettingSample["checkpoints"] = [];
   let next = 0;
   for (let start = 0; start < shots; start += CHUNK) {
-    const end = Math.min(shots, start + CHUNK);
-    for (let s = start; s < end; s++) {
-      const b = alias.draw(rng);
-      if (hist) hist[b]++;
-      else map!.set(b, (map!.get(b) ?? 0) + 1);
-      const v = value(b);
+    const m = Math.min(CHUNK, shots - start);
+    drawSortedOutcomes(cdf, m, rng, outcomes, scratch);
+    for (let i = 0; i < m; ) {
+      const b = outcomes[i];
+      let j = i + 1;
+      while (j < m && outcomes[j] === b) j++;
+      if (hist) hist[b] += j - i;
+      else map!.set(b, (map!.get(b) ?? 0) + (j - i));
+      vals.fill(value(b), i, j);
+      if (mitVals) mitVals.fill(mitigated!(b), i, j);
+      i = j;
+    }
+    shuffleTogether(mitVals ? [vals, mitVals] : [vals], m, rng);
+    for (let i = 0; i < m; i++) {
+      const v = vals[i];
       sum += v;
       sumSq += v * v;
-      if (mitigated) {
-        const m = mitigated(b);
-        mitSum += m;
-        mitSumSq += m * m;
+      if (mitVals) {
+        const w = mitVals[i];
+        mitSum += w;
+        mitSumSq += w * w;
       }
-      while (next < checkpoints.length && checkpoints[next] === s + 1) {
-        recorded.push({ shots: s + 1, sum, sumSq, mitSum, mitSumSq });
+      while (next < checkpoints.length && checkpoints[next] === start + i + 1) {
+        recorded.push({ shots: start + i + 1, sum, sumSq, mitSum, mitSumSq });
         next++;
       }
     }
-    if (input.tick) await input.tick(end / shots);
+    if (input.tick) await input.tick((start + m) / shots);
   }
-  let outcomes: Int32Array;
+  let distinctOutcomes: Int32Array;
   let counts: Float64Array;
   if (hist) {
     let distinct = 0;
     for (let b = 0; b < dim; b++) if (hist[b] > 0) distinct++;
-    outcomes = new Int32Array(distinct);
+    distinctOutcomes = new Int32Array(distinct);
     counts = new Float64Array(distinct);
     for (let b = 0, j = 0; b < dim; b++) {
       if (hist[b] > 0) {
-        outcomes[j] = b;
+        distinctOutcomes[j] = b;
         counts[j++] = hist[b];
       }
     }
   } else {
     const keys = [...map!.keys()].sort((a, b) => a - b);
-    outcomes = Int32Array.from(keys);
+    distinctOutcomes = Int32Array.from(keys);
     counts = Float64Array.from(keys, (k) => map!.get(k)!);
   }
   const termSums = new Float64Array(model.termCount);
   const termMitSums = mitFn ? new Float64Array(model.termCount) : null;
   const termMitSumSq = mitFn ? new Float64Array(model.termCount) : null;
-  for (let j = 0; j < outcomes.length; j++) model.accumulateTerms(outcomes[j], counts[j], termSums, termMitSums, termMitSumSq);
-  return { shots, sum, sumSq, mitSum, mitSumSq, checkpoints: recorded, outcomes, counts, termSums, termMitSums, termMitSumSq };
+  for (let j = 0; j < distinctOutcomes.length; j++) model.accumulateTerms(distinctOutcomes[j], counts[j], termSums, termMitSums, termMitSumSq);
+  return { shots, sum, sumSq, mitSum, mitSumSq, checkpoints: recorded, outcomes: distinctOutcomes, counts, termSums, termMitSums, termMitSumSq };
 }

@@ -9,7 +9,7 @@
 import * as math from "mathjs";
 import { describe, expect, it } from "vitest";
 import { bitstringToIndex } from "@/lib/quantum/observable/bits";
-import { AliasTable } from "@/lib/quantum/sampling/alias-table";
+import { cumulative, drawSortedOutcomes, shuffleTogether } from "@/lib/quantum/sampling/multinomial";
 import { createRng } from "@/lib/quantum/sampling/rng";
 import { sampleObservable } from "@/lib/quantum/sampling/sample-observable";
 import { mulberry32, randomState } from "../observable/random-states";
@@ -30,7 +30,7 @@ describe("chi-square critical values (NIST table vs jstat)", () => {
   });
 });
 
-describe("goodness of fit of sampled histograms", () => {
+describe("goodness of fit of sampled histograms (critical values above)", () => {
   const cases: [string, number][] = [
     ["Y", 101],
     ["XY", 202],
@@ -56,22 +56,54 @@ describe("goodness of fit of sampled histograms", () => {
     expect(chiSquare(counts, probs, shots)).toBeLessThan(NIST_CRITICAL[df]);
   });
 
-  it("alias table draws a skewed 16-outcome law (df 15)", () => {
+  it("sorted multinomial draws fit a skewed 16-outcome law (df 15) and come out ascending", () => {
     const w = Float64Array.from({ length: 16 }, (_, i) => 1 + i * i);
     const tot = w.reduce((a, b) => a + b, 0);
     const rng = createRng(12345);
-    const table = new AliasTable(w);
-    const counts = new Array<number>(16).fill(0);
     const shots = 50_000;
-    for (let s = 0; s < shots; s++) counts[table.draw(rng)]++;
+    const out = new Int32Array(shots);
+    drawSortedOutcomes(cumulative(w), shots, rng, out, new Float64Array(shots));
+    const counts = new Array<number>(16).fill(0);
+    for (let s = 0; s < shots; s++) {
+      counts[out[s]]++;
+      if (s > 0) expect(out[s]).toBeGreaterThanOrEqual(out[s - 1]);
+    }
     expect(chiSquare(counts, Array.from(w, (x) => x / tot), shots)).toBeLessThan(NIST_CRITICAL[15]);
   });
 
+  it("a law over 2^18 outcomes with few shots (galloping search) fits too (df 15 on 16 bins)", () => {
+    const k = 1 << 18;
+    const w = Float64Array.from({ length: k }, (_, i) => (i % 7) + (i >> 14));
+    const bins = new Array<number>(16).fill(0);
+    w.forEach((x, i) => (bins[i >> 14] += x));
+    const tot = bins.reduce((a, b) => a + b, 0);
+    const shots = 3_000;
+    const out = new Int32Array(shots);
+    drawSortedOutcomes(cumulative(w), shots, createRng(99), out, new Float64Array(shots));
+    const counts = new Array<number>(16).fill(0);
+    out.forEach((b) => counts[b >> 14]++);
+    expect(chiSquare(counts, bins.map((x) => x / tot), shots)).toBeLessThan(NIST_CRITICAL[15]);
+  });
+
   it("zero-probability outcomes are never drawn", () => {
-    const table = new AliasTable(new Float64Array([0, 0.5, 0, 0.5]));
-    const rng = createRng(3);
-    const seen = new Set<number>();
-    for (let s = 0; s < 10_000; s++) seen.add(table.draw(rng));
-    expect([...seen].sort()).toEqual([1, 3]);
+    const out = new Int32Array(10_000);
+    drawSortedOutcomes(cumulative(new Float64Array([0, 0.5, 0, 0.5, 0])), 10_000, createRng(3), out, new Float64Array(10_000));
+    expect([...new Set(out)].sort()).toEqual([1, 3]);
+  });
+
+  it("the shuffle is a uniform permutation: each of the 6 orders of 3 items ≈ 1/6 (df 5 < 20.515, NIST α = 0.001)", () => {
+    const rng = createRng(8);
+    const tally = new Map<string, number>();
+    const trials = 30_000;
+    for (let t = 0; t < trials; t++) {
+      const a = Float64Array.of(0, 1, 2);
+      shuffleTogether([a], 3, rng);
+      const key = a.join("");
+      tally.set(key, (tally.get(key) ?? 0) + 1);
+    }
+    expect(tally.size).toBe(6);
+    // 20.515 typed from memory, checked against jstat
+    expect(chiSquareInv(0.999, 5)).toBeCloseTo(20.515, 2);
+    expect(chiSquare([...tally.values()], new Array(6).fill(1 / 6), trials)).toBeLessThan(20.515);
   });
 });
