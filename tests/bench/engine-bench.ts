@@ -9,8 +9,9 @@ import { densityRow } from "./rows/density";
 import { kernelRows } from "./rows/kernels";
 import { memoryRow } from "./rows/memory";
 import { numpyRow } from "./rows/numpy";
+import { observableRows } from "./rows/observables";
 
-const ROWS: BenchRow[] = [kernelRows, ansatzRow, densityRow, memoryRow, numpyRow];
+const ROWS: BenchRow[] = [kernelRows, ansatzRow, densityRow, memoryRow, numpyRow, observableRows];
 
 async function main(): Promise<void> {
   const ctx = createContext();
