@@ -9,6 +9,7 @@ import { JOB_SCHEMAS, type JobName, type JobPayload } from "@/lib/queue/jobs";
 import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
 import { sendRunFinishedMail } from "@/lib/runs/notify";
+import { reportOverageJob } from "./jobs/billing-overage";
 import { log } from "./log";
 
 /** How long a run waits before trying again for one of its organisation's run slots. */
@@ -37,6 +38,10 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
     "run.finished-mail": {
       schema: JOB_SCHEMAS["run.finished-mail"],
       handler: async (payload) => sendRunFinishedMail(payload),
+    },
+    "billing.report-overage": {
+      schema: JOB_SCHEMAS["billing.report-overage"],
+      handler: async (payload) => reportOverageJob(payload),
     },
   };
 }

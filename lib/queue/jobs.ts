@@ -20,9 +20,17 @@ export const runFinishedMailSchema = z.strictObject({
 });
 export type RunFinishedMailJob = z.infer<typeof runFinishedMailSchema>;
 
+/** Report one finished period's overage of one organisation (lib/billing/overage.ts). */
+export const overageJobSchema = z.strictObject({
+  orgId: z.uuid(),
+  period: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/),
+});
+export type OverageJob = z.infer<typeof overageJobSchema>;
+
 export const JOB_SCHEMAS = {
   "run.execute": runJobSchema,
   "run.finished-mail": runFinishedMailSchema,
+  "billing.report-overage": overageJobSchema,
 } as const;
 
 export type JobName = keyof typeof JOB_SCHEMAS;
