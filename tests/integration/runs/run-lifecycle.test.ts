@@ -3,7 +3,8 @@
  * process (2 engine threads): submit → 202 + Location → poll → succeeded with
  * the result `estimate()` gives; Idempotency-Key; the plan's concurrent-run
  * slots; cancel (queued and running, stopping within a second); a malformed
- * row and an engine error found only in the worker; the plan's time limit.
+ * row and an engine error found only in the worker; the plan's time limit;
+ * the e-mail to the submitter after a run longer than a minute.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
@@ -11,6 +12,9 @@ import { estimate } from "@/lib/quantum";
 import { closeQueue, enqueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { executeRun } from "@/lib/runs/execute-run";
+import { NOTIFY_AFTER_MS, notifyIfLong } from "@/lib/runs/notify";
+import { getRunsQueue } from "@/lib/queue/enqueue";
+import { waitForMail } from "../../support/maildev";
 import { createTestApiKey, createUserWithOrg } from "../../support/factories";
 import { api, pollRun } from "./support/api";
 import { insertRawRun, runRow, usageOf } from "./support/db-helpers";
@@ -162,5 +166,21 @@ describe("faults found only in the worker", () => {
     expect(row.error?.type).toBe("/problems/run-time-limit");
     expect(row.error?.detail).toMatch(/Sandbox/);
     expect(Object.keys(metrics(await usageOf(owner.orgId, runId)))).toEqual(["simulation_seconds"]);
+  });
+});
+
+describe("finished-run e-mail", () => {
+  it("mails the submitter (the key's creator) about a run that took over a minute, and only then", async () => {
+    const res = await api("POST", "/api/v1/runs", { key, body: { name: "long study", ...bellRequest() } });
+    const run = await pollRun(key, res.body.id);
+    expect(run.status).toBe("succeeded");
+    await notifyIfLong(owner.orgId, run.id, NOTIFY_AFTER_MS - 1, () => {});
+    expect(await getRunsQueue().getJob(`mail-${run.id}`)).toBeUndefined();
+    const since = new Date(Date.now() - 1000);
+    await notifyIfLong(owner.orgId, run.id, NOTIFY_AFTER_MS + 1, () => {});
+    const mail = await waitForMail(owner.user.email, since);
+    expect(mail.subject).toBe('Run "long study" finished');
+    expect(mail.text).toContain(`/app/runs/${run.id}`);
+    expect(mail.text).toContain("2.8284271"); // exact value 2√2, printed to 8 significant digits
   });
 });
