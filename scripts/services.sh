@@ -136,7 +136,9 @@ start_node_service() {
   shift 2
   if http_ok "$url"; then log "$name already running"; return; fi
   mkdir -p "$RUN_DIR"
-  (cd "$ROOT" && setsid nohup "$@" >"$RUN_DIR/$name.log" 2>&1 & echo $! >"$RUN_DIR/$name.pid")
+  # The process records its own pid after setsid (which may fork), so stop can kill its group.
+  (cd "$ROOT" && setsid nohup bash -c 'echo $$ >"$0"; exec "$@"' "$RUN_DIR/$name.pid" "$@" \
+    >"$RUN_DIR/$name.log" 2>&1 &)
   wait_for 30 "$name" http_ok "$url" || die "$name did not start; see $RUN_DIR/$name.log"
   log "$name started ($url)"
 }
@@ -148,6 +150,9 @@ stop_node_service() {
   pid="$(cat "$pidfile")"
   if kill -0 "$pid" 2>/dev/null; then
     kill -- "-$pid" 2>/dev/null || kill "$pid" 2>/dev/null || true
+    local deadline=$((SECONDS + 10))
+    while kill -0 "$pid" 2>/dev/null && ((SECONDS < deadline)); do sleep 0.1; done
+    kill -0 "$pid" 2>/dev/null && kill -9 -- "-$pid" 2>/dev/null
     log "$1 stopped"
   fi
   rm -f "$pidfile"

@@ -19,17 +19,30 @@ pids=()
 stop_all() {
   trap - INT TERM EXIT
   for pid in "${pids[@]}"; do kill -- "-$pid" 2>/dev/null || kill "$pid" 2>/dev/null || true; done
-  wait 2>/dev/null || true
+  local deadline=$((SECONDS + 15))
+  for pid in "${pids[@]}"; do
+    while kill -0 "$pid" 2>/dev/null && ((SECONDS < deadline)); do sleep 0.2; done
+  done
   log "app stopped (services still running; stop them with: bash scripts/services.sh stop)"
 }
 trap stop_all INT TERM EXIT
 
-setsid npx next start -H 127.0.0.1 -p "$PORT" &
-pids+=($!)
-if [[ -f worker/index.ts ]]; then
-  setsid "${TSX[@]}" worker/index.ts &
-  pids+=($!)
-fi
+# Each child runs in its own process group (setsid) and reports its own pid
+# (setsid may fork), so stopping a group takes the child's children too.
+spawn() {
+  local pidfile
+  pidfile="$(mktemp)"
+  setsid bash -c 'echo $$ >"$0"; exec "$@"' "$pidfile" "$@" &
+  wait_for 10 "$1" test -s "$pidfile" || die "could not start $*"
+  pids+=("$(cat "$pidfile")")
+  rm -f "$pidfile"
+}
+spawn node_modules/.bin/next start -H 127.0.0.1 -p "$PORT"
+if [[ -f worker/index.ts ]]; then spawn "${TSX[@]}" worker/index.ts; fi
 wait_for 60 app http_ok "http://127.0.0.1:$PORT/sign-in" || die "the app did not answer on port $PORT"
 log "ready in $((SECONDS - started)) s → $AUTH_URL   (mail inbox: http://localhost:$MAIL_WEB_PORT; Ctrl-C to stop)"
-wait -n "${pids[@]}"
+# Run until one of them exits (or Ctrl-C); the EXIT trap stops the other.
+while true; do
+  for pid in "${pids[@]}"; do kill -0 "$pid" 2>/dev/null || { warn "process $pid exited"; exit 1; }; done
+  sleep 1
+done
