@@ -43,7 +43,7 @@ export function checkQubitLimit(n: number, method: NormalisedRequest["method"]):
 
 export async function estimate(request: unknown, options: EstimateOptions = {}): Promise<EstimateResult> {
   const root = Progress.root(options.onProgress, options.signal);
-  root.span(0, 0.02, "parse").report(0);
+  root.span(0, 0.02, "parse").report(0, true);
   const t0 = performance.now();
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
@@ -69,7 +69,7 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   const t1 = performance.now();
   const spectrum = await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum"));
   const spectrumMs = performance.now() - t1;
-  root.span(0, 1, "done").report(1);
+  root.span(0, 1, "done").report(1, true);
   return assemble(req, obs, n, seed, grid, results, spectrum, {
     parseMs,
     simulateMs: results.reduce((a, r) => a + r.simulateMs, 0),

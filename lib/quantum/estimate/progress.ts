@@ -46,9 +46,13 @@ export class Progress {
     if (this.shared.signal?.aborted) throw new EngineError("canceled", "the run was canceled");
   }
 
-  /** Reports now (phase changes), without yielding. */
-  report(f: number): void {
+  /**
+   * Reports, without yielding: always when `force` (start and end of the run), otherwise
+   * at most every 100 ms — a 10,000-point sweep must not flood the callback.
+   */
+  report(f: number, force = false): void {
     this.throwIfCanceled();
+    if (!force && performance.now() - this.shared.lastReport < REPORT_MS) return;
     const g = Math.max(this.shared.lastFraction, this.global(f));
     this.shared.lastFraction = g;
     this.shared.lastReport = performance.now();
@@ -58,7 +62,7 @@ export class Progress {
   async tick(f: number): Promise<void> {
     this.throwIfCanceled();
     const now = performance.now();
-    if (now - this.shared.lastReport >= REPORT_MS) this.report(f);
+    this.report(f);
     if (now - this.shared.lastYield >= YIELD_MS) {
       await new Promise<void>((resolve) => setTimeout(resolve, 0));
       this.shared.lastYield = performance.now();
@@ -68,9 +72,7 @@ export class Progress {
 
   /** Adapter for the simulators' synchronous onProgress(fraction, phase). */
   syncReporter(): ProgressFn {
-    return (f) => {
-      if (performance.now() - this.shared.lastReport >= REPORT_MS) this.report(f);
-    };
+    return (f) => this.report(f);
   }
 
   get signal(): AbortSignal | undefined {
