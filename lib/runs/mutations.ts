@@ -7,7 +7,6 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { runs, type NewRun, type Run } from "@/db/schema";
-import { findRun } from "./queries";
 
 /** MariaDB's duplicate-key error (ER_DUP_ENTRY). */
 export function isDuplicateKey(error: unknown): boolean {
@@ -17,15 +16,37 @@ export function isDuplicateKey(error: unknown): boolean {
   return false;
 }
 
-/** Inserts a queued run; null when another run already holds the idempotency key. */
-export async function insertRun(orgId: string, values: Omit<NewRun, "orgId">): Promise<Run | null> {
+type RunInsert = Omit<NewRun, "orgId" | "id" | "status" | "queuedAt"> & { id: string };
+
+/** Inserts a queued run and returns it; null when another run already holds the idempotency key. */
+export async function insertRun(orgId: string, values: RunInsert): Promise<Run | null> {
+  const row: Run = {
+    createdByUserId: null,
+    createdByApiKeyId: null,
+    shots: 0,
+    idempotencyKey: null,
+    ...values,
+    orgId,
+    status: "queued",
+    progress: 0,
+    phase: null,
+    error: null,
+    result: null,
+    attempts: 0,
+    queuedAt: new Date(),
+    startedAt: null,
+    finishedAt: null,
+    parseMs: null,
+    simulateMs: null,
+    sampleMs: null,
+  };
   try {
-    await db.insert(runs).values({ ...values, orgId });
+    await db.insert(runs).values(row);
   } catch (error) {
     if (values.idempotencyKey && isDuplicateKey(error)) return null;
     throw error;
   }
-  return findRun(orgId, values.id!);
+  return row;
 }
 
 /** Removes a run that never reached the queue (its row must not linger as a queued orphan). */
