@@ -33,8 +33,9 @@ export async function failRunAfterRetries(job: Job, error: Error): Promise<void>
   const problem = infrastructureProblem(job.attemptsMade, describeFault(error));
   for (let attempt = 0; attempt < 8; attempt++) {
     try {
-      await failUnfinishedRun(payload.data.orgId, payload.data.runId, problem);
-      log(`run ${payload.data.runId}: failed after ${job.attemptsMade} attempts (${problem.detail})`);
+      if (await failUnfinishedRun(payload.data.orgId, payload.data.runId, problem)) {
+        log(`run ${payload.data.runId}: failed — ${problem.detail}`);
+      }
       return;
     } catch (writeError) {
       log(`could not mark run ${payload.data.runId} failed yet; retrying`, writeError);

@@ -58,6 +58,6 @@ export function infrastructureProblem(attempts: number, cause: string): StoredPr
     type: "/problems/run-infrastructure",
     title: "Run could not be completed",
     status: 503,
-    detail: `The run failed ${attempts} times for reasons on our side (${cause}). It used no quota; submit it again.`,
+    detail: `The run could not be completed after ${attempts} attempt${attempts === 1 ? "" : "s"}, for a reason on our side (${cause}). It used no quota; submit it again.`,
   };
 }
