@@ -41,6 +41,7 @@ include "qelib1.inc";
 qreg q[2];
 h q[0];
 cx q[0], q[1];
+ry(0.6) q[1];
 `;
 
 export const DEFAULT_VALUES: ComposerValues = {

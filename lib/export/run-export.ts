@@ -68,3 +68,31 @@ export function fileStem(name: string | null | undefined, id: string): string {
   const shortId = id.replace(/[^A-Za-z0-9]/g, "").slice(0, 8);
   return slug ? `${slug}-${shortId}` : `run-${shortId}`;
 }
+
+export type ExportSweep = {
+  parameters: readonly string[];
+  points: readonly {
+    params: Record<string, number>;
+    ideal: number;
+    exact: number;
+    sampled: { mean: number; stdErr: number; shots: number } | null;
+  }[];
+};
+
+/** One row per sweep point: the swept parameters, then ideal, exact, sampled mean, std. error, shots. */
+export function sweepCsv(sweep: ExportSweep): string {
+  const rows: CsvCell[][] = [
+    [...sweep.parameters, "ideal", "exact", "sampled_mean", "std_err", "shots"],
+  ];
+  for (const p of sweep.points) {
+    rows.push([
+      ...sweep.parameters.map((n) => p.params[n]),
+      p.ideal,
+      p.exact,
+      p.sampled?.mean,
+      p.sampled?.stdErr,
+      p.sampled?.shots,
+    ]);
+  }
+  return toCsv(rows);
+}

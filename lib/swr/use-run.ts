@@ -8,7 +8,7 @@ import { isTerminal, type Run } from "./types";
 export const RUN_POLL_MS = 800;
 
 /** One run, polled every 0.8 s until it is terminal (then no more requests). */
-export function useRun(id: string | null) {
+export function useRun(id: string | null, fallbackData?: Run) {
   const { orgId } = useWorkspaceOrg();
   return useSWR<Run>(
     id ? ([orgId, `/api/v1/runs/${encodeURIComponent(id)}`] as const) : null,
@@ -16,6 +16,7 @@ export function useRun(id: string | null) {
     {
       refreshInterval: (run) => (run && isTerminal(run.status) ? 0 : RUN_POLL_MS),
       revalidateOnFocus: false,
+      fallbackData,
     },
   );
 }

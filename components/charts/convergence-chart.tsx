@@ -1,0 +1,122 @@
+"use client";
+/**
+ * The running estimate against shots (log axis): the mean at each checkpoint, its 95 %
+ * band (mean ± 1.96·stdErr), and the exact value as a reference line. A correct sampler's
+ * band narrows as 1/√N around the exact value (or around the readout-biased value when
+ * the noise model has readout error).
+ */
+import {
+  Area,
+  CartesianGrid,
+  ComposedChart,
+  Line,
+  ReferenceLine,
+  ResponsiveContainer,
+  Tooltip,
+  XAxis,
+  YAxis,
+} from "recharts";
+import { Z95 } from "@/components/runs/verdict";
+import { ChartFigure, LegendKey, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
+import { logTicks, niceTicks, paddedDomain, tickLabel } from "./scale";
+
+export type ConvergencePoint = { shots: number; mean: number; stdErr: number };
+
+const compact = new Intl.NumberFormat("en-US", { notation: "compact", maximumFractionDigits: 1 });
+
+export function ConvergenceChart({
+  points,
+  exact,
+  height = 260,
+}: {
+  points: readonly ConvergencePoint[];
+  exact: number;
+  height?: number;
+}) {
+  const data = points.map((p) => ({
+    shots: p.shots,
+    mean: p.mean,
+    band: [p.mean - Z95 * p.stdErr, p.mean + Z95 * p.stdErr] as [number, number],
+  }));
+  const last = points[points.length - 1];
+  const yDomain = paddedDomain([exact, ...data.flatMap((d) => d.band)], 0.06);
+  const summary = last
+    ? `Running estimate over ${points.length} checkpoints up to ${last.shots} shots, ending at ${last.mean.toFixed(5)} ± ${last.stdErr.toPrecision(2)}; exact value ${exact}.`
+    : "No checkpoints.";
+  return (
+    <ChartFigure
+      summary={summary}
+      height={height}
+      legend={
+        <>
+          <LegendKey color={colors.sampled} label="running mean" />
+          <LegendKey color={colors.sampled} kind="band" label="95 % band" />
+          <LegendKey color={colors.exact} kind="dash" label="exact" />
+        </>
+      }
+    >
+      <ResponsiveContainer width="100%" height="100%">
+        <ComposedChart data={data} margin={{ top: 8, right: 12, bottom: 4, left: 4 }}>
+          <CartesianGrid stroke={gridStroke} strokeDasharray="2 4" />
+          <XAxis
+            dataKey="shots"
+            type="number"
+            scale="log"
+            domain={["dataMin", "dataMax"]}
+            ticks={logTicks(points[0]?.shots ?? 1, last?.shots ?? 1)}
+            tick={axisTick}
+            tickFormatter={(v: number) => compact.format(v)}
+            stroke="var(--color-line-strong)"
+            label={{
+              value: "shots",
+              position: "insideBottomRight",
+              offset: -2,
+              fontSize: 11,
+              fill: "var(--color-ink-3)",
+            }}
+            allowDataOverflow
+          />
+          <YAxis
+            tick={axisTick}
+            tickFormatter={tickLabel}
+            width={64}
+            domain={yDomain}
+            ticks={niceTicks(yDomain[0], yDomain[1], 5)}
+            allowDataOverflow
+            stroke="var(--color-line-strong)"
+          />
+          <Tooltip
+            {...tooltipStyle}
+            labelFormatter={(v) => `${Number(v).toLocaleString("en-US")} shots`}
+            formatter={(value, name) =>
+              Array.isArray(value)
+                ? [`${Number(value[0]).toFixed(5)} … ${Number(value[1]).toFixed(5)}`, "95 % band"]
+                : [Number(value).toFixed(6), name === "mean" ? "mean" : String(name)]
+            }
+          />
+          <Area
+            dataKey="band"
+            stroke="none"
+            fill={colors.sampled}
+            fillOpacity={0.18}
+            isAnimationActive={false}
+          />
+          <ReferenceLine
+            y={exact}
+            stroke={colors.exact}
+            strokeDasharray="5 3"
+            strokeWidth={1.5}
+            ifOverflow="extendDomain"
+          />
+          <Line
+            dataKey="mean"
+            stroke={colors.sampled}
+            strokeWidth={2}
+            dot={{ r: 2.5, fill: colors.sampled, strokeWidth: 0 }}
+            isAnimationActive={false}
+          />
+        </ComposedChart>
+      </ResponsiveContainer>
+    </ChartFigure>
+  );
+}

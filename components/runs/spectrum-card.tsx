@@ -1,0 +1,141 @@
+/**
+ * The observable's exact extreme eigenvalues (when the engine computed them) and where
+ * the run's values sit between them: every expectation value lies in [λmin, λmax]
+ * (Rayleigh quotient bound, textbook fact), so ⟨A⟩ − λmin ≥ 0 is the gap to the ground
+ * state — zero only when the state is a ground state.
+ */
+import { Card, CardBody, CardHeader } from "@/components/ui/card";
+import { Value } from "@/components/ui/value";
+import { linear } from "@/components/charts/scale";
+import type { EstimateResult } from "@/lib/swr/types";
+
+function Marker({
+  x,
+  label,
+  className,
+  row,
+}: {
+  x: number;
+  label: string;
+  className: string;
+  row: number;
+}) {
+  // Keep labels at the ends of the scale inside the drawing.
+  const anchor = x > 320 ? "end" : x < 40 ? "start" : "middle";
+  return (
+    <g>
+      <line x1={x} x2={x} y1={18} y2={38} className={className} strokeWidth={2} />
+      <text
+        x={x}
+        y={row ? 54 : 12}
+        textAnchor={anchor}
+        className={`${className.replace("stroke-", "fill-")} font-sans`}
+        fontSize={10.5}
+        fontWeight={600}
+      >
+        {label}
+      </text>
+    </g>
+  );
+}
+
+export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; hasNoise: boolean }) {
+  const s = result.spectrum;
+  if (!s) return null;
+  const W = 360;
+  const x = linear([s.min, s.max], [16, W - 16]);
+  const clampX = (v: number) => Math.min(W - 16, Math.max(16, x(v)));
+  const span = s.max - s.min;
+  return (
+    <Card>
+      <CardHeader
+        eyebrow="Spectrum"
+        title="Ground state and gap"
+        description="Exact extreme eigenvalues of the observable; every ⟨A⟩ lies between them."
+      />
+      <CardBody className="grid gap-4">
+        <dl className="grid grid-cols-2 gap-2 text-[13px]">
+          <div className="grid gap-0.5">
+            <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
+              λ min (ground)
+            </dt>
+            <dd>
+              <Value value={s.min} tone="exact" />
+            </dd>
+          </div>
+          <div className="grid gap-0.5">
+            <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">λ max</dt>
+            <dd>
+              <Value value={s.max} tone="exact" />
+            </dd>
+          </div>
+          <div className="grid gap-0.5">
+            <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
+              {hasNoise ? "Ideal" : "Exact"} − λ min
+            </dt>
+            <dd>
+              <Value value={result.ideal.value - s.min} />
+            </dd>
+          </div>
+          {hasNoise ? (
+            <div className="grid gap-0.5">
+              <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
+                Noisy − λ min
+              </dt>
+              <dd>
+                <Value value={result.exact.value - s.min} tone="noisy" />
+              </dd>
+            </div>
+          ) : result.sampled ? (
+            <div className="grid gap-0.5">
+              <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
+                Sampled − λ min
+              </dt>
+              <dd>
+                <Value
+                  value={result.sampled.mean - s.min}
+                  uncertainty={result.sampled.stdErr}
+                  tone="sampled"
+                />
+              </dd>
+            </div>
+          ) : null}
+        </dl>
+        {span > 0 ? (
+          <svg
+            viewBox={`0 0 ${W} 60`}
+            className="w-full"
+            role="img"
+            aria-label={`Spectrum from ${s.min} to ${s.max}; the exact value ${result.exact.value} sits ${(((result.exact.value - s.min) / span) * 100).toFixed(1)} % of the way up.`}
+          >
+            <rect x={16} y={24} width={W - 32} height={8} rx={4} className="fill-surface-3" />
+            <text x={16} y={48} className="figures fill-ink-3" fontSize={10}>
+              λmin
+            </text>
+            <text x={W - 16} y={48} textAnchor="end" className="figures fill-ink-3" fontSize={10}>
+              λmax
+            </text>
+            {hasNoise ? (
+              <Marker
+                x={clampX(result.exact.value)}
+                label="noisy"
+                className="stroke-noisy"
+                row={1}
+              />
+            ) : null}
+            <Marker
+              x={clampX(result.ideal.value)}
+              label={hasNoise ? "ideal" : "exact"}
+              className="stroke-exact"
+              row={0}
+            />
+          </svg>
+        ) : (
+          <p className="text-xs text-ink-3">
+            The observable is a multiple of the identity: every state gives the same value.
+          </p>
+        )}
+      </CardBody>
+    </Card>
+  );
+}
