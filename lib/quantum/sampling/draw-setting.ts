@@ -3,14 +3,14 @@
  *
  * The outcome law is the setting's distribution (rotated state, readout included —
  * readout.ts). Shots are drawn in chunks of ≤ 2^20 with multinomial.ts: sorted outcomes
- * (histogram and per-outcome values computed run by run, sequentially), then the per-shot
- * values are shuffled into a random order and summed; at the prefix sizes in
- * `checkpoints` the running sums are recorded for the convergence chart. Chunks are
- * independent, so the whole sequence is i.i.d. Values are memoised per outcome (a dense
+ * (histogram and per-outcome values computed run by run, sequentially); each shot is dealt
+ * into the interval between consecutive `checkpoints` it would occupy in a uniformly random
+ * order, and the interval sums give the running sums at every checkpoint (for the
+ * convergence chart). Chunks are independent, so the whole sequence is i.i.d. Values are memoised per outcome (a dense
  * table when 2^n is small next to the shot count, else a Map). Cost O(2^n + shots +
  * distinct outcomes · terms), memory O(2^n + chunk).
  */
-import { cumulative, drawSortedOutcomes, shuffleTogether } from "./multinomial";
+import { IntervalAssigner, cumulative, drawSortedOutcomes } from "./multinomial";
 import type { Rng } from "./rng";
 import type { SettingModel } from "./setting-model";
 
@@ -76,8 +76,6 @@ export async function drawSetting(input: DrawSettingInput): Promise<SettingSampl
   const size = Math.min(CHUNK, shots);
   const outcomes = new Int32Array(size);
   const scratch = new Float64Array(size);
-  const vals = new Float64Array(size);
-  const mitVals = mitigated ? new Float64Array(size) : null;
   let sum = 0;
   let sumSq = 0;
   let mitSum = 0;
@@ -87,28 +85,49 @@ export async function drawSetting(input: DrawSettingInput): Promise<SettingSampl
   for (let start = 0; start < shots; start += CHUNK) {
     const m = Math.min(CHUNK, shots - start);
     drawSortedOutcomes(cdf, m, rng, outcomes, scratch);
+    // interval boundaries inside this chunk: checkpoints in (start, start + m), then the end
+    const bounds: number[] = [];
+    for (let k = next; k < checkpoints.length && checkpoints[k] < start + m; k++) {
+      const pos = checkpoints[k] - start;
+      if (pos > 0 && pos !== bounds[bounds.length - 1]) bounds.push(pos);
+    }
+    bounds.push(m);
+    const sizes = bounds.map((b, j) => b - (j === 0 ? 0 : bounds[j - 1]));
+    const deal = new IntervalAssigner(sizes, rng);
+    const iv = new Float64Array(4 * sizes.length); // per interval: Σv, Σv², Σv̂, Σv̂²
     for (let i = 0; i < m; ) {
       const b = outcomes[i];
       let j = i + 1;
       while (j < m && outcomes[j] === b) j++;
-      if (hist) hist[b] += j - i;
-      else map!.set(b, (map!.get(b) ?? 0) + (j - i));
-      vals.fill(value(b), i, j);
-      if (mitVals) mitVals.fill(mitigated!(b), i, j);
+      const run = j - i;
+      if (hist) hist[b] += run;
+      else map!.set(b, (map!.get(b) ?? 0) + run);
+      const v = value(b);
+      const w = mitigated ? mitigated(b) : 0;
+      if (sizes.length === 1) {
+        iv[0] += run * v;
+        iv[1] += run * v * v;
+        iv[2] += run * w;
+        iv[3] += run * w * w;
+      } else {
+        for (let r = 0; r < run; r++) {
+          const k = 4 * deal.next();
+          iv[k] += v;
+          iv[k + 1] += v * v;
+          iv[k + 2] += w;
+          iv[k + 3] += w * w;
+        }
+      }
       i = j;
     }
-    shuffleTogether(mitVals ? [vals, mitVals] : [vals], m, rng);
-    for (let i = 0; i < m; i++) {
-      const v = vals[i];
-      sum += v;
-      sumSq += v * v;
-      if (mitVals) {
-        const w = mitVals[i];
-        mitSum += w;
-        mitSumSq += w * w;
-      }
-      while (next < checkpoints.length && checkpoints[next] === start + i + 1) {
-        recorded.push({ shots: start + i + 1, sum, sumSq, mitSum, mitSumSq });
+    for (let j = 0; j < sizes.length; j++) {
+      sum += iv[4 * j];
+      sumSq += iv[4 * j + 1];
+      mitSum += iv[4 * j + 2];
+      mitSumSq += iv[4 * j + 3];
+      const pos = start + bounds[j];
+      while (next < checkpoints.length && checkpoints[next] === pos) {
+        recorded.push({ shots: pos, sum, sumSq, mitSum, mitSumSq });
         next++;
       }
     }

@@ -7,9 +7,10 @@
  * 2. Inversion against the cumulative distribution, walking forward (galloping search
  *    when outcomes are many and shots few), gives the m outcomes in ascending order —
  *    a multinomial sample, each outcome b with probability p_b.
- * 3. A Fisher–Yates shuffle of the per-shot values restores a uniformly random shot
- *    order (an i.i.d. sequence), so running estimates at checkpoints are meaningful.
- * Compared with an alias table this avoids one cache miss per shot on large states.
+ * 3. The running estimate needs the shots in a uniformly random order only at checkpoint
+ *    prefixes: `IntervalAssigner` deals the sorted shots into the intervals between
+ *    checkpoints exactly as a random permutation would, without storing or shuffling them.
+ * Compared with an alias table or a shuffle this avoids a cache miss per shot on large states.
  */
 import { nextUniform, type Rng } from "./rng";
 
@@ -64,14 +65,34 @@ export function drawSortedOutcomes(cdf: Float64Array, m: number, rng: Rng, out: 
   }
 }
 
-/** Applies one uniformly random permutation (Fisher–Yates) to the first m entries of each array. */
-export function shuffleTogether(arrays: Float64Array[], m: number, rng: Rng): void {
-  for (let i = m - 1; i > 0; i--) {
-    const r = Math.floor(nextUniform(rng) * (i + 1));
-    for (const a of arrays) {
-      const t = a[i];
-      a[i] = a[r];
-      a[r] = t;
+/**
+ * Assigns shots, visited in any fixed order, to the consecutive position intervals of a
+ * uniformly random shot order: interval j holds positions [B_j, B_{j+1}). Each shot goes to
+ * interval j with probability (free places in j) / (free places left) — sequential sampling
+ * without replacement, so every interval receives the multiset a random permutation would put
+ * there. Scanning from the last (largest, for log-spaced boundaries) interval keeps the
+ * expected search short.
+ */
+export class IntervalAssigner {
+  private readonly free: Float64Array;
+  private left: number;
+
+  constructor(sizes: number[], private readonly rng: Rng) {
+    this.free = Float64Array.from(sizes);
+    this.left = sizes.reduce((a, b) => a + b, 0);
+  }
+
+  next(): number {
+    const last = this.free.length - 1;
+    if (last === 0) return 0;
+    let t = Math.floor(nextUniform(this.rng) * this.left);
+    let j = last;
+    while (j > 0 && t >= this.free[j]) {
+      t -= this.free[j];
+      j--;
     }
+    this.free[j]--;
+    this.left--;
+    return j;
   }
 }

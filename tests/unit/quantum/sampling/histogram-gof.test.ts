@@ -9,7 +9,7 @@
 import * as math from "mathjs";
 import { describe, expect, it } from "vitest";
 import { bitstringToIndex } from "@/lib/quantum/observable/bits";
-import { cumulative, drawSortedOutcomes, shuffleTogether } from "@/lib/quantum/sampling/multinomial";
+import { IntervalAssigner, cumulative, drawSortedOutcomes } from "@/lib/quantum/sampling/multinomial";
 import { createRng } from "@/lib/quantum/sampling/rng";
 import { sampleObservable } from "@/lib/quantum/sampling/sample-observable";
 import { mulberry32, randomState } from "../observable/random-states";
@@ -91,19 +91,18 @@ describe("goodness of fit of sampled histograms (critical values above)", () => 
     expect([...new Set(out)].sort()).toEqual([1, 3]);
   });
 
-  it("the shuffle is a uniform permutation: each of the 6 orders of 3 items ≈ 1/6 (df 5 < 20.515, NIST α = 0.001)", () => {
+  it("interval dealing equals a random permutation: 3 items into intervals of sizes 1, 2 — each item first with p = 1/3 (df 2 < 13.816, NIST α = 0.001)", () => {
+    // 13.816 typed from memory, checked against jstat
+    expect(chiSquareInv(0.999, 2)).toBeCloseTo(13.816, 2);
     const rng = createRng(8);
-    const tally = new Map<string, number>();
+    const first = [0, 0, 0];
     const trials = 30_000;
     for (let t = 0; t < trials; t++) {
-      const a = Float64Array.of(0, 1, 2);
-      shuffleTogether([a], 3, rng);
-      const key = a.join("");
-      tally.set(key, (tally.get(key) ?? 0) + 1);
+      const deal = new IntervalAssigner([1, 2], rng);
+      const slots = [deal.next(), deal.next(), deal.next()];
+      expect(slots.filter((s) => s === 0).length).toBe(1);
+      first[slots.indexOf(0)]++;
     }
-    expect(tally.size).toBe(6);
-    // 20.515 typed from memory, checked against jstat
-    expect(chiSquareInv(0.999, 5)).toBeCloseTo(20.515, 2);
-    expect(chiSquare([...tally.values()], new Array(6).fill(1 / 6), trials)).toBeLessThan(20.515);
+    expect(chiSquare(first, [1 / 3, 1 / 3, 1 / 3], trials)).toBeLessThan(13.816);
   });
 });

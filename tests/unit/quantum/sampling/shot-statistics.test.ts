@@ -151,6 +151,13 @@ describe("shot split, seeds, convergence", () => {
   });
 });
 
+describe("running estimates use a random shot order", () => {
+  it("|+⟩ measured in Z: every checkpoint prefix is an unbiased sample (within 4.5σ of 0), though outcomes are drawn sorted", async () => {
+    const out = await sampleObservable({ kind: "statevector", state: ryState(Math.PI / 2) }, pauliObservable("Z0", 1), options({ shots: 200_000, seed: 13 }));
+    for (const c of out.sampled.convergence) expect(Math.abs(c.mean)).toBeLessThan(4.5 / Math.sqrt(c.shots));
+  });
+});
+
 describe("other observables and states", () => {
   it("matrix observable sampled in its eigenbasis: outcomes are eigenvalues, mean within 4σ", async () => {
     const h = parseMatrixObservable({ real: [[1, 0.5, 0, 0], [0.5, -1, 0.2, 0], [0, 0.2, 0.3, 0.1], [0, 0, 0.1, 2]], imag: [[0, 0.3, 0, 0], [-0.3, 0, 0, 0], [0, 0, 0, -0.4], [0, 0, 0.4, 0]] });
