@@ -3,7 +3,7 @@
  * organisation is simply not found (the API answers 404, never 403).
  */
 import "server-only";
-import { and, desc, eq, lt, or, sql, type SQL } from "drizzle-orm";
+import { and, desc, eq, gte, like, lt, or, sql, type SQL } from "drizzle-orm";
 import { db } from "@/db";
 import { runs, type Run } from "@/db/schema";
 import { notFound } from "@/lib/api/problem";
@@ -77,10 +77,20 @@ function selectSummaries(where: SQL | undefined, limit: number) {
     .limit(limit);
 }
 
-/** Newest first, optionally one status, keyset-paginated. */
+/** LIKE pattern matching `text` literally anywhere (%, _ and \\ escaped). */
+const containing = (text: string) => `%${text.replace(/[\\%_]/g, (c) => `\\${c}`)}%`;
+
+const dayStart = (day: string) => new Date(`${day}T00:00:00.000Z`);
+
+/** Newest first, optionally filtered (status, method, name, submitter, queued day range), keyset-paginated. */
 export async function listRuns(orgId: string, query: RunListQuery) {
   const conditions: (SQL | undefined)[] = [eq(runs.orgId, orgId)];
   if (query.status) conditions.push(eq(runs.status, query.status as RunStatus));
+  if (query.method) conditions.push(eq(runs.method, query.method));
+  if (query.q) conditions.push(like(runs.name, containing(query.q)));
+  if (query.createdBy) conditions.push(or(eq(runs.createdByUserId, query.createdBy), eq(runs.createdByApiKeyId, query.createdBy)));
+  if (query.from) conditions.push(gte(runs.queuedAt, dayStart(query.from)));
+  if (query.to) conditions.push(lt(runs.queuedAt, new Date(dayStart(query.to).getTime() + 86_400_000)));
   if (query.cursor) {
     const after = decodeCursor(query.cursor);
     conditions.push(or(lt(runs.queuedAt, after.time), and(eq(runs.queuedAt, after.time), lt(runs.id, after.id))));

@@ -92,6 +92,11 @@ export type RunSummaryView = z.infer<typeof runSummarySchema>;
 
 export const runListQuerySchema = z.strictObject({
   status: runStatusSchema.optional().describe("Only runs in this status"),
+  method: runMethodSchema.optional().describe("Only runs of this simulation method"),
+  q: z.string().trim().min(1).max(120).optional().describe("Only runs whose name contains this text (case-insensitive)"),
+  createdBy: z.string().min(1).max(36).optional().describe("Only runs submitted by this user id (or API key id)"),
+  from: z.iso.date().optional().describe("Only runs queued on or after this day (YYYY-MM-DD, UTC)"),
+  to: z.iso.date().optional().describe("Only runs queued on or before this day (YYYY-MM-DD, UTC)"),
   cursor: cursorParamSchema.optional(),
   limit: limitParamSchema,
 });
