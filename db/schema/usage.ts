@@ -8,7 +8,18 @@
  * `reportedAt` is set once the quantity is reported to the payment provider.
  */
 import { sql } from "drizzle-orm";
-import { bigint, char, datetime, decimal, index, mysqlEnum, mysqlTable, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
+import {
+  bigint,
+  char,
+  datetime,
+  decimal,
+  index,
+  mysqlEnum,
+  mysqlTable,
+  primaryKey,
+  uniqueIndex,
+  varchar,
+} from "drizzle-orm/mysql-core";
 import { organizations } from "./orgs";
 import { runs } from "./runs";
 
@@ -38,3 +49,27 @@ export const usageEvents = mysqlTable(
 );
 
 export type UsageEvent = typeof usageEvents.$inferSelect;
+
+/**
+ * Running totals per (organisation, period, metric), kept in the same
+ * transaction as the usage events they sum, so a quota check reads three rows
+ * instead of summing a month of events.
+ */
+export const usageTotals = mysqlTable(
+  "usage_totals",
+  {
+    orgId: varchar("org_id", { length: 36 })
+      .notNull()
+      .references(() => organizations.id, { onDelete: "cascade" }),
+    period: char("period", { length: 7 }).notNull(),
+    metric: mysqlEnum("metric", USAGE_METRICS).notNull(),
+    quantity: decimal("quantity", { precision: 20, scale: 6, mode: "number" }).notNull().default(0),
+    updatedAt: datetime("updated_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`)
+      .$onUpdate(() => new Date()),
+  },
+  (t) => [primaryKey({ columns: [t.orgId, t.period, t.metric] })],
+);
+
+export type UsageTotal = typeof usageTotals.$inferSelect;
