@@ -1,23 +1,22 @@
 /**
- * Reads of the usage meters. Totals are sums of `usage_events` for one
- * organisation and period; pending figures (runs not finished yet) come from
- * the runs table, so a quota counts what is already promised.
+ * Reads of the usage meters. Totals come from `usage_totals` (kept with the
+ * events); pending figures (runs not finished yet) come from the runs table,
+ * so a quota counts what is already promised.
  */
 import "server-only";
 import { and, eq, inArray, sql } from "drizzle-orm";
 import { db } from "@/db";
-import { runs, usageEvents } from "@/db/schema";
+import { runs, usageEvents, usageTotals } from "@/db/schema";
 import type { UsageMetric } from "@/db/schema";
 
 export type UsageTotals = { runs: number; shots: number; simulationSeconds: number };
 
 export async function getUsageTotals(orgId: string, period: string): Promise<UsageTotals> {
   const rows = await db
-    .select({ metric: usageEvents.metric, total: sql<string>`COALESCE(SUM(${usageEvents.quantity}), 0)` })
-    .from(usageEvents)
-    .where(and(eq(usageEvents.orgId, orgId), eq(usageEvents.period, period)))
-    .groupBy(usageEvents.metric);
-  const byMetric = new Map<UsageMetric, number>(rows.map((r) => [r.metric, Number(r.total)]));
+    .select({ metric: usageTotals.metric, quantity: usageTotals.quantity })
+    .from(usageTotals)
+    .where(and(eq(usageTotals.orgId, orgId), eq(usageTotals.period, period)));
+  const byMetric = new Map<UsageMetric, number>(rows.map((r) => [r.metric, Number(r.quantity)]));
   return {
     runs: byMetric.get("runs") ?? 0,
     shots: byMetric.get("shots") ?? 0,
@@ -27,13 +26,17 @@ export async function getUsageTotals(orgId: string, period: string): Promise<Usa
 
 export type UnfinishedRuns = { queued: number; running: number; pendingShots: number };
 
-/** Runs of the organisation that are queued or running, and the shots they will draw. */
-export async function getUnfinishedRuns(orgId: string): Promise<UnfinishedRuns> {
+/**
+ * Runs of the organisation that are queued or running, and (unless `shots` is
+ * false) the shots they will draw. Without shots the count reads the
+ * (org_id, status, …) index only.
+ */
+export async function getUnfinishedRuns(orgId: string, options: { shots?: boolean } = {}): Promise<UnfinishedRuns> {
   const rows = await db
     .select({
       status: runs.status,
       count: sql<string>`COUNT(*)`,
-      shots: sql<string>`COALESCE(SUM(${runs.shots}), 0)`,
+      shots: options.shots === false ? sql<string>`0` : sql<string>`COALESCE(SUM(${runs.shots}), 0)`,
     })
     .from(runs)
     .where(and(eq(runs.orgId, orgId), inArray(runs.status, ["queued", "running"])))

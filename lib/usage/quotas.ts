@@ -96,8 +96,13 @@ export function evaluateQuota(
 /** Loads the organisation's usage and evaluates the limits for a run. */
 export async function quotaVerdict(orgId: string, planId: string, demand: RunDemand): Promise<QuotaVerdict> {
   const period = currentPeriod();
-  const [usage, unfinished] = await Promise.all([getUsageTotals(orgId, period), getUnfinishedRuns(orgId)]);
-  return evaluateQuota(getPlan(planId), demand, usage, unfinished, period, env.RUNS_MAX_UNFINISHED);
+  const plan = getPlan(planId);
+  // Pending shots only matter where shots are a hard cap (plans without overage).
+  const [usage, unfinished] = await Promise.all([
+    getUsageTotals(orgId, period),
+    getUnfinishedRuns(orgId, { shots: !isPaidPlan(plan) }),
+  ]);
+  return evaluateQuota(plan, demand, usage, unfinished, period, env.RUNS_MAX_UNFINISHED);
 }
 
 /** Throws the first refusal as a problem: 402 quota-exceeded, or 429 too-many-runs with Retry-After. */

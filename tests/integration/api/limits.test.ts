@@ -7,12 +7,13 @@
  */
 import { afterAll, describe, expect, it } from "vitest";
 import { closeDb, db } from "@/db";
-import { runs, usageEvents } from "@/db/schema";
+import { runs } from "@/db/schema";
 import { getPlan } from "@/lib/billing/plans";
 import { env } from "@/lib/env";
 import { closeQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { requestHash } from "@/lib/runs/request-hash";
+import { recordRunUsage } from "@/lib/usage/mutations";
 import { currentPeriod } from "@/lib/usage/period";
 import { createTestApiKey, createTestUser, createUserWithOrg, addMember } from "../../support/factories";
 import { api } from "../runs/support/api";
@@ -41,9 +42,11 @@ function wideRequest(n: number, extra: Record<string, unknown> = {}) {
   return { circuit: { format: "qasm2", source }, observable: { format: "pauli", terms: "Z0" }, ...extra };
 }
 
+/** Meters usage as a finished run would (events + monthly totals, one transaction). */
 async function addUsage(orgId: string, metric: "shots" | "simulation_seconds", quantity: number) {
   const runId = await insertRawRun(orgId, bellRequest(), { status: "succeeded" });
-  await db.insert(usageEvents).values({ orgId, runId, metric, quantity, period: currentPeriod() });
+  const usage = metric === "shots" ? { shots: quantity } : { simulationSeconds: quantity };
+  await db.transaction((tx) => recordRunUsage(tx, orgId, runId, currentPeriod(), usage));
 }
 
 describe("plan limits (402)", () => {

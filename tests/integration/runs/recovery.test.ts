@@ -2,7 +2,8 @@
  * Safety nets of the worker: the final failure of a run's job (retries
  * exhausted, e.g. the database unreachable) marks the run failed with a plain
  * problem; the sweeper re-queues a queued run whose job went missing and fails
- * a running run whose job is gone past its plan's time limit.
+ * a running run whose job is gone past its plan's time limit; usage totals
+ * count each run's usage once.
  */
 import type { Job } from "bullmq";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
@@ -11,10 +12,15 @@ import { JOB_ATTEMPTS } from "@/lib/queue/jobs";
 import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { sweepOrphanRuns } from "@/lib/runs/sweep";
+import { db } from "@/db";
+import { usageEvents } from "@/db/schema";
+import { recordRunUsage } from "@/lib/usage/mutations";
+import { currentPeriod } from "@/lib/usage/period";
+import { getUsageTotals } from "@/lib/usage/queries";
 import { failRunAfterRetries } from "@/worker/give-up";
 import { EngineThreadError } from "@/worker/engine-pool";
 import { createUserWithOrg } from "../../support/factories";
-import { cancelLeftoverRuns, insertRawRun, runRow } from "./support/db-helpers";
+import { cancelLeftoverRuns, insertRawRun, runRow, usageOf } from "./support/db-helpers";
 import { bellRequest } from "./support/requests";
 
 let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
@@ -75,5 +81,23 @@ describe("sweeper", () => {
     const lostRow = await runRow(owner.orgId, lost);
     expect(lostRow.status).toBe("failed");
     expect(lostRow.error?.detail).toContain("its job was lost");
+  });
+});
+
+describe("usage totals", () => {
+  it("count a run's usage once however often it is written, and heal from the events", async () => {
+    const org = await createUserWithOrg("totals");
+    const period = currentPeriod();
+    const first = await insertRawRun(org.orgId, bellRequest(), { status: "succeeded" });
+    const usage = { runs: 1, shots: 1000, simulationSeconds: 0.25 };
+    await db.transaction((tx) => recordRunUsage(tx, org.orgId, first, period, usage));
+    await db.transaction((tx) => recordRunUsage(tx, org.orgId, first, period, usage));
+    expect(await usageOf(org.orgId, first)).toHaveLength(3);
+    expect(await getUsageTotals(org.orgId, period)).toEqual({ runs: 1, shots: 1000, simulationSeconds: 0.25 });
+    // A run whose shots event exists already: totals are rebuilt from the events.
+    const second = await insertRawRun(org.orgId, bellRequest(), { status: "succeeded" });
+    await db.insert(usageEvents).values({ orgId: org.orgId, runId: second, metric: "shots", quantity: 500, period });
+    await db.transaction((tx) => recordRunUsage(tx, org.orgId, second, period, { runs: 1, shots: 500, simulationSeconds: 0.5 }));
+    expect(await getUsageTotals(org.orgId, period)).toEqual({ runs: 2, shots: 1500, simulationSeconds: 0.75 });
   });
 });

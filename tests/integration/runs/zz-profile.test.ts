@@ -1,0 +1,35 @@
+import { it } from "vitest";
+import { performance } from "node:perf_hooks";
+import { createTestApiKey, createUserWithOrg } from "../../support/factories";
+import { api } from "./support/api";
+import { smallRequest } from "./support/requests";
+import { previewRequest } from "@/lib/quantum";
+import { runCreateSchema } from "@/lib/runs/schemas";
+import { quotaVerdict } from "@/lib/usage/quotas";
+import { cancelLeftoverRuns, setPlan } from "./support/db-helpers";
+
+it("profile", async () => {
+  const o = await createUserWithOrg("prof");
+  await setPlan(o.orgId, "institute");
+  const { key } = await createTestApiKey(o.orgId, "member", o.user.id);
+  const body = smallRequest();
+  for (let i = 0; i < 30; i++) await api("POST", "/api/v1/runs", { key, body });
+  let t = performance.now();
+  const cpu0 = process.cpuUsage();
+  for (let i = 0; i < 55; i++) await api("POST", "/api/v1/runs", { key, body });
+  const cpu = process.cpuUsage(cpu0);
+  console.log("POST wall/req", ((performance.now() - t) / 55).toFixed(2), "cpu/req", ((cpu.user + cpu.system) / 1000 / 55).toFixed(2));
+  t = performance.now();
+  for (let i = 0; i < 200; i++) runCreateSchema.parse(body);
+  console.log("zod parse", ((performance.now() - t) / 200).toFixed(3));
+  t = performance.now();
+  for (let i = 0; i < 200; i++) previewRequest(body);
+  console.log("preview", ((performance.now() - t) / 200).toFixed(3));
+  t = performance.now();
+  for (let i = 0; i < 50; i++) await quotaVerdict(o.orgId, "institute", { method: "statevector", qubits: 4, shots: 1000 });
+  console.log("quota", ((performance.now() - t) / 50).toFixed(3));
+  t = performance.now();
+  for (let i = 0; i < 50; i++) await api("GET", "/api/v1/usage", { key });
+  console.log("GET usage", ((performance.now() - t) / 50).toFixed(3));
+  await cancelLeftoverRuns([o.orgId]);
+}, 120_000);
