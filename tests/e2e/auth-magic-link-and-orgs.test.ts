@@ -53,7 +53,7 @@ describe("magic link", () => {
     const second = await other.newPage();
     await second.goto(link);
     await second.waitForURL(/\/sign-in\?error=Verification/);
-    expect(await second.getByText("That sign-in link has expired or was already used.").count()).toBe(1);
+    await second.getByText("That sign-in link has expired or was already used.").waitFor();
     await screenshot(second, "magic-link-reused");
     await other.close();
   });
@@ -70,19 +70,19 @@ describe("organisation switcher", () => {
     const link = await requestLink(page, home.user.email);
     await page.goto(link);
     await page.waitForURL(/\/app$/);
-    expect(await page.getByText("You are Owner here").count()).toBe(1);
+    await page.getByText("You are Owner here").waitFor();
 
     await page.getByRole("button", { name: /^Organisation:/ }).click();
     await screenshot(page, "org-switcher-open");
     await page.getByRole("menuitemradio", { name: lab.name }).click();
     await page.waitForURL(/\/app$/);
     await page.getByRole("heading", { level: 1, name: lab.name }).waitFor();
-    expect(await page.getByText("You are Viewer here").count()).toBe(1);
+    await page.getByText("You are Viewer here").waitFor();
     await screenshot(page, "dashboard-after-switch");
 
     // The choice sticks across page loads.
     await page.reload();
-    expect(await page.getByText("You are Viewer here").count()).toBe(1);
+    await page.getByText("You are Viewer here").waitFor();
     await context.close();
   });
 });
