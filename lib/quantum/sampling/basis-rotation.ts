@@ -3,6 +3,8 @@
  * so that its Pauli becomes Z — X: H; Y: S† then H (U = H·S†, U Y U† = Z); Z and I:
  * nothing. Works on a COPY of the state, with the kernels' `applyMatrix` /
  * `applyUnitaryDM`; the result's Born probabilities are the setting's outcome law.
+ * (Sampling from a density matrix uses the cheaper density-diagonal.ts, checked against
+ * `rotateDensityCopy` in the tests.)
  */
 import { applyUnitaryDM } from "../density-matrix/kernels";
 import { applyMatrix } from "../statevector/kernels";

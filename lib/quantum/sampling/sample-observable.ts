@@ -2,8 +2,8 @@
  * Sampled estimate of ⟨A⟩ with shots (DESIGN.md §1, §4).
  *
  * Per measurement setting (a qubit-wise commuting Pauli group, or the eigenbasis of a
- * matrix observable): the outcome law is computed on a rotated COPY of the state with
- * readout error folded in (readout.ts); shots are split over settings ∝ √Var_g (exact
+ * matrix observable): the outcome law is computed on a rotated COPY of the statevector
+ * (or as the diagonal of UρU†, density-diagonal.ts) with readout error folded in (readout.ts); shots are split over settings ∝ √Var_g (exact
  * single-shot variances, "optimal") or evenly, or chosen by a target standard error
  * (shot-plan.ts); each setting draws from its own jumped PRNG stream (rng.ts); the
  * statistics (statistics.ts) give the estimate, standard error, 95 % interval, per-term
@@ -18,7 +18,8 @@ import type { HermitianMatrix } from "../observable/matrix-observable";
 import { pauliSettingVariance, varianceFromLaw } from "../planning/exact-variance";
 import { allocateShots, planShots, type ShotPlan } from "../planning/shot-plan";
 import type { DensityMatrix, PauliSum, StateVector } from "../types";
-import { densityProbabilities, rotateDensityCopy, rotateStateCopy, stateProbabilities } from "./basis-rotation";
+import { rotateStateCopy, stateProbabilities } from "./basis-rotation";
+import { rotatedDensityDiagonal } from "./density-diagonal";
 import { drawSetting, type SettingSample } from "./draw-setting";
 import { eigenbasisLawOfDensity, eigenbasisLawOfState } from "./eigenbasis";
 import { convolveReadout, mitigationFactors, type Readout } from "./readout";
@@ -88,7 +89,7 @@ function lawOf(prepared: PreparedState, bases: string, readout: Readout): Float6
   const p =
     prepared.kind === "statevector"
       ? stateProbabilities(rotateStateCopy(prepared.state, bases))
-      : densityProbabilities(rotateDensityCopy(prepared.rho, bases));
+      : rotatedDensityDiagonal(prepared.rho, bases);
   convolveReadout(p, readout);
   return p;
 }
