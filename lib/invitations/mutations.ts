@@ -58,7 +58,7 @@ async function issueAndSend(tx: Tx, access: OrgAccess, invitation: Pick<Invitati
 
 export async function createInvitation(access: OrgAccess, input: InviteInput, now = new Date()) {
   return db.transaction(async (tx) => {
-    await assertSeatFree(tx, access.org.id, now);
+    if (!(await lockOrganization(tx, access.org.id))) throw notFound();
     const member = await tx
       .select({ id: memberships.id })
       .from(memberships)
@@ -76,6 +76,7 @@ export async function createInvitation(access: OrgAccess, input: InviteInput, no
         { path: "email", message: "Already invited; use Re-send in the pending list." },
       ]);
     }
+    await assertSeatFree(tx, access.org.id, now);
     const id = crypto.randomUUID();
     // A placeholder hash, replaced by issueAndSend in the same transaction.
     await tx.insert(invitations).values({

@@ -14,7 +14,7 @@ export function seatsExhausted(plan: { id: string; name: string; limits: { seats
   const usage = `${plural(seats.members, "member")} and ${plural(seats.pending, "pending invitation")}`;
   let detail: string;
   if (!paid) {
-    detail = `The ${plan.name} plan allows ${plural(plan.limits.seats, "person")} and all seats are in use (${usage}). Upgrade to a paid plan on the billing page to invite more people.`;
+    detail = `The ${plan.name} plan allows ${plan.limits.seats === 1 ? "1 person" : `${plan.limits.seats} people`} and all seats are in use (${usage}). Upgrade to a paid plan on the billing page to invite more people.`;
   } else if (seats.limit >= plan.limits.seats) {
     detail = `All ${plural(seats.limit, "seat")} of the ${plan.name} plan are in use (${usage}); that is the plan's maximum. Move to a larger plan on the billing page to invite more people.`;
   } else {

@@ -16,7 +16,10 @@ import { verifyInvitationToken } from "@/lib/invitations/token";
 import { runOperation } from "@/lib/members/operation";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestUser, createUserWithOrg, uniqueEmail } from "../../support/factories";
-import { waitForMail } from "../../support/maildev";
+import { listMail, waitForMail } from "../../support/maildev";
+
+/** maildev stamps messages to the whole second; compare from the start of this second. */
+const wholeSecond = () => new Date(Math.floor(Date.now() / 1000) * 1000);
 
 let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
 
@@ -29,7 +32,7 @@ afterAll(async () => {
 });
 
 async function invite(email: string, role = "member") {
-  const since = new Date();
+  const since = wholeSecond();
   const state = await runOperation(inviteOp, owner.user.id, owner.orgId, { email, role });
   return { state, since };
 }
@@ -39,6 +42,19 @@ async function tokenFromMail(email: string, since: Date) {
   const match = /\/invite\/(\S+)/.exec(mail.text ?? "");
   if (!match) throw new Error("no invitation link in the e-mail");
   return { mail, token: match[1] };
+}
+
+/** Both mails can carry the same second: wait for the one whose link differs from `old`. */
+async function newerToken(email: string, since: Date, old: string): Promise<string> {
+  for (let i = 0; i < 80; i++) {
+    const tokens = (await listMail())
+      .filter((m) => m.to.some((t) => t.address === email) && new Date(m.time) >= since)
+      .map((m) => /\/invite\/(\S+)/.exec(m.text ?? "")?.[1])
+      .filter((t): t is string => !!t && t !== old);
+    if (tokens.length) return tokens[0];
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error(`no newer invitation mail to ${email}`);
 }
 
 describe("invitation links", () => {
@@ -70,9 +86,9 @@ describe("invitation links", () => {
     await expect(acceptInvitation(token, { id: stranger.id, email }, later)).rejects.toMatchObject({ status: 410 });
 
     const pending = (await listOpenInvitations(owner.orgId)).find((i) => i.email === email)!;
-    const resentAt = new Date();
+    const resentAt = wholeSecond();
     expect(await runOperation(resendInvitationOp, owner.user.id, owner.orgId, { invitationId: pending.id })).toMatchObject({ status: "success" });
-    const { token: fresh } = await tokenFromMail(email, resentAt);
+    const fresh = await newerToken(email, resentAt, token);
     expect(fresh).not.toBe(token);
     await expect(acceptInvitation(token, { id: stranger.id, email })).rejects.toMatchObject({ status: 410, message: expect.stringMatching(/newer invitation/) });
     expect(await runOperation(revokeInvitationOp, owner.user.id, owner.orgId, { invitationId: pending.id })).toMatchObject({ status: "success" });

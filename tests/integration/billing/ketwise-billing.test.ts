@@ -25,6 +25,9 @@ import { waitForMail } from "../../support/maildev";
 import { payOnHostedPage, startBillingHarness, TEST_WEBHOOK_SECRET, type BillingHarness } from "./ketwise-support";
 
 let h: BillingHarness;
+/** maildev stamps messages to the whole second; compare from the start of this second. */
+const wholeSecond = () => new Date(Math.floor(Date.now() / 1000) * 1000);
+
 let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
 let admin: Awaited<ReturnType<typeof createTestUser>>;
 const lab = getPlan("lab");
@@ -59,7 +62,7 @@ describe("checkout → webhook → plan", () => {
     await h.flush();
     expect(await org()).toMatchObject({ plan: "sandbox", stripeSubscriptionId: null });
 
-    const since = new Date();
+    const since = wholeSecond();
     const paid = await payOnHostedPage(url);
     expect(paid.status).toBe(303);
     expect(paid.location).toMatch(/\/app\/billing\?checkout=success&session_id=cs_test_/);
@@ -158,6 +161,7 @@ describe("overage and renewal", () => {
       { orgId: owner.orgId, runId, metric: "simulation_seconds", quantity: used.simulationSeconds, period },
     ]);
     const first = await reportOverage(owner.orgId, period);
+    expect(first.skipped).toBeUndefined();
     expect(first.sent).toEqual([
       { metric: "shots", quantity: 12_345 },
       { metric: "simulation_seconds", quantity: 101 },
@@ -195,7 +199,7 @@ describe("overage and renewal", () => {
     await h.flush();
     const sub = await getStripe().subscriptions.retrieve((await org()).stripeSubscriptionId!);
     const customer = sub.customer as string;
-    const since = new Date();
+    const since = wholeSecond();
     await h.admin("/_fake/fail-next-payment", { customer });
     await h.admin("/_fake/advance", { customer, to: sub.items.data[0].current_period_end });
     await h.flush();
