@@ -5,11 +5,16 @@
  */
 import type { ReactNode } from "react";
 import { getCurrentOrg } from "@/lib/auth/guards";
+import { listMembers } from "@/lib/orgs/queries";
 import { WorkspaceOrgProvider } from "@/lib/swr/org-context";
 
 export async function WorkspaceFrame({ children }: { children: ReactNode }) {
   const { current, user } = await getCurrentOrg();
   if (!current) return null;
+  const members = (await listMembers(current.org.id)).map((m) => ({
+    id: m.userId,
+    name: m.name ?? m.email ?? "member",
+  }));
   return (
     <WorkspaceOrgProvider
       value={{
@@ -17,6 +22,7 @@ export async function WorkspaceFrame({ children }: { children: ReactNode }) {
         orgName: current.org.name,
         role: current.role,
         userId: user.id,
+        members,
       }}
     >
       {children}

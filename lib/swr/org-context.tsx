@@ -7,7 +7,16 @@
 import { createContext, useContext, type ReactNode } from "react";
 import type { Role } from "@/lib/orgs/roles";
 
-export type WorkspaceOrg = { orgId: string; orgName: string; role: Role; userId: string };
+export type WorkspaceMember = { id: string; name: string };
+
+export type WorkspaceOrg = {
+  orgId: string;
+  orgName: string;
+  role: Role;
+  userId: string;
+  /** Members of the organisation (for "submitted by" names and filters). */
+  members: WorkspaceMember[];
+};
 
 const OrgContext = createContext<WorkspaceOrg | null>(null);
 
@@ -30,4 +39,14 @@ export function useWorkspaceOrg(): WorkspaceOrg {
 /** Members and above may create runs and library items (DESIGN.md §6). */
 export function canWrite(role: Role): boolean {
   return role !== "viewer";
+}
+
+/** Display name of a run's submitter. */
+export function submitterName(
+  members: readonly WorkspaceMember[],
+  createdBy: { type: "user" | "api_key"; id: string } | null | undefined,
+): string {
+  if (!createdBy) return "deleted user";
+  if (createdBy.type === "api_key") return "API key";
+  return members.find((m) => m.id === createdBy.id)?.name ?? "former member";
 }

@@ -1,0 +1,291 @@
+"use client";
+/**
+ * The runs list: filters kept in the URL, cursor pagination (Previous / Next), a table that
+ * refreshes while runs are unfinished, and bulk actions on the selection — cancel the
+ * queued or running ones, or compare 2–6 finished ones.
+ */
+import Link from "next/link";
+import { usePathname, useRouter, useSearchParams } from "next/navigation";
+import { useEffect, useMemo, useState } from "react";
+import { Alert } from "@/components/ui/alert";
+import { StatusBadge } from "@/components/ui/badge";
+import { Button, buttonClasses } from "@/components/ui/button";
+import { EmptyState } from "@/components/ui/empty-state";
+import { Skeleton } from "@/components/ui/skeleton";
+import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
+import { IconStop } from "@/components/workspace/icons";
+import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
+import { cancelRuns } from "@/lib/swr/run-mutations";
+import { useDebounced } from "@/lib/swr/use-debounced";
+import { useRuns } from "@/lib/swr/use-runs";
+import type { RunStatus } from "@/lib/swr/types";
+import { METHOD_LABEL, formatAgo } from "./run-meta";
+import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
+import { RunValueCell } from "./run-value-cell";
+
+const PAGE_SIZE = 20;
+const MAX_COMPARE = 6;
+
+function readFilters(params: URLSearchParams): RunFilters {
+  const f = { ...EMPTY_FILTERS };
+  for (const k of Object.keys(f) as (keyof RunFilters)[]) f[k] = params.get(k) ?? "";
+  return f;
+}
+
+export function RunsList() {
+  const { orgId, role, members } = useWorkspaceOrg();
+  const router = useRouter();
+  const pathname = usePathname();
+  const params = useSearchParams();
+  const [filters, setFilters] = useState<RunFilters>(() =>
+    readFilters(new URLSearchParams(params.toString())),
+  );
+  const [cursors, setCursors] = useState<(string | null)[]>([null]);
+  const [selected, setSelected] = useState<Set<string>>(new Set());
+  const [notice, setNotice] = useState<{ tone: "success" | "error"; text: string } | null>(null);
+  const [busy, setBusy] = useState(false);
+  const q = useDebounced(filters.q.trim(), 300);
+
+  // Keep the filters in the URL (shareable, survives reload), and restart paging on change.
+  useEffect(() => {
+    const next = new URLSearchParams();
+    const f = { ...filters, q };
+    for (const [k, v] of Object.entries(f)) if (v) next.set(k, v);
+    const s = next.toString();
+    if (s !== params.toString())
+      router.replace(s ? `${pathname}?${s}` : pathname, { scroll: false });
+    setCursors([null]);
+    setSelected(new Set());
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- the URL follows the filters, not the other way round
+  }, [q, filters.status, filters.method, filters.createdBy, filters.from, filters.to]);
+
+  const cursor = cursors[cursors.length - 1];
+  const { data, error, isLoading, mutate } = useRuns({
+    q,
+    status: filters.status as RunStatus | "",
+    method: filters.method,
+    createdBy: filters.createdBy,
+    from: filters.from,
+    to: filters.to,
+    cursor,
+    limit: PAGE_SIZE,
+  });
+  const rows = useMemo(() => data?.data ?? [], [data]);
+  const chosen = rows.filter((r) => selected.has(r.id));
+  const cancellable = chosen.filter((r) => r.status === "queued" || r.status === "running");
+  const comparable = chosen.filter((r) => r.status === "succeeded");
+  const filtered = Object.values(filters).some(Boolean);
+  const writer = canWrite(role);
+
+  const toggle = (id: string) =>
+    setSelected((s) => {
+      const n = new Set(s);
+      if (n.has(id)) n.delete(id);
+      else n.add(id);
+      return n;
+    });
+  const allOnPage = rows.length > 0 && rows.every((r) => selected.has(r.id));
+
+  const bulkCancel = async () => {
+    setBusy(true);
+    setNotice(null);
+    const failures = await cancelRuns(
+      orgId,
+      cancellable.map((r) => r.id),
+    );
+    setBusy(false);
+    const done = cancellable.length - failures.length;
+    setNotice(
+      failures.length
+        ? {
+            tone: "error",
+            text: `Canceled ${done} of ${cancellable.length}. ${failures[0].message}`,
+          }
+        : { tone: "success", text: `Canceled ${done} run${done === 1 ? "" : "s"}.` },
+    );
+    setSelected(new Set());
+    await mutate();
+  };
+
+  return (
+    <div className="grid gap-4">
+      <RunsFilters value={filters} onChange={setFilters} members={members} />
+      {chosen.length ? (
+        <div
+          role="region"
+          aria-label="Selection"
+          className="flex flex-wrap items-center gap-2 rounded-lg border border-accent/30 bg-accent-soft/50 px-3 py-2 text-[13px]"
+        >
+          <span className="font-medium text-ink">{chosen.length} selected</span>
+          {writer ? (
+            <Button
+              size="sm"
+              variant="secondary"
+              icon={<IconStop />}
+              disabled={!cancellable.length}
+              loading={busy}
+              onClick={bulkCancel}
+            >
+              Cancel {cancellable.length || ""} unfinished
+            </Button>
+          ) : null}
+          <Link
+            aria-disabled={comparable.length < 2 || comparable.length > MAX_COMPARE}
+            className={buttonClasses({ size: "sm", variant: "secondary" })}
+            href={`/app/compare?ids=${comparable.map((r) => r.id).join(",")}`}
+          >
+            Compare {comparable.length >= 2 ? comparable.length : ""} finished
+          </Link>
+          {comparable.length > MAX_COMPARE ? (
+            <span className="text-xs text-ink-2">Compare takes at most {MAX_COMPARE}.</span>
+          ) : null}
+          <Button size="sm" variant="ghost" onClick={() => setSelected(new Set())}>
+            Clear selection
+          </Button>
+        </div>
+      ) : null}
+      {notice ? (
+        <Alert tone={notice.tone} compact role={notice.tone === "error" ? "alert" : "status"}>
+          {notice.text}
+        </Alert>
+      ) : null}
+      {error ? (
+        <Alert
+          tone="error"
+          role="alert"
+          title="The runs could not be loaded"
+          actions={
+            <Button size="sm" variant="secondary" onClick={() => mutate()}>
+              Try again
+            </Button>
+          }
+        >
+          {error.message}
+        </Alert>
+      ) : isLoading && !data ? (
+        <div className="grid gap-2" aria-busy="true" aria-label="Loading runs">
+          {Array.from({ length: 6 }, (_, i) => (
+            <Skeleton key={i} className="h-11" />
+          ))}
+        </div>
+      ) : rows.length === 0 ? (
+        filtered ? (
+          <EmptyState
+            title="No runs match these filters"
+            description="Loosen a filter or clear them all."
+            action={
+              <Button variant="secondary" onClick={() => setFilters(EMPTY_FILTERS)}>
+                Clear filters
+              </Button>
+            }
+          />
+        ) : (
+          <EmptyState
+            title="No runs yet"
+            description="Compose a circuit and an observable, preview the cost, and submit — results appear here."
+            action={
+              <Link className={buttonClasses()} href="/app/runs/new">
+                New run
+              </Link>
+            }
+          />
+        )
+      ) : (
+        <Table aria-label="Runs" aria-busy={isLoading}>
+          <THead>
+            <TR>
+              <TH className="w-8">
+                <input
+                  type="checkbox"
+                  aria-label="Select every run on this page"
+                  className="size-4 accent-accent"
+                  checked={allOnPage}
+                  onChange={() =>
+                    setSelected(allOnPage ? new Set() : new Set(rows.map((r) => r.id)))
+                  }
+                />
+              </TH>
+              <TH>Name</TH>
+              <TH>Status</TH>
+              <TH>Method</TH>
+              <TH numeric>Qubits</TH>
+              <TH numeric>Shots</TH>
+              <TH numeric>⟨A⟩</TH>
+              <TH>Submitted by</TH>
+              <TH>Queued</TH>
+            </TR>
+          </THead>
+          <TBody>
+            {rows.map((r) => (
+              <TR key={r.id} aria-selected={selected.has(r.id) || undefined}>
+                <TD>
+                  <input
+                    type="checkbox"
+                    aria-label={`Select ${r.name}`}
+                    className="size-4 accent-accent"
+                    checked={selected.has(r.id)}
+                    onChange={() => toggle(r.id)}
+                  />
+                </TD>
+                <TD className="max-w-[22rem]">
+                  <Link
+                    href={`/app/runs/${r.id}`}
+                    className="block truncate font-medium text-ink hover:text-accent-ink hover:underline"
+                  >
+                    {r.name}
+                  </Link>
+                  {r.status === "running" ? (
+                    <span className="figures text-[11px] text-ink-3">
+                      {Math.round(r.progress * 100)} % · {r.phase ?? "running"}
+                    </span>
+                  ) : r.status === "failed" && r.error ? (
+                    <span className="block truncate text-[11px] text-danger">{r.error.detail}</span>
+                  ) : null}
+                </TD>
+                <TD>
+                  <StatusBadge status={r.status} />
+                </TD>
+                <TD className="text-[12.5px] text-ink-2">{METHOD_LABEL[r.method]}</TD>
+                <TD numeric>{r.qubits}</TD>
+                <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
+                <TD numeric>
+                  <RunValueCell run={r} />
+                </TD>
+                <TD className="text-[12.5px] text-ink-2">{submitterName(members, r.createdBy)}</TD>
+                <TD className="text-[12.5px] whitespace-nowrap text-ink-2" title={r.queuedAt}>
+                  {formatAgo(r.queuedAt)}
+                </TD>
+              </TR>
+            ))}
+          </TBody>
+        </Table>
+      )}
+      {rows.length || cursors.length > 1 ? (
+        <nav
+          aria-label="Pages"
+          className="flex items-center justify-between gap-3 text-[13px] text-ink-2"
+        >
+          <span className="figures">Page {cursors.length}</span>
+          <div className="flex gap-2">
+            <Button
+              size="sm"
+              variant="secondary"
+              disabled={cursors.length <= 1}
+              onClick={() => setCursors((c) => c.slice(0, -1))}
+            >
+              Previous
+            </Button>
+            <Button
+              size="sm"
+              variant="secondary"
+              disabled={!data?.nextCursor}
+              onClick={() => data?.nextCursor && setCursors((c) => [...c, data.nextCursor])}
+            >
+              Next
+            </Button>
+          </div>
+        </nav>
+      ) : null}
+    </div>
+  );
+}
