@@ -20,6 +20,7 @@ import { getPlan, overageCents } from "@/lib/billing/plans";
 import { getStripe } from "@/lib/billing/stripe-client";
 import { runOperation } from "@/lib/members/operation";
 import { closeRedis } from "@/lib/rate-limit/redis";
+import { recordRunUsage } from "@/lib/usage/mutations";
 import { addMember, createTestUser, createUserWithOrg } from "../../support/factories";
 import { waitForMail } from "../../support/maildev";
 import { payOnHostedPage, startBillingHarness, TEST_WEBHOOK_SECRET, type BillingHarness } from "./ketwise-support";
@@ -156,10 +157,8 @@ describe("overage and renewal", () => {
       id: runId, orgId: owner.orgId, name: "overage fixture", request: {}, method: "statevector", qubits: 2, seed: 1,
       status: "succeeded", requestHash: "0".repeat(64),
     });
-    await db.insert(usageEvents).values([
-      { orgId: owner.orgId, runId, metric: "shots", quantity: used.shots, period },
-      { orgId: owner.orgId, runId, metric: "simulation_seconds", quantity: used.simulationSeconds, period },
-    ]);
+    // Through the runs pipeline's own writer, so events and monthly totals agree.
+    await db.transaction((tx) => recordRunUsage(tx, owner.orgId, runId, period, { shots: used.shots, simulationSeconds: used.simulationSeconds }));
     const first = await reportOverage(owner.orgId, period);
     expect(first.skipped).toBeUndefined();
     expect(first.sent).toEqual([
