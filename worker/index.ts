@@ -24,6 +24,7 @@ import { failRunAfterRetries } from "./give-up";
 import { log } from "./log";
 import { buildRegistry, dispatch } from "./registry";
 import { startSweeper } from "./sweeper";
+import { startOverageScheduler } from "./jobs/billing-overage";
 
 const SHUTDOWN_GRACE_MS = 10_000;
 
@@ -50,6 +51,7 @@ async function main(): Promise<void> {
   });
   await worker.waitUntilReady();
   const sweeper = startSweeper();
+  const overage = startOverageScheduler();
   log(`ready: ${concurrency} engine thread(s), queue "${queuePrefix()}:${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`);
 
   let stopping = false;
@@ -58,6 +60,7 @@ async function main(): Promise<void> {
     stopping = true;
     log(`${signal}: finishing active jobs (up to ${SHUTDOWN_GRACE_MS / 1000} s)`);
     sweeper.stop();
+    overage.stop();
     const grace = new Promise<"timeout">((resolve) => setTimeout(() => resolve("timeout"), SHUTDOWN_GRACE_MS).unref());
     const outcome = await Promise.race([worker.close().then(() => "closed" as const), grace]);
     if (outcome === "timeout") log("grace period over; unfinished jobs will be recovered by another worker");
