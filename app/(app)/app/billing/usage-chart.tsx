@@ -18,7 +18,7 @@ export function UsageChart({ points, included, unit, label }: { points: ChartPoi
           <AreaChart data={points} margin={{ top: 6, right: 8, bottom: 0, left: 0 }}>
             <CartesianGrid stroke="var(--color-line)" strokeDasharray="2 4" vertical={false} />
             <XAxis dataKey="day" tickFormatter={(d: string) => d.slice(8)} tick={{ fontSize: 11, fill: "var(--color-ink-3)" }} tickLine={false} axisLine={false} interval="preserveStartEnd" />
-            <YAxis tickFormatter={(v: number) => formatCompact(v)} tick={{ fontSize: 11, fill: "var(--color-ink-3)" }} tickLine={false} axisLine={false} width={44} />
+            <YAxis domain={[0, (dataMax: number) => Math.max(dataMax, included ?? 0) || 1]} tickFormatter={(v: number) => formatCompact(v)} tick={{ fontSize: 11, fill: "var(--color-ink-3)" }} tickLine={false} axisLine={false} width={44} />
             <Tooltip
               formatter={(v) => [`${formatCompact(Number(v))} ${unit}`, "Used so far"]}
               labelFormatter={(d) => String(d)}
