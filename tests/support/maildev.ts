@@ -13,13 +13,18 @@ export async function listMail(): Promise<CaughtMail[]> {
   return (await res.json()) as CaughtMail[];
 }
 
-/** Waits for the newest message to `address`, received after `since`. */
+/**
+ * Waits for the newest message to `address`, received at or after `since`.
+ * maildev stamps messages with whole seconds, so `since` is rounded down to
+ * its second first (else a mail in the same second as `since` is missed).
+ */
 export async function waitForMail(address: string, since: Date, timeoutMs = 20_000): Promise<CaughtMail> {
   const deadline = Date.now() + timeoutMs;
   const wanted = address.toLowerCase();
+  const sinceMs = Math.floor(since.getTime() / 1000) * 1000;
   while (Date.now() < deadline) {
     const found = (await listMail())
-      .filter((m) => m.to.some((t) => t.address.toLowerCase() === wanted) && new Date(m.time) >= since)
+      .filter((m) => m.to.some((t) => t.address.toLowerCase() === wanted) && Date.parse(m.time) >= sinceMs)
       .sort((a, b) => Date.parse(b.time) - Date.parse(a.time))[0];
     if (found) return found;
     await new Promise((r) => setTimeout(r, 250));
