@@ -47,7 +47,7 @@ export const defaultNavSections: NavSection[] = [
   },
   {
     title: "Developers",
-    items: [{ href: "/app/api-docs", label: "API docs", icon: "docs" }],
+    items: [{ href: "/app/docs/api", label: "API docs", icon: "docs" }],
   },
 ];
 
