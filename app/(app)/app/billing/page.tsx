@@ -98,7 +98,15 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
               <dl className="grid grid-cols-2 gap-x-6 gap-y-3 sm:grid-cols-3">
                 <div>
                   <dt className="text-[12.5px] text-ink-2">Price</dt>
-                  <dd className="figures">{isPaidPlan(plan) ? `${formatUsd(plan.seatPriceCents)} / seat / month` : "Free"}</dd>
+                  <dd>
+                    {isPaidPlan(plan) ? (
+                      <>
+                        <span className="figures">{formatUsd(plan.seatPriceCents)}</span> per seat / month
+                      </>
+                    ) : (
+                      "Free"
+                    )}
+                  </dd>
                 </div>
                 <div>
                   <dt className="text-[12.5px] text-ink-2">Seats used / {seats.paid ? "paid" : "allowed"}</dt>

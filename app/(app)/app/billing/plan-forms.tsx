@@ -38,11 +38,11 @@ export function SeatsForm({ seats, min, max }: { seats: number; min: number; max
   const [state, action] = useActionState(changeSeatsAction as Act, idleState);
   return (
     <form action={action} className="grid gap-2" noValidate>
-      <div className="flex items-end gap-2">
-        <Field label="Paid seats" hint={`At least ${min} (people in the organisation), at most ${max}.`} error={fieldError(state, "seats")} className="w-56">
+      <div className="flex items-start gap-2">
+        <Field label="Paid seats" hint={`At least ${min} (people in the organisation), at most ${max}.`} error={fieldError(state, "seats")} className="w-72">
           <Input name="seats" type="number" min={min} max={max} defaultValue={typedValue(state, "seats", String(seats))} mono />
         </Field>
-        <SubmitButton variant="secondary" className="mb-[26px]">
+        <SubmitButton variant="secondary" className="mt-[26px]">
           Change seats
         </SubmitButton>
       </div>

@@ -23,7 +23,7 @@ export function InviteForm({ seatsLeft }: { seatsLeft: number }) {
   }, [state]);
   return (
     <form ref={form} action={action} className="grid gap-3" noValidate>
-      <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_16rem_auto] sm:items-start">
+      <div className="grid gap-3 sm:grid-cols-[minmax(0,1fr)_20rem_auto] sm:items-start">
         <Field label="E-mail" error={fieldError(state, "email")}>
           <Input
             name="email"

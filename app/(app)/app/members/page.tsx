@@ -33,6 +33,8 @@ export default async function MembersPage() {
   const isOwner = access.role === "owner";
   const plan = getPlan(org.plan);
   const now = Date.now();
+  // The last owner can be neither removed nor leave (transfer ownership first), so no button for them.
+  const owners = members.filter((m) => m.role === "owner").length;
 
   return (
     <>
@@ -66,7 +68,7 @@ export default async function MembersPage() {
               used={seats.used}
               limit={seats.limit}
               format={(n) => String(n)}
-              hint={`${seats.members} member${seats.members === 1 ? "" : "s"} and ${seats.pending} pending invitation${seats.pending === 1 ? "" : "s"}`}
+              hint={`${seats.members} member${seats.members === 1 ? "" : "s"} and ${seats.pending === 0 ? "no" : seats.pending} pending invitation${seats.pending === 1 ? "" : "s"}`}
             />
             {isAdmin ? <InviteForm seatsLeft={Math.max(0, seats.limit - seats.used)} /> : null}
           </CardBody>
@@ -89,7 +91,7 @@ export default async function MembersPage() {
               {members.map((m) => {
                 const name = m.name ?? m.email ?? "Unnamed";
                 const self = m.userId === access.userId;
-                const canTouch = isAdmin && (m.role !== "owner" || isOwner);
+                const canTouch = isAdmin && (m.role !== "owner" || (isOwner && owners > 1));
                 return (
                   <TR key={m.userId}>
                     <TD>

@@ -20,6 +20,9 @@ function Heading({ title, children }: { title: string; children?: React.ReactNod
   );
 }
 
+/** "Creates runs … API keys." → "creates runs … API keys." (acronyms keep their case). */
+const lowerFirst = (text: string) => text.charAt(0).toLowerCase() + text.slice(1);
+
 /** Where an invitation link lands: join, sign in first, create an account, or why the link can't be used. */
 export default async function InvitePage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
@@ -42,7 +45,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
   const intro = (
     <Heading title={`Join ${invitation.orgName}`}>
       {inviter} to join <strong className="font-medium text-ink">{invitation.orgName}</strong> on Ketwise as{" "}
-      <strong className="font-medium text-ink">{ROLE_LABELS[invitation.role]}</strong>: {ROLE_DESCRIPTIONS[invitation.role].toLowerCase()}
+      <strong className="font-medium text-ink">{ROLE_LABELS[invitation.role]}</strong>: {lowerFirst(ROLE_DESCRIPTIONS[invitation.role])}
     </Heading>
   );
   const callback = `/invite/${token}`;
