@@ -56,7 +56,6 @@ function typeLabel(s: JsonSchema, components: Components): string {
   if (s.enum) return "enum";
   if (s.oneOf || s.anyOf)
     return (s.oneOf ?? s.anyOf)!.map((x) => alternativeLabel(x, components)).join(" | ");
-  return (s.oneOf ?? s.anyOf)!.map((x) => typeLabel(x, components)).join(" | ");
   if (s.prefixItems) return `[${s.prefixItems.map((x) => typeLabel(x, components)).join(", ")}]`;
   const t = Array.isArray(s.type) ? s.type.join(" | ") : s.type;
   if (t === "array" && s.items) return `${typeLabel(s.items, components)}[]`;
