@@ -161,7 +161,7 @@ export const estimateResultSchema = z
         eigenvalues: z.array(z.number()).optional().describe("Matrix observables: value of each outcome index"),
       }),
     ),
-    spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable"),
+    spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)"),
     shotPlan: shotPlanSchema.optional(),
     sweep: z
       .object({

@@ -3,13 +3,13 @@
  *
  * Order: validate (zod) → parse the circuit and the observable (sizes checked before any
  * state is allocated) → for each parameter point (one, or the sweep grid): bind, simulate,
- * exact values, sampling → spectrum (Lanczos for Pauli sums with n ≤ 16, eigenvalues of
- * a matrix observable). The main result describes the first grid point; with a sweep,
+ * exact values, sampling → spectrum (Lanczos for Pauli sums with n ≤ 16 whose matrix-vector
+ * product stays within SPECTRUM_STEP_BUDGET, eigenvalues of a matrix observable). The main result describes the first grid point; with a sweep,
  * `sweep.points` lists every point. The seed is the request's or a fresh one, returned.
  */
 import { parseProgram } from "../circuit";
 import { EngineError } from "../errors";
-import { lanczosExtremes } from "../observable/lanczos";
+import { SPECTRUM_STEP_BUDGET, lanczosExtremes, lanczosStepCost } from "../observable/lanczos";
 import { sparseLabel } from "../observable/pauli-word";
 import { chooseSeed } from "../sampling/rng";
 import type { PreparedObservable } from "../sampling/sample-observable";
@@ -55,7 +55,8 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   const seed = req.raw.seed ?? chooseSeed();
   const parseMs = performance.now() - t0;
 
-  const spectrumShare = obs.kind === "pauli" && n <= MAX_SPECTRUM_QUBITS ? 0.1 : 0;
+  const wantSpectrum = obs.kind === "matrix" || (n <= MAX_SPECTRUM_QUBITS && lanczosStepCost(obs.sum) <= SPECTRUM_STEP_BUDGET);
+  const spectrumShare = obs.kind === "pauli" && wantSpectrum ? 0.1 : 0;
   const work = root.span(0.02, 1 - spectrumShare);
   const results: PointResult[] = [];
   for (let k = 0; k < grid.points.length; k++) {
@@ -67,7 +68,7 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   }
 
   const t1 = performance.now();
-  const spectrum = await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum"));
+  const spectrum = wantSpectrum ? await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum")) : undefined;
   const spectrumMs = performance.now() - t1;
   root.span(0, 1, "done").report(1, true);
   return assemble(req, obs, n, seed, grid, results, spectrum, {
@@ -83,7 +84,6 @@ async function spectrumOf(obs: PreparedObservable, n: number, progress: Progress
     const v = obs.eigen.values;
     return { min: v[0], max: v[v.length - 1] };
   }
-  if (n > MAX_SPECTRUM_QUBITS) return undefined;
   progress.report(0);
   const r = await lanczosExtremes(obs.sum, { tick: (f) => progress.tick(f) });
   return { min: r.min, max: r.max };

@@ -21,6 +21,18 @@ import { PauliOperator } from "./pauli-operator";
 
 export const MAX_LANCZOS_QUBITS = MAX_SPECTRUM_QUBITS;
 
+/**
+ * Work of one matrix-vector product, in amplitude updates: 2^n per distinct flip pattern
+ * (x-mask) — terms sharing an x-mask are applied together (pauli-operator.ts).
+ */
+export function lanczosStepCost(sum: PauliSum): number {
+  const flips = new Set(sum.terms.filter((t) => t.coefficient !== 0).map((t) => t.xMask));
+  return flips.size * 2 ** sum.numQubits;
+}
+
+/** Largest step cost for which `estimate` computes the spectrum (2^22 updates: seconds, not minutes). */
+export const SPECTRUM_STEP_BUDGET = 2 ** 22;
+
 export interface LanczosOptions {
   tol?: number;
   seed?: number;

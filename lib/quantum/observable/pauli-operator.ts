@@ -27,9 +27,16 @@ function sign(b: number, z: number): number {
 export class PauliOperator {
   readonly dim: number;
   private readonly groups: FlipGroup[] = [];
+  /** Index split b = hi·2^bits + lo (bits = ⌈n/2⌉); per-term sign tables, refilled per term. */
+  private readonly bits: number;
+  private readonly slo: Float64Array;
+  private readonly shi: Float64Array;
 
   constructor(sum: PauliSum, tableBytes = PAULI_OPERATOR_TABLE_BYTES) {
     this.dim = 2 ** sum.numQubits;
+    this.bits = Math.ceil(sum.numQubits / 2);
+    this.slo = new Float64Array(1 << this.bits);
+    this.shi = new Float64Array(this.dim >>> this.bits);
     const byX = new Map<number, FlipGroup>();
     for (const t of sum.terms) {
       if (t.coefficient === 0) continue;
@@ -60,6 +67,48 @@ export class PauliOperator {
     this.groups = [...byX.values()];
   }
 
+  /**
+   * out_{b⊕x} += c·i^k·(−1)^{|b&z|}·v_b for one term. The sign is split as
+   * (−1)^{|hi & zh|}·(−1)^{|lo & zl|} with b = hi·2^bits + lo, both from small tables
+   * (2^⌈n/2⌉ and 2^⌊n/2⌋ entries, cache-resident), inside one flat loop over b (measured
+   * faster in V8 than nested hi/lo loops).
+   */
+  private applyTerm(
+    t: { c: number; z: number; k: number },
+    x: number,
+    vRe: Float64Array,
+    vIm: Float64Array,
+    outRe: Float64Array,
+    outIm: Float64Array,
+  ): void {
+    const bits = this.bits;
+    const mask = (1 << bits) - 1;
+    const slo = this.slo;
+    const shi = this.shi;
+    const zl = t.z & mask;
+    const zh = t.z >>> bits;
+    const f = t.k === 0 || t.k === 1 ? t.c : -t.c;
+    for (let lo = 0; lo < slo.length; lo++) slo[lo] = sign(lo, zl);
+    for (let hi = 0; hi < shi.length; hi++) shi[hi] = f * sign(hi, zh);
+    const d = this.dim;
+    if ((t.k & 1) === 0) {
+      for (let b = 0; b < d; b++) {
+        const w = shi[b >>> bits] * slo[b & mask];
+        const c = b ^ x;
+        outRe[c] += w * vRe[b];
+        outIm[c] += w * vIm[b];
+      }
+    } else {
+      // multiply by i·w
+      for (let b = 0; b < d; b++) {
+        const w = shi[b >>> bits] * slo[b & mask];
+        const c = b ^ x;
+        outRe[c] -= w * vIm[b];
+        outIm[c] += w * vRe[b];
+      }
+    }
+  }
+
   /** out ← H v (out is overwritten). */
   apply(vRe: Float64Array, vIm: Float64Array, outRe: Float64Array, outIm: Float64Array): void {
     outRe.fill(0);
@@ -77,24 +126,7 @@ export class PauliOperator {
         }
         continue;
       }
-      for (const t of g.terms) {
-        const z = t.z;
-        const real = (t.k & 1) === 0;
-        const f = t.k === 0 || t.k === 1 ? t.c : -t.c;
-        for (let b = 0; b < d; b++) {
-          const c = b ^ x;
-          const m = b & z;
-          const s = (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -f : f;
-          if (real) {
-            outRe[c] += s * vRe[b];
-            outIm[c] += s * vIm[b];
-          } else {
-            // multiply by i·s
-            outRe[c] -= s * vIm[b];
-            outIm[c] += s * vRe[b];
-          }
-        }
-      }
+      for (const t of g.terms) this.applyTerm(t, x, vRe, vIm, outRe, outIm);
     }
   }
 }
