@@ -73,7 +73,7 @@ describe("organisation admin: invite, join, upgrade, audit", () => {
   it("invites a colleague by e-mail on the members page", async () => {
     await admin.goto(`${E2E_URL}/app/members`);
     await admin.getByRole("heading", { level: 2, name: "1 member" }).waitFor();
-    await admin.getByText("No pending invitations").waitFor();
+    await admin.getByText("No pending invitations", { exact: true }).waitFor();
     const since = new Date();
     await admin.getByRole("textbox", { name: "E-mail" }).fill(colleagueEmail);
     await admin.getByLabel("Role").selectOption("member");
@@ -113,7 +113,7 @@ describe("organisation admin: invite, join, upgrade, audit", () => {
     await admin.getByRole("heading", { level: 2, name: "2 members" }).waitFor();
     const row = admin.getByRole("row").filter({ hasText: colleagueEmail });
     await expect(row.textContent()).resolves.toContain(colleagueName);
-    await admin.getByText("No pending invitations").waitFor();
+    await admin.getByText("No pending invitations", { exact: true }).waitFor();
     await screenshot(admin, "admin-members");
   });
 
