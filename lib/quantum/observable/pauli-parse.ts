@@ -121,7 +121,7 @@ function issueAt(issues: EngineIssue[], tok: IToken, message: string): void {
 }
 
 function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssue[]): AnalysedTerm {
-  const { bare: _bare, ...origin } = termText(t, text);
+  const { bare, ...origin } = termText(t, text);
   const name = `term ${index + 1} ("${origin.text}")`;
   let coefficient = t.sign?.tokenType === Minus ? -1 : 1;
   const c = t.coefficient;
@@ -129,7 +129,7 @@ function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssu
     // "X0 + -0.5 Z1": a sign may stand directly before a number, nothing more.
     const extra = t.extraSigns[0] ?? t.innerSign;
     if (t.extraSigns.length > 0 || !c || c.tokenType === NonFinite) {
-      issueAt(issues, extra, `two signs in a row before "${_bare}"; write one "+" or "-" (a second sign may only stand directly before a number)`);
+      issueAt(issues, extra, `two signs in a row before "${bare}"; write one "+" or "-" (a second sign may only stand directly before a number)`);
     } else if (t.innerSign.tokenType === Minus) {
       coefficient = -coefficient;
     }

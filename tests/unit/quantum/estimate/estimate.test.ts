@@ -64,8 +64,7 @@ describe("seeds and shots", () => {
   });
 
   it("targetPrecision chooses the shots (state-aware plan ≤ worst case) and lands near the target", async () => {
-    const { shots: _omit, ...rest } = req;
-    const r = await estimate({ ...rest, targetPrecision: 0.01, seed: 11 });
+    const r = await estimate({ ...req, shots: undefined, targetPrecision: 0.01, seed: 11 });
     expect(r.shotPlan!.stateAware!.totalShots).toBe(r.sampled!.shots);
     expect(r.shotPlan!.stateAware!.totalShots).toBeLessThanOrEqual(r.shotPlan!.worstCase.totalShots);
     // McClean et al. 2016: worst case (Σ|c_i|)²/ε² = 1.7²/1e-4 = 28,900 (rounded up per setting)
