@@ -46,7 +46,9 @@ export function HistogramChart({
       title={
         <span>
           <span className="font-mono tracking-[0.12em]">{bases}</span>
-          <span className="ml-2 font-normal text-ink-3">{shots.toLocaleString("en-US")} shots</span>
+          <span className="ml-2 font-normal text-ink-3">
+            {shots.toLocaleString("en-US")} shot{shots === 1 ? "" : "s"}
+          </span>
         </span>
       }
       description={

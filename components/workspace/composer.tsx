@@ -96,13 +96,18 @@ export function Composer() {
     numericParams,
   );
 
+  const seenInputs = useRef(new Set<string>());
   // Inputs of the circuit: give new ones a starting value, forget sweeps of vanished ones.
   useEffect(() => {
     if (!outline) return;
     const names = outline.inputs.map((i) => i.name);
     setInputNames(names);
-    for (const n of names)
-      if (form.getValues(`parameters.${n}`) === undefined) setValue(`parameters.${n}`, "0");
+    for (const n of names) {
+      if (seenInputs.current.has(n)) continue;
+      seenInputs.current.add(n);
+      // A registered but never-typed field reads "" — start it at 0 like the diagram does.
+      if (!form.getValues(`parameters.${n}`)) setValue(`parameters.${n}`, "0");
+    }
     const axes = form.getValues("sweepAxes");
     if (axes.some((a) => !names.includes(a.name)))
       setValue(
@@ -236,7 +241,12 @@ export function Composer() {
           className="grid content-start gap-4 lg:sticky lg:top-4 lg:self-start"
           aria-label="Preview and submit"
         >
-          <PreviewPanel preview={preview.data} error={previewError} pending={preview.pending} />
+          <PreviewPanel
+            preview={preview.data}
+            error={previewError}
+            pending={preview.pending}
+            localIssues={built.issues}
+          />
           <div className="grid gap-3 rounded-lg border border-line bg-surface p-4 shadow-card">
             <Field
               label="Run name"

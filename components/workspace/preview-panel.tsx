@@ -63,15 +63,53 @@ function Status({
   return null;
 }
 
+/** Plain names of the form fields a local issue can point at. */
+function fieldLabel(path: string): string {
+  if (path === "shots") return "Total shots";
+  if (path === "targetPrecision") return "Target standard error";
+  if (path === "seed") return "Seed";
+  if (path === "observable.matrixText") return "Observable matrix";
+  if (path.startsWith("parameters.")) return `Parameter ${path.slice(11)}`;
+  if (path.startsWith("sweepAxes.")) return `Sweep ${path.split(".")[2] ?? ""}`.trim();
+  if (path.startsWith("noise.")) return `Noise: ${path.split(".").pop()}`;
+  return path;
+}
+
 export function PreviewPanel({
   preview,
   error,
   pending,
+  localIssues = [],
 }: {
   preview?: Preview;
   error?: ApiError;
   pending: boolean;
+  /** Problems found in the form before asking the server (a field that is not a number…). */
+  localIssues?: { path: string; message: string }[];
 }) {
+  if (localIssues.length) {
+    return (
+      <Card aria-labelledby="preview-title">
+        <CardHeader
+          title={<span id="preview-title">Preview</span>}
+          actions={
+            <span className="inline-flex items-center gap-1.5 text-xs font-medium text-danger">
+              <IconError className="size-3.5" /> Needs a fix
+            </span>
+          }
+        />
+        <CardBody aria-live="polite">
+          <ul className="grid gap-1 text-[13px] leading-5 text-ink-2">
+            {localIssues.map((i) => (
+              <li key={i.path}>
+                <span className="font-medium text-ink">{fieldLabel(i.path)}</span>: {i.message}
+              </li>
+            ))}
+          </ul>
+        </CardBody>
+      </Card>
+    );
+  }
   const stale = pending || !!error;
   const gates = preview ? Object.entries(preview.gateCounts).sort((a, b) => b[1] - a[1]) : [];
   const totalShots = preview ? preview.shots * Math.max(1, preview.sweepPoints) : 0;
