@@ -109,12 +109,17 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
             aria-label={`Spectrum from ${s.min} to ${s.max}; the exact value ${result.exact.value} sits ${(((result.exact.value - s.min) / span) * 100).toFixed(1)} % of the way up.`}
           >
             <rect x={16} y={24} width={W - 32} height={8} rx={4} className="fill-surface-3" />
-            <text x={16} y={48} className="figures fill-ink-3" fontSize={10}>
-              λmin
-            </text>
-            <text x={W - 16} y={48} textAnchor="end" className="figures fill-ink-3" fontSize={10}>
-              λmax
-            </text>
+            {/* End labels only where no marker label below would collide with them. */}
+            {!hasNoise || clampX(result.exact.value) > 60 ? (
+              <text x={16} y={54} className="figures fill-ink-3" fontSize={10}>
+                λmin
+              </text>
+            ) : null}
+            {!hasNoise || clampX(result.exact.value) < W - 60 ? (
+              <text x={W - 16} y={54} textAnchor="end" className="figures fill-ink-3" fontSize={10}>
+                λmax
+              </text>
+            ) : null}
             {hasNoise ? (
               <Marker
                 x={clampX(result.exact.value)}
