@@ -23,50 +23,52 @@ export type ClaimResult =
   | { kind: "claimed"; run: Run; attempt: number; plan: Plan; redelivered: boolean };
 
 /**
- * Marks a run `running` for a new attempt. A queued run starts only while the
- * organisation has fewer running runs than its plan's `concurrentRuns` (the
- * organisation row is locked so two workers cannot both take the last slot);
- * a run already `running` is a re-delivery (crash, stall) and keeps its slot.
+ * Marks a run `running` for a new attempt, without a transaction:
+ * 1. read the run with its organisation's plan;
+ * 2. compare-and-set status and attempts (a cancel or another worker in
+ *    between makes it miss, and the claim is re-read);
+ * 3. for a run that was queued, count the organisation's running runs; above
+ *    the plan's `concurrentRuns` the claim is undone and the run waits. Two
+ *    workers racing for the last slot may both back off; they retry after a
+ *    short delay. A run already `running` is a re-delivery (crash, stall) and
+ *    keeps its slot.
  */
 export async function claimRun(orgId: string, runId: string): Promise<ClaimResult> {
-  return db.transaction(async (tx) => {
-    const [run] = await tx
-      .select()
+  for (let tries = 0; tries < 3; tries++) {
+    const [row] = await db
+      .select({ run: runs, plan: organizations.plan })
       .from(runs)
-      .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)))
-      .for("update");
-    if (!run) return { kind: "missing" } as const;
-    if (isTerminalStatus(run.status)) return { kind: "terminal", status: run.status } as const;
-    const [org] = await tx
-      .select({ plan: organizations.plan })
-      .from(organizations)
-      .where(eq(organizations.id, orgId))
-      .for("update");
-    const plan = getPlan(org.plan);
+      .innerJoin(organizations, eq(organizations.id, runs.orgId))
+      .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)));
+    if (!row) return { kind: "missing" };
+    const { run } = row;
+    if (isTerminalStatus(run.status)) return { kind: "terminal", status: run.status };
+    const plan = getPlan(row.plan);
     const redelivered = run.status === "running";
+    const attempt = run.attempts + 1;
+    const startedAt = new Date();
+    const [claimed] = await db
+      .update(runs)
+      .set({ status: "running", attempts: attempt, startedAt, progress: 0, phase: "starting" })
+      .where(and(eq(runs.orgId, orgId), eq(runs.id, runId), eq(runs.status, run.status), eq(runs.attempts, run.attempts)));
+    if (claimed.affectedRows === 0) continue; // changed under us: read again
     if (!redelivered) {
-      const [{ running }] = await tx
+      const [{ running }] = await db
         .select({ running: count() })
         .from(runs)
         .where(and(eq(runs.orgId, orgId), eq(runs.status, "running")));
-      if (running >= plan.limits.concurrentRuns) {
-        return { kind: "busy", running, limit: plan.limits.concurrentRuns } as const;
+      if (running > plan.limits.concurrentRuns) {
+        const [undone] = await db
+          .update(runs)
+          .set({ status: "queued", attempts: run.attempts, startedAt: null, progress: 0, phase: null })
+          .where(current(orgId, runId, attempt));
+        if (undone.affectedRows === 0) continue; // canceled meanwhile: read again
+        return { kind: "busy", running: running - 1, limit: plan.limits.concurrentRuns };
       }
     }
-    const attempt = run.attempts + 1;
-    const startedAt = new Date();
-    await tx
-      .update(runs)
-      .set({ status: "running", attempts: attempt, startedAt, progress: 0, phase: "starting" })
-      .where(eq(runs.id, runId));
-    return {
-      kind: "claimed",
-      run: { ...run, status: "running", attempts: attempt, startedAt },
-      attempt,
-      plan,
-      redelivered,
-    } as const;
-  });
+    return { kind: "claimed", run: { ...run, status: "running", attempts: attempt, startedAt }, attempt, plan, redelivered };
+  }
+  throw new Error(`run ${runId} kept changing while it was being claimed`);
 }
 
 const current = (orgId: string, runId: string, attempt: number) =>

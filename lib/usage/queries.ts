@@ -57,3 +57,38 @@ export async function listRunUsage(orgId: string, runId: string) {
     .from(usageEvents)
     .where(and(eq(usageEvents.orgId, orgId), eq(usageEvents.runId, runId)));
 }
+
+/**
+ * Everything a quota check reads, in one round trip: this period's totals and
+ * the organisation's unfinished runs (with their shots when `shots` is true).
+ */
+export async function getQuotaFigures(
+  orgId: string,
+  period: string,
+  options: { shots: boolean },
+): Promise<{ usage: UsageTotals; unfinished: UnfinishedRuns }> {
+  const shotsPart = options.shots
+    ? sql`UNION ALL SELECT 'shots', '', COALESCE(SUM(${runs.shots}), 0) FROM ${runs}
+          WHERE ${runs.orgId} = ${orgId} AND ${runs.status} IN ('queued', 'running')`
+    : sql``;
+  const [rows] = (await db.execute(sql`
+    SELECT 'usage' AS kind, ${usageTotals.metric} AS name, ${usageTotals.quantity} AS value FROM ${usageTotals}
+      WHERE ${usageTotals.orgId} = ${orgId} AND ${usageTotals.period} = ${period}
+    UNION ALL SELECT 'runs', ${runs.status}, COUNT(*) FROM ${runs}
+      WHERE ${runs.orgId} = ${orgId} AND ${runs.status} IN ('queued', 'running') GROUP BY ${runs.status}
+    ${shotsPart}`)) as unknown as [{ kind: string; name: string; value: string | number }[]];
+  const usage: UsageTotals = { runs: 0, shots: 0, simulationSeconds: 0 };
+  const unfinished: UnfinishedRuns = { queued: 0, running: 0, pendingShots: 0 };
+  for (const row of rows) {
+    const value = Number(row.value);
+    if (row.kind === "usage") {
+      if (row.name === "runs") usage.runs = value;
+      else if (row.name === "shots") usage.shots = value;
+      else if (row.name === "simulation_seconds") usage.simulationSeconds = value;
+    } else if (row.kind === "runs") {
+      if (row.name === "queued") unfinished.queued = value;
+      else if (row.name === "running") unfinished.running = value;
+    } else if (row.kind === "shots") unfinished.pendingShots = value;
+  }
+  return { usage, unfinished };
+}

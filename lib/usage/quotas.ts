@@ -17,7 +17,7 @@ import { ProblemError } from "@/lib/api/problem";
 import { env } from "@/lib/env";
 import type { QuotaVerdict } from "@/lib/runs/schemas";
 import { currentPeriod } from "./period";
-import { getUnfinishedRuns, getUsageTotals, type UnfinishedRuns, type UsageTotals } from "./queries";
+import { getQuotaFigures, type UnfinishedRuns, type UsageTotals } from "./queries";
 
 export type RunDemand = { method: "statevector" | "density_matrix"; qubits: number; shots: number };
 
@@ -98,10 +98,7 @@ export async function quotaVerdict(orgId: string, planId: string, demand: RunDem
   const period = currentPeriod();
   const plan = getPlan(planId);
   // Pending shots only matter where shots are a hard cap (plans without overage).
-  const [usage, unfinished] = await Promise.all([
-    getUsageTotals(orgId, period),
-    getUnfinishedRuns(orgId, { shots: !isPaidPlan(plan) }),
-  ]);
+  const { usage, unfinished } = await getQuotaFigures(orgId, period, { shots: !isPaidPlan(plan) });
   return evaluateQuota(plan, demand, usage, unfinished, period, env.RUNS_MAX_UNFINISHED);
 }
 
