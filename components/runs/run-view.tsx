@@ -40,7 +40,9 @@ function Facts({ run }: { run: Run }) {
       </span>,
     ],
     ["Queued", formatWhen(run.queuedAt)],
-    ["Took", formatDuration(run.timings.runMs)],
+    ...(run.timings.runMs !== null
+      ? ([["Took", formatDuration(run.timings.runMs)]] as [string, React.ReactNode][])
+      : []),
   ];
   return (
     <dl className="flex flex-wrap gap-x-6 gap-y-2 text-[13px]">

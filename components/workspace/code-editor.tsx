@@ -124,6 +124,7 @@ export function CodeEditor({
           highlightActiveLine: true,
           autocompletion: false,
           searchKeymap: true,
+          closeBrackets: false,
           lintKeymap: true,
           syntaxHighlighting: false,
         }}
