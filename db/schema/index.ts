@@ -7,3 +7,4 @@ export * from "./runs";
 export * from "./library";
 export * from "./usage";
 export * from "./billing";
+export * from "./noise-profiles";
