@@ -135,10 +135,11 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
 
       {result ? (
         <>
-          <AgreementPanel request={run.request} result={result} pointLabel={pointLabel} />
+          {/* A sweep's landscape comes first; the panels below describe its first grid point. */}
           {result.sweep && result.sweep.points.length > 1 ? (
             <SweepCard sweep={result.sweep} noisy={hasNoise} fileStem={stem} />
           ) : null}
+          <AgreementPanel request={run.request} result={result} pointLabel={pointLabel} />
           <div className="grid gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             {result.sampled && result.sampled.convergence.length > 1 ? (
               <Card>

@@ -29,6 +29,7 @@ import {
 import { composerResolver, type ComposerContext, type ComposerOutput } from "./composer-resolver";
 import { EstimateCard } from "./estimate-card";
 import { NoiseCard } from "./noise-card";
+import { NoiseProfileControls, useNoiseProfiles } from "./noise-profiles";
 import { ObservableCard } from "./observable-card";
 import { ParametersCard } from "./parameters-card";
 import { PreviewPanel } from "./preview-panel";
@@ -167,6 +168,7 @@ export function Composer() {
     [handleSubmit, orgId, router, setError, swept],
   );
 
+  const noiseProfiles = useNoiseProfiles();
   const inputs = outline?.inputs ?? [];
   const hasErrors = Object.keys(formState.errors).length > 0;
 
@@ -235,7 +237,11 @@ export function Composer() {
             <ParametersCard inputs={inputs} readOnly={readOnly} />
           ) : null}
           <EstimateCard readOnly={readOnly} />
-          <NoiseCard readOnly={readOnly} />
+          <NoiseCard
+            readOnly={readOnly}
+            profiles={noiseProfiles.profiles}
+            profilesSlot={readOnly ? null : <NoiseProfileControls state={noiseProfiles} />}
+          />
         </div>
         <aside
           className="grid content-start gap-4 lg:sticky lg:top-4 lg:self-start"

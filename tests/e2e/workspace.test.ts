@@ -194,6 +194,26 @@ describe("run workspace", () => {
     await screenshot(page, "workspace-sweep");
   });
 
+  it("saves a noise profile for the organisation and finds it again after a reload", async () => {
+    await page.goto(`${E2E_URL}/app/runs/new`);
+    await page.getByLabel("Add a noise model").check();
+    await page.getByLabel("Start from a profile").selectOption({ label: "Light gate noise" });
+    expect(await page.getByLabel(/Depolarizing, multi-qubit gates/).inputValue()).toBe("0.01");
+    await page.getByRole("button", { name: "Save as profile" }).click();
+    await page.getByLabel("Profile name").fill("Bench A, light");
+    await page.getByRole("button", { name: "Save", exact: true }).click();
+    await page.getByText("Saved “Bench A, light”.").waitFor();
+    await page.reload();
+    const saved = page.locator("optgroup[label='Saved in this organisation'] option", {
+      hasText: "Bench A, light",
+    });
+    await saved.waitFor({ state: "attached" });
+    await page.getByLabel("Depolarizing, 1-qubit gates").fill("");
+    await page.getByLabel("Start from a profile").selectOption({ label: "Bench A, light" });
+    expect(await page.getByLabel(/Depolarizing, 1-qubit gates/).inputValue()).toBe("0.001");
+    await screenshot(page, "workspace-noise-profile");
+  });
+
   it("compares the two runs from the runs list", async () => {
     await page.goto(`${E2E_URL}/app/runs`);
     await page.getByRole("table", { name: "Runs" }).waitFor();
