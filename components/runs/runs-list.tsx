@@ -245,7 +245,7 @@ export function RunsList() {
                 <TD>
                   <StatusBadge status={r.status} />
                 </TD>
-                <TD className="text-[12.5px] text-ink-2">{METHOD_LABEL[r.method]}</TD>
+                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">{METHOD_LABEL[r.method]}</TD>
                 <TD numeric>{r.qubits}</TD>
                 <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
                 <TD numeric>
