@@ -100,10 +100,18 @@ export class EnginePool implements EngineRunner {
           };
           const onMessage = (m: ThreadReply) => {
             if (settled) return;
-            if (m.type === "progress") onProgress(m.fraction, m.phase);
-            else if (m.type === "result") (finish(false), resolve({ kind: "result", result: m.result, elapsedMs: m.elapsedMs }));
-            else if (m.type === "engine-error") (finish(false), resolve({ kind: "engine-error", error: m.error, elapsedMs: m.elapsedMs }));
-            else if (m.type === "crash") (finish(false), reject(new EngineThreadError(`engine crashed: ${m.message}`)));
+            if (m.type === "progress") {
+              onProgress(m.fraction, m.phase);
+            } else if (m.type === "result") {
+              finish(false);
+              resolve({ kind: "result", result: m.result, elapsedMs: m.elapsedMs });
+            } else if (m.type === "engine-error") {
+              finish(false);
+              resolve({ kind: "engine-error", error: m.error, elapsedMs: m.elapsedMs });
+            } else if (m.type === "crash") {
+              finish(false);
+              reject(new EngineThreadError(`engine crashed: ${m.message}`));
+            }
           };
           const onError = (error: Error) => {
             if (settled) return;

@@ -7,7 +7,7 @@
  * optional `name`.
  */
 import { z } from "zod";
-import { estimateRequestSchema, estimateResultSchema, previewResultSchema } from "@/lib/quantum/schemas";
+import { estimateRequestSchema, estimateResultSchema, previewResultSchema, type EstimateRequest } from "@/lib/quantum/schemas";
 import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
 import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES } from "./constants";
 
@@ -22,6 +22,13 @@ export const runCreateSchema = estimateRequestSchema
   .safeExtend({ name: runNameSchema.optional() })
   .describe("A run to queue: the engine request plus an optional name");
 export type RunCreateInput = z.infer<typeof runCreateSchema>;
+
+/** The engine request inside a run body (everything but `name`). */
+export function engineRequestOf(input: RunCreateInput): EstimateRequest {
+  const request: Partial<RunCreateInput> = { ...input };
+  delete request.name;
+  return request as EstimateRequest;
+}
 
 /** `Idempotency-Key` header: printable ASCII, at most 255 characters. */
 export const idempotencyKeySchema = z

@@ -23,7 +23,7 @@ import { deleteUnqueuedRun, insertRun } from "./mutations";
 import { plannedShots, previewOrThrow } from "./preview-run";
 import { findRunByIdempotencyKey } from "./queries";
 import { requestHash } from "./request-hash";
-import type { RunCreateInput } from "./schemas";
+import { engineRequestOf, type RunCreateInput } from "./schemas";
 
 export type SubmitResult = { run: Run; replayed: boolean };
 
@@ -58,7 +58,7 @@ export async function submitRun(
   idempotencyKey: string | null,
 ): Promise<SubmitResult> {
   await consume("run-submit", runSubmitBudget(), personKey(actor), "Too many runs submitted.");
-  const { name, ...request } = input;
+  const request = engineRequestOf(input);
   const hash = requestHash(input);
   if (idempotencyKey) {
     const existing = await findRunByIdempotencyKey(org.id, idempotencyKey);
@@ -72,7 +72,7 @@ export async function submitRun(
   const id = randomUUID();
   const run = await insertRun(org.id, {
     id,
-    name: name ?? defaultRunName(preview),
+    name: input.name ?? defaultRunName(preview),
     request,
     method: preview.method,
     qubits: preview.qubits,

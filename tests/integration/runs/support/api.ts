@@ -21,7 +21,11 @@ const ROUTES: { pattern: RegExp; template: string; load: () => Promise<Module> }
   { pattern: /^\/api\/v1\/openapi\.json$/, template: "/api/v1/openapi.json", load: () => import("@/app/api/v1/openapi.json/route") },
 ];
 
-export type ApiResponse = { status: number; headers: Headers; body: any; method: string; template: string };
+/** A JSON body as the tests read it (loosely typed on purpose: tests assert on its shape). */
+// eslint-disable-next-line @typescript-eslint/no-explicit-any
+export type Json = any;
+
+export type ApiResponse = { status: number; headers: Headers; body: Json; method: string; template: string };
 
 /** Every response this process has seen (for the OpenAPI contract check). */
 export const recorded: ApiResponse[] = [];
@@ -60,10 +64,10 @@ const TERMINAL = new Set(["succeeded", "failed", "canceled"]);
 export async function pollRun(
   key: string,
   id: string,
-  options: { timeoutMs?: number; until?: (run: any) => boolean; intervalMs?: number } = {},
-): Promise<any> {
+  options: { timeoutMs?: number; until?: (run: Json) => boolean; intervalMs?: number } = {},
+): Promise<Json> {
   const deadline = Date.now() + (options.timeoutMs ?? 30_000);
-  const until = options.until ?? ((run: any) => TERMINAL.has(run.status));
+  const until = options.until ?? ((run: Json) => TERMINAL.has(run.status));
   for (;;) {
     const res = await api("GET", `/api/v1/runs/${id}`, { key });
     if (res.status !== 200) throw new Error(`GET run ${id} answered ${res.status}: ${JSON.stringify(res.body)}`);

@@ -3,9 +3,9 @@ import { v1Route } from "@/lib/openapi/route";
 import { readJsonBody } from "@/lib/openapi/request";
 import { MAX_BODY_BYTES } from "@/lib/runs/limits";
 import { previewRun } from "@/lib/runs/preview-run";
-import { runCreateSchema } from "@/lib/runs/schemas";
+import { engineRequestOf, runCreateSchema } from "@/lib/runs/schemas";
 
 export const POST = v1Route(async (req, { org }) => {
-  const { name: _name, ...request } = await readJsonBody(req, runCreateSchema, MAX_BODY_BYTES);
-  return Response.json(await previewRun(org, request));
+  const input = await readJsonBody(req, runCreateSchema, MAX_BODY_BYTES);
+  return Response.json(await previewRun(org, engineRequestOf(input)));
 });
