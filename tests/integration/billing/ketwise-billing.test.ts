@@ -206,7 +206,7 @@ describe("overage and renewal", () => {
     expect((await org()).plan).toBe("lab");
     expect(await audits("billing.payment_failed")).toHaveLength(1);
     for (const email of [owner.user.email, admin.email]) {
-      const mail = await waitForMail(email, since);
+      const mail = await waitForMail(email, since, 20_000, /Payment failed/);
       expect(mail.subject).toMatch(/Payment failed/);
       expect(mail.text).toMatch(/past due/);
       expect(mail.text).toMatch(/\/invoice\//);
