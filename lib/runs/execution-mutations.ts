@@ -31,7 +31,9 @@ export type ClaimResult =
  *    the plan's `concurrentRuns` the claim is undone and the run waits. Two
  *    workers racing for the last slot may both back off; they retry after a
  *    short delay. A run already `running` is a re-delivery (crash, stall) and
- *    keeps its slot.
+ *    keeps its slot;
+ * 4. re-check that the claim still stands (a cancel may have landed between
+ *    2 and 3), so a run canceled before it started never reaches the engine.
  */
 export async function claimRun(orgId: string, runId: string): Promise<ClaimResult> {
   for (let tries = 0; tries < 3; tries++) {
@@ -65,6 +67,10 @@ export async function claimRun(orgId: string, runId: string): Promise<ClaimResul
         if (undone.affectedRows === 0) continue; // canceled meanwhile: read again
         return { kind: "busy", running: running - 1, limit: plan.limits.concurrentRuns };
       }
+      // A cancel between the compare-and-set and the count found the run
+      // "running" and ended it: it never started, so it is not ours to run.
+      const [still] = await db.select({ id: runs.id }).from(runs).where(current(orgId, runId, attempt));
+      if (!still) continue;
     }
     return { kind: "claimed", run: { ...run, status: "running", attempts: attempt, startedAt }, attempt, plan, redelivered };
   }
