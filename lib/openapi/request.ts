@@ -35,7 +35,14 @@ async function readText(req: Request, maxBytes: number): Promise<string> {
   const chunks: Uint8Array[] = [];
   let total = 0;
   for (;;) {
-    const { done, value } = await reader.read();
+    let step: ReadableStreamReadResult<Uint8Array>;
+    try {
+      step = await reader.read();
+    } catch {
+      // The client went away mid-body (e.g. a debounced preview it replaced).
+      throw badRequest("The request body ended early: the connection was closed before it was complete.");
+    }
+    const { done, value } = step;
     if (done) break;
     total += value.byteLength;
     if (total > maxBytes) {
