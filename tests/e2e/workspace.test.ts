@@ -196,6 +196,7 @@ describe("run workspace", () => {
 
   it("saves a noise profile for the organisation and finds it again after a reload", async () => {
     await page.goto(`${E2E_URL}/app/runs/new`);
+    await page.getByRole("button", { name: "Start over" }).click(); // the sweep left a draft
     await page.getByLabel("Add a noise model").check();
     await page.getByLabel("Start from a profile").selectOption({ label: "Light gate noise" });
     expect(await page.getByLabel(/Depolarizing, multi-qubit gates/).inputValue()).toBe("0.01");
