@@ -18,16 +18,23 @@ export const noiseProfiles = mysqlTable(
     orgId: varchar("org_id", { length: 36 })
       .notNull()
       .references(() => organizations.id, { onDelete: "cascade" }),
-    createdByUserId: varchar("created_by_user_id", { length: 36 }).references(() => users.id, { onDelete: "set null" }),
+    createdByUserId: varchar("created_by_user_id", { length: 36 }).references(() => users.id, {
+      onDelete: "set null",
+    }),
     name: varchar("name", { length: 80 }).notNull(),
     noise: jsonText<NoiseModel>("noise").notNull(),
-    createdAt: datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    createdAt: datetime("created_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
     updatedAt: datetime("updated_at", { mode: "date", fsp: 3 })
       .notNull()
       .default(sql`CURRENT_TIMESTAMP(3)`)
       .$onUpdate(() => new Date()),
   },
-  (t) => [uniqueIndex("noise_profiles_org_name").on(t.orgId, t.name), index("noise_profiles_org_updated").on(t.orgId, t.updatedAt)],
+  (t) => [
+    uniqueIndex("noise_profiles_org_name").on(t.orgId, t.name),
+    index("noise_profiles_org_updated").on(t.orgId, t.updatedAt),
+  ],
 );
 
 export type NoiseProfileRow = typeof noiseProfiles.$inferSelect;
