@@ -96,7 +96,7 @@ describe("Idempotency-Key", () => {
 
 describe("concurrency slots and cancellation", () => {
   it("runs one at a time on Sandbox, cancels a queued run at once and a running one within a second", async () => {
-    const long = await api("POST", "/api/v1/runs", { key, body: longRunRequest(40) });
+    const long = await api("POST", "/api/v1/runs", { key, body: longRunRequest(400) });
     expect(long.status, JSON.stringify(long.body)).toBe(202);
     await pollRun(key, long.body.id, { until: (r) => r.status === "running" && r.progress > 0, timeoutMs: 60_000 });
 

@@ -35,7 +35,7 @@ afterAll(async () => {
 
 describe("a worker killed mid-run", () => {
   it("leaves the run to another worker, which finishes it exactly once", async () => {
-    const request = longRunRequest(16);
+    const request = longRunRequest(64);
     const res = await api("POST", "/api/v1/runs", { key, body: request });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     const id = res.body.id;
