@@ -9,15 +9,14 @@ import { CircuitDiagram } from "@/components/circuit-diagram/circuit-diagram";
 import type { CircuitOutline } from "@/components/circuit-diagram/outline";
 import { CircuitPicker } from "@/components/library/library-picker";
 import { Alert } from "@/components/ui/alert";
-import { Button } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { CodeEditor } from "./code-editor";
 import type { ComposerValues } from "./composer-model";
-import { FileDropZone, UploadButton } from "./file-drop";
-import { IconBook } from "./icons";
+import { FileDropZone } from "./file-drop";
 import type { SourceIssue } from "./issue-ranges";
 import { IssueList } from "./issue-list";
 import { Segmented } from "./segmented";
+import { SourceToolbar } from "./source-toolbar";
 
 export function CircuitCard({
   issues,
@@ -54,44 +53,32 @@ export function CircuitCard({
         description="OpenQASM 2.0, or OpenQASM 3 with input parameters. Qubit 0 is drawn on top."
       />
       <CardBody className="grid gap-3">
-        <div className="flex flex-wrap items-center justify-between gap-2">
-          <Controller
-            control={control}
-            name="circuit.format"
-            render={({ field }) => (
-              <Segmented
-                legend="Language"
-                hideLegend
-                size="sm"
-                value={field.value}
-                onChange={field.onChange}
-                options={[
-                  { value: "qasm2", label: "OpenQASM 2.0" },
-                  { value: "qasm3", label: "OpenQASM 3" },
-                ]}
-              />
-            )}
-          />
-          {readOnly ? null : (
-            <div className="flex items-center gap-1">
-              <>
-                <Button
-                  variant="ghost"
+        <SourceToolbar
+          readOnly={readOnly}
+          slot="circuit"
+          onLibrary={() => setPicking(true)}
+          onLoad={(f) => load(f.text, `“${f.name}”`)}
+          onReject={(m) => setNotice({ tone: "error", text: m })}
+          formatSwitch={
+            <Controller
+              control={control}
+              name="circuit.format"
+              render={({ field }) => (
+                <Segmented
+                  legend="Language"
+                  hideLegend
                   size="sm"
-                  icon={<IconBook />}
-                  onClick={() => setPicking(true)}
-                >
-                  Library
-                </Button>
-                <UploadButton
-                  slot="circuit"
-                  onLoad={(f) => load(f.text, `“${f.name}”`)}
-                  onReject={(m) => setNotice({ tone: "error", text: m })}
+                  value={field.value}
+                  onChange={field.onChange}
+                  options={[
+                    { value: "qasm2", label: "OpenQASM 2.0" },
+                    { value: "qasm3", label: "OpenQASM 3" },
+                  ]}
                 />
-              </>
-            </div>
-          )}
-        </div>
+              )}
+            />
+          }
+        />
         <FileDropZone
           slot="circuit"
           onLoad={(f) => load(f.text, `“${f.name}”`)}

@@ -8,19 +8,18 @@ import { useState } from "react";
 import { Controller, useFormContext } from "react-hook-form";
 import { ObservablePicker } from "@/components/library/library-picker";
 import { Alert } from "@/components/ui/alert";
-import { Button } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Textarea } from "@/components/ui/textarea";
 import type { LibraryObservable } from "@/lib/swr/types";
 import { CodeEditor } from "./code-editor";
 import type { ComposerValues } from "./composer-model";
 import { extensionOf } from "./file-rules";
-import { FileDropZone, UploadButton, type LoadedFile } from "./file-drop";
-import { IconBook } from "./icons";
+import { FileDropZone, type LoadedFile } from "./file-drop";
 import type { SourceIssue } from "./issue-ranges";
 import { IssueList } from "./issue-list";
 import { formatQubitSet, pauliSupport } from "./pauli-support";
 import { Segmented } from "./segmented";
+import { SourceToolbar } from "./source-toolbar";
 
 export type ObservableSummary = { terms: number; settings: number } | null;
 
@@ -80,44 +79,32 @@ export function ObservableCard({
         description="A weighted Pauli sum such as 0.5 Z0 Z1 − 0.2 X0 (or dense words like XIZY), or a Hermitian matrix."
       />
       <CardBody className="grid gap-3">
-        <div className="flex flex-wrap items-center justify-between gap-2">
-          <Controller
-            control={control}
-            name="observable.format"
-            render={({ field }) => (
-              <Segmented
-                legend="Observable form"
-                hideLegend
-                size="sm"
-                value={field.value}
-                onChange={field.onChange}
-                options={[
-                  { value: "pauli", label: "Pauli sum" },
-                  { value: "matrix", label: "Matrix (JSON)" },
-                ]}
-              />
-            )}
-          />
-          {readOnly ? null : (
-            <div className="flex items-center gap-1">
-              <>
-                <Button
-                  variant="ghost"
+        <SourceToolbar
+          readOnly={readOnly}
+          slot="observable"
+          onLibrary={() => setPicking(true)}
+          onLoad={loadFile}
+          onReject={(m) => setNotice({ tone: "error", text: m })}
+          formatSwitch={
+            <Controller
+              control={control}
+              name="observable.format"
+              render={({ field }) => (
+                <Segmented
+                  legend="Observable form"
+                  hideLegend
                   size="sm"
-                  icon={<IconBook />}
-                  onClick={() => setPicking(true)}
-                >
-                  Library
-                </Button>
-                <UploadButton
-                  slot="observable"
-                  onLoad={loadFile}
-                  onReject={(m) => setNotice({ tone: "error", text: m })}
+                  value={field.value}
+                  onChange={field.onChange}
+                  options={[
+                    { value: "pauli", label: "Pauli sum" },
+                    { value: "matrix", label: "Matrix (JSON)" },
+                  ]}
                 />
-              </>
-            </div>
-          )}
-        </div>
+              )}
+            />
+          }
+        />
         <FileDropZone
           slot="observable"
           onLoad={loadFile}
