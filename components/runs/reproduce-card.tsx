@@ -1,6 +1,6 @@
 "use client";
 /** The reproduction snippets of a run in tabs (curl, Python, TypeScript). */
-import { useEffect, useState } from "react";
+import { useOrigin } from "@/lib/hooks/use-origin";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { CodeBlock } from "@/components/ui/code-block";
 import { Tabs } from "@/components/ui/tabs";
@@ -8,8 +8,7 @@ import type { Run } from "@/lib/swr/types";
 import { reproductionSnippets } from "./snippets";
 
 export function ReproduceCard({ run }: { run: Run }) {
-  const [origin, setOrigin] = useState("http://localhost:3000");
-  useEffect(() => setOrigin(window.location.origin), []);
+  const origin = useOrigin("http://localhost:3000");
   const body = { name: run.name, ...run.request, seed: run.seed };
   const s = reproductionSnippets(origin, body);
   return (

@@ -4,8 +4,8 @@
  * — every operation with its parameters, request fields, responses and examples in curl,
  * Python and TypeScript — plus the conventions that hold for all of them.
  */
-import { useEffect, useState } from "react";
 import useSWR from "swr";
+import { useOrigin } from "@/lib/hooks/use-origin";
 import { Alert } from "@/components/ui/alert";
 import { Badge } from "@/components/ui/badge";
 import { Card, CardBody } from "@/components/ui/card";
@@ -309,8 +309,7 @@ export function ApiDocs() {
       return res.json();
     },
   );
-  const [origin, setOrigin] = useState("");
-  useEffect(() => setOrigin(window.location.origin), []);
+  const origin = useOrigin();
   if (error)
     return (
       <Alert tone="error" role="alert" title="The API description could not be loaded">

@@ -32,6 +32,8 @@ export default async function MembersPage() {
   const isAdmin = roleAtLeast(access.role, "admin");
   const isOwner = access.role === "owner";
   const plan = getPlan(org.plan);
+  // A Server Component renders once per request, so reading the clock here is safe.
+  // eslint-disable-next-line react-hooks/purity
   const now = Date.now();
   // The last owner can be neither removed nor leave (transfer ownership first), so no button for them.
   const owners = members.filter((m) => m.role === "owner").length;
