@@ -11,6 +11,7 @@ import Stripe from "stripe";
 import { startPaymentFake, type RunningPaymentFake } from "@/docker/payment-fake/app";
 import { getPlan } from "@/lib/billing/plans";
 import { createStripe } from "@/lib/billing/stripe-client";
+import { fakeAdminClient, flushWebhooks } from "./fake-admin";
 
 export const API_KEY = "sk_test_ketwise_fake_tests";
 export const WEBHOOK_SECRET = "whsec_ketwise_fake_tests_secret";
@@ -107,25 +108,13 @@ export async function startHarness(opts: { dataFile?: string } = {}): Promise<Ha
     STRIPE_API_PROTOCOL: "http",
   });
   ref.stripe = stripe;
-  const admin = async (path: string, body?: Record<string, unknown>) => {
-    const res = await fetch(`${fake.url}${path}`, {
-      method: body === undefined ? "GET" : "POST",
-      headers: { Authorization: `Bearer ${API_KEY}`, "Content-Type": "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    });
-    const json = (await res.json()) as Record<string, unknown>;
-    if (!res.ok) throw new Error(`${path} → ${res.status} ${JSON.stringify(json)}`);
-    return json;
-  };
+  const admin = fakeAdminClient(fake.url, API_KEY);
   return {
     fake,
     stripe,
     receiver,
     admin,
-    async flush() {
-      const r = await admin("/_fake/webhooks/flush", { timeout_ms: 10_000 });
-      if (r.idle !== true) throw new Error(`webhooks still pending: ${JSON.stringify(r)}`);
-    },
+    flush: () => flushWebhooks(admin, 10_000),
     async close() {
       await fake.close();
       await receiver.stop();

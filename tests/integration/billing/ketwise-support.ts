@@ -9,6 +9,7 @@
 import { createServer, type IncomingMessage, type Server } from "node:http";
 import type { AddressInfo } from "node:net";
 import { startPaymentFake, type RunningPaymentFake } from "@/docker/payment-fake/app";
+import { fakeAdminClient, flushWebhooks } from "./fake-admin";
 
 export const TEST_API_KEY = "sk_test_ketwise_admin_billing";
 export const TEST_WEBHOOK_SECRET = "whsec_ketwise_admin_billing_secret";
@@ -65,25 +66,13 @@ export async function startBillingHarness(): Promise<BillingHarness> {
     STRIPE_API_PORT: String(fake.port),
     STRIPE_API_PROTOCOL: "http",
   });
-  const admin = async (path: string, body?: Record<string, unknown>) => {
-    const res = await fetch(`${fake.url}${path}`, {
-      method: body === undefined ? "GET" : "POST",
-      headers: { Authorization: `Bearer ${TEST_API_KEY}`, "Content-Type": "application/json" },
-      body: body === undefined ? undefined : JSON.stringify(body),
-    });
-    const json = (await res.json()) as Record<string, unknown>;
-    if (!res.ok) throw new Error(`${path} → ${res.status} ${JSON.stringify(json)}`);
-    return json;
-  };
+  const admin = fakeAdminClient(fake.url, TEST_API_KEY);
   return {
     fake,
     deliveries,
     admin,
     post,
-    async flush() {
-      const r = await admin("/_fake/webhooks/flush", { timeout_ms: 20_000 });
-      if (r.idle !== true) throw new Error(`webhooks still pending: ${JSON.stringify(r)}`);
-    },
+    flush: () => flushWebhooks(admin, 20_000),
     async close() {
       await fake.close();
       server.closeAllConnections();
