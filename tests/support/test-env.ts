@@ -14,5 +14,7 @@ if (!match) throw new Error(`DATABASE_URL is malformed: ${url.replace(/:[^:@/]*@
 const [, base, name, rest] = match;
 process.env.DATABASE_URL = `${base}${name.endsWith("_test") ? name : `${name}_test`}${rest}`;
 
+// KETWISE_TEST_REDIS_DB lets a second checkout run its tests beside this one (default 1).
 const redisPort = process.env.REDIS_PORT ?? "6380";
-process.env.REDIS_URL = `redis://127.0.0.1:${redisPort}/1`;
+const redisDb = process.env.KETWISE_TEST_REDIS_DB ?? "1";
+process.env.REDIS_URL = `redis://127.0.0.1:${redisPort}/${redisDb}`;
