@@ -4,6 +4,7 @@
  * first (so `qreg a[2]; qreg b[1];` gives a[0]=0, a[1]=1, b[0]=2); the same for bits.
  */
 import type { Operand, Pos } from "./ast";
+import { MAX_DENSITY_MATRIX_QUBITS, MAX_STATEVECTOR_QUBITS } from "../estimate/limits";
 import { circuitError, plural, semanticError } from "./circuit-errors";
 import { LIMITS } from "./program-ir";
 
@@ -40,13 +41,21 @@ export class RegisterTable {
       throw semanticError(`register '${name}' is already declared`, pos);
     }
     const n = size ?? 1;
-    if (n < 1 || !Number.isSafeInteger(n)) {
+    if (!(n >= 1)) {
       throw semanticError(`register '${name}' must have at least 1 ${quantum ? "qubit" : "bit"}`, sizePos ?? pos);
     }
-    const total = (quantum ? this.numQubits : this.numClbits) + n;
     const limit = quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
+    const what = quantum ? "qubits" : "classical bits";
+    if (!Number.isSafeInteger(n) || n > limit) {
+      // e.g. qreg q[1000000000000000000000000000000]: far too many, not "fewer than one"
+      const ceiling = quantum
+        ? ` (simulation handles at most ${MAX_STATEVECTOR_QUBITS} qubits with the statevector method, ${MAX_DENSITY_MATRIX_QUBITS} with the density matrix)`
+        : "";
+      const message = `register '${name}' declares ${n.toLocaleString("en-US")} ${what}: too many; a circuit may declare at most ${limit}${ceiling}`;
+      throw circuitError("too_large", message, sizePos ?? pos);
+    }
+    const total = (quantum ? this.numQubits : this.numClbits) + n;
     if (total > limit) {
-      const what = quantum ? "qubits" : "classical bits";
       throw circuitError("too_large", `the circuit declares ${total} ${what}; at most ${limit} are accepted`, pos);
     }
     const offset = quantum ? this.numQubits : this.numClbits;

@@ -2,7 +2,7 @@
  * Tokens of the Pauli-sum text (grammar below and in DEVELOPERS.md), built with chevrotain 11.
  *
  *   sum   := [sign] term (sign term)*          sign := "+" | "-" | "−" (U+2212)
- *   term  := coef [["*"] word] | word
+ *   term  := coef [["*"] factors] | factors      factors := word (["*"] word)*
  *   coef  := decimal or exponent number (e.g. 2, 0.5, .5, 1e-3, 2.5E+2)
  *   word  := sparse factors "X0 Y3 Z12" / "X0Y3", or one dense word "XIZY"
  *

@@ -3,12 +3,12 @@
  * `EngineError` ("observable_syntax" for the shape, "observable_invalid" for
  * meaning) with path ["observable","terms"], a line, a column and a specific message.
  */
-import type { IRecognitionException, IToken } from "chevrotain";
+import { tokenMatcher, type IRecognitionException, type IToken } from "chevrotain";
 import { EngineError, type EngineIssue } from "../errors";
 import type { PauliSum, PauliTerm } from "../types";
 import { MAX_PAULI_QUBIT_INDEX } from "./bits";
 import { pauliSumGrammar, type RawTerm } from "./pauli-grammar";
-import { BadWord, ImagNumber, Minus, NonFinite, Star, pauliLexer } from "./pauli-lexer";
+import { BadWord, Coefficient, ImagNumber, Minus, NonFinite, Star, pauliLexer } from "./pauli-lexer";
 import { masksToWord, setLetter, type PauliLetter } from "./pauli-word";
 
 /** Where a (combined) term was first written (its coefficient or word; the sign is not included). */
@@ -84,13 +84,18 @@ function describeSyntaxError(err: IRecognitionException, tokens: IToken[]): { me
   const line = atEnd ? (last?.endLine ?? 1) : (tok.startLine ?? 1);
   const column = atEnd ? (last?.endColumn ?? 0) + 1 : (tok.startColumn ?? 1);
   const found = atEnd ? "the end of the text" : `"${tok.image}"`;
+  // A "*" followed by a number: a second coefficient after a word ("X0 * 2", "0.5*Z0*0.3*Z1").
+  const star = tok.tokenType === Star ? tok : prev?.tokenType === Star ? prev : null;
+  const afterStar = star ? tokens[tokens.indexOf(star) + 1] : undefined;
+  if (star && afterStar && tokenMatcher(afterStar, Coefficient)) {
+    const before = tokens[tokens.indexOf(star) - 1];
+    const message = `unexpected "${star.image} ${afterStar.image}" after "${before?.image}": a term has one coefficient; put the coefficient before the Pauli word, e.g. "0.5 * X0 * Z1"`;
+    return { message, line: star.startLine ?? 1, column: star.startColumn ?? 1 };
+  }
   let message: string;
   if (err.name === "NotAllInputParsedException") {
-    message =
-      tok.tokenType === Star
-        ? `unexpected "${tok.image}" after "${prev?.image}": put the coefficient before the Pauli word, e.g. "0.5 * X0"`
-        : `missing "+" or "-" before "${tok.image}"`;
-  } else if (err.name === "EarlyExitException" && prev?.tokenType === Star) {
+    message = tok.tokenType === Star ? `expected a Pauli word after "${tok.image}", found ${afterStar ? `"${afterStar.image}"` : "the end of the text"}` : `missing "+" or "-" before "${tok.image}"`;
+  } else if (prev?.tokenType === Star) {
     message = `expected a Pauli word after "${prev.image}", found ${found}`;
   } else if (prev && (prev.tokenType.name === "Plus" || prev.tokenType === Minus)) {
     message = `expected a term after "${prev.image}", found ${found}`;

@@ -43,6 +43,9 @@ const CASES: Case[] = [
   ["qubit argument twice in a gate body", "qasm2", H2 + "gate g a, b { cx a, a; }\n", "qasm_semantic", "qubit argument 'a' used twice in one gate", 3, 21],
   ["other include file", "qasm2", H2 + 'include "other.inc";\n', "qasm_semantic", "cannot include 'other.inc': only \"qelib1.inc\" is available in OpenQASM 2.0 (no files are read)", 3, 1],
   ["empty register", "qasm2", H2 + "qreg q[0];\n", "qasm_semantic", "register 'q' must have at least 1 qubit", 3, 8],
+  // 10^30 written out: the real problem is "too many", not "fewer than one"
+  ["register of 10^30 qubits", "qasm2", H2 + "qreg q[1000000000000000000000000000000];\n", "too_large", "register 'q' declares 1,000,000,000,000,000,000,000,000,000,000 qubits: too many; a circuit may declare at most 1024 (simulation handles at most 26 qubits with the statevector method, 12 with the density matrix)", 3, 8],
+  ["OpenQASM 3 register of 10^30 qubits", "qasm3", H3 + "qubit[1000000000000000000000000000000] q;\n", "too_large", "register 'q' declares 1,000,000,000,000,000,000,000,000,000,000 qubits: too many; a circuit may declare at most 1024 (simulation handles at most 26 qubits with the statevector method, 12 with the density matrix)", 3, 7],
   ["OpenQASM 3 power operator in 2.0", "qasm2", H2 + "qreg q[1];\nrx(2**2) q[0];\n", "qasm_semantic", "'**' is not OpenQASM 2.0; use '^' for powers", 4, 4],
   ["OpenQASM 3 assignment in 2.0", "qasm2", H2 + "qreg q[1];\ncreg c[1];\nc = measure q;\n", "qasm_semantic", "'c = measure q;' is OpenQASM 3; in OpenQASM 2.0 write 'measure q -> c;'", 5, 1],
   ["version mismatch", "qasm2", "OPENQASM 3.0;\nqreg q[1];\n", "qasm_semantic", "this program declares OpenQASM 3.0; choose the qasm3 format", 1, 1],

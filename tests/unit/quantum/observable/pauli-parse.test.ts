@@ -49,6 +49,15 @@ describe("Pauli-sum syntax forms", () => {
     expect(words("X0 + -0.5 Z1 - -2 Z0")).toEqual([[1, "XI"], [-0.5, "IZ"], [2, "ZI"]]);
   });
 
+  it("'*' between factors, as written in papers and notes (e.g. H = −J Σ Z_i*Z_{i+1} − h Σ X_i)", () => {
+    expect(words("0.5*Z0*Z1")).toEqual([[0.5, "ZZ"]]);
+    expect(words("0.5 * X0 * Y2")).toEqual([[0.5, "XIY"]]);
+    expect(words("-1.0*Z0*Z1 - 0.5*X0 + Z1*X2")).toEqual([[-1, "ZZI"], [-0.5, "XII"], [1, "IZX"]]);
+    expect(words("2 \u00d7 X0 \u00b7 Z1")).toEqual([[2, "XZ"]]);
+    // the same operator as the space-separated text
+    expect(parsePauliSum("0.25*X0*Y1*Z3 - 0.1*Z2").terms).toEqual(parsePauliSum("0.25 X0 Y1 Z3 - 0.1 Z2").terms);
+  });
+
   it("a bare number is a multiple of the identity; 'I' alone is the identity", () => {
     expect(words("1.5")).toEqual([[1.5, ""]]);
     expect(words("I")).toEqual([[1, ""]]);
@@ -103,6 +112,13 @@ describe("Pauli-sum errors: code, path, line, column, message", () => {
     ["(X0)", "observable_syntax", 1, 1, /unexpected character "\(" \(parentheses are not supported/],
     ["Z0 @ X1", "observable_syntax", 1, 4, 'unexpected character "@"'],
     ["X40", "observable_invalid", 1, 1, /qubit index 40 is too large/],
+    // with '*' between factors the message still names the real problem
+    ["0.5*Z0*", "observable_syntax", 1, 8, 'expected a Pauli word after "*", found the end of the text'],
+    ["0.5*Z0*z1", "observable_invalid", 1, 8, 'Pauli letters are upper-case (X, Y, Z, I): write "Z1" instead of "z1"'],
+    ["0.5*Z0*Z0", "observable_invalid", 1, 8, /qubit 0 appears twice in one Pauli word/],
+    ["0.5*Z0*0.3*Z1", "observable_syntax", 1, 7, /a term has one coefficient; put the coefficient before the Pauli word/],
+    ["0.5*Z0*+Z1", "observable_syntax", 1, 8, 'expected a Pauli word after "*", found "+"'],
+    ["0.5*Z0*Z1j", "observable_invalid", 1, 8, /unknown word "Z1j"/],
   ];
   it.each(cases)("%j", (text, code, line, column, message) => {
     const e = errorOf(text);
