@@ -4,6 +4,7 @@
  */
 export { estimate, type EstimateOptions } from "./estimate/estimate";
 export { previewRequest } from "./estimate/preview";
+export { DEFAULT_PREVIEW_WORK_BUDGET, type PreviewOptions } from "./estimate/preview-plan";
 export * from "./estimate/limits";
 export {
   estimateRequestSchema,

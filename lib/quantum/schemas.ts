@@ -215,14 +215,25 @@ export const previewResultSchema = z
     groups: z.array(z.object({ bases: z.string(), terms: z.array(z.int()) })),
     stateBytes: z.number().describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
     sweepPoints: z.int(),
-    shots: z.int().describe("Shots per sweep point (planned from targetPrecision when given)"),
-    totalShots: z.int().describe("Shots over all sweep points"),
+    shots: z.int().describe("Shots per sweep point (planned from targetPrecision when given; the largest over the points when their plans differ)"),
+    totalShots: z.int().describe("Shots over all sweep points: what the quota check reserves"),
     shotPlan: shotPlanSchema.nullable(),
     shotsPerSetting: z.array(z.int()).nullable(),
     pauliDecomposition: pauliDecompositionSchema.optional(),
-    varianceSource: z.enum(["worst_case"]).describe("Preview plans from worst-case bounds; runs use the state's variances"),
+    varianceSource: z
+      .enum(["state_aware", "worst_case"])
+      .describe(
+        'What the targetPrecision plan used: "state_aware" = the state\'s exact variances (the state was simulated within the preview\'s work budget; the run draws exactly these shots) or "worst_case" = variance bounds valid for any state (the run plans from the exact variances and usually draws fewer). Without targetPrecision: "worst_case" (only the per-setting split shown)',
+      ),
+    planWork: z
+      .object({
+        estimated: z.number().describe("Amplitude updates a state-aware plan needs (simulating every point)"),
+        budget: z.number().describe("The preview's budget for it"),
+      })
+      .nullable()
+      .describe("With targetPrecision: the work a state-aware plan costs against the budget (which decided varianceSource)"),
     notes: z.array(z.string()),
   })
-  .describe("Cheap preview of a run: no simulation");
+  .describe("Preview of a run: parse, counts, settings and the shot plan (state-aware within a work budget)");
 
 export type PreviewResult = z.infer<typeof previewResultSchema>;

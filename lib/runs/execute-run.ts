@@ -102,6 +102,7 @@ export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger,
       simulateMs: result.timings.simulateMs,
       sampleMs: result.timings.sampleMs,
     },
+    shotsDrawn: shotsDrawn(result),
     usage: { runs: 1, shots: shotsDrawn(result), simulationSeconds: seconds },
   });
   if (!done) {

@@ -100,6 +100,8 @@ export type RunFinish = {
   result?: Record<string, unknown>;
   error?: StoredProblem;
   timings?: { parseMs: number; simulateMs: number; sampleMs: number };
+  /** Shots the engine drew (succeeded runs): shown beside the planned shots, and billed. */
+  shotsDrawn?: number;
   usage: RunUsage;
 };
 
@@ -119,6 +121,7 @@ export async function finishRun(orgId: string, runId: string, attempt: number, f
         result: finish.result ?? null,
         error: finish.error ?? null,
         finishedAt,
+        ...(finish.shotsDrawn !== undefined ? { shotsDrawn: finish.shotsDrawn } : {}),
         ...(finish.timings ?? {}),
       })
       .where(current(orgId, runId, attempt));

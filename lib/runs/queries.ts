@@ -49,6 +49,8 @@ const summaryColumns = {
   method: runs.method,
   qubits: runs.qubits,
   shots: runs.shots,
+  shotsPlan: runs.shotsPlan,
+  shotsDrawn: runs.shotsDrawn,
   seed: runs.seed,
   status: runs.status,
   progress: runs.progress,

@@ -14,6 +14,8 @@ type Common = Pick<
   | "method"
   | "qubits"
   | "shots"
+  | "shotsPlan"
+  | "shotsDrawn"
   | "seed"
   | "createdByUserId"
   | "createdByApiKeyId"
@@ -39,6 +41,8 @@ function common(row: Common) {
     method: row.method,
     qubits: row.qubits,
     shots: row.shots,
+    shotsPlan: row.shotsPlan,
+    shotsDrawn: row.shotsDrawn,
     seed: row.seed,
     createdBy: row.createdByApiKeyId
       ? { type: "api_key" as const, id: row.createdByApiKeyId }

@@ -20,7 +20,7 @@ import { consume } from "@/lib/rate-limit";
 import { assertAllowed, quotaVerdict } from "@/lib/usage/quotas";
 import { runSubmitBudget } from "./limits";
 import { deleteUnqueuedRun, insertRun } from "./mutations";
-import { plannedShots, previewOrThrow } from "./preview-run";
+import { plannedShots, previewOrThrow, shotPlanSource } from "./preview-run";
 import { findRunByIdempotencyKey } from "./queries";
 import { requestHash } from "./request-hash";
 import { engineRequestOf, type RunCreateInput } from "./schemas";
@@ -77,6 +77,7 @@ export async function submitRun(
     method: preview.method,
     qubits: preview.qubits,
     shots,
+    shotsPlan: shotPlanSource(preview),
     seed: request.seed ?? randomInt(0, MAX_SEED + 1),
     idempotencyKey,
     requestHash: hash,

@@ -1,25 +1,28 @@
 /**
- * `previewRequest(request)` — the cheap, synchronous preview a request handler may
- * compute (POST /api/v1/runs/preview): validation, qubit count, gate counts and depth, the
- * measurement settings and a shot plan. No state is simulated: exact variances would
- * need the state, so the plan uses the worst-case bounds — Σ_{i∈g}|c_i| per Pauli
- * setting, the Gershgorin row-sum bound for a matrix — and says so. The same errors
- * as `estimate` are thrown for the same bad input.
+ * `previewRequest(request, { workBudget })` — the synchronous preview computed at
+ * submission (POST /api/v1/runs, POST /api/v1/runs/preview): validation, qubit count, gate
+ * counts and depth, the measurement settings and the shot plan. For `targetPrecision`
+ * the plan is state-aware when simulating every point fits `workBudget` amplitude
+ * updates (preview-plan.ts: then the planned shots are exactly what the run draws), and
+ * otherwise the worst-case bound — Σ_{i∈g}|c_i| per Pauli setting, the Gershgorin
+ * row-sum bound for a matrix; `varianceSource` says which. A precision no plan reaches
+ * within MAX_SHOTS is refused ("infeasible"). The same errors as `estimate` are thrown
+ * for the same bad input. Callers run it off the request thread (it may simulate).
  */
 import { circuitStats, parseProgram } from "../circuit";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
-import { allocateShots, planShots } from "../planning/shot-plan";
+import { allocateShots } from "../planning/shot-plan";
 import { gershgorinBound } from "../sampling/sample-observable";
 import type { PreviewResult } from "../schemas";
 import { assertNoMidCircuitMeasurement } from "../statevector/simulate";
 import { EngineError } from "../errors";
 import { checkQubitLimit } from "./estimate";
-import { MAX_SHOTS } from "./limits";
+import { planPreviewShots, type PreviewOptions } from "./preview-plan";
 import { parseObservableForCircuit } from "./prepare-observable";
 import { sweepGrid } from "./sweep-grid";
 import { validateRequest } from "./validate-request";
 
-export function previewRequest(request: unknown): PreviewResult {
+export function previewRequest(request: unknown, options: PreviewOptions = {}): PreviewResult {
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
@@ -39,14 +42,23 @@ export function previewRequest(request: unknown): PreviewResult {
   let shotPlan: PreviewResult["shotPlan"] = null;
   let shots = req.shots;
   let perSetting: number[] | null = null;
+  let varianceSource: PreviewResult["varianceSource"] = "worst_case";
+  let totalShots = shots * grid.points.length;
+  let planWork: PreviewResult["planWork"] = null;
   if (req.targetPrecision !== null) {
-    shotPlan = planShots({ targetPrecision: req.targetPrecision, stdDevBounds: bounds, stdDevs: null });
-    shots = shotPlan.worstCase.totalShots;
-    perSetting = shotPlan.worstCase.perSetting;
+    const circuits = (k: number) => (k === 0 ? circuit : program.bind(grid.points[k]));
+    const planned = planPreviewShots({ ...req, targetPrecision: req.targetPrecision }, circuits, grid.points.length, obs, bounds, stats.totalGates, options);
+    shotPlan = planned.plan;
+    varianceSource = planned.source;
+    planWork = planned.work;
+    shots = Math.max(...planned.pointShots);
+    totalShots = planned.pointShots.reduce((a, b) => a + b, 0);
+    perSetting = (planned.plan.stateAware ?? planned.plan.worstCase).perSetting;
     notes.push(
-      "The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016); the run computes the state's exact variances and usually needs fewer shots.",
+      planned.source === "state_aware"
+        ? "The shot plan uses the state's exact variances ((Σ_g √Var_g)²/ε², McClean et al. 2016): these are the shots the run will draw."
+        : `The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016): simulating the state for an exact plan would take about ${planned.work.estimated.toExponential(1)} amplitude updates, over the preview's budget of ${planned.work.budget.toExponential(1)}. The run plans from the state's exact variances and usually draws fewer shots; quota is reserved for the bound and billed for the shots drawn.`,
     );
-    if (shots > MAX_SHOTS) notes.push(`The worst-case plan exceeds the limit of ${MAX_SHOTS} shots; the state-aware plan of the run may still fit.`);
   } else if (shots > 0) {
     if (shots < groups.length) {
       const message = `at least one shot per measurement setting is needed: ${groups.length} settings need shots ≥ ${groups.length}`;
@@ -71,11 +83,12 @@ export function previewRequest(request: unknown): PreviewResult {
     stateBytes: req.method === "statevector" ? 16 * 2 ** n : 16 * 4 ** n,
     sweepPoints: grid.points.length,
     shots,
-    totalShots: shots * grid.points.length,
+    totalShots,
     shotPlan,
     shotsPerSetting: perSetting,
     ...(decomposition ? { pauliDecomposition: decomposition } : {}),
-    varianceSource: "worst_case",
+    varianceSource,
+    planWork,
     notes,
   };
 }

@@ -1,7 +1,8 @@
 /**
  * Request validation: the zod schema first (issues → EngineError "invalid_request" with
  * their paths), then the checks that need no parsing: method limits, gate noise only
- * with the density-matrix method. Defaults are applied here (statevector, 0 shots).
+ * with the density-matrix method, readout mitigation only with an invertible
+ * assignment matrix (p1Given0 + p0Given1 < 1). Defaults are applied here (statevector, 0 shots).
  */
 import { EngineError, type EngineIssue } from "../errors";
 import { hasStateNoise } from "../noise/validate";
@@ -40,6 +41,17 @@ export function validateRequest(request: unknown): NormalisedRequest {
     const field = (["depolarizing1q", "depolarizing2q", "amplitudeDamping", "phaseDamping"] as const).find((f) => (raw.noise?.[f] ?? 0) > 0)!;
     const message = `noise.${field} acts on the state and needs method "density_matrix" (the statevector method supports readout error only)`;
     throw new EngineError("unsupported", message, [{ path: ["noise", field], message }]);
+  }
+  const e0 = raw.noise?.readout?.p1Given0 ?? 0;
+  const e1 = raw.noise?.readout?.p0Given1 ?? 0;
+  if (raw.mitigateReadout && e0 + e1 >= 1 - 1e-9) {
+    // A = [[1−e0, e1], [e0, 1−e1]] has determinant 1 − e0 − e1 (readout.ts)
+    const why = Math.abs(e0 + e1 - 1) <= 1e-9 ? "= 1: the assignment matrix is singular and the readout carries no information" : "> 1: the readout is more often wrong than right and the assignment matrix inverts the outcomes";
+    const message = `readout mitigation needs p1Given0 + p0Given1 < 1; here ${e0} + ${e1} ${why}`;
+    throw new EngineError("infeasible", message, [
+      { path: ["mitigateReadout"], message },
+      { path: ["noise", "readout", "p0Given1"], message },
+    ]);
   }
   return {
     raw,

@@ -10,6 +10,9 @@
  * uses Var ≤ ‖H‖² ≤ (max_i Σ_j |H_ij|)² (Gershgorin row-sum bound).
  */
 
+import { EngineError } from "../errors";
+import { MAX_SHOTS } from "../estimate/limits";
+
 export interface SettingPlan {
   /** Per-setting shots, in setting order. */
   perSetting: number[];
@@ -60,4 +63,28 @@ export function allocateShots(total: number, weights: number[]): number[] {
   const order = exact.map((x, i) => i).sort((a, b) => exact[b] - Math.floor(exact[b]) - (exact[a] - Math.floor(exact[a])) || a - b);
   for (let k = 0; left > 0; k = (k + 1) % g, left--) out[order[k]]++;
   return out;
+}
+
+/**
+ * Shots a plan needs, as text, even when the count overflows a double (ε = 1e-300):
+ * N = (Σ_g w_g)²/ε² taken in log space beyond 10^15.
+ */
+export function shotsNeededText(stdDevs: number[], epsilon: number): string {
+  const w = stdDevs.reduce((a, b) => a + b, 0);
+  const log10 = 2 * Math.log10(w) - 2 * Math.log10(epsilon);
+  if (log10 < 15) return Math.ceil((w * w) / (epsilon * epsilon)).toLocaleString("en-US");
+  const exponent = Math.floor(log10);
+  return `about ${(10 ** (log10 - exponent)).toFixed(1)}×10^${exponent}`;
+}
+
+/**
+ * The refusal of a target precision no plan can reach within MAX_SHOTS (422 at submission):
+ * names the shots it would need and what was used to plan them.
+ */
+export function unreachablePrecision(epsilon: number, stdDevs: number[], basis: "state" | "worst_case" = "state"): EngineError {
+  const how = basis === "state" ? "from the state's exact variances" : "from worst-case variance bounds (the state was too large to simulate for the plan)";
+  const message =
+    `a standard error of ${epsilon} needs ${shotsNeededText(stdDevs, epsilon)} shots (${how}), ` +
+    `more than the limit of ${MAX_SHOTS.toLocaleString("en-US")} per run; loosen targetPrecision or give shots`;
+  return new EngineError("infeasible", message, [{ path: ["targetPrecision"], message }]);
 }

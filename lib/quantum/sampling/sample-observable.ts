@@ -16,7 +16,7 @@ import type { MeasurementSetting } from "../observable/grouping";
 import type { HermitianEigen } from "../observable/hermitian-eigen";
 import type { HermitianMatrix } from "../observable/matrix-observable";
 import { pauliSettingVariance, varianceFromLaw } from "../planning/exact-variance";
-import { allocateShots, planShots, type ShotPlan } from "../planning/shot-plan";
+import { allocateShots, planShots, unreachablePrecision, type ShotPlan } from "../planning/shot-plan";
 import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { rotateStateCopy, stateProbabilities } from "./basis-rotation";
 import { rotatedDensityDiagonal } from "./density-diagonal";
@@ -77,7 +77,7 @@ export interface SamplingOutcome {
   plan: ShotPlan | null;
 }
 
-interface Spec {
+export interface Spec {
   bases: string;
   termIndices: number[];
   model: SettingModel;
@@ -94,7 +94,8 @@ function lawOf(prepared: PreparedState, bases: string, readout: Readout): Float6
   return p;
 }
 
-function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: SamplingOptions): Spec[] {
+/** One spec per measurement setting: its outcome law (lazy), value model and worst-case bound. */
+export function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: Pick<SamplingOptions, "readout" | "mitigate">): Spec[] {
   const mitigation = opts.mitigate ? mitigationFactors(opts.readout) : null;
   if (obs.kind === "matrix") {
     const model = eigenbasisSettingModel(obs.eigen.values, mitigation);
@@ -113,6 +114,11 @@ function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: Samp
     stdDevBound: s.terms.reduce((a, i) => a + Math.abs(obs.sum.terms[i].coefficient), 0),
     law: () => lawOf(prepared, s.bases, opts.readout),
   }));
+}
+
+/** Exact single-shot variance of a setting from its outcome law (readout included). */
+export function settingVariance(spec: Spec, p: Float64Array, obs: PreparedObservable): number {
+  return obs.kind === "pauli" ? pauliSettingVariance(p, obs.sum, spec.termIndices, spec.model) : varianceFromLaw(p, (b) => spec.model.value(b));
 }
 
 /** ‖H‖ ≤ max_i Σ_j |H_ij| (Gershgorin), a bound on the single-shot standard deviation. */
@@ -146,9 +152,7 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
       const spec = specs[k];
       const p = spec.law();
       cache?.set(k, p);
-      variances.push(
-        obs.kind === "pauli" ? pauliSettingVariance(p, obs.sum, spec.termIndices, spec.model) : varianceFromLaw(p, (b) => spec.model.value(b)),
-      );
+      variances.push(settingVariance(spec, p, obs));
       await step((0.2 * (k + 1)) / g);
     }
   }
@@ -158,9 +162,7 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
     plan = planShots({ targetPrecision: opts.targetPrecision, stdDevBounds: specs.map((s) => s.stdDevBound), stdDevs: variances!.map(Math.sqrt) });
     perSetting = plan.stateAware!.perSetting;
     const total = plan.stateAware!.totalShots;
-    if (total > MAX_SHOTS) {
-      shotsError(`reaching a standard error of ${opts.targetPrecision} needs ${total} shots, more than the limit of ${MAX_SHOTS}; loosen targetPrecision`, "targetPrecision");
-    }
+    if (!(total <= MAX_SHOTS)) throw unreachablePrecision(opts.targetPrecision, variances!.map(Math.sqrt));
   } else {
     const total = opts.shots ?? 0;
     if (total < g) shotsError(`at least one shot per measurement setting is needed: ${g} settings need shots ≥ ${g}`, "shots");

@@ -1,4 +1,7 @@
-/** previewRequest: cheap figures without simulation; same errors as estimate. */
+/**
+ * previewRequest: counts and settings without simulation, the shot plan for a target
+ * precision (worst case when the state is over the work budget); same errors as estimate.
+ */
 import { describe, expect, it } from "vitest";
 import { EngineError, estimateRequestSchema, previewRequest, previewResultSchema } from "@/lib/quantum";
 
@@ -6,8 +9,8 @@ const source = 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[3];\ncreg c[3];\nh 
 const base = { circuit: { format: "qasm2" as const, source }, observable: { format: "pauli" as const, terms: "Z0 Z1 + 0.5 X0 X1 X2 - 0.2 Y2 + 3" } };
 
 describe("previewRequest", () => {
-  it("gate counts, depth, settings, worst-case shot plan for a target (McClean et al. 2016)", () => {
-    const p = previewRequest({ ...base, targetPrecision: 0.01 });
+  it("gate counts, depth, settings, worst-case shot plan for a target when simulation is over budget (McClean et al. 2016)", () => {
+    const p = previewRequest({ ...base, targetPrecision: 0.01 }, { workBudget: 0 });
     expect(() => previewResultSchema.parse(p)).not.toThrow();
     expect(p).toMatchObject({ qubits: 3, gateCounts: { h: 1, cx: 1, ccx: 1 }, totalGates: 3, twoQubitGates: 2, depth: 4, sweepPoints: 1 });
     expect(p.groups.map((g) => g.bases)).toEqual(["ZZY", "XXX"]);
@@ -35,7 +38,7 @@ describe("previewRequest", () => {
 
   it("matrix observables: one eigenbasis setting, Gershgorin bound", () => {
     const q = 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[1];\nh q[0];\n';
-    const p = previewRequest({ circuit: { format: "qasm2", source: q }, observable: { format: "matrix", real: [[1, 0.5], [0.5, -1]] }, targetPrecision: 0.1 });
+    const p = previewRequest({ circuit: { format: "qasm2", source: q }, observable: { format: "matrix", real: [[1, 0.5], [0.5, -1]] }, targetPrecision: 0.1 }, { workBudget: 0 });
     expect(p.groups).toEqual([{ bases: "eigenbasis", terms: [] }]);
     // max row sum 1.5 → 1.5² / 0.01 = 225
     expect(p.shots).toBe(225);
