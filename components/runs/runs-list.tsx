@@ -19,7 +19,7 @@ import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useDebounced } from "@/lib/swr/use-debounced";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunStatus } from "@/lib/swr/types";
-import { METHOD_LABEL, formatAgo } from "./run-meta";
+import { METHOD_LABEL, formatAgo, shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
 
@@ -247,7 +247,7 @@ export function RunsList() {
                 </TD>
                 <TD className="text-[12.5px] whitespace-nowrap text-ink-2">{METHOD_LABEL[r.method]}</TD>
                 <TD numeric>{r.qubits}</TD>
-                <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
+                <TD numeric title={shotsText(r).long}>{shotsText(r).short}</TD>
                 <TD numeric>
                   <RunValueCell run={r} />
                 </TD>

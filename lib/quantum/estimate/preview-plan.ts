@@ -15,7 +15,12 @@
 import { simulateDensityMatrix } from "../density-matrix/simulate";
 import { hermitianEigen } from "../observable/hermitian-eigen";
 import { planShots, unreachablePrecision, type ShotPlan } from "../planning/shot-plan";
-import { buildSpecs, settingVariance, type PreparedObservable, type PreparedState } from "../sampling/sample-observable";
+import {
+  buildSpecs,
+  settingVariance,
+  type PreparedObservable,
+  type PreparedState,
+} from "../sampling/sample-observable";
 import { simulateStatevector } from "../statevector/simulate";
 import type { Circuit } from "../types";
 import { MAX_SHOTS } from "./limits";
@@ -40,9 +45,19 @@ export interface PreviewPlan {
   work: { estimated: number; budget: number };
 }
 
-export function stateWork(n: number, method: NormalisedRequest["method"], gates: number, settings: number, points: number, matrix: boolean): number {
+export function stateWork(
+  n: number,
+  method: NormalisedRequest["method"],
+  gates: number,
+  settings: number,
+  points: number,
+  matrix: boolean,
+): number {
   const dim = 2 ** n;
-  const perPoint = method === "statevector" ? Math.max(1, gates) * dim + settings * (n + 1) * dim : 2 * Math.max(1, gates) * dim * dim + settings * dim * dim;
+  const perPoint =
+    method === "statevector"
+      ? Math.max(1, gates) * dim + settings * (n + 1) * dim
+      : 2 * Math.max(1, gates) * dim * dim + settings * dim * dim;
   return points * perPoint + (matrix ? dim ** 3 : 0);
 }
 
@@ -63,10 +78,17 @@ export function planPreviewShots(
   const work = { estimated, budget };
   if (estimated > budget) {
     const plan = planShots({ targetPrecision: eps, stdDevBounds: bounds, stdDevs: null });
-    if (!(plan.worstCase.totalShots <= MAX_SHOTS)) throw unreachablePrecision(eps, bounds, "worst_case");
-    return { source: "worst_case", plan, pointShots: new Array<number>(points).fill(plan.worstCase.totalShots), work };
+    if (!(plan.worstCase.totalShots <= MAX_SHOTS))
+      throw unreachablePrecision(eps, bounds, "worst_case");
+    return {
+      source: "worst_case",
+      plan,
+      pointShots: new Array<number>(points).fill(plan.worstCase.totalShots),
+      work,
+    };
   }
-  const prepared: PreparedObservable = obs.kind === "matrix" ? { ...obs, eigen: hermitianEigen(obs.matrix) } : obs;
+  const prepared: PreparedObservable =
+    obs.kind === "matrix" ? { ...obs, eigen: hermitianEigen(obs.matrix) } : obs;
   const pointShots: number[] = [];
   let first: ShotPlan | null = null;
   for (let k = 0; k < points; k++) {
@@ -78,7 +100,8 @@ export function planPreviewShots(
     const specs = buildSpecs(state, prepared, { readout: req.readout, mitigate: req.mitigate });
     const stdDevs = specs.map((spec) => Math.sqrt(settingVariance(spec, spec.law(), prepared)));
     const plan = planShots({ targetPrecision: eps, stdDevBounds: bounds, stdDevs });
-    if (!(plan.stateAware!.totalShots <= MAX_SHOTS)) throw unreachablePrecision(eps, stdDevs, "state");
+    if (!(plan.stateAware!.totalShots <= MAX_SHOTS))
+      throw unreachablePrecision(eps, stdDevs, "state");
     first ??= plan;
     pointShots.push(plan.stateAware!.totalShots);
   }

@@ -31,7 +31,10 @@ export interface ShotPlan {
 /** N_g = ⌈w_g · W / ε²⌉ (≥ 1) for weights w_g = standard deviations (or their bounds), W = Σ w. */
 export function planFromStdDevs(stdDevs: number[], epsilon: number): SettingPlan {
   const total = stdDevs.reduce((a, b) => a + b, 0);
-  const perSetting = stdDevs.map((w) => Math.max(1, Math.ceil((w * total) / (epsilon * epsilon) - 1e-9)));
+  const eps2 = epsilon * epsilon;
+  // ε² underflows to 0 for ε ≲ 1e-162: divide by ε twice instead (a zero variance still needs 1 shot)
+  const need = (w: number) => (w === 0 ? 0 : eps2 > 0 ? (w * total) / eps2 : (w / epsilon) * (total / epsilon));
+  const perSetting = stdDevs.map((w) => Math.max(1, Math.ceil(need(w) - 1e-9)));
   return { perSetting, totalShots: perSetting.reduce((a, b) => a + b, 0) };
 }
 
@@ -71,6 +74,7 @@ export function allocateShots(total: number, weights: number[]): number[] {
  */
 export function shotsNeededText(stdDevs: number[], epsilon: number): string {
   const w = stdDevs.reduce((a, b) => a + b, 0);
+  if (w === 0) return String(stdDevs.length);
   const log10 = 2 * Math.log10(w) - 2 * Math.log10(epsilon);
   if (log10 < 15) return Math.ceil((w * w) / (epsilon * epsilon)).toLocaleString("en-US");
   const exponent = Math.floor(log10);

@@ -10,7 +10,8 @@ import { describe, expect, it } from "vitest";
 import { EngineError, estimate, previewRequest, previewResultSchema } from "@/lib/quantum";
 import { engineProblem } from "@/lib/runs/problems";
 
-const qasm2 = (n: number, body: string) => `OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[${n}];\n${body}\n`;
+const qasm2 = (n: number, body: string) =>
+  `OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[${n}];\n${body}\n`;
 const SRC = qasm2(3, "ry(0.8) q[0];\ncx q[0],q[1];\nrx(0.3) q[2];\ncz q[1],q[2];");
 const PAULI = { format: "pauli" as const, terms: "0.7 Z0 Z1 - 0.4 X1 + 0.25 Y0 Y2 + 0.1 Z2" };
 
@@ -26,14 +27,26 @@ function engineError(f: () => unknown): EngineError {
 
 describe("state-aware preview plan = the shots the run draws", () => {
   const cases = [
-    { name: "Pauli sum, statevector", req: { circuit: { format: "qasm2" as const, source: SRC }, observable: PAULI, targetPrecision: 0.02, seed: 5 } },
+    {
+      name: "Pauli sum, statevector",
+      req: {
+        circuit: { format: "qasm2" as const, source: SRC },
+        observable: PAULI,
+        targetPrecision: 0.02,
+        seed: 5,
+      },
+    },
     {
       name: "density matrix with noise, readout and mitigation",
       req: {
         circuit: { format: "qasm2" as const, source: SRC },
         observable: PAULI,
         method: "density_matrix" as const,
-        noise: { depolarizing1q: 0.01, depolarizing2q: 0.03, readout: { p1Given0: 0.02, p0Given1: 0.05 } },
+        noise: {
+          depolarizing1q: 0.01,
+          depolarizing2q: 0.03,
+          readout: { p1Given0: 0.02, p0Given1: 0.05 },
+        },
         mitigateReadout: true,
         targetPrecision: 0.03,
         seed: 6,
@@ -41,7 +54,20 @@ describe("state-aware preview plan = the shots the run draws", () => {
     },
     {
       name: "matrix observable (eigenbasis)",
-      req: { circuit: { format: "qasm2" as const, source: qasm2(2, "h q[0];\nry(0.4) q[1];") }, observable: { format: "matrix" as const, real: [[1, 0.5, 0, 0], [0.5, -1, 0, 0.2], [0, 0, 0.3, 0], [0, 0.2, 0, 2]] }, targetPrecision: 0.01, seed: 7 },
+      req: {
+        circuit: { format: "qasm2" as const, source: qasm2(2, "h q[0];\nry(0.4) q[1];") },
+        observable: {
+          format: "matrix" as const,
+          real: [
+            [1, 0.5, 0, 0],
+            [0.5, -1, 0, 0.2],
+            [0, 0, 0.3, 0],
+            [0, 0.2, 0, 2],
+          ],
+        },
+        targetPrecision: 0.01,
+        seed: 7,
+      },
     },
   ];
   it.each(cases)("$name", async ({ req }) => {
@@ -58,8 +84,15 @@ describe("state-aware preview plan = the shots the run draws", () => {
   });
 
   it("a sweep plans every point: the total equals the shots drawn over the grid", async () => {
-    const src = 'OPENQASM 3.0;\ninclude "stdgates.inc";\ninput float[64] t;\nqubit[2] q;\nry(t) q[0];\ncx q[0], q[1];\n';
-    const req = { circuit: { format: "qasm3" as const, source: src }, observable: { format: "pauli" as const, terms: "Z0 Z1 + 0.5 X0" }, sweep: { t: [0.1, 0.9, 1.7] }, targetPrecision: 0.05, seed: 3 };
+    const src =
+      'OPENQASM 3.0;\ninclude "stdgates.inc";\ninput float[64] t;\nqubit[2] q;\nry(t) q[0];\ncx q[0], q[1];\n';
+    const req = {
+      circuit: { format: "qasm3" as const, source: src },
+      observable: { format: "pauli" as const, terms: "Z0 Z1 + 0.5 X0" },
+      sweep: { t: [0.1, 0.9, 1.7] },
+      targetPrecision: 0.05,
+      seed: 3,
+    };
     const p = previewRequest(req);
     const r = await estimate(req);
     expect(p.varianceSource).toBe("state_aware");
@@ -84,13 +117,19 @@ describe("refused at submission, with the shots it would need", () => {
     const e = engineError(() => previewRequest({ ...cases0(), targetPrecision: 1e-300 }));
     expect(e.code).toBe("infeasible");
     expect(e.issues[0].path).toEqual(["targetPrecision"]);
-    expect(e.message).toMatch(/needs about \d\.\d×10\^(599|600|601) shots \(from the state's exact variances\), more than the limit of 100,000,000 per run/);
+    expect(e.message).toMatch(
+      /needs about \d\.\d×10\^(599|600|601) shots \(from the state's exact variances\), more than the limit of 100,000,000 per run/,
+    );
     expect(engineProblem(e).status).toBe(422);
   });
 
   it("a state-aware plan above the engine's cap is refused with its exact count; the worker would refuse the same", async () => {
     // ⟨X⟩ on |0⟩: Var = 1, N = 1/ε²; ε = 5e-5 → 400,000,000 > 10^8
-    const req = { circuit: { format: "qasm2" as const, source: qasm2(1, "id q[0];") }, observable: { format: "pauli" as const, terms: "X0" }, targetPrecision: 5e-5 };
+    const req = {
+      circuit: { format: "qasm2" as const, source: qasm2(1, "id q[0];") },
+      observable: { format: "pauli" as const, terms: "X0" },
+      targetPrecision: 5e-5,
+    };
     const e = engineError(() => previewRequest(req));
     expect(e.message).toMatch(/needs 400,000,000 shots/);
     await expect(estimate(req)).rejects.toMatchObject({ code: "infeasible" });
@@ -100,24 +139,53 @@ describe("refused at submission, with the shots it would need", () => {
   });
 
   it("an eigenstate needs one shot per setting, however small the target", () => {
-    const p = previewRequest({ circuit: { format: "qasm2", source: qasm2(2, "x q[1];") }, observable: { format: "pauli", terms: "Z0 + 2 Z1" }, targetPrecision: 1e-9 });
+    const p = previewRequest({
+      circuit: { format: "qasm2", source: qasm2(2, "x q[1];") },
+      observable: { format: "pauli", terms: "Z0 + 2 Z1" },
+      targetPrecision: 1e-9,
+    });
     expect(p.totalShots).toBe(1);
   });
 
   it("readout mitigation with p1Given0 + p0Given1 ≥ 1 (singular or inverting assignment matrix) is refused", async () => {
     const base = { ...cases0(), shots: 1000, mitigateReadout: true };
-    for (const readout of [{ p1Given0: 0.5, p0Given1: 0.5 }, { p1Given0: 0.7, p0Given1: 0.6 }]) {
+    for (const readout of [
+      { p1Given0: 0.5, p0Given1: 0.5 },
+      { p1Given0: 0.7, p0Given1: 0.6 },
+    ]) {
       const e = engineError(() => previewRequest({ ...base, noise: { readout } }));
       expect(e.code).toBe("infeasible");
-      expect(e.issues.map((i) => i.path.join("."))).toEqual(["mitigateReadout", "noise.readout.p0Given1"]);
+      expect(e.issues.map((i) => i.path.join("."))).toEqual([
+        "mitigateReadout",
+        "noise.readout.p0Given1",
+      ]);
       expect(e.message).toMatch(/readout mitigation needs p1Given0 \+ p0Given1 < 1/);
-      await expect(estimate({ ...base, noise: { readout } })).rejects.toMatchObject({ code: "infeasible" });
+      await expect(estimate({ ...base, noise: { readout } })).rejects.toMatchObject({
+        code: "infeasible",
+      });
     }
     // without mitigation the same readout error is a valid (if useless) model
-    expect(() => previewRequest({ ...base, mitigateReadout: false, noise: { readout: { p1Given0: 0.5, p0Given1: 0.5 } } })).not.toThrow();
+    expect(() =>
+      previewRequest({
+        ...base,
+        mitigateReadout: false,
+        noise: { readout: { p1Given0: 0.5, p0Given1: 0.5 } },
+      }),
+    ).not.toThrow();
   });
 });
 
 function cases0() {
   return { circuit: { format: "qasm2" as const, source: SRC }, observable: PAULI };
 }
+
+describe("ε² underflow", () => {
+  it("a zero-variance setting needs one shot even for ε = 1e-300 (no 0/0)", () => {
+    const p = previewRequest({
+      circuit: { format: "qasm2", source: qasm2(2, "h q[0];\ncx q[0],q[1];") },
+      observable: { format: "pauli", terms: "Z0 Z1 + X0 X1" },
+      targetPrecision: 1e-300,
+    });
+    expect(p.shotsPerSetting).toEqual([1, 1]);
+  });
+});
