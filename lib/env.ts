@@ -48,6 +48,14 @@ export const envSchema = z.object({
   RUN_SUBMIT_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(60),
   /** Queued + running runs an organisation may hold before submissions answer 429. */
   RUNS_MAX_UNFINISHED: z.coerce.number().int().min(1).default(100),
+  /** Bearer token for GET /api/metrics and the worker's /metrics; unset = metrics endpoints off. */
+  METRICS_TOKEN: z.string().min(16, "must be at least 16 characters").optional(),
+  /** Port of the worker's /health + /metrics server; unset = no server. */
+  WORKER_METRICS_PORT: port.optional(),
+  /** Address the worker's /health + /metrics server binds (default 127.0.0.1). */
+  WORKER_METRICS_HOST: z.string().default("127.0.0.1"),
+  /** Log threshold of the JSON logs (pino). */
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
 });
 
 export type Env = z.infer<typeof envSchema>;

@@ -5,6 +5,7 @@
  */
 import "server-only";
 import { Queue } from "bullmq";
+import { currentRequestId } from "@/lib/observability/logger";
 import { JOB_ATTEMPTS, JOB_BACKOFF, JOB_SCHEMAS, RUNS_QUEUE, type JobName, type JobPayload } from "./jobs";
 import { producerConnection, queuePrefix } from "./connection";
 
@@ -48,7 +49,8 @@ export async function enqueue<N extends JobName>(
   payload: JobPayload<N>,
   options: { jobId: string; delayMs?: number },
 ): Promise<void> {
-  const data = JOB_SCHEMAS[name].parse(payload);
+  const requestId = payload.requestId ?? currentRequestId();
+  const data = JOB_SCHEMAS[name].parse(requestId ? { ...payload, requestId } : payload);
   try {
     await withTimeout(
       getRunsQueue().add(name, data, {

@@ -10,6 +10,7 @@
 import "server-only";
 import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
+import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
 
 export type Budget = { points: number; duration: number };
@@ -50,6 +51,7 @@ export async function consume(name: string, budget: Budget, key: string, message
     await limiter(name, budget).consume(key);
   } catch (error) {
     if (error instanceof RateLimiterRes) {
+      metrics().rateLimitRefusals.inc({ budget: name });
       const seconds = Math.ceil(error.msBeforeNext / 1000);
       const wait = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
       throw tooManyRequests(`${message} Try again in ${wait}.`, seconds);
