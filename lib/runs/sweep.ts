@@ -3,7 +3,8 @@
  * enqueue, Redis data loss, a final failure that could not be written).
  * Maintenance across organisations — only the worker's sweeper calls it.
  *
- * - queued for over a minute with no job in the queue → enqueued again;
+ * - queued for over RUN_QUEUED_GRACE_SECONDS (default 60) with no job in the
+ *   queue → enqueued again;
  * - running past its plan's time limit + 2 minutes with no active job →
  *   failed with a clear problem.
  */
@@ -12,11 +13,11 @@ import { and, eq, inArray, lt, or } from "drizzle-orm";
 import { db } from "@/db";
 import { organizations, runs } from "@/db/schema";
 import { getPlan, isPlanId } from "@/lib/billing/plans";
+import { env } from "@/lib/env";
 import { enqueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { failUnfinishedRun } from "./execution-mutations";
 import { infrastructureProblem } from "./problems";
 
-const QUEUED_GRACE_MS = 60_000;
 const RUNNING_GRACE_MS = 120_000;
 
 export async function sweepOrphanRuns(now = new Date()): Promise<{ requeued: number; failed: number }> {
@@ -27,7 +28,7 @@ export async function sweepOrphanRuns(now = new Date()): Promise<{ requeued: num
     .innerJoin(organizations, eq(organizations.id, runs.orgId))
     .where(
       or(
-        and(eq(runs.status, "queued"), lt(runs.queuedAt, new Date(now.getTime() - QUEUED_GRACE_MS))),
+        and(eq(runs.status, "queued"), lt(runs.queuedAt, new Date(now.getTime() - env.RUN_QUEUED_GRACE_SECONDS * 1000))),
         and(inArray(runs.status, ["running"]), lt(runs.startedAt, new Date(now.getTime() - RUNNING_GRACE_MS))),
       ),
     )
