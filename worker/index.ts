@@ -19,7 +19,12 @@ import { closeDb } from "@/db";
 import { env } from "@/lib/env";
 import { queuePrefix, workerConnection } from "@/lib/queue/connection";
 import { closeQueue } from "@/lib/queue/enqueue";
-import { LOCK_DURATION_MS, MAX_STALLED_COUNT, RUNS_QUEUE, STALLED_INTERVAL_MS } from "@/lib/queue/jobs";
+import {
+  LOCK_DURATION_MS,
+  MAX_STALLED_COUNT,
+  RUNS_QUEUE,
+  STALLED_INTERVAL_MS,
+} from "@/lib/queue/jobs";
 import { EnginePool } from "./engine-pool";
 import { failRunAfterRetries } from "./give-up";
 import { rootLogger } from "@/lib/observability/logger";
@@ -40,14 +45,18 @@ async function main(): Promise<void> {
   await pool.start();
   const registry = buildRegistry({ engine: meteredEngine(pool) });
 
-  const worker = new Worker(RUNS_QUEUE, (job: Job, token?: string) => dispatch(registry, job, token), {
-    connection: workerConnection(),
-    prefix: queuePrefix(),
-    concurrency,
-    lockDuration: LOCK_DURATION_MS,
-    stalledInterval: STALLED_INTERVAL_MS,
-    maxStalledCount: MAX_STALLED_COUNT,
-  });
+  const worker = new Worker(
+    RUNS_QUEUE,
+    (job: Job, token?: string) => dispatch(registry, job, token),
+    {
+      connection: workerConnection(),
+      prefix: queuePrefix(),
+      concurrency,
+      lockDuration: LOCK_DURATION_MS,
+      stalledInterval: STALLED_INTERVAL_MS,
+      maxStalledCount: MAX_STALLED_COUNT,
+    },
+  );
   worker.on("error", (error) => log("queue connection error", error));
   worker.on("failed", (job, error) => {
     if (!job) return;
@@ -61,8 +70,13 @@ async function main(): Promise<void> {
   const metricsServer =
     env.WORKER_METRICS_PORT === undefined
       ? null
-      : startMetricsServer(env.WORKER_METRICS_PORT, env.WORKER_METRICS_HOST, { busyRatio: () => pool.busyRatio(), stopping: () => stopping });
-  log(`ready: ${concurrency} engine thread(s), queue "${queuePrefix()}:${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`);
+      : startMetricsServer(env.WORKER_METRICS_PORT, env.WORKER_METRICS_HOST, {
+          busyRatio: () => pool.busyRatio(),
+          stopping: () => stopping,
+        });
+  log(
+    `ready: ${concurrency} engine thread(s), queue "${queuePrefix()}:${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`,
+  );
 
   const shutdown = async (signal: string) => {
     if (stopping) return;
@@ -70,9 +84,12 @@ async function main(): Promise<void> {
     log(`${signal}: finishing active jobs (up to ${SHUTDOWN_GRACE_MS / 1000} s)`);
     sweeper.stop();
     overage.stop();
-    const grace = new Promise<"timeout">((resolve) => setTimeout(() => resolve("timeout"), SHUTDOWN_GRACE_MS).unref());
+    const grace = new Promise<"timeout">((resolve) =>
+      setTimeout(() => resolve("timeout"), SHUTDOWN_GRACE_MS).unref(),
+    );
     const outcome = await Promise.race([worker.close().then(() => "closed" as const), grace]);
-    if (outcome === "timeout") log("grace period over; unfinished jobs will be recovered by another worker");
+    if (outcome === "timeout")
+      log("grace period over; unfinished jobs will be recovered by another worker");
     await pool.close();
     metricsServer?.close();
     await Promise.allSettled([closeQueue(), closeDb()]);

@@ -8,7 +8,11 @@ import { createServer, type Server } from "node:http";
 import { metricsTokenMatches } from "@/lib/observability/metrics-token";
 import { metrics } from "@/lib/observability/metrics";
 
-export function startMetricsServer(port: number, host: string, state: { busyRatio: () => number; stopping: () => boolean }): Server {
+export function startMetricsServer(
+  port: number,
+  host: string,
+  state: { busyRatio: () => number; stopping: () => boolean },
+): Server {
   const server = createServer((req, res) => {
     void (async () => {
       const path = (req.url ?? "/").split("?")[0];
@@ -21,7 +25,14 @@ export function startMetricsServer(port: number, host: string, state: { busyRati
       if (path === "/metrics") {
         if (!metricsTokenMatches(req.headers.authorization ?? null)) {
           res.writeHead(401, { "content-type": "application/problem+json" });
-          res.end(JSON.stringify({ type: "/problems/unauthorized", title: "Unauthorized", status: 401, detail: "Send the metrics token as `Authorization: Bearer …`." }));
+          res.end(
+            JSON.stringify({
+              type: "/problems/unauthorized",
+              title: "Unauthorized",
+              status: 401,
+              detail: "Send the metrics token as `Authorization: Bearer …`.",
+            }),
+          );
           return;
         }
         const m = metrics();

@@ -48,7 +48,11 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
 }
 
 /** Validates and dispatches one job. */
-export async function dispatch(registry: Registry, job: Job, token: string | undefined): Promise<unknown> {
+export async function dispatch(
+  registry: Registry,
+  job: Job,
+  token: string | undefined,
+): Promise<unknown> {
   const entry = registry[job.name as JobName] as Entry<JobName> | undefined;
   if (!entry) {
     log(`dropping job ${job.id}: unknown job name "${job.name}"`);
@@ -56,7 +60,9 @@ export async function dispatch(registry: Registry, job: Job, token: string | und
   }
   const parsed = entry.schema.safeParse(job.data);
   if (!parsed.success) {
-    log(`dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`);
+    log(
+      `dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`,
+    );
     return "dropped";
   }
   const { requestId, orgId } = parsed.data;

@@ -10,7 +10,8 @@ export function startSweeper(): { stop: () => void } {
     busy = true;
     try {
       const { requeued, failed } = await sweepOrphanRuns();
-      if (requeued || failed) log(`sweeper: ${requeued} run(s) re-queued, ${failed} lost run(s) failed`);
+      if (requeued || failed)
+        log(`sweeper: ${requeued} run(s) re-queued, ${failed} lost run(s) failed`);
     } catch (error) {
       log("sweeper pass failed", error);
     } finally {

@@ -20,15 +20,22 @@ function withHeader(res: Response, name: string, value: string): Response {
   }
 }
 
-export async function observeRequest(req: Request, run: () => Promise<Response>): Promise<Response> {
+export async function observeRequest(
+  req: Request,
+  run: () => Promise<Response>,
+): Promise<Response> {
   const requestId = requestIdFrom(req.headers.get("x-request-id"));
   const started = performance.now();
   const route = routeLabel(new URL(req.url).pathname);
   return withLogContext({ requestId }, async () => {
     const res = await run();
     const seconds = (performance.now() - started) / 1000;
-    metrics().httpDuration.observe({ route, method: req.method, status: `${Math.floor(res.status / 100)}xx` }, seconds);
-    if (res.status >= 500) logger().error({ route, method: req.method, status: res.status, seconds }, "request failed");
+    metrics().httpDuration.observe(
+      { route, method: req.method, status: `${Math.floor(res.status / 100)}xx` },
+      seconds,
+    );
+    if (res.status >= 500)
+      logger().error({ route, method: req.method, status: res.status, seconds }, "request failed");
     else logger().debug({ route, method: req.method, status: res.status, seconds }, "request");
     return withHeader(res, "X-Request-Id", requestId);
   });

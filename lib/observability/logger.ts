@@ -17,10 +17,13 @@ const context = new AsyncLocalStorage<LogContext>();
 type Holder = { root?: Logger };
 const holder = ((globalThis as { __ketwiseLogger?: Holder }).__ketwiseLogger ??= {});
 
-
 /** The process's root logger; `service` names the process kind. */
 export function rootLogger(service: "app" | "worker" = "app"): Logger {
-  holder.root ??= pino({ level: env.LOG_LEVEL, base: { service, pid: process.pid }, timestamp: pino.stdTimeFunctions.isoTime });
+  holder.root ??= pino({
+    level: env.LOG_LEVEL,
+    base: { service, pid: process.pid },
+    timestamp: pino.stdTimeFunctions.isoTime,
+  });
   return holder.root;
 }
 

@@ -10,7 +10,8 @@
 import { Counter, Gauge, Histogram, Registry, collectDefaultMetrics } from "prom-client";
 
 type Metrics = ReturnType<typeof create>;
-const holder = ((globalThis as { __ketwiseMetrics?: { metrics?: Metrics } }).__ketwiseMetrics ??= {});
+const holder = ((globalThis as { __ketwiseMetrics?: { metrics?: Metrics } }).__ketwiseMetrics ??=
+  {});
 
 function create() {
   const registry = new Registry();

@@ -13,9 +13,13 @@ import { idempotencyKeySchema } from "@/lib/runs/schemas";
 
 type Handler<P> = (req: Request, ctx: OrgContext<P>) => Promise<Response> | Response;
 
-export function v1Route<P = Record<string, string>>(handler: Handler<P>, options: { role?: Role } = {}) {
+export function v1Route<P = Record<string, string>>(
+  handler: Handler<P>,
+  options: { role?: Role } = {},
+) {
   const inner = withOrg<P>(handler, { role: options.role ?? "viewer" });
-  return (req: Request, route?: { params: Promise<P> }): Promise<Response> => observeRequest(req, () => inner(req, route));
+  return (req: Request, route?: { params: Promise<P> }): Promise<Response> =>
+    observeRequest(req, () => inner(req, route));
 }
 
 /** The `Idempotency-Key` header, validated; null when absent. */

@@ -18,12 +18,19 @@ async function timed(probe: () => Promise<string>): Promise<Check> {
   let timer: NodeJS.Timeout | undefined;
   try {
     const timeout = new Promise<never>((_, reject) => {
-      timer = setTimeout(() => reject(new Error(`no answer within ${PROBE_TIMEOUT_MS} ms`)), PROBE_TIMEOUT_MS);
+      timer = setTimeout(
+        () => reject(new Error(`no answer within ${PROBE_TIMEOUT_MS} ms`)),
+        PROBE_TIMEOUT_MS,
+      );
     });
     const detail = await Promise.race([probe(), timeout]);
     return { ok: true, detail, ms: Math.round(performance.now() - started) };
   } catch (error) {
-    return { ok: false, detail: error instanceof Error ? error.message : String(error), ms: Math.round(performance.now() - started) };
+    return {
+      ok: false,
+      detail: error instanceof Error ? error.message : String(error),
+      ms: Math.round(performance.now() - started),
+    };
   } finally {
     clearTimeout(timer);
   }
@@ -41,9 +48,12 @@ export function checkDatabase(): Promise<Check> {
 
 export function checkMigrations(): Promise<Check> {
   return timed(async () => {
-    const [rows] = (await db.execute(sql`select max(created_at) as latest from __drizzle_migrations`)) as unknown as [{ latest: string | number | null }[]];
+    const [rows] = (await db.execute(
+      sql`select max(created_at) as latest from __drizzle_migrations`,
+    )) as unknown as [{ latest: string | number | null }[]];
     const applied = Number(rows[0]?.latest ?? 0);
-    if (applied < LATEST_MIGRATION.when) throw new Error(`migration ${LATEST_MIGRATION.tag} is not applied yet`);
+    if (applied < LATEST_MIGRATION.when)
+      throw new Error(`migration ${LATEST_MIGRATION.tag} is not applied yet`);
     return `current (${LATEST_MIGRATION.tag})`;
   });
 }

@@ -46,7 +46,12 @@ function limiter(name: string, budget: Budget): RateLimiterRedis {
  * Spends one point of `name`'s budget for `key`; throws 429 when spent out.
  * `message` is the user-facing detail; the wait is appended in minutes/seconds.
  */
-export async function consume(name: string, budget: Budget, key: string, message: string): Promise<void> {
+export async function consume(
+  name: string,
+  budget: Budget,
+  key: string,
+  message: string,
+): Promise<void> {
   try {
     await limiter(name, budget).consume(key);
   } catch (error) {

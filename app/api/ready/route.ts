@@ -8,7 +8,11 @@ import { checkDatabase, checkMigrations, checkRedis } from "@/lib/ops/queries";
 export const dynamic = "force-dynamic";
 
 export async function GET(): Promise<Response> {
-  const [database, migrations, redis] = await Promise.all([checkDatabase(), checkMigrations(), checkRedis()]);
+  const [database, migrations, redis] = await Promise.all([
+    checkDatabase(),
+    checkMigrations(),
+    checkRedis(),
+  ]);
   const checks = { database, migrations, redis };
   const failing = Object.entries(checks).filter(([, c]) => !c.ok);
   const headers = { "cache-control": "no-store" };

@@ -34,7 +34,11 @@ afterAll(async () => {
 });
 
 const scrape = (authorization?: string) =>
-  metricsRoute(new Request("http://localhost/api/metrics", { headers: authorization ? { authorization } : {} }));
+  metricsRoute(
+    new Request("http://localhost/api/metrics", {
+      headers: authorization ? { authorization } : {},
+    }),
+  );
 
 describe("health and readiness", () => {
   it("answers liveness without touching dependencies", async () => {
@@ -68,8 +72,12 @@ describe("metrics", () => {
     expect(res.status).toBe(200);
     expect(res.headers.get("content-type")).toMatch(/^text\/plain/);
     const text = await res.text();
-    expect(text).toMatch(/ketwise_http_request_duration_seconds_count\{route="\/api\/v1\/runs\/:id",method="GET",status="2xx"\} [1-9]/);
-    expect(text).toMatch(/ketwise_http_request_duration_seconds_count\{route="\/api\/v1\/runs",method="POST",status="2xx"\} [1-9]/);
+    expect(text).toMatch(
+      /ketwise_http_request_duration_seconds_count\{route="\/api\/v1\/runs\/:id",method="GET",status="2xx"\} [1-9]/,
+    );
+    expect(text).toMatch(
+      /ketwise_http_request_duration_seconds_count\{route="\/api\/v1\/runs",method="POST",status="2xx"\} [1-9]/,
+    );
     expect(text).toMatch(/ketwise_queue_jobs\{state="waiting"\} \d+/);
     expect(text).toContain("ketwise_queue_oldest_waiting_seconds");
     expect(text).toContain("ketwise_rate_limit_refusals_total");
@@ -79,7 +87,11 @@ describe("metrics", () => {
 describe("request ids", () => {
   it("echoes a safe client id, replaces an unsafe one, and carries it into the queued job", async () => {
     const mine = "trace-0123456789abcdef";
-    const res = await api("POST", "/api/v1/runs", { key, body: bellRequest(), headers: { "x-request-id": mine } });
+    const res = await api("POST", "/api/v1/runs", {
+      key,
+      body: bellRequest(),
+      headers: { "x-request-id": mine },
+    });
     expect(res.status).toBe(202);
     expect(res.headers.get("x-request-id")).toBe(mine);
     const job = await getRunsQueue().getJob(res.body.id);

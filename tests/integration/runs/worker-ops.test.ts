@@ -36,7 +36,10 @@ beforeAll(async () => {
   org = await createUserWithOrg("worker-ops");
   key = (await createTestApiKey(org.orgId, "member", org.user.id)).key;
   port = await freePort();
-  worker = await startWorker({ concurrency: 1, env: { WORKER_METRICS_PORT: String(port), METRICS_TOKEN: TOKEN } });
+  worker = await startWorker({
+    concurrency: 1,
+    env: { WORKER_METRICS_PORT: String(port), METRICS_TOKEN: TOKEN },
+  });
 });
 
 afterAll(async () => {
@@ -48,13 +51,19 @@ afterAll(async () => {
 });
 
 const get = (path: string, token?: string) =>
-  fetch(`http://127.0.0.1:${port}${path}`, { headers: token ? { authorization: `Bearer ${token}` } : {} });
+  fetch(`http://127.0.0.1:${port}${path}`, {
+    headers: token ? { authorization: `Bearer ${token}` } : {},
+  });
 
 describe("worker operations", () => {
   it("runs a job with the request id in its log lines and counts it in the metrics", async () => {
     expect((await get("/health")).status).toBe(200);
     const requestId = "worker-ops-trace-42";
-    const res = await api("POST", "/api/v1/runs", { key, body: bellRequest(), headers: { "x-request-id": requestId } });
+    const res = await api("POST", "/api/v1/runs", {
+      key,
+      body: bellRequest(),
+      headers: { "x-request-id": requestId },
+    });
     expect(res.status).toBe(202);
     const run = await pollRun(key, res.body.id);
     expect(run.status).toBe("succeeded");
@@ -66,19 +75,27 @@ describe("worker operations", () => {
       .map((l) => JSON.parse(l) as Record<string, unknown>);
     const jobLines = lines.filter((l) => l.runId === res.body.id);
     expect(jobLines.length).toBeGreaterThan(0);
-    expect(jobLines.every((l) => l.requestId === requestId && l.service === "worker" && l.orgId === org.orgId)).toBe(true);
+    expect(
+      jobLines.every(
+        (l) => l.requestId === requestId && l.service === "worker" && l.orgId === org.orgId,
+      ),
+    ).toBe(true);
 
     expect((await get("/metrics")).status).toBe(401);
     const scraped = await get("/metrics", TOKEN);
     expect(scraped.status).toBe(200);
     const text = await scraped.text();
     expect(text).toMatch(/ketwise_engine_seconds_total\{method="statevector"\} \d/);
-    expect(text).toMatch(/ketwise_run_duration_seconds_count\{method="statevector",size="le8",outcome="result"\} 1/);
+    expect(text).toMatch(
+      /ketwise_run_duration_seconds_count\{method="statevector",size="le8",outcome="result"\} 1/,
+    );
     expect(text).toMatch(/ketwise_worker_busy_ratio \d/);
   });
 
   it("exits cleanly on SIGTERM, closing its metrics server", async () => {
-    const exited = new Promise<number | null>((resolve) => worker.child.once("exit", (code) => resolve(code)));
+    const exited = new Promise<number | null>((resolve) =>
+      worker.child.once("exit", (code) => resolve(code)),
+    );
     worker.child.kill("SIGTERM");
     expect(await exited).toBe(0);
     expect(worker.output()).toContain('"msg":"stopped"');

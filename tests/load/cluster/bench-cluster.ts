@@ -48,7 +48,11 @@ function check(name: string, ok: boolean, detail: string): void {
 }
 
 const smallRun = (seed: number) => ({
-  circuit: { format: "qasm2", source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[4];\nh q[0];\ncx q[0],q[1];\ncx q[1],q[2];\nrx(0.3) q[3];\n' },
+  circuit: {
+    format: "qasm2",
+    source:
+      'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[4];\nh q[0];\ncx q[0],q[1];\ncx q[1],q[2];\nrx(0.3) q[3];\n',
+  },
   observable: { format: "pauli", terms: "Z0 Z1 + 0.5 X2 + 0.25 Z3" },
   shots: 200,
   seed,
@@ -56,7 +60,12 @@ const smallRun = (seed: number) => ({
 
 /** Several seconds of engine work on one core: a noisy 8-qubit density-matrix sweep. */
 function longRun(points: number) {
-  const lines = ["OPENQASM 3.0;", 'include "stdgates.inc";', "input float[64] theta;", "qubit[8] q;"];
+  const lines = [
+    "OPENQASM 3.0;",
+    'include "stdgates.inc";',
+    "input float[64] theta;",
+    "qubit[8] q;",
+  ];
   for (let layer = 0; layer < 6; layer++) {
     for (let i = 0; i < 8; i++) lines.push(`ry(theta) q[${i}];`);
     for (let i = 0; i < 7; i++) lines.push(`cx q[${i}], q[${i + 1}];`);
@@ -71,7 +80,8 @@ function longRun(points: number) {
 }
 
 async function main(): Promise<number> {
-  if (process.getuid?.() !== 0) throw new Error("bench:cluster needs root (it creates network namespaces)");
+  if (process.getuid?.() !== 0)
+    throw new Error("bench:cluster needs root (it creates network namespaces)");
   const data = host("data", 10);
   const app = host("app", 20);
   const w1 = host("w1", 31);
@@ -124,7 +134,9 @@ async function main(): Promise<number> {
     const batch: Submitted[] = [];
     for (let i = 0; i < THROUGHPUT_RUNS; i += 8) {
       const part = await Promise.all(
-        Array.from({ length: Math.min(8, THROUGHPUT_RUNS - i) }, (_, j) => client.submit(`${label}-${i + j}`, smallRun(i + j), label)),
+        Array.from({ length: Math.min(8, THROUGHPUT_RUNS - i) }, (_, j) =>
+          client.submit(`${label}-${i + j}`, smallRun(i + j), label),
+        ),
       );
       batch.push(...part);
     }
@@ -146,7 +158,9 @@ async function main(): Promise<number> {
   const tp2 = await throughput("tp2");
   log(`throughput, 2 worker hosts: ${tp2.toFixed(1)} runs/s (ratio ${(tp2 / tp1).toFixed(2)})`);
 
-  const bg = backgroundLoad(client, BACKGROUND_CLIENTS, BACKGROUND_EVERY_MS, (i) => smallRun(1000 + i));
+  const bg = backgroundLoad(client, BACKGROUND_CLIENTS, BACKGROUND_EVERY_MS, (i) =>
+    smallRun(1000 + i),
+  );
   const recovery: Record<string, number> = {};
   const probe = async (label: string, t0: number) => {
     const s = await client.submit(`probe-${label}`, smallRun(7), "probe", 90_000);
@@ -155,31 +169,50 @@ async function main(): Promise<number> {
     return { ok: row?.status === "succeeded", ms: Date.now() - t0 };
   };
   const longPair = async (label: string) => {
-    const pair = await Promise.all([client.submit(`${label}-a`, longRun(400), "long"), client.submit(`${label}-b`, longRun(400), "long")]);
+    const pair = await Promise.all([
+      client.submit(`${label}-a`, longRun(400), "long"),
+      client.submit(`${label}-b`, longRun(400), "long"),
+    ]);
     all.push(...pair);
-    const rows = await Promise.all(pair.map((s) => waitRun(s.runId, (st) => st !== "queued", 30_000)));
+    const rows = await Promise.all(
+      pair.map((s) => waitRun(s.runId, (st) => st !== "queued", 30_000)),
+    );
     return { pair, bothRunning: rows.every((r) => r?.status === "running") };
   };
 
   // 1. Partition a worker host for longer than its job lock.
   {
     const { pair, bothRunning } = await longPair("partition");
-    check("partition: both worker hosts hold a long run when the link goes down", bothRunning, bothRunning ? "yes" : "not both running");
+    check(
+      "partition: both worker hosts hold a long run when the link goes down",
+      bothRunning,
+      bothRunning ? "yes" : "not both running",
+    );
     const t0 = Date.now();
     setLink(w1, false);
     await sleep(PARTITION_MS);
     setLink(w1, true);
-    const rows = await Promise.all(pair.map((s) => waitRun(s.runId, (st) => st === "succeeded", 90_000)));
+    const rows = await Promise.all(
+      pair.map((s) => waitRun(s.runId, (st) => st === "succeeded", 90_000)),
+    );
     recovery.partition = Date.now() - t0;
     const moved = rows.find((r) => (r?.attempts ?? 0) >= 2);
-    check("partition: the cut-off host's run finished on the other host", rows.every((r) => r?.status === "succeeded") && moved !== undefined, rows.map((r) => `${r?.status}/attempt ${r?.attempts}`).join(", "));
+    check(
+      "partition: the cut-off host's run finished on the other host",
+      rows.every((r) => r?.status === "succeeded") && moved !== undefined,
+      rows.map((r) => `${r?.status}/attempt ${r?.attempts}`).join(", "),
+    );
     const fenced = moved ? `run ${moved.id}: superseded` : "(none)";
     let sawFence = false;
     for (let i = 0; i < 600 && !sawFence; i++) {
       sawFence = workers.w1.output().includes(fenced);
       if (!sawFence) await sleep(100);
     }
-    check("partition: the returning worker wrote nothing stale (its attempt was fenced off)", sawFence, sawFence ? "superseded" : `no "${fenced}" in w1's log`);
+    check(
+      "partition: the returning worker wrote nothing stale (its attempt was fenced off)",
+      sawFence,
+      sawFence ? "superseded" : `no "${fenced}" in w1's log`,
+    );
   }
 
   // 2. Restart Redis (stop, start; append-only file on).
@@ -220,22 +253,40 @@ async function main(): Promise<number> {
     const { pair, bothRunning } = await longPair("sigterm");
     const t0 = Date.now();
     workers.w2.signal("SIGTERM");
-    const code = await Promise.race([workers.w2.exited(), sleep(30_000).then(() => "timeout" as const)]);
+    const code = await Promise.race([
+      workers.w2.exited(),
+      sleep(30_000).then(() => "timeout" as const),
+    ]);
     recovery.sigterm = Date.now() - t0;
-    const rows = await Promise.all(pair.map((s) => waitRun(s.runId, (st) => st === "succeeded", 90_000)));
+    const rows = await Promise.all(
+      pair.map((s) => waitRun(s.runId, (st) => st === "succeeded", 90_000)),
+    );
     const held = pair.find((s) => workers.w2.output().includes(`run ${s.runId}: succeeded`));
     check(
       "SIGTERM: the worker finished the run it held, then exited cleanly",
-      bothRunning && code === 0 && held !== undefined && rows.every((r) => r?.status === "succeeded"),
+      bothRunning &&
+        code === 0 &&
+        held !== undefined &&
+        rows.every((r) => r?.status === "succeeded"),
       `exit ${code} after ${seconds(recovery.sigterm)}; ${rows.map((r) => `${r?.status}/attempt ${r?.attempts}`).join(", ")}`,
     );
   }
 
   await bg.stop();
   all.push(...bg.acknowledged);
-  check("clients: every submission was acknowledged", bg.errors.length === 0, bg.errors.length ? bg.errors.slice(0, 3).join("; ") : `${bg.acknowledged.length} background runs`);
+  check(
+    "clients: every submission was acknowledged",
+    bg.errors.length === 0,
+    bg.errors.length
+      ? bg.errors.slice(0, 3).join("; ")
+      : `${bg.acknowledged.length} background runs`,
+  );
   await waitAllTerminal(orgId, 90_000);
-  const verdict = await verify(orgId, all, workerLogs.map((w) => w.output()));
+  const verdict = await verify(
+    orgId,
+    all,
+    workerLogs.map((w) => w.output()),
+  );
   check("no run lost", verdict.lost === 0, `${verdict.lost} lost`);
   check("no key with two runs", verdict.duplicates === 0, `${verdict.duplicates}`);
   check("no run finished twice", verdict.runTwice === 0, `${verdict.runTwice}`);
@@ -249,7 +300,10 @@ async function main(): Promise<number> {
     ["lost", String(verdict.lost)],
     ["run twice", String(verdict.runTwice)],
     ["double-metered", String(verdict.doubleMetered)],
-    ["recovery: worker host cut off 20 s (until its run finished elsewhere)", seconds(recovery.partition)],
+    [
+      "recovery: worker host cut off 20 s (until its run finished elsewhere)",
+      seconds(recovery.partition),
+    ],
     ["recovery: Redis restart (until a new run succeeded)", seconds(recovery.redis)],
     ["recovery: MariaDB restart (until a new run succeeded)", seconds(recovery.mariadb)],
     ["recovery: app killed (until a new run succeeded)", seconds(recovery.app)],
@@ -286,7 +340,8 @@ const limit = setTimeout(() => {
   console.log("0 passed, 1 failed");
   void cleanup().finally(() => process.exit(1));
 }, LIMIT_MS);
-for (const signal of ["SIGINT", "SIGTERM"] as const) process.on(signal, () => void cleanup().finally(() => process.exit(130)));
+for (const signal of ["SIGINT", "SIGTERM"] as const)
+  process.on(signal, () => void cleanup().finally(() => process.exit(130)));
 
 main()
   .then(async (code) => {
@@ -297,7 +352,9 @@ main()
   .catch(async (error: unknown) => {
     clearTimeout(limit);
     console.error("[cluster] failed:", error instanceof Error ? error.stack : error);
-    console.log(`${checks.filter((c) => c.ok).length} passed, ${checks.filter((c) => !c.ok).length + 1} failed`);
+    console.log(
+      `${checks.filter((c) => c.ok).length} passed, ${checks.filter((c) => !c.ok).length + 1} failed`,
+    );
     await cleanup();
     process.exit(1);
   });

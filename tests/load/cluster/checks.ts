@@ -7,7 +7,12 @@ import { sql } from "drizzle-orm";
 import { db } from "@/db";
 import type { Submitted } from "./client";
 
-export type RunRow = { id: string; status: string; attempts: number; idempotency_key: string | null };
+export type RunRow = {
+  id: string;
+  status: string;
+  attempts: number;
+  idempotency_key: string | null;
+};
 
 export async function runsOf(orgId: string): Promise<RunRow[]> {
   const [rows] = (await db.execute(
@@ -20,7 +25,8 @@ export async function waitAllTerminal(orgId: string, timeoutMs: number): Promise
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     const rows = await runsOf(orgId).catch(() => null);
-    if (rows && rows.every((r) => ["succeeded", "failed", "canceled"].includes(r.status))) return rows;
+    if (rows && rows.every((r) => ["succeeded", "failed", "canceled"].includes(r.status)))
+      return rows;
     if (Date.now() > deadline) return rows ?? [];
     await new Promise((r) => setTimeout(r, 250));
   }
@@ -62,7 +68,11 @@ export type Verdict = {
   details: string[];
 };
 
-export async function verify(orgId: string, acknowledged: Submitted[], workerLogs: string[]): Promise<Verdict> {
+export async function verify(
+  orgId: string,
+  acknowledged: Submitted[],
+  workerLogs: string[],
+): Promise<Verdict> {
   const rows = await runsOf(orgId);
   const byId = new Map(rows.map((r) => [r.id, r]));
   const details: string[] = [];
@@ -77,10 +87,17 @@ export async function verify(orgId: string, acknowledged: Submitted[], workerLog
     keys.set(s.key, s.runId);
   }
   const perKey = new Map<string, number>();
-  for (const r of rows) if (r.idempotency_key) perKey.set(r.idempotency_key, (perKey.get(r.idempotency_key) ?? 0) + 1);
-  for (const [key, n] of perKey) if (n > 1) (duplicates++, details.push(`key ${key} has ${n} runs`));
+  for (const r of rows)
+    if (r.idempotency_key) perKey.set(r.idempotency_key, (perKey.get(r.idempotency_key) ?? 0) + 1);
+  for (const [key, n] of perKey) {
+    if (n > 1) {
+      duplicates++;
+      details.push(`key ${key} has ${n} runs`);
+    }
+  }
   const stray = rows.filter((r) => !r.idempotency_key || !keys.has(r.idempotency_key));
-  for (const r of stray) details.push(`run ${r.id} (${r.status}) was not acknowledged to any client`);
+  for (const r of stray)
+    details.push(`run ${r.id} (${r.status}) was not acknowledged to any client`);
 
   let lost = 0;
   for (const [key, runId] of keys) {
@@ -107,12 +124,24 @@ export async function verify(orgId: string, acknowledged: Submitted[], workerLog
     details.push(`runs meter says ${runsMetered?.total ?? 0}, ${succeeded} runs succeeded`);
   }
   for (const e of events) {
-    if (Number(e.n) !== Number(e.runs)) (doubleMetered++, details.push(`${e.metric}: ${e.n} events for ${e.runs} runs`));
+    if (Number(e.n) !== Number(e.runs)) {
+      doubleMetered++;
+      details.push(`${e.metric}: ${e.n} events for ${e.runs} runs`);
+    }
     const total = totals.find((t) => t.metric === e.metric);
     if (Math.abs(Number(total?.total ?? 0) - Number(e.total)) > 1e-6) {
       doubleMetered++;
       details.push(`${e.metric}: totals ${total?.total} ≠ events ${e.total}`);
     }
   }
-  return { submitted: keys.size, runs: rows.length, succeeded, lost, duplicates: duplicates + stray.length, runTwice: twice.length, doubleMetered, details };
+  return {
+    submitted: keys.size,
+    runs: rows.length,
+    succeeded,
+    lost,
+    duplicates: duplicates + stray.length,
+    runTwice: twice.length,
+    doubleMetered,
+    details,
+  };
 }

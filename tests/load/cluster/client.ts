@@ -13,7 +13,12 @@ export class Client {
     readonly apiKey: string,
   ) {}
 
-  async submit(idempotencyKey: string, body: Record<string, unknown>, kind: string, deadlineMs = 120_000): Promise<Submitted> {
+  async submit(
+    idempotencyKey: string,
+    body: Record<string, unknown>,
+    kind: string,
+    deadlineMs = 120_000,
+  ): Promise<Submitted> {
     const deadline = Date.now() + deadlineMs;
     let attempts = 0;
     for (;;) {
@@ -21,7 +26,11 @@ export class Client {
       try {
         const res = await fetch(`${this.base}/api/v1/runs`, {
           method: "POST",
-          headers: { authorization: `Bearer ${this.apiKey}`, "content-type": "application/json", "idempotency-key": idempotencyKey },
+          headers: {
+            authorization: `Bearer ${this.apiKey}`,
+            "content-type": "application/json",
+            "idempotency-key": idempotencyKey,
+          },
           body: JSON.stringify(body),
           signal: AbortSignal.timeout(10_000),
         });
@@ -29,18 +38,25 @@ export class Client {
           const run = (await res.json()) as { id: string };
           return { key: idempotencyKey, runId: run.id, attempts, kind };
         }
-        if (res.status < 500 && res.status !== 429) throw new Error(`submission refused: ${res.status} ${await res.text()}`);
+        if (res.status < 500 && res.status !== 429)
+          throw new Error(`submission refused: ${res.status} ${await res.text()}`);
       } catch (error) {
         if (error instanceof Error && error.message.startsWith("submission refused")) throw error;
       }
-      if (Date.now() > deadline) throw new Error(`submission ${idempotencyKey} not accepted within ${deadlineMs} ms`);
+      if (Date.now() > deadline)
+        throw new Error(`submission ${idempotencyKey} not accepted within ${deadlineMs} ms`);
       await sleep(Math.min(100 * attempts, 500));
     }
   }
 }
 
 /** Clients submitting small runs at a steady pace until stopped; every acknowledged key is kept. */
-export function backgroundLoad(client: Client, clients: number, everyMs: number, body: (i: number) => Record<string, unknown>) {
+export function backgroundLoad(
+  client: Client,
+  clients: number,
+  everyMs: number,
+  body: (i: number) => Record<string, unknown>,
+) {
   const acknowledged: Submitted[] = [];
   const errors: string[] = [];
   let running = true;

@@ -33,7 +33,10 @@ export function host(name: string, last: number): Host {
 
 /** Removes every namespace and link this module creates (idempotent). */
 export function destroyNetwork(): void {
-  for (const ns of ip("netns", "list").split("\n").map((l) => l.split(" ")[0]).filter((n) => n.startsWith("kwc-"))) {
+  for (const ns of ip("netns", "list")
+    .split("\n")
+    .map((l) => l.split(" ")[0])
+    .filter((n) => n.startsWith("kwc-"))) {
     tryIp("netns", "del", ns);
   }
   for (const line of ip("-o", "link", "show").split("\n")) {

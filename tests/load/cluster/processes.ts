@@ -18,7 +18,12 @@ export type Proc = {
 
 const all = new Set<Proc>();
 
-export function startIn(host: Host, name: string, command: string[], env: Record<string, string | undefined> = {}): Proc {
+export function startIn(
+  host: Host,
+  name: string,
+  command: string[],
+  env: Record<string, string | undefined> = {},
+): Proc {
   const child = spawn("ip", ["netns", "exec", host.ns, ...command], {
     env: { ...process.env, ...env },
     stdio: ["ignore", "pipe", "pipe"],
@@ -49,17 +54,30 @@ export function startIn(host: Host, name: string, command: string[], env: Record
   return proc;
 }
 
-export async function waitFor(what: string, check: () => boolean | Promise<boolean>, timeoutMs: number, proc?: Proc): Promise<void> {
+export async function waitFor(
+  what: string,
+  check: () => boolean | Promise<boolean>,
+  timeoutMs: number,
+  proc?: Proc,
+): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
     if (await check()) return;
-    if (proc && !proc.alive()) throw new Error(`${what}: ${proc.name} exited:\n${proc.output().slice(-4000)}`);
-    if (Date.now() > deadline) throw new Error(`${what}: not within ${timeoutMs} ms${proc ? `\n${proc.output().slice(-4000)}` : ""}`);
+    if (proc && !proc.alive())
+      throw new Error(`${what}: ${proc.name} exited:\n${proc.output().slice(-4000)}`);
+    if (Date.now() > deadline)
+      throw new Error(
+        `${what}: not within ${timeoutMs} ms${proc ? `\n${proc.output().slice(-4000)}` : ""}`,
+      );
     await new Promise((r) => setTimeout(r, 100));
   }
 }
 
-export async function stop(proc: Proc, signal: NodeJS.Signals = "SIGTERM", graceMs = 15_000): Promise<void> {
+export async function stop(
+  proc: Proc,
+  signal: NodeJS.Signals = "SIGTERM",
+  graceMs = 15_000,
+): Promise<void> {
   if (!proc.alive()) return;
   proc.signal(signal);
   const timer = setTimeout(() => proc.signal("SIGKILL"), graceMs);

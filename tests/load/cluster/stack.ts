@@ -19,7 +19,14 @@ export const REDIS_PORT = 6379;
 export const APP_PORT = 3000;
 export const WORKER_METRICS_PORT = 9464;
 
-export type StackConfig = { data: Host; app: Host; password: string; metricsToken: string; authSecret: string; distDir: string };
+export type StackConfig = {
+  data: Host;
+  app: Host;
+  password: string;
+  metricsToken: string;
+  authSecret: string;
+  distDir: string;
+};
 
 export function databaseUrl(c: StackConfig): string {
   return `mysql://kwc:${c.password}@${c.data.ip}:${DB_PORT}/${DB_NAME}`;
@@ -57,7 +64,9 @@ export function appEnv(c: StackConfig): Record<string, string> {
 }
 
 function mariadbRoot(sql: string): void {
-  execFileSync("mariadb", [`--defaults-file=${MY_CNF}`, "-u", "root", "-e", sql], { stdio: ["ignore", "ignore", "pipe"] });
+  execFileSync("mariadb", [`--defaults-file=${MY_CNF}`, "-u", "root", "-e", sql], {
+    stdio: ["ignore", "ignore", "pipe"],
+  });
 }
 
 export function prepareData(c: StackConfig): void {
@@ -82,9 +91,18 @@ export function prepareData(c: StackConfig): void {
       "",
     ].join("\n"),
   );
-  execFileSync("mariadb-install-db", [`--defaults-file=${MY_CNF}`, "--user=root", "--auth-root-authentication-method=socket", "--skip-test-db"], {
-    stdio: ["ignore", "ignore", "pipe"],
-  });
+  execFileSync(
+    "mariadb-install-db",
+    [
+      `--defaults-file=${MY_CNF}`,
+      "--user=root",
+      "--auth-root-authentication-method=socket",
+      "--skip-test-db",
+    ],
+    {
+      stdio: ["ignore", "ignore", "pipe"],
+    },
+  );
 }
 
 export async function startMariadb(c: StackConfig): Promise<Proc> {
@@ -93,7 +111,9 @@ export async function startMariadb(c: StackConfig): Promise<Proc> {
     "MariaDB start",
     () => {
       try {
-        execFileSync("mariadb-admin", [`--defaults-file=${MY_CNF}`, "--silent", "ping"], { stdio: "ignore" });
+        execFileSync("mariadb-admin", [`--defaults-file=${MY_CNF}`, "--silent", "ping"], {
+          stdio: "ignore",
+        });
         return true;
       } catch {
         return false;
@@ -138,8 +158,16 @@ export async function startRedis(c: StackConfig): Promise<Proc> {
     "",
     "--maxmemory-policy",
     "noeviction",
+    // Bound to the data host's own address on the test bridge only; protected mode would refuse the other hosts.
+    "--protected-mode",
+    "no",
   ]);
-  await waitFor("Redis start", () => proc.output().includes("Ready to accept connections"), 15_000, proc);
+  await waitFor(
+    "Redis start",
+    () => proc.output().includes("Ready to accept connections"),
+    15_000,
+    proc,
+  );
   return proc;
 }
 
@@ -153,13 +181,23 @@ export async function startApp(c: StackConfig): Promise<Proc> {
   const proc = startIn(
     c.app,
     "app",
-    [process.execPath, join(ROOT, "node_modules/next/dist/bin/next"), "start", "-H", c.app.ip, "-p", String(APP_PORT)],
+    [
+      process.execPath,
+      join(ROOT, "node_modules/next/dist/bin/next"),
+      "start",
+      "-H",
+      c.app.ip,
+      "-p",
+      String(APP_PORT),
+    ],
     { ...appEnv(c), PORT: String(APP_PORT) },
   );
   await waitFor(
     "app start",
     async () => {
-      const res = await fetch(`${appUrl(c)}/api/ready`, { signal: AbortSignal.timeout(2_000) }).catch(() => null);
+      const res = await fetch(`${appUrl(c)}/api/ready`, {
+        signal: AbortSignal.timeout(2_000),
+      }).catch(() => null);
       return res?.status === 200;
     },
     60_000,
@@ -169,12 +207,23 @@ export async function startApp(c: StackConfig): Promise<Proc> {
 }
 
 export async function startWorkerOn(c: StackConfig, h: Host, concurrency: number): Promise<Proc> {
-  const proc = startIn(h, `worker ${h.name}`, [process.execPath, "--conditions=react-server", "--import", "tsx", join(ROOT, "worker/index.ts")], {
-    ...appEnv(c),
-    WORKER_CONCURRENCY: String(concurrency),
-    WORKER_METRICS_PORT: String(WORKER_METRICS_PORT),
-    WORKER_METRICS_HOST: h.ip,
-  });
+  const proc = startIn(
+    h,
+    `worker ${h.name}`,
+    [
+      process.execPath,
+      "--conditions=react-server",
+      "--import",
+      "tsx",
+      join(ROOT, "worker/index.ts"),
+    ],
+    {
+      ...appEnv(c),
+      WORKER_CONCURRENCY: String(concurrency),
+      WORKER_METRICS_PORT: String(WORKER_METRICS_PORT),
+      WORKER_METRICS_HOST: h.ip,
+    },
+  );
   await waitFor(`worker ${h.name} start`, () => proc.output().includes("ready:"), 90_000, proc);
   return proc;
 }

@@ -30,15 +30,25 @@ const FRAMEWORK_VARS = new Set(["AUTH_TRUST_HOST"]);
 
 describe("docker/compose.yaml", () => {
   it("defines the stateful pair, the app, the worker and their helpers", () => {
-    expect(Object.keys(services).sort()).toEqual(["app", "mail", "mariadb", "migrate", "payment-fake", "redis", "worker"]);
+    expect(Object.keys(services).sort()).toEqual([
+      "app",
+      "mail",
+      "mariadb",
+      "migrate",
+      "payment-fake",
+      "redis",
+      "worker",
+    ]);
   });
 
   it("points every depends_on at a defined service and every named volume at a declared one", () => {
     for (const [name, service] of Object.entries(services)) {
-      for (const dependency of Object.keys(service.depends_on ?? {})) expect(services, `${name} → ${dependency}`).toHaveProperty(dependency);
+      for (const dependency of Object.keys(service.depends_on ?? {}))
+        expect(services, `${name} → ${dependency}`).toHaveProperty(dependency);
       for (const volume of service.volumes ?? []) {
         const source = volume.split(":")[0];
-        if (!source.startsWith(".") && !source.startsWith("/")) expect(compose.volumes, `${name} volume ${source}`).toHaveProperty(source);
+        if (!source.startsWith(".") && !source.startsWith("/"))
+          expect(compose.volumes, `${name} volume ${source}`).toHaveProperty(source);
       }
     }
   });
@@ -50,7 +60,13 @@ describe("docker/compose.yaml", () => {
     expect(port).toMatch(/^\d+$/);
     expect(worker.environment?.WORKER_METRICS_HOST).toBe("0.0.0.0");
     expect(worker.healthcheck?.test?.join(" ")).toContain(`http://127.0.0.1:${port}/health`);
-    expect(worker.command).toEqual(["node", "--conditions=react-server", "--import", "tsx", "worker/index.ts"]);
+    expect(worker.command).toEqual([
+      "node",
+      "--conditions=react-server",
+      "--import",
+      "tsx",
+      "worker/index.ts",
+    ]);
     expect(existsSync("worker/index.ts")).toBe(true);
   });
 
@@ -67,7 +83,13 @@ describe("docker/compose.yaml", () => {
         expect(known.has(key) || FRAMEWORK_VARS.has(key), `${name}: ${key}`).toBe(true);
       }
       const sample = Object.fromEntries(
-        Object.entries(environment).map(([k, v]) => [k, String(v).replace(/\$\{(\w+):?[-?]?([^}]*)\}/g, (_m, _n, fallback: string) => fallback || "")]),
+        Object.entries(environment).map(([k, v]) => [
+          k,
+          String(v).replace(
+            /\$\{(\w+):?[-?]?([^}]*)\}/g,
+            (_m, _n, fallback: string) => fallback || "",
+          ),
+        ]),
       );
       sample.AUTH_SECRET = "x".repeat(32);
       expect(() => envSchema.parse(sample), name).not.toThrow();
