@@ -168,7 +168,8 @@ describe("other observables and states", () => {
     expect(Math.abs(out.sampled.mean - exact)).toBeLessThan(4 * out.sampled.stdErr);
     expect(out.groups[0].eigenvalues).toEqual(Array.from(eigen.values));
     expect(out.groups[0].bases).toBe("eigenbasis");
-    const fromCounts = Object.entries(out.groups[0].counts!).reduce((a, [bits, c]) => a + c * eigen.values[parseInt(bits.split("").reverse().join(""), 2)], 0) / 40_000;
+    // eigenbasis count keys: outcome index k in binary, most significant digit first
+    const fromCounts = Object.entries(out.groups[0].counts!).reduce((a, [bits, c]) => a + c * eigen.values[parseInt(bits, 2)], 0) / 40_000;
     expect(fromCounts).toBeCloseTo(out.sampled.mean, 9);
   });
 
