@@ -1,5 +1,5 @@
 /**
- * Sampled estimate of ⟨A⟩ with shots (DESIGN.md §1, §4).
+ * Sampled estimate of ⟨A⟩ with shots (`sampled` in the result: mean, stdErr, ci95).
  *
  * Per measurement setting (a qubit-wise commuting Pauli group, or the eigenbasis of a
  * matrix observable): the outcome law is computed on a rotated COPY of the statevector
@@ -244,7 +244,11 @@ function groupSample(spec: Spec, s: SettingSample, dim: number, variance: number
   const group: GroupSample = { bases: spec.bases, terms: spec.termIndices, shots: s.shots, distinctOutcomes: s.outcomes.length };
   if (s.outcomes.length <= MAX_COUNT_KEYS) {
     const counts: Record<string, number> = {};
-    for (let j = 0; j < s.outcomes.length; j++) counts[indexToBitstring(s.outcomes[j], n)] = s.counts[j];
+    // Pauli settings: the measured bitstring, qubit 0 first. Eigenbasis: outcome k (the k-th
+    // eigenvalue, ascending) written as n binary digits, most significant first — the same
+    // reading as the matrix's row index (qubit 0 the leftmost digit).
+    const key = obs.kind === "matrix" ? (k: number) => k.toString(2).padStart(n, "0") : (k: number) => indexToBitstring(k, n);
+    for (let j = 0; j < s.outcomes.length; j++) counts[key(s.outcomes[j])] = s.counts[j];
     group.counts = counts;
   }
   if (variance !== undefined) group.variance = variance;

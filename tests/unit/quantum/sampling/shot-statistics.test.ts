@@ -1,5 +1,5 @@
 /**
- * Shot statistics (REFERENCES.md): standard error of a ±1 outcome √((1−m²)/N)
+ * Shot statistics: standard error of a ±1 outcome √((1−m²)/N)
  * (binomial, common practice); 95 % normal intervals cover the exact value in about
  * 95 % of runs (common practice; over 600 fixed seeds the binomial spread of the
  * coverage is ±0.9 %, so 95 ± 2.5 % is a 2.8σ band); Var = Σ_g Var_g/N_g with the
@@ -171,7 +171,8 @@ describe("other observables and states", () => {
     expect(Math.abs(out.sampled.mean - exact)).toBeLessThan(4 * out.sampled.stdErr);
     expect(out.groups[0].eigenvalues).toEqual(Array.from(eigen.values));
     expect(out.groups[0].bases).toBe("eigenbasis");
-    const fromCounts = Object.entries(out.groups[0].counts!).reduce((a, [bits, c]) => a + c * eigen.values[parseInt(bits.split("").reverse().join(""), 2)], 0) / 40_000;
+    // eigenbasis count keys: outcome index k in binary, most significant digit first
+    const fromCounts = Object.entries(out.groups[0].counts!).reduce((a, [bits, c]) => a + c * eigen.values[parseInt(bits, 2)], 0) / 40_000;
     expect(fromCounts).toBeCloseTo(out.sampled.mean, 9);
   });
 
