@@ -9,14 +9,14 @@
 import { z } from "zod";
 import { estimateRequestSchema, estimateResultSchema, previewResultSchema, type EstimateRequest } from "@/lib/quantum/schemas";
 import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
+import { nameSchema } from "@/lib/validation/names";
 import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES, SHOT_PLAN_SOURCES } from "./constants";
 
-export const runNameSchema = z
-  .string()
-  .trim()
-  .min(1, "the name is empty")
-  .max(RUN_NAME_MAX, `at most ${RUN_NAME_MAX} characters`)
-  .describe("A label for the run (default: derived from the circuit)");
+export const runNameSchema = nameSchema({
+  max: RUN_NAME_MAX,
+  empty: "the name is empty",
+  tooLong: `at most ${RUN_NAME_MAX} characters`,
+}).describe("A label for the run (default: derived from the circuit)");
 
 export const runCreateSchema = estimateRequestSchema
   .safeExtend({ name: runNameSchema.optional() })
@@ -61,14 +61,23 @@ const runBase = {
   phase: z.string().nullable().describe("What the engine is doing now"),
   method: runMethodSchema,
   qubits: z.int(),
-  shots: z.int().describe("Planned total shots over all sweep points (0 = exact only); the quota check reserved these"),
+  shots: z
+    .int()
+    .describe(
+      "Planned total shots over all sweep points (0 = exact only); the quota check reserved these",
+    ),
   shotsPlan: z
     .enum(SHOT_PLAN_SOURCES)
     .nullable()
     .describe(
       'Where `shots` comes from: "fixed" (the request\'s shots), "state_aware" (targetPrecision planned from the state\'s exact variances at submission: what the run draws) or "worst_case" (targetPrecision planned from variance bounds: the run usually draws fewer); null for runs submitted before this was recorded',
     ),
-  shotsDrawn: z.int().nullable().describe("Shots the engine drew, once succeeded (billed; may differ from `shots` when planned from worst-case bounds)"),
+  shotsDrawn: z
+    .int()
+    .nullable()
+    .describe(
+      "Shots the engine drew, once succeeded (billed; may differ from `shots` when planned from worst-case bounds)",
+    ),
   seed: z.int().describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
   createdBy: runCreatorSchema,
   queuedAt: timestampSchema,
