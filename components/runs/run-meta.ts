@@ -45,10 +45,16 @@ export function shotsText(run: {
   const { shots, shotsDrawn: drawn, shotsPlan: plan } = run;
   if (!shots && !drawn) return { short: "exact", long: "exact only" };
   if (drawn !== null && drawn !== shots) {
-    return { short: `${count(drawn)} of ${count(shots)}`, long: `${count(drawn)} drawn · ${count(shots)} planned${plan === "worst_case" ? " (worst-case bound)" : ""}` };
+    return {
+      short: `${count(drawn)} of ${count(shots)}`,
+      long: `${count(drawn)} drawn · ${count(shots)} planned${plan === "worst_case" ? " (worst-case bound)" : ""}`,
+    };
   }
   if (drawn === null && plan === "worst_case") {
-    return { short: `≤ ${count(shots)}`, long: `≤ ${count(shots)} planned (worst-case bound; the run plans from the state's variances)` };
+    return {
+      short: `≤ ${count(shots)}`,
+      long: `≤ ${count(shots)} planned (worst-case bound; the run plans from the state's variances)`,
+    };
   }
   const how = plan === "state_aware" ? " (planned from the state's variances)" : "";
   return { short: count(shots), long: `${count(shots)}${drawn === null ? how : " drawn"}` };

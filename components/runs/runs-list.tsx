@@ -245,9 +245,13 @@ export function RunsList() {
                 <TD>
                   <StatusBadge status={r.status} />
                 </TD>
-                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">{METHOD_LABEL[r.method]}</TD>
+                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">
+                  {METHOD_LABEL[r.method]}
+                </TD>
                 <TD numeric>{r.qubits}</TD>
-                <TD numeric title={shotsText(r).long}>{shotsText(r).short}</TD>
+                <TD numeric title={shotsText(r).long}>
+                  {shotsText(r).short}
+                </TD>
                 <TD numeric>
                   <RunValueCell run={r} />
                 </TD>

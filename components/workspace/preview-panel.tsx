@@ -198,8 +198,7 @@ export function PreviewPanel({
               {preview.shotPlan && preview.varianceSource === "state_aware" ? (
                 <p className="text-xs leading-5 text-ink-3">
                   For a standard error of {preview.shotPlan.targetPrecision}: planned from the
-                  state’s exact variances — the shots the run will draw (any state could need up
-                  to{" "}
+                  state’s exact variances — the shots the run will draw (any state could need up to{" "}
                   <span className="figures">
                     {fmt.format(preview.shotPlan.worstCase.totalShots)}
                   </span>

@@ -24,17 +24,33 @@ export {
 export { EngineError, isEngineError, type EngineErrorCode, type EngineIssue } from "./errors";
 
 // Circuits: parsing, statistics, OpenQASM 2.0 export of measurement / Hadamard-test circuits.
-export { parseProgram, circuitStats, measurementCircuitQasm, hadamardTestQasm, CIRCUIT_LIMITS } from "./circuit";
+export {
+  parseProgram,
+  circuitStats,
+  measurementCircuitQasm,
+  hadamardTestQasm,
+  CIRCUIT_LIMITS,
+} from "./circuit";
 export type { ParsedProgram, CircuitStats, ProgramInput, QasmFormat } from "./circuit";
 
 // Observables.
 export { parsePauliSum, type ParsedPauliSum, type TermOrigin } from "./observable/pauli-parse";
 export { padPauliSum, sparseLabel, masksToWord } from "./observable/pauli-word";
 export { groupQubitWise, type MeasurementSetting } from "./observable/grouping";
-export { parseMatrixObservable, type HermitianMatrix, type MatrixObservableInput } from "./observable/matrix-observable";
+export {
+  parseMatrixObservable,
+  type HermitianMatrix,
+  type MatrixObservableInput,
+} from "./observable/matrix-observable";
 export { lanczosExtremes, type LanczosOptions, type LanczosResult } from "./observable/lanczos";
 
 // Planning (no shots).
-export { planShots, planFromStdDevs, allocateShots, type ShotPlan, type SettingPlan } from "./planning/shot-plan";
+export {
+  planShots,
+  planFromStdDevs,
+  allocateShots,
+  type ShotPlan,
+  type SettingPlan,
+} from "./planning/shot-plan";
 
 export type { Circuit, NoiseModel, PauliSum, PauliTerm, ProgressFn } from "./types";

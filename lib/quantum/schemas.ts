@@ -7,7 +7,13 @@
  * Request objects are strict: an unknown field is an error, not silently dropped.
  */
 import { z } from "zod";
-import { MAX_MATRIX_QUBITS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
+import {
+  MAX_MATRIX_QUBITS,
+  MAX_SEED,
+  MAX_SHOTS,
+  MAX_SOURCE_CHARS,
+  MAX_SWEEP_POINTS,
+} from "./estimate/limits";
 
 /** Rows and columns of a matrix observable (its eigendecomposition stays within seconds). */
 const MAX_MATRIX_DIM = 2 ** MAX_MATRIX_QUBITS;
@@ -16,17 +22,33 @@ const probability = z.number().min(0).max(1);
 
 const matrixPart = (name: string) =>
   z
-    .array(z.array(z.number()).max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`))
+    .array(
+      z
+        .array(z.number())
+        .max(
+          MAX_MATRIX_DIM,
+          `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`,
+        ),
+    )
     .min(1)
-    .max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`)
+    .max(
+      MAX_MATRIX_DIM,
+      `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`,
+    )
     .describe(
       `${name} part of the matrix, row-major, of A0 ⊗ A1 ⊗ … with qubit 0 the leftmost Kronecker factor: row/column index i = Σ_k b_k·2^(n−1−k) (qubit 0 is the most significant bit; kron(Z, I) is Z on qubit 0, like the dense word "ZI")`,
     );
 
 export const circuitInputSchema = z
   .strictObject({
-    format: z.enum(["qasm2", "qasm3"]).describe('"qasm2" (OpenQASM 2.0) or "qasm3" (the OpenQASM 3 subset with inputs)'),
-    source: z.string().min(1, "the circuit source is empty").max(MAX_SOURCE_CHARS).describe("Program text"),
+    format: z
+      .enum(["qasm2", "qasm3"])
+      .describe('"qasm2" (OpenQASM 2.0) or "qasm3" (the OpenQASM 3 subset with inputs)'),
+    source: z
+      .string()
+      .min(1, "the circuit source is empty")
+      .max(MAX_SOURCE_CHARS)
+      .describe("Program text"),
   })
   .describe("The circuit that prepares the state");
 
@@ -47,15 +69,26 @@ export const matrixObservableSchema = z
     real: matrixPart("Real"),
     imag: matrixPart("Imaginary").optional(),
   })
-  .describe("Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)");
+  .describe(
+    "Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)",
+  );
 
-export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema]);
+export const observableInputSchema = z.discriminatedUnion("format", [
+  pauliObservableSchema,
+  matrixObservableSchema,
+]);
 
 export const noiseModelSchema = z
   .strictObject({
-    depolarizing1q: probability.optional().describe("Depolarizing probability after each 1-qubit gate"),
-    depolarizing2q: probability.optional().describe("Depolarizing probability after each gate on 2 or more qubits"),
-    amplitudeDamping: probability.optional().describe("Amplitude damping γ on each qubit a gate touches"),
+    depolarizing1q: probability
+      .optional()
+      .describe("Depolarizing probability after each 1-qubit gate"),
+    depolarizing2q: probability
+      .optional()
+      .describe("Depolarizing probability after each gate on 2 or more qubits"),
+    amplitudeDamping: probability
+      .optional()
+      .describe("Amplitude damping γ on each qubit a gate touches"),
     phaseDamping: probability.optional().describe("Phase damping λ on each qubit a gate touches"),
     readout: z
       .strictObject({
@@ -71,14 +104,40 @@ export const estimateRequestSchema = z
   .strictObject({
     circuit: circuitInputSchema,
     observable: observableInputSchema,
-    method: z.enum(["statevector", "density_matrix"]).optional().describe('Simulation method (default "statevector")'),
-    shots: z.int().min(0).max(MAX_SHOTS).optional().describe("Total shots over all measurement settings; 0 = exact only (default 0)"),
-    seed: z.int().min(0).max(MAX_SEED).optional().describe("PRNG seed; chosen and returned when absent"),
-    parameters: z.record(z.string(), z.number()).optional().describe("Values of the circuit's OpenQASM 3 inputs"),
+    method: z
+      .enum(["statevector", "density_matrix"])
+      .optional()
+      .describe('Simulation method (default "statevector")'),
+    shots: z
+      .int()
+      .min(0)
+      .max(MAX_SHOTS)
+      .optional()
+      .describe("Total shots over all measurement settings; 0 = exact only (default 0)"),
+    seed: z
+      .int()
+      .min(0)
+      .max(MAX_SEED)
+      .optional()
+      .describe("PRNG seed; chosen and returned when absent"),
+    parameters: z
+      .record(z.string(), z.number())
+      .optional()
+      .describe("Values of the circuit's OpenQASM 3 inputs"),
     noise: noiseModelSchema.optional(),
-    mitigateReadout: z.boolean().optional().describe("Also report the readout-mitigated sampled value"),
-    targetPrecision: z.number().positive().optional().describe("Target standard error; chooses the number of shots"),
-    shotSplit: z.enum(["optimal", "even"]).optional().describe('Shot split over settings: ∝ √Var (default "optimal") or even'),
+    mitigateReadout: z
+      .boolean()
+      .optional()
+      .describe("Also report the readout-mitigated sampled value"),
+    targetPrecision: z
+      .number()
+      .positive()
+      .optional()
+      .describe("Target standard error; chooses the number of shots"),
+    shotSplit: z
+      .enum(["optimal", "even"])
+      .optional()
+      .describe('Shot split over settings: ∝ √Var (default "optimal") or even'),
     sweep: z
       .record(z.string(), z.array(z.number()).min(1).max(MAX_SWEEP_POINTS))
       .optional()
@@ -86,12 +145,20 @@ export const estimateRequestSchema = z
   })
   .superRefine((req, ctx) => {
     if (req.targetPrecision !== undefined && (req.shots ?? 0) > 0) {
-      ctx.addIssue({ code: "custom", path: ["targetPrecision"], message: "give either shots or targetPrecision, not both" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["targetPrecision"],
+        message: "give either shots or targetPrecision, not both",
+      });
     }
     if (req.sweep) {
       const points = Object.values(req.sweep).reduce((a, v) => a * v.length, 1);
       if (points > MAX_SWEEP_POINTS) {
-        ctx.addIssue({ code: "custom", path: ["sweep"], message: `the sweep grid has ${points} points; at most ${MAX_SWEEP_POINTS}` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["sweep"],
+          message: `the sweep grid has ${points} points; at most ${MAX_SWEEP_POINTS}`,
+        });
       }
     }
   })
@@ -102,26 +169,39 @@ export type EstimateRequest = z.infer<typeof estimateRequestSchema>;
 const interval = z.tuple([z.number(), z.number()]);
 
 const estimateSchema = z.object({
-  mean: z.number().describe("Sample mean: constant part plus the average of each setting's shot values"),
+  mean: z
+    .number()
+    .describe("Sample mean: constant part plus the average of each setting's shot values"),
   stdErr: z
     .number()
-    .describe("Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots"),
-  ci95: interval.describe("95 % interval: posterior mean ± Welch–Satterthwaite t quantile × stdErr, widened to contain the mean, clipped to the possible values"),
-  df: z.number().optional().describe("Welch–Satterthwaite degrees of freedom of the interval's t quantile"),
+    .describe(
+      "Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots",
+    ),
+  ci95: interval.describe(
+    "95 % interval: posterior mean ± Welch–Satterthwaite t quantile × stdErr, widened to contain the mean, clipped to the possible values",
+  ),
+  df: z
+    .number()
+    .optional()
+    .describe("Welch–Satterthwaite degrees of freedom of the interval's t quantile"),
 });
 
 export const convergencePointSchema = z.object({
   shots: z.int().describe("Shots used so far (a prefix of every setting)"),
   mean: z.number(),
   stdErr: z.number(),
-  ci95: interval.optional().describe("95 % interval at this prefix (same method as `sampled.ci95`)"),
+  ci95: interval
+    .optional()
+    .describe("95 % interval at this prefix (same method as `sampled.ci95`)"),
 });
 
 export const shotPlanSchema = z
   .object({
     targetPrecision: z.number(),
     settings: z.int(),
-    worstCase: z.object({ totalShots: z.number(), perSetting: z.array(z.number()) }).describe("(Σ|c_i|)²/ε², valid for any state"),
+    worstCase: z
+      .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
+      .describe("(Σ|c_i|)²/ε², valid for any state"),
     stateAware: z
       .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
       .nullable()
@@ -150,16 +230,22 @@ export const estimateResultSchema = z
     method: z.enum(["statevector", "density_matrix"]),
     seed: z.int(),
     ideal: z.object({ value: z.number() }).describe("Noiseless exact ⟨ψ|A|ψ⟩"),
-    exact: z.object({ value: z.number() }).describe("Exact value under the noise model, Tr(ρA) (no readout error)"),
+    exact: z
+      .object({ value: z.number() })
+      .describe("Exact value under the noise model, Tr(ρA) (no readout error)"),
     sampled: estimateSchema
       .extend({
         shots: z.int(),
         settings: z.int(),
-        convergence: z.array(convergencePointSchema).describe("Running estimate at log-spaced shot counts"),
+        convergence: z
+          .array(convergencePointSchema)
+          .describe("Running estimate at log-spaced shot counts"),
       })
       .nullable()
       .describe("Estimate from shots (readout error included), or null without shots"),
-    mitigated: estimateSchema.optional().describe("Readout-mitigated sampled value (tensored inverse)"),
+    mitigated: estimateSchema
+      .optional()
+      .describe("Readout-mitigated sampled value (tensored inverse)"),
     terms: z.array(
       z.object({
         pauli: z.string().describe("Dense Pauli word, qubit 0 first"),
@@ -167,29 +253,51 @@ export const estimateResultSchema = z
         coefficient: z.number(),
         exact: z.number().describe("Exact ⟨P⟩ under the noise model"),
         sampledMean: z.number().optional(),
-        stdErr: z.number().optional().describe("Posterior standard deviation of the term's ⟨P⟩ (same method as `sampled.stdErr`)"),
+        stdErr: z
+          .number()
+          .optional()
+          .describe(
+            "Posterior standard deviation of the term's ⟨P⟩ (same method as `sampled.stdErr`)",
+          ),
         ci95: interval.optional().describe("95 % interval of ⟨P⟩"),
         mitigatedMean: z.number().optional(),
         mitigatedStdErr: z.number().optional(),
         mitigatedCi95: interval.optional(),
-        group: z.int().nullable().describe("Index of the measurement setting (null for the identity)"),
+        group: z
+          .int()
+          .nullable()
+          .describe("Index of the measurement setting (null for the identity)"),
       }),
     ),
     groups: z.array(
       z.object({
-        bases: z.string().describe('Basis per qubit, qubit 0 first (X, Y, Z, I = unmeasured), or "eigenbasis"'),
+        bases: z
+          .string()
+          .describe('Basis per qubit, qubit 0 first (X, Y, Z, I = unmeasured), or "eigenbasis"'),
         terms: z.array(z.int()),
         shots: z.int(),
         counts: z
           .record(z.string(), z.int())
           .optional()
-          .describe('Histogram keyed by bitstring, qubit 0 first; for "eigenbasis" the key is the outcome index k (the k-th eigenvalue, ascending) in n binary digits, most significant first'),
+          .describe(
+            'Histogram keyed by bitstring, qubit 0 first; for "eigenbasis" the key is the outcome index k (the k-th eigenvalue, ascending) in n binary digits, most significant first',
+          ),
         distinctOutcomes: z.int().optional(),
         variance: z.number().optional().describe("Exact single-shot variance of the setting"),
-        eigenvalues: z.array(z.number()).optional().describe("Matrix observables: eigenvalue of outcome index k (ascending; the count key of k is k in binary)"),
+        eigenvalues: z
+          .array(z.number())
+          .optional()
+          .describe(
+            "Matrix observables: eigenvalue of outcome index k (ascending; the count key of k is k in binary)",
+          ),
       }),
     ),
-    spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)"),
+    spectrum: z
+      .object({ min: z.number(), max: z.number() })
+      .optional()
+      .describe(
+        "Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)",
+      ),
     shotPlan: shotPlanSchema.optional(),
     pauliDecomposition: pauliDecompositionSchema.optional(),
     sweep: z
@@ -205,7 +313,12 @@ export const estimateResultSchema = z
         ),
       })
       .optional(),
-    timings: z.object({ parseMs: z.number(), simulateMs: z.number(), sampleMs: z.number(), spectrumMs: z.number() }),
+    timings: z.object({
+      parseMs: z.number(),
+      simulateMs: z.number(),
+      sampleMs: z.number(),
+      spectrumMs: z.number(),
+    }),
   })
   .describe("Result of an expectation-value run");
 
@@ -219,11 +332,21 @@ export const previewResultSchema = z
     totalGates: z.int(),
     twoQubitGates: z.int(),
     depth: z.int(),
-    observable: z.object({ format: z.enum(["pauli", "matrix"]), terms: z.int(), settings: z.int() }),
+    observable: z.object({
+      format: z.enum(["pauli", "matrix"]),
+      terms: z.int(),
+      settings: z.int(),
+    }),
     groups: z.array(z.object({ bases: z.string(), terms: z.array(z.int()) })),
-    stateBytes: z.number().describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
+    stateBytes: z
+      .number()
+      .describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
     sweepPoints: z.int(),
-    shots: z.int().describe("Shots per sweep point (planned from targetPrecision when given; the largest over the points when their plans differ)"),
+    shots: z
+      .int()
+      .describe(
+        "Shots per sweep point (planned from targetPrecision when given; the largest over the points when their plans differ)",
+      ),
     totalShots: z.int().describe("Shots over all sweep points: what the quota check reserves"),
     shotPlan: shotPlanSchema.nullable(),
     shotsPerSetting: z.array(z.int()).nullable(),
@@ -235,13 +358,19 @@ export const previewResultSchema = z
       ),
     planWork: z
       .object({
-        estimated: z.number().describe("Amplitude updates a state-aware plan needs (simulating every point)"),
+        estimated: z
+          .number()
+          .describe("Amplitude updates a state-aware plan needs (simulating every point)"),
         budget: z.number().describe("The preview's budget for it"),
       })
       .nullable()
-      .describe("With targetPrecision: the work a state-aware plan costs against the budget (which decided varianceSource)"),
+      .describe(
+        "With targetPrecision: the work a state-aware plan costs against the budget (which decided varianceSource)",
+      ),
     notes: z.array(z.string()),
   })
-  .describe("Preview of a run: parse, counts, settings and the shot plan (state-aware within a work budget)");
+  .describe(
+    "Preview of a run: parse, counts, settings and the shot plan (state-aware within a work budget)",
+  );
 
 export type PreviewResult = z.infer<typeof previewResultSchema>;

@@ -24,7 +24,9 @@ const ENGINE_TITLES: Record<string, string> = {
  * line/column. 400, except 422 for a well-formed request that cannot be carried out
  * (`infeasible`: a precision no plan reaches, singular readout mitigation).
  */
-export function engineProblem(error: Pick<EngineError, "code" | "message" | "issues">): StoredProblem {
+export function engineProblem(
+  error: Pick<EngineError, "code" | "message" | "issues">,
+): StoredProblem {
   const errors = error.issues.map((issue) => ({
     path: issue.path.map(String).join(".") || "(root)",
     message: issue.message,

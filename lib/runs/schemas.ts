@@ -7,8 +7,19 @@
  * optional `name`.
  */
 import { z } from "zod";
-import { estimateRequestSchema, estimateResultSchema, previewResultSchema, type EstimateRequest } from "@/lib/quantum/schemas";
-import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
+import {
+  estimateRequestSchema,
+  estimateResultSchema,
+  previewResultSchema,
+  type EstimateRequest,
+} from "@/lib/quantum/schemas";
+import {
+  cursorParamSchema,
+  limitParamSchema,
+  pageSchema,
+  problemSchema,
+  timestampSchema,
+} from "@/lib/openapi/common-schemas";
 import { nameSchema } from "@/lib/validation/names";
 import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES, SHOT_PLAN_SOURCES } from "./constants";
 
@@ -78,7 +89,9 @@ const runBase = {
     .describe(
       "Shots the engine drew, once succeeded (billed; may differ from `shots` when planned from worst-case bounds)",
     ),
-  seed: z.int().describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
+  seed: z
+    .int()
+    .describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
   createdBy: runCreatorSchema,
   queuedAt: timestampSchema,
   startedAt: timestampSchema.nullable(),
@@ -116,8 +129,19 @@ export type RunSummaryView = z.infer<typeof runSummarySchema>;
 export const runListQuerySchema = z.strictObject({
   status: runStatusSchema.optional().describe("Only runs in this status"),
   method: runMethodSchema.optional().describe("Only runs of this simulation method"),
-  q: z.string().trim().min(1).max(120).optional().describe("Only runs whose name contains this text (case-insensitive)"),
-  createdBy: z.string().min(1).max(36).optional().describe("Only runs submitted by this user id (or API key id)"),
+  q: z
+    .string()
+    .trim()
+    .min(1)
+    .max(120)
+    .optional()
+    .describe("Only runs whose name contains this text (case-insensitive)"),
+  createdBy: z
+    .string()
+    .min(1)
+    .max(36)
+    .optional()
+    .describe("Only runs submitted by this user id (or API key id)"),
   from: z.iso.date().optional().describe("Only runs queued on or after this day (YYYY-MM-DD, UTC)"),
   to: z.iso.date().optional().describe("Only runs queued on or before this day (YYYY-MM-DD, UTC)"),
   cursor: cursorParamSchema.optional(),
@@ -141,7 +165,10 @@ export const quotaVerdictSchema = z
     shots: z.int().describe("Total shots the run would draw (all sweep points)"),
     refusals: z.array(quotaRefusalSchema),
   })
-  .meta({ id: "QuotaVerdict", description: "Whether the organisation's plan would accept this run now" });
+  .meta({
+    id: "QuotaVerdict",
+    description: "Whether the organisation's plan would accept this run now",
+  });
 export type QuotaVerdict = z.infer<typeof quotaVerdictSchema>;
 
 export const runPreviewSchema = previewResultSchema

@@ -29,7 +29,8 @@ type Common = Pick<
 >;
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
-const diff = (a: Date | null, b: Date | null) => (a && b ? Math.max(0, b.getTime() - a.getTime()) : null);
+const diff = (a: Date | null, b: Date | null) =>
+  a && b ? Math.max(0, b.getTime() - a.getTime()) : null;
 
 function common(row: Common) {
   return {

@@ -67,7 +67,9 @@ export async function submitRun(
 
   const preview = await previewOrThrow(request);
   const shots = plannedShots(preview);
-  assertAllowed(await quotaVerdict(org.id, org.plan, { method: preview.method, qubits: preview.qubits, shots }));
+  assertAllowed(
+    await quotaVerdict(org.id, org.plan, { method: preview.method, qubits: preview.qubits, shots }),
+  );
 
   const id = randomUUID();
   const run = await insertRun(org.id, {
@@ -101,7 +103,8 @@ export async function submitRun(
       type: "/problems/queue-unavailable",
       title: "Service unavailable",
       status: 503,
-      detail: "Runs cannot be queued right now (the job queue is unreachable). Nothing was created; try again shortly.",
+      detail:
+        "Runs cannot be queued right now (the job queue is unreachable). Nothing was created; try again shortly.",
       retryAfter: 5,
     });
   }

@@ -33,10 +33,14 @@ export function previewRequest(request: unknown, options: PreviewOptions = {}): 
   const stats = circuitStats(circuit);
   const obs = parseObservableForCircuit(req.raw.observable, n);
   const groups =
-    obs.kind === "pauli" ? obs.settings.map((g) => ({ bases: g.bases, terms: g.terms })) : [{ bases: "eigenbasis", terms: [] as number[] }];
+    obs.kind === "pauli"
+      ? obs.settings.map((g) => ({ bases: g.bases, terms: g.terms }))
+      : [{ bases: "eigenbasis", terms: [] as number[] }];
   const bounds =
     obs.kind === "pauli"
-      ? obs.settings.map((g) => g.terms.reduce((a, i) => a + Math.abs(obs.sum.terms[i].coefficient), 0))
+      ? obs.settings.map((g) =>
+          g.terms.reduce((a, i) => a + Math.abs(obs.sum.terms[i].coefficient), 0),
+        )
       : [gershgorinBound(obs.matrix)];
   const notes: string[] = [];
   let shotPlan: PreviewResult["shotPlan"] = null;
@@ -47,7 +51,15 @@ export function previewRequest(request: unknown, options: PreviewOptions = {}): 
   let planWork: PreviewResult["planWork"] = null;
   if (req.targetPrecision !== null) {
     const circuits = (k: number) => (k === 0 ? circuit : program.bind(grid.points[k]));
-    const planned = planPreviewShots({ ...req, targetPrecision: req.targetPrecision }, circuits, grid.points.length, obs, bounds, stats.totalGates, options);
+    const planned = planPreviewShots(
+      { ...req, targetPrecision: req.targetPrecision },
+      circuits,
+      grid.points.length,
+      obs,
+      bounds,
+      stats.totalGates,
+      options,
+    );
     shotPlan = planned.plan;
     varianceSource = planned.source;
     planWork = planned.work;
@@ -66,10 +78,13 @@ export function previewRequest(request: unknown, options: PreviewOptions = {}): 
     }
     perSetting = allocateShots(shots, req.split === "even" ? bounds.map(() => 1) : bounds);
     if (req.split === "optimal" && groups.length > 1) {
-      notes.push("The per-setting split shown uses worst-case bounds; the run splits ∝ √Var_g from the state's exact variances.");
+      notes.push(
+        "The per-setting split shown uses worst-case bounds; the run splits ∝ √Var_g from the state's exact variances.",
+      );
     }
   }
-  if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0) notes.push("The observable is a multiple of the identity: no measurement is needed.");
+  if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0)
+    notes.push("The observable is a multiple of the identity: no measurement is needed.");
   const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
   return {
     qubits: n,
@@ -78,7 +93,11 @@ export function previewRequest(request: unknown, options: PreviewOptions = {}): 
     totalGates: stats.totalGates,
     twoQubitGates: stats.twoQubitGates,
     depth: stats.depth,
-    observable: { format: obs.kind, terms: obs.kind === "pauli" ? obs.sum.terms.length : 0, settings: groups.length },
+    observable: {
+      format: obs.kind,
+      terms: obs.kind === "pauli" ? obs.sum.terms.length : 0,
+      settings: groups.length,
+    },
     groups,
     stateBytes: req.method === "statevector" ? 16 * 2 ** n : 16 * 4 ** n,
     sweepPoints: grid.points.length,

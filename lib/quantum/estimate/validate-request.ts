@@ -27,8 +27,10 @@ export function validateRequest(request: unknown): NormalisedRequest {
   if (!parsed.success) {
     const issues: EngineIssue[] = parsed.error.issues.flatMap((i) => {
       const path = i.path.map((p) => (typeof p === "number" ? p : String(p)));
-      if (i.code === "unrecognized_keys") return i.keys.map((k) => ({ path: [...path, k], message: `unknown field "${k}"` }));
-      if (i.code === "invalid_type" && /received undefined/.test(i.message)) return [{ path, message: `${path.join(".") || "value"} is required` }];
+      if (i.code === "unrecognized_keys")
+        return i.keys.map((k) => ({ path: [...path, k], message: `unknown field "${k}"` }));
+      if (i.code === "invalid_type" && /received undefined/.test(i.message))
+        return [{ path, message: `${path.join(".") || "value"} is required` }];
       return [{ path, message: i.message }];
     });
     const first = issues[0];
@@ -38,7 +40,9 @@ export function validateRequest(request: unknown): NormalisedRequest {
   const raw = parsed.data;
   const method = raw.method ?? "statevector";
   if (method === "statevector" && hasStateNoise(raw.noise)) {
-    const field = (["depolarizing1q", "depolarizing2q", "amplitudeDamping", "phaseDamping"] as const).find((f) => (raw.noise?.[f] ?? 0) > 0)!;
+    const field = (
+      ["depolarizing1q", "depolarizing2q", "amplitudeDamping", "phaseDamping"] as const
+    ).find((f) => (raw.noise?.[f] ?? 0) > 0)!;
     const message = `noise.${field} acts on the state and needs method "density_matrix" (the statevector method supports readout error only)`;
     throw new EngineError("unsupported", message, [{ path: ["noise", field], message }]);
   }
@@ -46,7 +50,10 @@ export function validateRequest(request: unknown): NormalisedRequest {
   const e1 = raw.noise?.readout?.p0Given1 ?? 0;
   if (raw.mitigateReadout && e0 + e1 >= 1 - 1e-9) {
     // A = [[1−e0, e1], [e0, 1−e1]] has determinant 1 − e0 − e1 (readout.ts)
-    const why = Math.abs(e0 + e1 - 1) <= 1e-9 ? "= 1: the assignment matrix is singular and the readout carries no information" : "> 1: the readout is more often wrong than right and the assignment matrix inverts the outcomes";
+    const why =
+      Math.abs(e0 + e1 - 1) <= 1e-9
+        ? "= 1: the assignment matrix is singular and the readout carries no information"
+        : "> 1: the readout is more often wrong than right and the assignment matrix inverts the outcomes";
     const message = `readout mitigation needs p1Given0 + p0Given1 < 1; here ${e0} + ${e1} ${why}`;
     throw new EngineError("infeasible", message, [
       { path: ["mitigateReadout"], message },

@@ -35,7 +35,9 @@ class PauliSumGrammar extends EmbeddedActionsParser {
     this.MANY2(() => {
       const ops: IToken[] = [];
       this.AT_LEAST_ONE(() => {
-        ops.push(this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]));
+        ops.push(
+          this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]),
+        );
       });
       const t = this.SUBRULE2(this.term);
       terms.push({ ...t, ...splitSigns(ops) });

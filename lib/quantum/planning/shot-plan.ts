@@ -33,14 +33,20 @@ export function planFromStdDevs(stdDevs: number[], epsilon: number): SettingPlan
   const total = stdDevs.reduce((a, b) => a + b, 0);
   const eps2 = epsilon * epsilon;
   // ε² underflows to 0 for ε ≲ 1e-162: divide by ε twice instead (a zero variance still needs 1 shot)
-  const need = (w: number) => (w === 0 ? 0 : eps2 > 0 ? (w * total) / eps2 : (w / epsilon) * (total / epsilon));
+  const need = (w: number) =>
+    w === 0 ? 0 : eps2 > 0 ? (w * total) / eps2 : (w / epsilon) * (total / epsilon);
   const perSetting = stdDevs.map((w) => Math.max(1, Math.ceil(need(w) - 1e-9)));
   return { perSetting, totalShots: perSetting.reduce((a, b) => a + b, 0) };
 }
 
-export function planShots(input: { targetPrecision: number; stdDevBounds: number[]; stdDevs?: number[] | null }): ShotPlan {
+export function planShots(input: {
+  targetPrecision: number;
+  stdDevBounds: number[];
+  stdDevs?: number[] | null;
+}): ShotPlan {
   const eps = input.targetPrecision;
-  if (!(eps > 0) || !Number.isFinite(eps)) throw new RangeError("targetPrecision must be a positive finite number");
+  if (!(eps > 0) || !Number.isFinite(eps))
+    throw new RangeError("targetPrecision must be a positive finite number");
   return {
     targetPrecision: eps,
     settings: input.stdDevBounds.length,
@@ -63,7 +69,9 @@ export function allocateShots(total: number, weights: number[]): number[] {
   const exact = w.map((x) => x * rest);
   const out = exact.map((x) => 1 + Math.floor(x));
   let left = total - out.reduce((a, b) => a + b, 0);
-  const order = exact.map((x, i) => i).sort((a, b) => exact[b] - Math.floor(exact[b]) - (exact[a] - Math.floor(exact[a])) || a - b);
+  const order = exact
+    .map((x, i) => i)
+    .sort((a, b) => exact[b] - Math.floor(exact[b]) - (exact[a] - Math.floor(exact[a])) || a - b);
   for (let k = 0; left > 0; k = (k + 1) % g, left--) out[order[k]]++;
   return out;
 }
@@ -85,8 +93,15 @@ export function shotsNeededText(stdDevs: number[], epsilon: number): string {
  * The refusal of a target precision no plan can reach within MAX_SHOTS (422 at submission):
  * names the shots it would need and what was used to plan them.
  */
-export function unreachablePrecision(epsilon: number, stdDevs: number[], basis: "state" | "worst_case" = "state"): EngineError {
-  const how = basis === "state" ? "from the state's exact variances" : "from worst-case variance bounds (the state was too large to simulate for the plan)";
+export function unreachablePrecision(
+  epsilon: number,
+  stdDevs: number[],
+  basis: "state" | "worst_case" = "state",
+): EngineError {
+  const how =
+    basis === "state"
+      ? "from the state's exact variances"
+      : "from worst-case variance bounds (the state was too large to simulate for the plan)";
   const message =
     `a standard error of ${epsilon} needs ${shotsNeededText(stdDevs, epsilon)} shots (${how}), ` +
     `more than the limit of ${MAX_SHOTS.toLocaleString("en-US")} per run; loosen targetPrecision or give shots`;
