@@ -22,7 +22,7 @@ const CELLS: CoverageCase[] = [
   { family: "one term", a: 0.98, shots: 100, mitigated: false },
   { family: "one term", a: 0.999, shots: 1000, mitigated: false },
   { family: "one term", a: 0.62, shots: 500, mitigated: true },
-  { family: "one term", a: 0.9, shots: 200, mitigated: true },
+  { family: "one term", a: 0.99, shots: 200, mitigated: true },
   { family: "correlated", a: 0.9, shots: 100, mitigated: false },
   { family: "correlated", a: 0.99, shots: 1000, mitigated: true },
   { family: "settings", a: 0.5, shots: 30, mitigated: false },
