@@ -204,6 +204,14 @@ describe("run workspace", () => {
     await page.getByLabel("Profile name").fill("Bench A, light");
     await page.getByRole("button", { name: "Save", exact: true }).click();
     await page.getByText("Saved “Bench A, light”.").waitFor();
+    // The reload must find the noise card open: wait until the draft that says so is stored.
+    await page.waitForFunction(() =>
+      Object.keys(localStorage).some(
+        (k) =>
+          k.startsWith("ketwise:new-run-draft:") &&
+          (localStorage.getItem(k) ?? "").includes('"noiseEnabled":true'),
+      ),
+    );
     await page.reload();
     const saved = page.locator("optgroup[label='Saved in this organisation'] option", {
       hasText: "Bench A, light",
