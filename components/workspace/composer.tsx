@@ -1,6 +1,6 @@
 "use client";
 /**
- * The new-run composer: circuit, observable, parameters, estimate settings and noise on
+ * The new-run form: circuit, observable, parameters, estimate settings and noise on
  * the left, the live preview on the right. One react-hook-form form validated by the
  * shared run schema (composer-resolver); the draft is saved per organisation and
  * restored after a reload; submit with the button or Ctrl/Cmd+Enter from anywhere in it.
