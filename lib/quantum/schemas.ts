@@ -119,16 +119,22 @@ export const estimateRequestSchema = z
 
 export type EstimateRequest = z.infer<typeof estimateRequestSchema>;
 
+const interval = z.tuple([z.number(), z.number()]);
+
 const estimateSchema = z.object({
-  mean: z.number(),
-  stdErr: z.number().describe("Standard error of the mean"),
-  ci95: z.tuple([z.number(), z.number()]).describe("95 % normal interval"),
+  mean: z.number().describe("Sample mean: constant part plus the average of each setting's shot values"),
+  stdErr: z
+    .number()
+    .describe("Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots"),
+  ci95: interval.describe("95 % interval: posterior mean ± Welch–Satterthwaite t quantile × stdErr, widened to contain the mean, clipped to the possible values"),
+  df: z.number().optional().describe("Welch–Satterthwaite degrees of freedom of the interval's t quantile"),
 });
 
 export const convergencePointSchema = z.object({
   shots: z.int().describe("Shots used so far (a prefix of every setting)"),
   mean: z.number(),
   stdErr: z.number(),
+  ci95: interval.optional().describe("95 % interval at this prefix (same method as `sampled.ci95`)"),
 });
 
 export const shotPlanSchema = z
@@ -181,9 +187,11 @@ export const estimateResultSchema = z
         coefficient: z.number(),
         exact: z.number().describe("Exact ⟨P⟩ under the noise model"),
         sampledMean: z.number().optional(),
-        stdErr: z.number().optional(),
+        stdErr: z.number().optional().describe("Posterior standard deviation of the term's ⟨P⟩ (same method as `sampled.stdErr`)"),
+        ci95: interval.optional().describe("95 % interval of ⟨P⟩"),
         mitigatedMean: z.number().optional(),
         mitigatedStdErr: z.number().optional(),
+        mitigatedCi95: interval.optional(),
         group: z.int().nullable().describe("Index of the measurement setting (null for the identity)"),
       }),
     ),
