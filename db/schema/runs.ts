@@ -3,7 +3,7 @@
  *
  * Lifecycle: queued → running → succeeded | failed | canceled (a queued run may
  * also go straight to canceled or failed). `request` is the engine request as
- * submitted (DESIGN.md §4, without `name`); `seed` is the one the run uses —
+ * submitted (the body of POST /api/v1/runs without `name`); `seed` is the one the run uses —
  * the user's, or one chosen at submission — so every sampled figure is
  * reproducible. `error` is an RFC 9457 problem document, `result` the engine's
  * EstimateResult. `shots` is the planned total (the request's `shots`, or the

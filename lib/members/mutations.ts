@@ -1,7 +1,7 @@
 /**
  * Member changes, each in one transaction that locks the organisation's
  * membership rows first, so two admins acting at once cannot remove the last
- * owner between them. Rules (DESIGN.md §6):
+ * owner between them. Rules (roles are cumulative: viewer < member < admin < owner):
  *   - only an owner may change or remove another owner;
  *   - the last owner can be neither demoted nor removed;
  *   - ownership moves only by an explicit transfer (new owner, old owner → admin);

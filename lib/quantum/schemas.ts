@@ -1,5 +1,5 @@
 /**
- * The engine's request and result shapes (DESIGN.md §4) as zod 4 schemas — the one
+ * The engine's request and result shapes as zod 4 schemas — the one
  * definition shared by forms, route handlers, the worker and the OpenAPI document
  * (the `.describe()` texts become its descriptions). Plain zod: the API layer registers
  * them with @asteasolutions/zod-to-openapi.

@@ -1,5 +1,6 @@
 /**
- * `estimate(request, { onProgress, signal })` — the engine contract of DESIGN.md §4.
+ * `estimate(request, { onProgress, signal })` — the engine contract (request = the body of
+ * POST /api/v1/runs without `name`; result as in `estimateResultSchema`).
  *
  * Order: validate (zod) → parse the circuit and the observable (sizes checked before any
  * state is allocated) → for each parameter point (one, or the sweep grid): bind, simulate,

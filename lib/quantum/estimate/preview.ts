@@ -1,6 +1,6 @@
 /**
  * `previewRequest(request)` — the cheap, synchronous preview a request handler may
- * compute (DESIGN.md §3, §5): validation, qubit count, gate counts and depth, the
+ * compute (POST /api/v1/runs/preview): validation, qubit count, gate counts and depth, the
  * measurement settings and a shot plan. No state is simulated: exact variances would
  * need the state, so the plan uses the worst-case bounds — Σ_{i∈g}|c_i| per Pauli
  * setting, the Gershgorin row-sum bound for a matrix — and says so. The same errors

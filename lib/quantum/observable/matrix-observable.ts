@@ -1,5 +1,5 @@
 /**
- * Matrix observables `{ real, imag? }` (DESIGN.md §2): a 2^n × 2^n complex
+ * Matrix observables `{ real, imag? }`: a 2^n × 2^n complex
  * matrix H = real + i·imag, checked Hermitian (H_ij = conj(H_ji)) to a relative
  * tolerance of 1e-10 of the largest entry modulus. Row/column index bit k = qubit k
  * (index 1 = qubit 0 in |1⟩), the same order as the statevector.

@@ -1,5 +1,5 @@
 /**
- * Sampled estimate of ⟨A⟩ with shots (DESIGN.md §1, §4).
+ * Sampled estimate of ⟨A⟩ with shots (`sampled` in the result: mean, stdErr, ci95).
  *
  * Per measurement setting (a qubit-wise commuting Pauli group, or the eigenbasis of a
  * matrix observable): the outcome law is computed on a rotated COPY of the statevector

@@ -3,7 +3,7 @@
  * was expected, and the 1-based line/column of the culprit, at ["circuit", "source"].
  * What counts as an error follows the OpenQASM 2.0 paper (arXiv:1707.03429 §3: only U
  * and CX without the include, broadcast sizes, declaration before use) and Ketwise's
- * documented OpenQASM 3 subset (DESIGN.md §2).
+ * documented OpenQASM 3 subset (DEVELOPERS.md, "Circuits").
  */
 import { describe, expect, it } from "vitest";
 import { parseProgram } from "@/lib/quantum/circuit";

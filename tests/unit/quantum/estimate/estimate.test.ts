@@ -1,5 +1,5 @@
 /**
- * estimate(): the DESIGN.md §4 contract — textbook values end to end, qubit order,
+ * estimate(): the engine contract — textbook values end to end, qubit order,
  * seeds, shot planning, noise, sweeps, validation, progress and cancellation.
  */
 import { describe, expect, it } from "vitest";

@@ -1,6 +1,6 @@
 /**
- * Independent dense reference computations with mathjs (REFERENCES.md: "mathjs:
- * complex dense matrices, Kronecker products"). Index convention of the engine:
+ * Independent dense reference computations with mathjs (complex dense
+ * matrices, Kronecker products). Index convention of the engine:
  * basis index bit k = qubit k, so the matrix of a dense word P0 P1 … P(n−1) in index
  * order is kron(P(n−1), …, P1, P0) (qubit 0 is the least significant factor).
  */

@@ -35,7 +35,7 @@ describe("Bell state (|00⟩+|11⟩)/√2 — Nielsen & Chuang §2.6 / §1.3.6",
   });
 });
 
-describe("qubit order is asymmetric (DESIGN.md §2: qubit 0 first)", () => {
+describe("qubit order is asymmetric (qubit 0 first)", () => {
   // X on qubit 0 only: |ψ⟩ = |1⟩_0 |0⟩_1, amplitude index bit 0 set → index 1.
   const flipped = basisState(2, 0b01);
   it("⟨Z0⟩ = −1 and ⟨Z1⟩ = +1 after X on qubit 0", () => {
@@ -54,7 +54,7 @@ describe("qubit order is asymmetric (DESIGN.md §2: qubit 0 first)", () => {
   });
 });
 
-describe("one qubit: ⟨Z⟩ = p(0) − p(1) (DESIGN.md §1, Born rule)", () => {
+describe("one qubit: ⟨Z⟩ = p(0) − p(1) (Born rule)", () => {
   it("holds for random states", () => {
     const rand = mulberry32(11);
     for (let k = 0; k < 20; k++) {

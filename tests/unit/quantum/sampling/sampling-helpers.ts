@@ -6,7 +6,7 @@ import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
 import { padPauliSum } from "@/lib/quantum/observable/pauli-word";
 import type { PreparedObservable, PreparedState, SamplingOptions } from "@/lib/quantum/sampling/sample-observable";
 
-/** jstat (statistics reference library, REFERENCES.md) has no type declarations. */
+/** jstat (statistics reference library) has no type declarations. */
 const jstat = createRequire(import.meta.url)("jstat") as {
   jStat: { chisquare: { inv(p: number, dof: number): number; cdf(x: number, dof: number): number } };
 };

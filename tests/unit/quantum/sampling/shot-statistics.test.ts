@@ -1,5 +1,5 @@
 /**
- * Shot statistics (REFERENCES.md): standard error of a ±1 outcome √((1−m²)/N)
+ * Shot statistics: standard error of a ±1 outcome √((1−m²)/N)
  * (binomial, common practice); 95 % normal intervals cover the exact value in about
  * 95 % of runs (common practice; over 600 fixed seeds the binomial spread of the
  * coverage is ±0.9 %, so 95 ± 2.5 % is a 2.8σ band); Var = Σ_g Var_g/N_g with the
