@@ -9,6 +9,7 @@ import { JOB_SCHEMAS, type JobName, type JobPayload } from "@/lib/queue/jobs";
 import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
 import { sendRunFinishedMail } from "@/lib/runs/notify";
+import { deliverWebhook, fanOutRunFinished } from "@/lib/webhooks/deliveries";
 import { reportOverageJob } from "./jobs/billing-overage";
 import { log } from "./log";
 
@@ -43,11 +44,34 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
       schema: JOB_SCHEMAS["billing.report-overage"],
       handler: async (payload) => reportOverageJob(payload),
     },
+    "webhook.fanout": {
+      schema: JOB_SCHEMAS["webhook.fanout"],
+      handler: async (payload) => {
+        const endpoints = await fanOutRunFinished(payload);
+        if (endpoints) log(`run ${payload.runId}: ${endpoints} webhook delivery(ies) queued`);
+        return endpoints;
+      },
+    },
+    "webhook.deliver": {
+      schema: JOB_SCHEMAS["webhook.deliver"],
+      handler: async (payload, { job }) => {
+        const outcome = await deliverWebhook(
+          payload,
+          job.attemptsMade + 1 >= (job.opts.attempts ?? 1),
+        );
+        if (outcome !== "skipped") log(`webhook delivery ${payload.deliveryId}: ${outcome}`);
+        return outcome;
+      },
+    },
   };
 }
 
 /** Validates and dispatches one job. */
-export async function dispatch(registry: Registry, job: Job, token: string | undefined): Promise<unknown> {
+export async function dispatch(
+  registry: Registry,
+  job: Job,
+  token: string | undefined,
+): Promise<unknown> {
   const entry = registry[job.name as JobName] as Entry<JobName> | undefined;
   if (!entry) {
     log(`dropping job ${job.id}: unknown job name "${job.name}"`);
@@ -55,7 +79,9 @@ export async function dispatch(registry: Registry, job: Job, token: string | und
   }
   const parsed = entry.schema.safeParse(job.data);
   if (!parsed.success) {
-    log(`dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`);
+    log(
+      `dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`,
+    );
     return "dropped";
   }
   return (entry.handler as Handler<JobName>)(parsed.data, { job, token });

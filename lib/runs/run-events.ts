@@ -4,13 +4,18 @@
  *
  * 1. published on the Redis channel `<queue prefix>:run-finished` (message: the
  *    run id), so `GET /api/v1/runs/:id?wait=N` answers at once (./run-waiter.ts);
+ * 2. handed to the webhooks: a `webhook.fanout` job (id `hooks-<run>`, so at most
+ *    one per run) makes one signed delivery per enabled endpoint
+ *    (lib/webhooks/deliveries.ts).
  *
  * Best effort: a Redis fault is logged, never thrown — the run's row is already
- * written and waiters still answer when their wait ends. Redis pub/sub ignores
+ * written, waiters still answer when their wait ends, and webhooks are
+ * notifications, not the record (the run itself is). Redis pub/sub ignores
  * database numbers, hence the per-database prefix.
  */
 import "server-only";
 import { queuePrefix } from "@/lib/queue/connection";
+import { enqueue } from "@/lib/queue/enqueue";
 import { getRedis } from "@/lib/rate-limit/redis";
 import type { TerminalRunStatus } from "./constants";
 
@@ -23,9 +28,9 @@ export async function announceRunFinished(
   runId: string,
   status: TerminalRunStatus,
 ): Promise<void> {
-  void orgId;
   const results = await Promise.allSettled([
     withTimeout(getRedis().publish(runFinishedChannel(), runId)),
+    enqueue("webhook.fanout", { orgId, runId, status }, { jobId: `hooks-${runId}` }),
   ]);
   for (const r of results) {
     if (r.status === "rejected")
