@@ -64,6 +64,21 @@ export const envSchema = z.object({
   WEBHOOK_RETRY_BASE_MS: z.coerce.number().int().min(10).default(30_000),
   /** Timeout of one webhook attempt in ms (connect + answer). */
   WEBHOOK_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
+  /** How often the worker's sweeper looks for runs whose job went missing. */
+  RUN_SWEEP_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
+  /** A queued run with no job in the queue for this long is enqueued again (crash between insert and enqueue). */
+  RUN_QUEUED_GRACE_SECONDS: z.coerce.number().int().min(1).max(86_400).default(60),
+  /** Bearer token for GET /api/metrics and the worker's /metrics; unset = metrics endpoints off. */
+  METRICS_TOKEN: z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.string().min(16, "must be at least 16 characters").optional(),
+  ),
+  /** Port of the worker's /health + /metrics server; unset = no server. */
+  WORKER_METRICS_PORT: z.preprocess((v) => (v === "" ? undefined : v), port.optional()),
+  /** Address the worker's /health + /metrics server binds (default 127.0.0.1). */
+  WORKER_METRICS_HOST: z.string().default("127.0.0.1"),
+  /** Log threshold of the JSON logs (pino). */
+  LOG_LEVEL: z.enum(["fatal", "error", "warn", "info", "debug", "trace", "silent"]).default("info"),
 });
 
 export type Env = z.infer<typeof envSchema>;

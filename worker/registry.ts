@@ -5,6 +5,7 @@
  */
 import { DelayedError, type Job } from "bullmq";
 import type { z } from "zod";
+import { withLogContext } from "@/lib/observability/logger";
 import { JOB_SCHEMAS, type JobName, type JobPayload } from "@/lib/queue/jobs";
 import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
@@ -84,5 +85,9 @@ export async function dispatch(
     );
     return "dropped";
   }
-  return (entry.handler as Handler<JobName>)(parsed.data, { job, token });
+  const { requestId, orgId } = parsed.data;
+  const runId = "runId" in parsed.data ? parsed.data.runId : undefined;
+  return withLogContext({ requestId, orgId, runId, jobId: job.id }, () =>
+    (entry.handler as Handler<JobName>)(parsed.data, { job, token }),
+  );
 }

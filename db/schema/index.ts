@@ -9,3 +9,4 @@ export * from "./usage";
 export * from "./billing";
 export * from "./noise-profiles";
 export * from "./webhooks";
+export * from "./data-migrations";

@@ -30,6 +30,8 @@ export const AUDIT_ACTIONS = {
   "webhook.enabled": { label: "Webhook endpoint enabled", group: "webhooks" },
   "webhook.disabled": { label: "Webhook endpoint disabled", group: "webhooks" },
   "webhook.deleted": { label: "Webhook endpoint deleted", group: "webhooks" },
+  "api_key.capped": { label: "API key limited to its creator's role", group: "api_keys" },
+  "api_key.disabled": { label: "API key disabled (creator left)", group: "api_keys" },
   "billing.checkout_started": { label: "Checkout started", group: "billing" },
   "billing.plan_changed": { label: "Plan changed", group: "billing" },
   "billing.seats_changed": { label: "Seats changed", group: "billing" },

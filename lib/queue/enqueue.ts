@@ -5,6 +5,7 @@
  */
 import "server-only";
 import { Queue } from "bullmq";
+import { currentRequestId } from "@/lib/observability/logger";
 import {
   JOB_ATTEMPTS,
   JOB_BACKOFF,
@@ -59,7 +60,8 @@ export async function enqueue<N extends JobName>(
   payload: JobPayload<N>,
   options: { jobId: string; delayMs?: number; attempts?: number; backoffMs?: number },
 ): Promise<void> {
-  const data = JOB_SCHEMAS[name].parse(payload);
+  const requestId = payload.requestId ?? currentRequestId();
+  const data = JOB_SCHEMAS[name].parse(requestId ? { ...payload, requestId } : payload);
   try {
     await withTimeout(
       getRunsQueue().add(name, data, {

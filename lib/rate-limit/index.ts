@@ -12,6 +12,7 @@ import "server-only";
 import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
 import type { RateLimitState } from "./headers";
+import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
 
 export type { RateLimitState } from "./headers";
@@ -69,6 +70,7 @@ export async function consume(
     return stateOf(budget, await limiter(name, budget).consume(key));
   } catch (error) {
     if (error instanceof RateLimiterRes) {
+      metrics().rateLimitRefusals.inc({ budget: name });
       const seconds = Math.max(1, Math.ceil(error.msBeforeNext / 1000));
       const wait = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
       const limited = tooManyRequests(`${message} Try again in ${wait}.`, seconds);

@@ -11,6 +11,7 @@
 import { parseProgram } from "../circuit";
 import { EngineError } from "../errors";
 import { SPECTRUM_STEP_BUDGET, lanczosExtremes, lanczosStepCost } from "../observable/lanczos";
+import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { sparseLabel } from "../observable/pauli-word";
 import { chooseSeed } from "../sampling/rng";
 import type { PreparedObservable } from "../sampling/sample-observable";
@@ -134,6 +135,8 @@ function assemble(
   if (s?.mitigated) result.mitigated = s.mitigated;
   if (spectrum) result.spectrum = spectrum;
   if (s?.plan) result.shotPlan = s.plan;
+  const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
+  if (decomposition) result.pauliDecomposition = decomposition;
   if (grid.names.length > 0) {
     result.sweep = {
       parameters: grid.names,

@@ -7,6 +7,7 @@
  * as `estimate` are thrown for the same bad input.
  */
 import { circuitStats, parseProgram } from "../circuit";
+import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { allocateShots, planShots } from "../planning/shot-plan";
 import { gershgorinBound } from "../sampling/sample-observable";
 import type { PreviewResult } from "../schemas";
@@ -57,6 +58,7 @@ export function previewRequest(request: unknown): PreviewResult {
     }
   }
   if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0) notes.push("The observable is a multiple of the identity: no measurement is needed.");
+  const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
   return {
     qubits: n,
     method: req.method,
@@ -72,6 +74,7 @@ export function previewRequest(request: unknown): PreviewResult {
     totalShots: shots * grid.points.length,
     shotPlan,
     shotsPerSetting: perSetting,
+    ...(decomposition ? { pauliDecomposition: decomposition } : {}),
     varianceSource: "worst_case",
     notes,
   };
