@@ -79,11 +79,18 @@ async function fromApiKey(token: string, min: Role): Promise<Omit<OrgContext, "p
   // Rights are the lower of the key's role and its creator's current role, checked on every request.
   const standing = keyStanding(key.role, found.creatorRole);
   if (standing.state === "disabled") {
-    throw forbidden(`This API key is disabled: the person who created it is no longer a member of ${org.name}. Create a new key.`);
+    throw forbidden(
+      `This API key is disabled: the person who created it is no longer a member of ${org.name}. Create a new key.`,
+    );
   }
   if (!roleAtLeast(standing.role, min)) {
-    const why = standing.state === "capped" ? ` (the key is ${ROLE_LABELS[key.role]}, but its creator is now ${ROLE_LABELS[standing.creatorRole]})` : "";
-    throw forbidden(`This needs a key with the ${ROLE_LABELS[min]} role or higher; this key acts as ${ROLE_LABELS[standing.role]}${why}.`);
+    const why =
+      standing.state === "capped"
+        ? ` (the key is ${ROLE_LABELS[key.role]}, but its creator is now ${ROLE_LABELS[standing.creatorRole]})`
+        : "";
+    throw forbidden(
+      `This needs a key with the ${ROLE_LABELS[min]} role or higher; this key acts as ${ROLE_LABELS[standing.role]}${why}.`,
+    );
   }
   if (!key.lastUsedAt || Date.now() - key.lastUsedAt.getTime() > 60_000)
     await touchApiKey(org.id, key.id);

@@ -7,8 +7,19 @@
  * optional `name`.
  */
 import { z } from "zod";
-import { estimateRequestSchema, estimateResultSchema, previewResultSchema, type EstimateRequest } from "@/lib/quantum/schemas";
-import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
+import {
+  estimateRequestSchema,
+  estimateResultSchema,
+  previewResultSchema,
+  type EstimateRequest,
+} from "@/lib/quantum/schemas";
+import {
+  cursorParamSchema,
+  limitParamSchema,
+  pageSchema,
+  problemSchema,
+  timestampSchema,
+} from "@/lib/openapi/common-schemas";
 import { nameSchema } from "@/lib/validation/names";
 import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES } from "./constants";
 
