@@ -15,6 +15,7 @@ import { getPlan, type Plan } from "@/lib/billing/plans";
 import { recordRunUsage, type RunUsage } from "@/lib/usage/mutations";
 import { periodOf } from "@/lib/usage/period";
 import { isTerminalStatus, type RunStatus } from "./constants";
+import { announceRunFinished } from "./run-events";
 
 export type ClaimResult =
   | { kind: "missing" }
@@ -149,6 +150,7 @@ export type RunFinish = {
 /**
  * Result, status, timings and usage rows in ONE transaction, applied only
  * while this attempt still owns the run. Returns false when it did not.
+ * After the commit the finish is announced (waiters, webhooks).
  */
 export async function finishRun(
   orgId: string,
@@ -156,7 +158,7 @@ export async function finishRun(
   attempt: number,
   finish: RunFinish,
 ): Promise<boolean> {
-  return db.transaction(async (tx) => {
+  const done = await db.transaction(async (tx) => {
     const finishedAt = new Date();
     const [result] = await tx
       .update(runs)
@@ -175,6 +177,8 @@ export async function finishRun(
     await recordRunUsage(tx, orgId, runId, periodOf(finishedAt), finish.usage);
     return true;
   });
+  if (done) await announceRunFinished(orgId, runId, finish.status);
+  return done;
 }
 
 /** Meters the compute a canceled run consumed (once; nothing if the run is not canceled). */
@@ -196,7 +200,7 @@ export async function recordCanceledRunUsage(
   });
 }
 
-/** Fails a run that has not finished (malformed row, retries exhausted). False if it already had. */
+/** Fails a run that has not finished (malformed row, retries exhausted), and announces it. False if it already had. */
 export async function failUnfinishedRun(
   orgId: string,
   runId: string,
@@ -208,5 +212,7 @@ export async function failUnfinishedRun(
     .where(
       and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])),
     );
-  return result.affectedRows > 0;
+  if (result.affectedRows === 0) return false;
+  await announceRunFinished(orgId, runId, "failed");
+  return true;
 }

@@ -149,6 +149,20 @@ export const runListQuerySchema = z.strictObject({
 });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
 
+/** `GET /api/v1/runs/:id?wait=N`: hold the answer up to N seconds until the run is terminal. */
+export const runGetQuerySchema = z.strictObject({
+  wait: z.coerce
+    .number({ error: "a number of seconds, e.g. 20" })
+    .min(0, "at least 0 seconds")
+    .max(30, "at most 30 seconds")
+    .optional()
+    .describe(
+      "Seconds (0–30) to hold the answer until the run is succeeded, failed or canceled; it answers as soon as the run finishes, " +
+        "or with the run as it is when the time is up. Without it the run is answered at once.",
+    ),
+});
+export type RunGetQuery = z.infer<typeof runGetQuerySchema>;
+
 export const runPageSchema = pageSchema(runSummarySchema).describe("Runs, newest first");
 
 export const quotaRefusalSchema = z.object({

@@ -8,16 +8,22 @@
  * twice), the settings' outcome laws ≈ settings·(n+1)·2ⁿ (a rotated copy per setting) or
  * settings·4ⁿ, and a matrix observable's eigendecomposition d³ once. Within
  * `workBudget`, every point is simulated and planned exactly as the run will plan it
- * (same laws, readout and mitigation, same rounding: `buildSpecs` + `settingVariance`
- * of sampling/sample-observable.ts), so the planned shots are the shots the run draws.
+ * (same laws, readout and mitigation, same rounding: `buildSpecs`, `settingLoad` and
+ * `targetPlan` of sampling/sample-observable.ts), so the planned shots are the shots the run draws.
  * Beyond the budget the plan is the worst-case bound (valid for any state).
  */
 import { simulateDensityMatrix } from "../density-matrix/simulate";
 import { hermitianEigen } from "../observable/hermitian-eigen";
-import { planShots, unreachablePrecision, type ShotPlan } from "../planning/shot-plan";
+import {
+  planShots,
+  shotsNeededText,
+  unreachablePrecision,
+  type ShotPlan,
+} from "../planning/shot-plan";
 import {
   buildSpecs,
-  settingVariance,
+  settingLoad,
+  targetPlan,
   type PreparedObservable,
   type PreparedState,
 } from "../sampling/sample-observable";
@@ -79,7 +85,7 @@ export function planPreviewShots(
   if (estimated > budget) {
     const plan = planShots({ targetPrecision: eps, stdDevBounds: bounds, stdDevs: null });
     if (!(plan.worstCase.totalShots <= MAX_SHOTS))
-      throw unreachablePrecision(eps, bounds, "worst_case");
+      throw unreachablePrecision(eps, shotsNeededText(bounds, eps), "worst_case");
     return {
       source: "worst_case",
       plan,
@@ -98,10 +104,11 @@ export function planPreviewShots(
         ? { kind: "statevector", state: simulateStatevector(circuit) }
         : { kind: "density_matrix", rho: simulateDensityMatrix(circuit, req.noise) };
     const specs = buildSpecs(state, prepared, { readout: req.readout, mitigate: req.mitigate });
-    const stdDevs = specs.map((spec) => Math.sqrt(settingVariance(spec, spec.law(), prepared)));
-    const plan = planShots({ targetPrecision: eps, stdDevBounds: bounds, stdDevs });
-    if (!(plan.stateAware!.totalShots <= MAX_SHOTS))
-      throw unreachablePrecision(eps, stdDevs, "state");
+    const plan = targetPlan(
+      eps,
+      specs,
+      specs.map((spec) => settingLoad(spec, spec.law(), prepared)),
+    );
     first ??= plan;
     pointShots.push(plan.stateAware!.totalShots);
   }

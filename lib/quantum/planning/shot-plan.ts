@@ -12,6 +12,7 @@
 
 import { EngineError } from "../errors";
 import { MAX_SHOTS } from "../estimate/limits";
+import type { SettingLoad } from "./posterior-allocation";
 
 export interface SettingPlan {
   /** Per-setting shots, in setting order. */
@@ -76,26 +77,52 @@ export function allocateShots(total: number, weights: number[]): number[] {
   return out;
 }
 
-/**
- * Shots a plan needs, as text, even when the count overflows a double (ε = 1e-300):
- * N = (Σ_g w_g)²/ε² taken in log space beyond 10^15.
- */
-export function shotsNeededText(stdDevs: number[], epsilon: number): string {
-  const w = stdDevs.reduce((a, b) => a + b, 0);
-  if (w === 0) return String(stdDevs.length);
-  const log10 = 2 * Math.log10(w) - 2 * Math.log10(epsilon);
-  if (log10 < 15) return Math.ceil((w * w) / (epsilon * epsilon)).toLocaleString("en-US");
+/** A count as text: exact with thousands separators below 10^15, else "about 2.5×10^599". */
+function countText(log10: number, exact: number): string {
+  if (Number.isFinite(exact) && exact < 1e15) return Math.ceil(exact).toLocaleString("en-US");
   const exponent = Math.floor(log10);
   return `about ${(10 ** (log10 - exponent)).toFixed(1)}×10^${exponent}`;
 }
 
 /**
- * The refusal of a target precision no plan can reach within MAX_SHOTS (422 at submission):
- * names the shots it would need and what was used to plan them.
+ * Shots the worst-case plan needs, as text, even when the count overflows a double
+ * (ε = 1e-300): N = (Σ_g w_g)²/ε² taken in log space.
+ */
+export function shotsNeededText(stdDevs: number[], epsilon: number): string {
+  const w = stdDevs.reduce((a, b) => a + b, 0);
+  if (w === 0) return String(stdDevs.length);
+  return countText(2 * Math.log10(w) - 2 * Math.log10(epsilon), (w / epsilon) * (w / epsilon));
+}
+
+/**
+ * Shots a state-aware (posterior) plan needs, as text: the plan's own total when it is a
+ * finite count, else in log space Σσ²-part + pseudo-shot part,
+ * N ≈ (Σ_g σ_g)²/ε² + (Σ_g D_g^{1/3})^{3/2}/ε (each part the optimum of its own term of
+ * Σ_g (σ_g²/N_g + D_g/N_g²) ≤ ε², posterior-allocation.ts).
+ */
+export function shotsNeededForLoads(
+  loads: SettingLoad[],
+  epsilon: number,
+  planned: number,
+): string {
+  if (Number.isFinite(planned) && planned < 1e15) return countText(Math.log10(planned), planned);
+  const s1 = loads.reduce((a, l) => a + Math.sqrt(l.variance), 0);
+  const s2 = loads.reduce((a, l) => a + Math.cbrt(l.pseudo), 0);
+  const log1 = s1 > 0 ? 2 * Math.log10(s1) - 2 * Math.log10(epsilon) : -Infinity;
+  const log2 = s2 > 0 ? 1.5 * Math.log10(s2) - Math.log10(epsilon) : -Infinity;
+  const hi = Math.max(log1, log2);
+  const log10 = hi + Math.log10(1 + 10 ** (Math.min(log1, log2) - hi));
+  return countText(log10, 10 ** log10);
+}
+
+/**
+ * The refusal of a target precision no plan can reach within MAX_SHOTS (422 at
+ * submission): names the shots it would need (`needed`, from the functions above) and
+ * what the plan was made from.
  */
 export function unreachablePrecision(
   epsilon: number,
-  stdDevs: number[],
+  needed: string,
   basis: "state" | "worst_case" = "state",
 ): EngineError {
   const how =
@@ -103,7 +130,7 @@ export function unreachablePrecision(
       ? "from the state's exact variances"
       : "from worst-case variance bounds (the state was too large to simulate for the plan)";
   const message =
-    `a standard error of ${epsilon} needs ${shotsNeededText(stdDevs, epsilon)} shots (${how}), ` +
+    `a standard error of ${epsilon} needs ${needed} shots (${how}), ` +
     `more than the limit of ${MAX_SHOTS.toLocaleString("en-US")} per run; loosen targetPrecision or give shots`;
   return new EngineError("infeasible", message, [{ path: ["targetPrecision"], message }]);
 }

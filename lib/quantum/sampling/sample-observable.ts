@@ -3,7 +3,7 @@
  *
  * Per measurement setting (a qubit-wise commuting Pauli group, or the eigenbasis of a
  * matrix observable): the outcome law is computed on a rotated COPY of the statevector
- * (or as the diagonal of UρU†, density-diagonal.ts) with readout error folded in (readout.ts); shots are split over settings ∝ √Var_g (exact
+ * (or as the diagonal of UρU†, density-diagonal.ts) with readout error folded in (readout.ts); shots are split over settings to minimise the reported (posterior) variance (posterior-allocation.ts; ≈ ∝ √Var_g, exact
  * single-shot variances, "optimal") or evenly, or chosen by a target standard error
  * (shot-plan.ts); each setting draws from its own jumped PRNG stream (rng.ts); the
  * statistics (statistics.ts, interval.ts) give the estimate, posterior standard error, 95 % interval, per-term
@@ -15,10 +15,16 @@ import { indexToBitstring } from "../observable/bits";
 import type { MeasurementSetting } from "../observable/grouping";
 import type { HermitianEigen } from "../observable/hermitian-eigen";
 import type { HermitianMatrix } from "../observable/matrix-observable";
-import { pauliSettingVariance, varianceFromLaw } from "../planning/exact-variance";
+import { momentsFromLaw, pauliSettingMoments } from "../planning/exact-variance";
+import {
+  posteriorPlan,
+  posteriorWeights,
+  type SettingLoad,
+} from "../planning/posterior-allocation";
 import {
   allocateShots,
   planShots,
+  shotsNeededForLoads,
   unreachablePrecision,
   type ShotPlan,
 } from "../planning/shot-plan";
@@ -139,11 +145,30 @@ export function buildSpecs(
   }));
 }
 
-/** Exact single-shot variance of a setting from its outcome law (readout included). */
-export function settingVariance(spec: Spec, p: Float64Array, obs: PreparedObservable): number {
-  return obs.kind === "pauli"
-    ? pauliSettingVariance(p, obs.sum, spec.termIndices, spec.model)
-    : varianceFromLaw(p, (b) => spec.model.value(b));
+/** Exact single-shot variance and pseudo-shot load of a setting from its outcome law (readout included). */
+export function settingLoad(spec: Spec, p: Float64Array, obs: PreparedObservable): SettingLoad {
+  const m =
+    obs.kind === "pauli"
+      ? pauliSettingMoments(p, obs.sum, spec.termIndices, spec.model)
+      : momentsFromLaw(p, (b) => spec.model.value(b));
+  const [lo, hi] = spec.model.range;
+  return { variance: m.variance, pseudo: (lo - m.mean) ** 2 + (hi - m.mean) ** 2 };
+}
+
+/**
+ * The plan for a target standard error: worst case from the bounds, state-aware for the
+ * reported (posterior) standard error from the loads; refused ("infeasible") beyond
+ * MAX_SHOTS. The preview (estimate/preview-plan.ts) plans with this same function.
+ */
+export function targetPlan(epsilon: number, specs: Spec[], loads: SettingLoad[]): ShotPlan {
+  const plan = {
+    ...planShots({ targetPrecision: epsilon, stdDevBounds: specs.map((s) => s.stdDevBound) }),
+    stateAware: posteriorPlan(epsilon, loads),
+  };
+  const total = plan.stateAware.totalShots;
+  if (!(total <= MAX_SHOTS))
+    throw unreachablePrecision(epsilon, shotsNeededForLoads(loads, epsilon, total), "state");
+  return plan;
 }
 
 /** ‖H‖ ≤ max_i Σ_j |H_ij| (Gershgorin), a bound on the single-shot standard deviation. */
@@ -178,6 +203,7 @@ export async function sampleObservable(
   const cache = dim * 8 * g <= LAW_CACHE_BYTES ? new Map<number, Float64Array>() : null;
   const needVariance = opts.targetPrecision !== null || opts.split === "optimal";
   const variances: number[] | null = needVariance ? [] : null;
+  const loads: SettingLoad[] = [];
   const step = async (f: number): Promise<void> => {
     await opts.tick?.(f);
   };
@@ -186,22 +212,18 @@ export async function sampleObservable(
       const spec = specs[k];
       const p = spec.law();
       cache?.set(k, p);
-      variances.push(settingVariance(spec, p, obs));
+      const load = settingLoad(spec, p, obs);
+      variances.push(load.variance);
+      loads.push(load);
       await step((0.2 * (k + 1)) / g);
     }
   }
   let plan: ShotPlan | null = null;
   let perSetting: number[];
   if (opts.targetPrecision !== null) {
-    plan = planShots({
-      targetPrecision: opts.targetPrecision,
-      stdDevBounds: specs.map((s) => s.stdDevBound),
-      stdDevs: variances!.map(Math.sqrt),
-    });
+    // worst case as before; state-aware for the reported (posterior) standard error
+    plan = targetPlan(opts.targetPrecision, specs, loads);
     perSetting = plan.stateAware!.perSetting;
-    const total = plan.stateAware!.totalShots;
-    if (!(total <= MAX_SHOTS))
-      throw unreachablePrecision(opts.targetPrecision, variances!.map(Math.sqrt));
   } else {
     const total = opts.shots ?? 0;
     if (total < g)
@@ -211,7 +233,7 @@ export async function sampleObservable(
       );
     perSetting = allocateShots(
       total,
-      variances && opts.split === "optimal" ? variances.map(Math.sqrt) : specs.map(() => 1),
+      variances && opts.split === "optimal" ? posteriorWeights(total, loads) : specs.map(() => 1),
     );
   }
   const totalShots = perSetting.reduce((a, b) => a + b, 0);
@@ -296,17 +318,9 @@ function termSamples(
       );
       const entry: TermSample = { sampledMean: e.mean, stdErr: e.stdErr, ci95: e.ci95 };
       if (mitigate && s.termMitSums && s.termMitSumSq) {
-        const bound = spec.model.termMitigatedBound[j];
+        const [lo, hi] = spec.model.termMitigatedRange[j];
         const m = estimateLinearCombination(
-          [
-            {
-              shots: s.shots,
-              sum: s.termMitSums[j],
-              sumSq: s.termMitSumSq[j],
-              lo: -bound,
-              hi: bound,
-            },
-          ],
+          [{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo, hi }],
           { range: PAULI_RANGE },
         );
         entry.mitigatedMean = m.mean;

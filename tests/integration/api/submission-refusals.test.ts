@@ -77,13 +77,6 @@ describe("planned and drawn shots", () => {
     });
   });
 
-  it("an eigenstate needs one shot per setting, even for targetPrecision 1e-300 (zero variance)", async () => {
-    // the Bell state is an eigenstate of ZZ and XX: Var = 0 in both settings
-    const res = await post({ ...bellRequest(), shots: undefined, targetPrecision: 1e-300 });
-    expect(res.status, JSON.stringify(res.body)).toBe(202);
-    expect(res.body).toMatchObject({ shots: 2, shotsPlan: "state_aware" });
-  });
-
   it("a fixed-shots run says so", async () => {
     const res = await post(bellRequest());
     expect(res.body).toMatchObject({ shots: 1000, shotsPlan: "fixed" });
