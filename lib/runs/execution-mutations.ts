@@ -15,6 +15,7 @@ import { getPlan, type Plan } from "@/lib/billing/plans";
 import { recordRunUsage, type RunUsage } from "@/lib/usage/mutations";
 import { periodOf } from "@/lib/usage/period";
 import { isTerminalStatus, type RunStatus } from "./constants";
+import { announceRunFinished } from "./run-events";
 
 export type ClaimResult =
   | { kind: "missing" }
@@ -147,6 +148,7 @@ export type RunFinish = {
 /**
  * Result, status, timings and usage rows in ONE transaction, applied only
  * while this attempt still owns the run. Returns false when it did not.
+ * After the commit the finish is announced (waiters, webhooks).
  */
 export async function finishRun(
   orgId: string,
@@ -154,7 +156,7 @@ export async function finishRun(
   attempt: number,
   finish: RunFinish,
 ): Promise<boolean> {
-  return db.transaction(async (tx) => {
+  const done = await db.transaction(async (tx) => {
     const finishedAt = new Date();
     const [result] = await tx
       .update(runs)
@@ -172,6 +174,8 @@ export async function finishRun(
     await recordRunUsage(tx, orgId, runId, periodOf(finishedAt), finish.usage);
     return true;
   });
+  if (done) await announceRunFinished(orgId, runId, finish.status);
+  return done;
 }
 
 /**

@@ -33,6 +33,26 @@ const ROUTES: { pattern: RegExp; template: string; load: () => Promise<Module> }
     load: () => import("@/app/api/v1/runs/[id]/cancel/route"),
   },
   {
+    pattern: /^\/api\/v1\/runs\/(?<id>[^/]+)\/terms\.csv$/,
+    template: "/api/v1/runs/{id}/terms.csv",
+    load: () => import("@/app/api/v1/runs/[id]/terms.csv/route"),
+  },
+  {
+    pattern: /^\/api\/v1\/runs\/(?<id>[^/]+)\/counts\.csv$/,
+    template: "/api/v1/runs/{id}/counts.csv",
+    load: () => import("@/app/api/v1/runs/[id]/counts.csv/route"),
+  },
+  {
+    pattern: /^\/api\/v1\/runs\/(?<id>[^/]+)\/points\.csv$/,
+    template: "/api/v1/runs/{id}/points.csv",
+    load: () => import("@/app/api/v1/runs/[id]/points.csv/route"),
+  },
+  {
+    pattern: /^\/api\/v1\/runs\/(?<id>[^/]+)\/circuits\.zip$/,
+    template: "/api/v1/runs/{id}/circuits.zip",
+    load: () => import("@/app/api/v1/runs/[id]/circuits.zip/route"),
+  },
+  {
     pattern: /^\/api\/v1\/circuits$/,
     template: "/api/v1/circuits",
     load: () => import("@/app/api/v1/circuits/route"),
@@ -72,6 +92,7 @@ export type ApiResponse = {
   status: number;
   headers: Headers;
   body: Json;
+  bytes: Uint8Array;
   method: string;
   template: string;
 };
@@ -88,6 +109,7 @@ export async function api(
     body?: unknown;
     rawBody?: string;
     headers?: Record<string, string>;
+    signal?: AbortSignal;
   } = {},
 ): Promise<ApiResponse> {
   const pathname = path.split("?")[0];
@@ -104,16 +126,22 @@ export async function api(
     body = JSON.stringify(options.body);
     headers["content-type"] ??= "application/json";
   }
-  const res = await handler(new Request(`http://localhost${path}`, { method, headers, body }), {
-    params: Promise.resolve(params),
+  const request = new Request(`http://localhost${path}`, {
+    method,
+    headers,
+    body,
+    signal: options.signal,
   });
-  const text = await res.text();
+  const res = await handler(request, { params: Promise.resolve(params) });
   const type = res.headers.get("content-type") ?? "";
+  const bytes = new Uint8Array(await res.arrayBuffer());
+  const text = new TextDecoder().decode(bytes);
   const parsed = text && /json/.test(type) ? JSON.parse(text) : text;
   const out = {
     status: res.status,
     headers: res.headers,
     body: parsed,
+    bytes,
     method,
     template: route.template,
   };
