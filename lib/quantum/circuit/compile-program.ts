@@ -7,14 +7,29 @@
  */
 import type { Expr, GateCallStmt, Operand, Pos, ProgramAst, Stmt } from "./ast";
 import { circuitError, plural, semanticError, syntaxError, unsupported3 } from "./circuit-errors";
-import { compileExpr, isReservedName, type Compiled, type ExprContext } from "./expressions";
+import {
+  compileExpr,
+  inputRef,
+  isReservedName,
+  type Compiled,
+  type ExprContext,
+} from "./expressions";
 import { checkArity, GateScope, type Expanded } from "./gate-definitions";
 import { QELIB1, QELIB1_ADDITIONS, STDGATES, type PrimitiveGate } from "./gate-library";
 import type { QasmFormat } from "./parse-source";
-import { LIMITS, type CompiledOp, type CompiledProgram, type PartTemplate, type ProgramInput } from "./program-ir";
+import {
+  LIMITS,
+  type CompiledOp,
+  type CompiledProgram,
+  type PartTemplate,
+  type ProgramInput,
+} from "./program-ir";
 import { broadcast, RegisterTable } from "./registers";
 
-const LIBRARY_FILE: Record<QasmFormat, "qelib1.inc" | "stdgates.inc"> = { qasm2: "qelib1.inc", qasm3: "stdgates.inc" };
+const LIBRARY_FILE: Record<QasmFormat, "qelib1.inc" | "stdgates.inc"> = {
+  qasm2: "qelib1.inc",
+  qasm3: "stdgates.inc",
+};
 const QASM3_WORDS = new Set(["qubit", "bit", "input", "float", "angle"]);
 
 class ProgramCompiler {
@@ -55,7 +70,9 @@ class ProgramCompiler {
     statements.forEach((s, i) => this.statement(s, i));
     if (this.regs.numQubits === 0) {
       throw semanticError(
-        this.format === "qasm2" ? "the program declares no qubits (add e.g. 'qreg q[1];')" : "the program declares no qubits (add e.g. 'qubit[1] q;')",
+        this.format === "qasm2"
+          ? "the program declares no qubits (add e.g. 'qreg q[1];')"
+          : "the program declares no qubits (add e.g. 'qubit[1] q;')",
         { line: 1, column: 1 },
       );
     }
@@ -79,7 +96,8 @@ class ProgramCompiler {
       case "include":
         return this.include(s.file, s.pos);
       case "register":
-        if (this.inputScope.has(s.name)) throw semanticError(`'${s.name}' is already declared as an input`, s.pos);
+        if (this.inputScope.has(s.name))
+          throw semanticError(`'${s.name}' is already declared as an input`, s.pos);
         return this.regs.declare(s.name, s.quantum, s.size, s.pos, s.sizePos);
       case "input":
         return this.input(s.name, s.type, s.pos);
@@ -102,14 +120,19 @@ class ProgramCompiler {
   }
 
   private version(v: string, pos: Pos, index: number): void {
-    if (index !== 0) throw syntaxError("'OPENQASM' must be the first statement of the program", pos);
+    if (index !== 0)
+      throw syntaxError("'OPENQASM' must be the first statement of the program", pos);
     const major = v.split(".")[0];
     if (this.format === "qasm2") {
-      if (major === "3") throw semanticError(`this program declares OpenQASM ${v}; choose the qasm3 format`, pos);
-      if (v !== "2.0") throw semanticError(`unsupported OpenQASM version ${v} (expected 'OPENQASM 2.0;')`, pos);
+      if (major === "3")
+        throw semanticError(`this program declares OpenQASM ${v}; choose the qasm3 format`, pos);
+      if (v !== "2.0")
+        throw semanticError(`unsupported OpenQASM version ${v} (expected 'OPENQASM 2.0;')`, pos);
     } else {
-      if (major === "2") throw semanticError(`this program declares OpenQASM ${v}; choose the qasm2 format`, pos);
-      if (!/^3(\.[0-9]+)?$/.test(v)) throw semanticError(`unsupported OpenQASM version ${v} (expected 'OPENQASM 3.0;')`, pos);
+      if (major === "2")
+        throw semanticError(`this program declares OpenQASM ${v}; choose the qasm2 format`, pos);
+      if (!/^3(\.[0-9]+)?$/.test(v))
+        throw semanticError(`unsupported OpenQASM version ${v} (expected 'OPENQASM 3.0;')`, pos);
     }
   }
 
@@ -128,40 +151,58 @@ class ProgramCompiler {
 
   private input(name: string, type: "float" | "angle", pos: Pos): void {
     if (this.inputScope.has(name)) throw semanticError(`input '${name}' is already declared`, pos);
-    if (this.regs.has(name)) throw semanticError(`'${name}' is already declared as a register`, pos);
-    if (isReservedName(this.format, name)) throw semanticError(`'${name}' is a built-in constant or function and cannot name an input`, pos);
+    if (this.regs.has(name))
+      throw semanticError(`'${name}' is already declared as a register`, pos);
+    if (isReservedName(this.format, name))
+      throw semanticError(
+        `'${name}' is a built-in constant or function and cannot name an input`,
+        pos,
+      );
     const i = this.inputs.length;
     this.inputs.push({ name, type });
-    this.inputScope.set(name, { evaluate: (x) => x[i], constant: null, text: name, line: pos.line, column: pos.column });
+    this.inputScope.set(name, inputRef(i, name, pos.line, pos.column));
   }
 
   private unknownGate(name: string, pos: Pos) {
     let hint = "";
     const lib = LIBRARY_FILE[this.format];
-    const inLibrary = this.format === "qasm2" ? QELIB1.has(name) || QELIB1_ADDITIONS.has(name) : STDGATES.has(name);
+    const inLibrary =
+      this.format === "qasm2" ? QELIB1.has(name) || QELIB1_ADDITIONS.has(name) : STDGATES.has(name);
     if (inLibrary && !this.included) hint = ` (it is defined in ${lib}: add 'include "${lib}";')`;
-    else if (this.format === "qasm2" && QASM3_WORDS.has(name)) hint = ` ('${name}' is OpenQASM 3: choose the qasm3 format)`;
+    else if (this.format === "qasm2" && QASM3_WORDS.has(name))
+      hint = ` ('${name}' is OpenQASM 3: choose the qasm3 format)`;
     return semanticError(`unknown gate '${name}'${hint}`, pos);
   }
 
   private call(s: GateCallStmt): void {
     const entry = this.gates.get(s.name);
     if (entry === undefined) throw this.unknownGate(s.name, s.namePos);
-    if (entry.kind === "user" && entry.body === null) throw this.gates.opaqueError(entry, s.namePos);
+    if (entry.kind === "user" && entry.body === null)
+      throw this.gates.opaqueError(entry, s.namePos);
     checkArity(entry, s.params.length, s.args.length, s.namePos);
     const params = s.params.map((e: Expr) => compileExpr(e, this.topCtx));
-    const instances = broadcast(s.args.map((a) => this.regs.resolveQubits(a)), "gate call", "qubit");
+    const instances = broadcast(
+      s.args.map((a) => this.regs.resolveQubits(a)),
+      "gate call",
+      "qubit",
+    );
     const expanded = this.gates.expand(entry, params, s.namePos);
     this.gates.chargeInstances(expanded.length * (instances.length - 1), s.namePos);
     const parts = expanded.map((x) => this.template(x));
     for (const qubits of instances) {
       const second = qubits.findIndex((q, i) => qubits.indexOf(q) !== i);
       if (second >= 0) {
-        throw semanticError(`qubit ${this.regs.qubitLabel(qubits[second])} used twice in one gate`, s.args[second].pos);
+        throw semanticError(
+          `qubit ${this.regs.qubitLabel(qubits[second])} used twice in one gate`,
+          s.args[second].pos,
+        );
       }
       this.touch(qubits);
       const partQubits = parts.map((t) => t.formals.map((f) => qubits[f]));
-      this.push({ kind: "gate", name: s.name, qubits, params, parts, partQubits, line: s.pos.line }, s.pos);
+      this.push(
+        { kind: "gate", name: s.name, qubits, params, parts, partQubits, line: s.pos.line },
+        s.pos,
+      );
     }
   }
 
@@ -171,7 +212,12 @@ class ProgramCompiler {
       gate: x.gate,
       formals: x.formals,
       params: x.params,
-      constMatrix: constant ? this.constantMatrix(x.gate, x.params.map((p) => p.constant as number)) : null,
+      constMatrix: constant
+        ? this.constantMatrix(
+            x.gate,
+            x.params.map((p) => p.constant as number),
+          )
+        : null,
       slot: constant ? -1 : this.slots.length,
     };
     if (!constant) this.slots.push(t);
@@ -205,12 +251,21 @@ class ProgramCompiler {
     if (qubits.length > 0) this.push({ kind: "barrier", qubits, line: pos.line }, pos);
   }
 
-  private measure(source: Operand, target: Operand | null, form: "arrow" | "assign", pos: Pos): void {
+  private measure(
+    source: Operand,
+    target: Operand | null,
+    form: "arrow" | "assign",
+    pos: Pos,
+  ): void {
     if (this.format === "qasm2" && form === "assign") {
-      throw semanticError("'c = measure q;' is OpenQASM 3; in OpenQASM 2.0 write 'measure q -> c;'", pos);
+      throw semanticError(
+        "'c = measure q;' is OpenQASM 3; in OpenQASM 2.0 write 'measure q -> c;'",
+        pos,
+      );
     }
     if (target === null) {
-      if (this.format === "qasm3") throw unsupported3("'measure' without a target bit; write 'c = measure q;'", pos);
+      if (this.format === "qasm3")
+        throw unsupported3("'measure' without a target bit; write 'c = measure q;'", pos);
       throw semanticError("'measure' needs a target: write 'measure q -> c;'", pos);
     }
     const q = this.regs.resolveQubits(source);

@@ -6,8 +6,16 @@
  */
 import type { Expr, Ident, GateBodyStmt, Operand, Pos } from "./ast";
 import { circuitError, plural, semanticError } from "./circuit-errors";
-import { compileExpr, isReservedName, type Compiled } from "./expressions";
-import { QASM2_BUILTINS, QASM3_BUILTINS, QELIB1, QELIB1_ADDITIONS, STDGATES, type GateTable, type PrimitiveGate } from "./gate-library";
+import { compileExpr, isReservedName, NO_GRADIENT, type Compiled } from "./expressions";
+import {
+  QASM2_BUILTINS,
+  QASM3_BUILTINS,
+  QELIB1,
+  QELIB1_ADDITIONS,
+  STDGATES,
+  type GateTable,
+  type PrimitiveGate,
+} from "./gate-library";
 import type { QasmFormat } from "./parse-source";
 import { LIMITS } from "./program-ir";
 
@@ -22,7 +30,14 @@ interface BodyCall {
 
 export type GateEntry =
   | { kind: "primitive"; name: string; gate: PrimitiveGate; origin: string; replaceable: boolean }
-  | { kind: "user"; name: string; params: string[]; qubits: string[]; body: BodyCall[] | null; pos: Pos };
+  | {
+      kind: "user";
+      name: string;
+      params: string[];
+      qubits: string[];
+      body: BodyCall[] | null;
+      pos: Pos;
+    };
 
 export interface Expanded {
   gate: PrimitiveGate;
@@ -31,7 +46,14 @@ export interface Expanded {
 }
 
 /** Stands for a gate parameter while a definition is checked (never evaluated). */
-const PLACEHOLDER: Compiled = { evaluate: () => NaN, constant: null, text: "", line: 1, column: 1 };
+const PLACEHOLDER: Compiled = {
+  evaluate: () => NaN,
+  grad: NO_GRADIENT,
+  constant: null,
+  text: "",
+  line: 1,
+  column: 1,
+};
 
 export function entryArity(e: GateEntry): { params: number; qubits: number } {
   return e.kind === "primitive"
@@ -43,10 +65,16 @@ export function entryArity(e: GateEntry): { params: number; qubits: number } {
 export function checkArity(e: GateEntry, nParams: number, nQubits: number, pos: Pos): void {
   const a = entryArity(e);
   if (nParams !== a.params) {
-    throw semanticError(`gate '${e.name}' takes ${plural(a.params, "parameter")}, got ${nParams}`, pos);
+    throw semanticError(
+      `gate '${e.name}' takes ${plural(a.params, "parameter")}, got ${nParams}`,
+      pos,
+    );
   }
   if (nQubits !== a.qubits) {
-    throw semanticError(`gate '${e.name}' acts on ${plural(a.qubits, "qubit")}, got ${nQubits}`, pos);
+    throw semanticError(
+      `gate '${e.name}' acts on ${plural(a.qubits, "qubit")}, got ${nQubits}`,
+      pos,
+    );
   }
 }
 
@@ -76,7 +104,10 @@ export class GateScope {
       const existing = this.gates.get(name);
       if (existing !== undefined && existing.kind === "user") {
         if (replaceable) continue; // the program's own definition of a later addition wins
-        throw semanticError(`gate '${name}' is defined by the program (line ${existing.pos.line}) and again by ${origin}`, existing.pos);
+        throw semanticError(
+          `gate '${name}' is defined by the program (line ${existing.pos.line}) and again by ${origin}`,
+          existing.pos,
+        );
       }
       this.gates.set(name, { kind: "primitive", name, gate, origin, replaceable });
     }
@@ -87,7 +118,13 @@ export class GateScope {
   }
 
   /** Checks and records a `gate` (body non-null) or `opaque` (body null) declaration. */
-  define(name: string, namePos: Pos, params: Ident[], qubits: Ident[], body: GateBodyStmt[] | null): void {
+  define(
+    name: string,
+    namePos: Pos,
+    params: Ident[],
+    qubits: Ident[],
+    body: GateBodyStmt[] | null,
+  ): void {
     const existing = this.gates.get(name);
     if (existing !== undefined && !(existing.kind === "primitive" && existing.replaceable)) {
       const where = existing.kind === "primitive" ? existing.origin : `line ${existing.pos.line}`;
@@ -95,12 +132,19 @@ export class GateScope {
     }
     const seen = new Set<string>();
     for (const id of [...params, ...qubits]) {
-      if (seen.has(id.name)) throw semanticError(`name '${id.name}' appears twice in the declaration of gate '${name}'`, id.pos);
+      if (seen.has(id.name))
+        throw semanticError(
+          `name '${id.name}' appears twice in the declaration of gate '${name}'`,
+          id.pos,
+        );
       seen.add(id.name);
     }
     for (const p of params) {
       if (isReservedName(this.format, p.name)) {
-        throw semanticError(`'${p.name}' is a built-in constant or function and cannot name a parameter`, p.pos);
+        throw semanticError(
+          `'${p.name}' is a built-in constant or function and cannot name a parameter`,
+          p.pos,
+        );
       }
     }
     const entry: GateEntry = {
@@ -126,14 +170,23 @@ export class GateScope {
         const hint = stmt.name === gate.name ? ": a gate cannot call itself" : "";
         throw semanticError(`unknown gate '${stmt.name}'${hint}`, stmt.namePos);
       }
-      if (target.kind === "user" && target.body === null) throw this.opaqueError(target, stmt.namePos);
+      if (target.kind === "user" && target.body === null)
+        throw this.opaqueError(target, stmt.namePos);
       checkArity(target, stmt.params.length, stmt.args.length, stmt.namePos);
       const second = formals.findIndex((f, i) => formals.indexOf(f) !== i);
       if (second >= 0) {
-        throw semanticError(`qubit argument '${gate.qubits[formals[second]]}' used twice in one gate`, stmt.args[second].pos);
+        throw semanticError(
+          `qubit argument '${gate.qubits[formals[second]]}' used twice in one gate`,
+          stmt.args[second].pos,
+        );
       }
       for (const e of stmt.params) {
-        compileExpr(e, { format: this.format, source: this.source, scope, unknownName: (n) => this.unknownInBody(gate, n) });
+        compileExpr(e, {
+          format: this.format,
+          source: this.source,
+          scope,
+          unknownName: (n) => this.unknownInBody(gate, n),
+        });
       }
       calls.push({ name: stmt.name, target, params: stmt.params, formals, pos: stmt.namePos });
     }
@@ -142,22 +195,32 @@ export class GateScope {
 
   private formalOf(gate: Extract<GateEntry, { kind: "user" }>, a: Operand): number {
     if (a.index !== null) {
-      throw semanticError(`inside a gate body, qubits are referred to by argument name only ('${a.name}', not '${a.name}[${a.index}]')`, a.pos);
+      throw semanticError(
+        `inside a gate body, qubits are referred to by argument name only ('${a.name}', not '${a.name}[${a.index}]')`,
+        a.pos,
+      );
     }
     const k = gate.qubits.indexOf(a.name);
     if (k < 0) {
-      throw semanticError(`'${a.name}' is not a qubit argument of gate '${gate.name}' (arguments: ${gate.qubits.join(", ")})`, a.pos);
+      throw semanticError(
+        `'${a.name}' is not a qubit argument of gate '${gate.name}' (arguments: ${gate.qubits.join(", ")})`,
+        a.pos,
+      );
     }
     return k;
   }
 
   private unknownInBody(gate: Extract<GateEntry, { kind: "user" }>, name: string): string {
-    const list = gate.params.length > 0 ? `parameters: ${gate.params.join(", ")}` : "it has no parameters";
+    const list =
+      gate.params.length > 0 ? `parameters: ${gate.params.join(", ")}` : "it has no parameters";
     return `undefined parameter '${name}' in gate '${gate.name}' (${list})`;
   }
 
   opaqueError(gate: GateEntry, pos: Pos) {
-    return semanticError(`gate '${gate.name}' is opaque: it has no definition, so it cannot be simulated`, pos);
+    return semanticError(
+      `gate '${gate.name}' is opaque: it has no definition, so it cannot be simulated`,
+      pos,
+    );
   }
 
   /**
@@ -167,7 +230,13 @@ export class GateScope {
   expand(entry: GateEntry, args: Compiled[], callPos: Pos): Expanded[] {
     if (entry.kind === "primitive") {
       this.charge(1, callPos);
-      return [{ gate: entry.gate, formals: entry.gate.numQubits === 1 ? [0] : range(entry.gate.numQubits), params: args }];
+      return [
+        {
+          gate: entry.gate,
+          formals: entry.gate.numQubits === 1 ? [0] : range(entry.gate.numQubits),
+          params: args,
+        },
+      ];
     }
     if (entry.body === null) throw this.opaqueError(entry, callPos);
     const scope = new Map(entry.params.map((p, i) => [p, args[i]]));
@@ -175,10 +244,20 @@ export class GateScope {
     const out: Expanded[] = [];
     for (const call of entry.body) {
       const params = call.params.map((e) =>
-        compileExpr(e, { format: this.format, source: this.source, scope, where, unknownName: (n) => this.unknownInBody(entry, n) }),
+        compileExpr(e, {
+          format: this.format,
+          source: this.source,
+          scope,
+          where,
+          unknownName: (n) => this.unknownInBody(entry, n),
+        }),
       );
       for (const sub of this.expand(call.target, params, callPos)) {
-        out.push({ gate: sub.gate, params: sub.params, formals: sub.formals.map((f) => call.formals[f]) });
+        out.push({
+          gate: sub.gate,
+          params: sub.params,
+          formals: sub.formals.map((f) => call.formals[f]),
+        });
       }
     }
     return out;
@@ -187,7 +266,11 @@ export class GateScope {
   private charge(n: number, pos: Pos): void {
     this.partCount += n;
     if (this.partCount > LIMITS.maxParts) {
-      throw circuitError("too_large", `the circuit expands to more than ${LIMITS.maxParts} gate applications`, pos);
+      throw circuitError(
+        "too_large",
+        `the circuit expands to more than ${LIMITS.maxParts} gate applications`,
+        pos,
+      );
     }
   }
 
