@@ -6,12 +6,21 @@
 import { type BenchRow, type RowResult, createContext, printTable } from "./bench-kit";
 import { ansatzRow } from "./rows/ansatz";
 import { densityRow } from "./rows/density";
+import { gradientRows } from "./rows/gradient";
 import { kernelRows } from "./rows/kernels";
 import { memoryRow } from "./rows/memory";
 import { numpyRow } from "./rows/numpy";
 import { observableRows } from "./rows/observables";
 
-const ROWS: BenchRow[] = [kernelRows, ansatzRow, densityRow, memoryRow, numpyRow, observableRows];
+const ROWS: BenchRow[] = [
+  kernelRows,
+  ansatzRow,
+  densityRow,
+  memoryRow,
+  numpyRow,
+  observableRows,
+  gradientRows,
+];
 
 async function main(): Promise<void> {
   const ctx = createContext();
