@@ -4,7 +4,7 @@ import { Alert } from "@/components/ui/alert";
 import { getPlan, isPlanId } from "@/lib/billing/plans";
 import { getCurrentOrgOrRedirect } from "@/lib/auth/guards";
 import { ROLE_LABELS } from "@/lib/orgs/roles";
-import { signOutAction } from "../(auth)/sign-out/actions";
+import { signOutAction, signOutEverywhereAction } from "../(auth)/sign-out/actions";
 import { switchOrgAction } from "./actions";
 
 function planName(id: string): string {
@@ -27,6 +27,7 @@ export default async function AppLayout({ children }: { children: ReactNode }) {
       currentOrgId={current?.org.id ?? ""}
       switchOrgAction={switchOrgAction}
       signOutAction={signOutAction}
+      signOutEverywhereAction={signOutEverywhereAction}
     >
       {current ? (
         children

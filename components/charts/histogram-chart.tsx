@@ -1,6 +1,6 @@
 "use client";
 /**
- * Counts of one measurement setting by bitstring (qubit 0 first, DESIGN.md §2), in
+ * Counts of one measurement setting by bitstring (qubit 0 first, the leftmost character), in
  * reading order. With many distinct outcomes only the most frequent `maxBars` are drawn
  * (in reading order) and the rest are summed in the caption.
  */

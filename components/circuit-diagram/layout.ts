@@ -1,7 +1,7 @@
 /**
  * Layout of a circuit diagram (pure; the SVG component only draws what this returns).
  *
- * - One horizontal wire per qubit, qubit 0 at the top (DESIGN.md §2 reading order).
+ * - One horizontal wire per qubit, qubit 0 at the top (the same reading order as bitstrings: qubit 0 first).
  * - Operations are packed as early as possible ("as soon as possible" scheduling, common
  *   practice): an operation goes into the first column after the last column used on any
  *   row it covers. A multi-qubit operation covers every row from its lowest to its highest

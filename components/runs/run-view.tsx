@@ -20,6 +20,7 @@ import { cancelRun } from "@/lib/swr/run-mutations";
 import type { Run } from "@/lib/swr/types";
 import { useRun } from "@/lib/swr/use-run";
 import { AgreementPanel } from "./agreement-panel";
+import { PauliDecompositionList } from "./pauli-decomposition-list";
 import { ReproduceCard } from "./reproduce-card";
 import { RunDownloads } from "./run-downloads";
 import { METHOD_LABEL, formatDuration, formatWhen } from "./run-meta";
@@ -167,6 +168,18 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
             ) : null}
             <SpectrumCard result={result} hasNoise={hasNoise} />
           </div>
+          {result.pauliDecomposition ? (
+            <Card>
+              <CardHeader
+                eyebrow="Observable"
+                title="How the matrix was read"
+                description="Coefficients Tr(P·A)/2ⁿ, largest first; words read qubit 0 first."
+              />
+              <CardBody>
+                <PauliDecompositionList decomposition={result.pauliDecomposition} limit={24} />
+              </CardBody>
+            </Card>
+          ) : null}
           <Card>
             <CardHeader
               eyebrow="Terms"

@@ -8,7 +8,7 @@
  * sampler would be flagged in one run of twenty, at 3 in fewer than three of a thousand.
  *
  * The exact value under noise never contains readout error while the raw sampled value
- * does (DESIGN.md §2), so with readout error the raw mean is biased by design; the fair
+ * does (readout error acts on sampled outcomes only), so with readout error the raw mean is biased by design; the fair
  * comparison is then the readout-mitigated mean, which `pickComparison` selects.
  */
 

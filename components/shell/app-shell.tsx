@@ -44,6 +44,7 @@ export type AppShellProps = {
   currentOrgId: string;
   switchOrgAction: SwitchOrgAction;
   signOutAction: SignOutAction;
+  signOutEverywhereAction?: SignOutAction;
   nav?: NavSection[];
   createOrgHref?: string;
   accountHref?: string;
@@ -61,6 +62,7 @@ export function AppShell({
   currentOrgId,
   switchOrgAction,
   signOutAction,
+  signOutEverywhereAction,
   nav = defaultNavSections,
   createOrgHref,
   accountHref,
@@ -160,7 +162,12 @@ export function AppShell({
           />
           <div className="ml-auto flex items-center gap-1.5">
             {topbarActions}
-            <UserMenu user={user} signOutAction={signOutAction} accountHref={accountHref} />
+            <UserMenu
+              user={user}
+              signOutAction={signOutAction}
+              signOutEverywhereAction={signOutEverywhereAction}
+              accountHref={accountHref}
+            />
           </div>
         </header>
         {banner}

@@ -27,10 +27,13 @@ const themes: { value: ThemePreference; label: string }[] = [
 export function UserMenu({
   user,
   signOutAction,
+  signOutEverywhereAction,
   accountHref,
 }: {
   user: ShellUser;
   signOutAction: SignOutAction;
+  /** Ends every session of the user (all browsers and devices), then this one. */
+  signOutEverywhereAction?: SignOutAction;
   accountHref?: string;
 }) {
   const theme = useSyncExternalStore(subscribeTheme, readTheme, () => "system" as ThemePreference);
@@ -82,6 +85,14 @@ export function UserMenu({
           Sign out
         </MenuItem>
       </form>
+      {signOutEverywhereAction ? (
+        <form action={signOutEverywhereAction}>
+          <MenuItem type="submit" title="Ends your sessions in every browser and device">
+            <IconSignOut className="size-4 text-ink-3" />
+            Sign out everywhere
+          </MenuItem>
+        </form>
+      ) : null}
     </Menu>
   );
 }

@@ -1,5 +1,5 @@
 /**
- * Plain-language help for each noise probability (semantics in DESIGN.md §2; channel
+ * Plain-language help for each noise probability (semantics in DEVELOPERS.md, "Noise model"; channel
  * forms from Nielsen & Chuang ch. 8) and a few starting profiles. The profiles are
  * invented round numbers for trying things out, not data of any device.
  */

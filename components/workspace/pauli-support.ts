@@ -1,5 +1,5 @@
 /**
- * A quick, display-only reading of Pauli-sum text (DESIGN.md §2): which qubits the terms
+ * A quick, display-only reading of Pauli-sum text (grammar in DEVELOPERS.md): which qubits the terms
  * act on non-trivially. Sparse factors (X0, Y3, Z12) name their qubit; a dense word
  * (XIZY) acts on the positions of its non-I letters, qubit 0 first. The engine's parser
  * remains the judge of validity; this only labels the editor ("acts on qubits 0–3").

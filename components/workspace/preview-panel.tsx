@@ -14,6 +14,7 @@ import { Skeleton } from "@/components/ui/skeleton";
 import { Spinner } from "@/components/ui/spinner";
 import type { ApiError } from "@/lib/swr/api-client";
 import type { Preview } from "@/lib/swr/types";
+import { PauliDecompositionList } from "@/components/runs/pauli-decomposition-list";
 
 const fmt = new Intl.NumberFormat("en-US");
 
@@ -174,6 +175,9 @@ export function PreviewPanel({
                 ))}
               </ul>
             </section>
+            {preview.pauliDecomposition ? (
+              <PauliDecompositionList decomposition={preview.pauliDecomposition} />
+            ) : null}
             <section
               className="grid gap-1.5 rounded-md border border-line px-3 py-2.5 text-[13px]"
               aria-label="Shot plan and cost"

@@ -137,7 +137,7 @@ export const qasmStreamParser: StreamParser<QasmState> = {
 export const qasmLanguage = StreamLanguage.define(qasmStreamParser);
 
 /**
- * Pauli-sum text (DESIGN.md §2): coefficients, sparse factors like X0 Y3 or dense words
+ * Pauli-sum text (grammar in DEVELOPERS.md): coefficients, sparse factors like X0 Y3 or dense words
  * like XIZY, and the joining signs.
  */
 export const pauliStreamParser: StreamParser<Record<string, never>> = {

@@ -8,3 +8,4 @@ export * from "./library";
 export * from "./usage";
 export * from "./billing";
 export * from "./noise-profiles";
+export * from "./data-migrations";

@@ -1,6 +1,6 @@
 /**
  * Noise profiles saved by an organisation for the composer: a named noise model
- * (DESIGN.md §2 semantics; probabilities in [0, 1]). Names are unique per organisation.
+ * (semantics as in DEVELOPERS.md, "Noise model"; probabilities in [0, 1]). Names are unique per organisation.
  */
 import { sql } from "drizzle-orm";
 import { datetime, index, mysqlTable, uniqueIndex, varchar } from "drizzle-orm/mysql-core";

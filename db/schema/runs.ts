@@ -3,11 +3,14 @@
  *
  * Lifecycle: queued → running → succeeded | failed | canceled (a queued run may
  * also go straight to canceled or failed). `request` is the engine request as
- * submitted (DESIGN.md §4, without `name`); `seed` is the one the run uses —
+ * submitted (the body of POST /api/v1/runs without `name`); `seed` is the one the run uses —
  * the user's, or one chosen at submission — so every sampled figure is
  * reproducible. `error` is an RFC 9457 problem document, `result` the engine's
  * EstimateResult. `shots` is the planned total (the request's `shots`, or the
- * shot plan for `targetPrecision`). The idempotency key is unique per org.
+ * shot plan for `targetPrecision`: state-aware when the preview could simulate the
+ * state within its budget, else the worst-case bound — `shotsPlan` says which);
+ * `shotsDrawn` is what the engine really drew (set when the run succeeds; billed).
+ * The idempotency key is unique per org.
  */
 import { sql } from "drizzle-orm";
 import {
@@ -26,7 +29,7 @@ import { apiKeys } from "./api-keys";
 import { users } from "./auth";
 import { jsonText } from "./json-text";
 import { organizations } from "./orgs";
-import { RUN_METHODS, RUN_STATUSES } from "../../lib/runs/constants";
+import { RUN_METHODS, RUN_STATUSES, SHOT_PLAN_SOURCES } from "../../lib/runs/constants";
 
 export { RUN_METHODS, RUN_STATUSES, TERMINAL_RUN_STATUSES, type RunMethod, type RunStatus } from "../../lib/runs/constants";
 
@@ -61,6 +64,8 @@ export const runs = mysqlTable(
     method: mysqlEnum("method", RUN_METHODS).notNull(),
     qubits: int("qubits").notNull(),
     shots: bigint("shots", { mode: "number", unsigned: true }).notNull().default(0),
+    shotsPlan: mysqlEnum("shots_plan", SHOT_PLAN_SOURCES),
+    shotsDrawn: bigint("shots_drawn", { mode: "number", unsigned: true }),
     seed: bigint("seed", { mode: "number" }).notNull(),
     status: mysqlEnum("status", RUN_STATUSES).notNull().default("queued"),
     /** Fraction done in [0, 1], written at most a few times a second. */

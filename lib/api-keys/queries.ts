@@ -2,7 +2,7 @@
 import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db";
-import { apiKeys, users } from "@/db/schema";
+import { apiKeys, memberships, users } from "@/db/schema";
 import { roleAtLeast, type Role } from "@/lib/orgs/roles";
 
 export async function listVisibleKeys(orgId: string, viewer: { userId: string; role: Role }) {
@@ -19,12 +19,15 @@ export async function listVisibleKeys(orgId: string, viewer: { userId: string; r
       createdById: apiKeys.createdById,
       createdByName: users.name,
       createdByEmail: users.email,
+      /** The creator's current role here; null when they are no longer a member (the key is then disabled). */
+      creatorRole: memberships.role,
       lastUsedAt: apiKeys.lastUsedAt,
       revokedAt: apiKeys.revokedAt,
       createdAt: apiKeys.createdAt,
     })
     .from(apiKeys)
     .leftJoin(users, eq(users.id, apiKeys.createdById))
+    .leftJoin(memberships, and(eq(memberships.orgId, apiKeys.orgId), eq(memberships.userId, apiKeys.createdById)))
     .where(scope)
     .orderBy(desc(apiKeys.createdAt));
 }

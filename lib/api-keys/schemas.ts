@@ -3,11 +3,12 @@
  * its creator's; `organization` keys (shared automation) are for admins.
  */
 import { z } from "zod";
+import { nameSchema } from "@/lib/validation/names";
 
 export const KEY_ROLES = ["viewer", "member", "admin"] as const;
 
 export const createApiKeySchema = z.object({
-  name: z.string().trim().min(1, "Name the key (e.g. the notebook or pipeline that uses it).").max(80, "Use at most 80 characters."),
+  name: nameSchema({ max: 80, empty: "Name the key (e.g. the notebook or pipeline that uses it)." }),
   role: z.enum(KEY_ROLES, { error: "Choose the key's role." }),
   scope: z.enum(["personal", "organization"], { error: "Choose personal or organisation key." }).default("personal"),
 });

@@ -7,8 +7,9 @@
  * Per request it (1) authenticates — `Authorization: Bearer kw_…` API key, else
  * the session cookie; (2) resolves the organisation — the key's own, or for a
  * session the `X-Ketwise-Org` header (id or slug), else the `kw_org` cookie,
- * else the user's oldest membership; (3) checks the role (the key's role for
- * keys, the membership's for users); (4) spends one point of the actor's rate
+ * else the user's oldest membership; (3) checks the role (for keys the lower of
+ * the key's role and its creator's current role — a key whose creator left is
+ * disabled; for users the membership's); (4) spends one point of the actor's rate
  * budget; then runs the handler. Every failure answers problem+json:
  * 401 no/expired credentials, 404 not a member, 403 role too weak, 429 rate.
  */
@@ -16,6 +17,7 @@ import "server-only";
 import { getSessionUserFromRequest } from "@/lib/auth/session";
 import { ORG_COOKIE, authorizeMember, pickCurrentOrg } from "@/lib/auth/guards";
 import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
+import { keyStanding } from "@/lib/api-keys/effective-role";
 import { touchApiKey } from "@/lib/orgs/mutations";
 import { findActiveApiKeyByHash, listMembershipsForUser, type OrgSummary } from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
@@ -58,13 +60,19 @@ async function fromApiKey(token: string, min: Role): Promise<Omit<OrgContext, "p
   const found = await findActiveApiKeyByHash(hashApiKey(token));
   if (!found) throw unauthorized("The API key is unknown or has been revoked.");
   const { key, org } = found;
-  if (!roleAtLeast(key.role, min)) {
-    throw forbidden(`This needs a key with the ${ROLE_LABELS[min]} role or higher; this key is ${ROLE_LABELS[key.role]}.`);
+  // Rights are the lower of the key's role and its creator's current role, checked on every request.
+  const standing = keyStanding(key.role, found.creatorRole);
+  if (standing.state === "disabled") {
+    throw forbidden(`This API key is disabled: the person who created it is no longer a member of ${org.name}. Create a new key.`);
+  }
+  if (!roleAtLeast(standing.role, min)) {
+    const why = standing.state === "capped" ? ` (the key is ${ROLE_LABELS[key.role]}, but its creator is now ${ROLE_LABELS[standing.creatorRole]})` : "";
+    throw forbidden(`This needs a key with the ${ROLE_LABELS[min]} role or higher; this key acts as ${ROLE_LABELS[standing.role]}${why}.`);
   }
   if (!key.lastUsedAt || Date.now() - key.lastUsedAt.getTime() > 60_000) await touchApiKey(org.id, key.id);
   return {
     org: { id: org.id, name: org.name, slug: org.slug, plan: org.plan },
-    role: key.role,
+    role: standing.role,
     actor: { kind: "api_key", apiKeyId: key.id, createdById: key.createdById },
   };
 }

@@ -25,6 +25,8 @@ export const AUDIT_ACTIONS = {
   "invitation.accepted": { label: "Invitation accepted", group: "invitations" },
   "api_key.created": { label: "API key created", group: "api_keys" },
   "api_key.revoked": { label: "API key revoked", group: "api_keys" },
+  "api_key.capped": { label: "API key limited to its creator's role", group: "api_keys" },
+  "api_key.disabled": { label: "API key disabled (creator left)", group: "api_keys" },
   "billing.checkout_started": { label: "Checkout started", group: "billing" },
   "billing.plan_changed": { label: "Plan changed", group: "billing" },
   "billing.seats_changed": { label: "Seats changed", group: "billing" },

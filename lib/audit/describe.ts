@@ -28,6 +28,10 @@ export function describeAuditEvent(action: string, m: Record<string, unknown>): 
       return `Created ${m.scope === "organization" ? "organisation" : "personal"} key "${str(m.name)}" (kw_${str(m.prefix)}…, ${role(m.role)}).`;
     case "api_key.revoked":
       return `Revoked key${m.name ? ` "${str(m.name)}"` : ""}${m.prefix ? ` (kw_${str(m.prefix)}…)` : ""}.`;
+    case "api_key.capped":
+      return `Key "${str(m.name)}" (kw_${str(m.prefix)}…, ${role(m.keyRole)}) now acts as ${role(m.actsAs)}: its creator's role was lowered.`;
+    case "api_key.disabled":
+      return `Key "${str(m.name)}" (kw_${str(m.prefix)}…) stopped working: its creator is no longer a member.`;
     case "billing.checkout_started":
       return `Opened checkout for ${plan(m.plan)} with ${str(m.seats)} seats.`;
     case "billing.plan_changed":

@@ -3,6 +3,8 @@
  * adapter (needed by the magic-link provider to store verification tokens and
  * create users). The JWT's `sub` is the user id; the current organisation is
  * not in the token — it is a cookie checked against memberships per request.
+ * Each token carries a session id (`sid`) whose row in `sessions` must still
+ * exist (lib/auth/server-sessions.ts): sign-out ends the session server-side.
  */
 import "server-only";
 import type { NextAuthConfig } from "next-auth";
@@ -18,6 +20,8 @@ import { sendMail, smtpServerOptions } from "@/lib/mail/transport";
 import { createOrganization } from "@/lib/orgs/mutations";
 import { clientIp, consumeSignIn, resetSignInEmail } from "@/lib/rate-limit";
 import { RateLimitedSignIn } from "./errors";
+import { safeCallbackPath } from "./redirects";
+import { endServerSession, isServerSessionLive, startServerSession } from "./server-sessions";
 import { verifyPassword } from "./password";
 import { findUserByEmail } from "./queries";
 import { signInSchema } from "./schemas";
@@ -82,12 +86,28 @@ export function authConfig(): NextAuthConfig {
       }),
     ],
     callbacks: {
+      // Sign-in starts a server-side session record; every later read checks it is still live
+      // (sign-out deletes it), so a copied cookie dies with the session. Null ends the session.
+      async jwt({ token, user }) {
+        if (user?.id) {
+          token.sid = await startServerSession(user.id, SESSION_MAX_AGE_SECONDS);
+          return token;
+        }
+        return (await isServerSessionLive(token.sid, token.sub, SESSION_MAX_AGE_SECONDS)) ? token : null;
+      },
+      redirect({ url, baseUrl }) {
+        const origin = new URL(baseUrl).origin;
+        return `${origin}${safeCallbackPath(url, "/app", origin)}`;
+      },
       session({ session, token }) {
         if (token.sub && session.user) session.user.id = token.sub;
         return session;
       },
     },
     events: {
+      async signOut(message) {
+        if ("token" in message) await endServerSession(message.token?.sid);
+      },
       // Users created by the magic-link flow get their personal organisation here;
       // password sign-ups create theirs in lib/auth/sign-up.ts.
       async createUser({ user }) {

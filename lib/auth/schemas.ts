@@ -7,6 +7,7 @@
  * character, and not on a short list of the most common passwords.
  */
 import { z } from "zod";
+import { nameSchema } from "@/lib/validation/names";
 
 const COMMON_PASSWORDS = new Set([
   "password", "password1", "password12", "password123", "1234567890", "0123456789",
@@ -29,8 +30,11 @@ export const passwordSchema = z
   .refine((v) => new Set(v).size > 1, "Don't use one character repeated.")
   .refine((v) => !COMMON_PASSWORDS.has(v.toLowerCase()), "That password is too common; choose another.");
 
+/** A person's display name (sign-up, joining by invitation). */
+export const personNameSchema = nameSchema({ max: 80, empty: "Enter your name." });
+
 export const signUpSchema = z.object({
-  name: z.string().trim().min(1, "Enter your name.").max(80, "Use at most 80 characters."),
+  name: personNameSchema,
   email: emailSchema,
   password: passwordSchema,
 });

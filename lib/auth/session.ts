@@ -11,7 +11,9 @@ import { redirect } from "next/navigation";
 import { getToken } from "next-auth/jwt";
 import { sessionExpired, unauthorized } from "@/lib/api/problem";
 import { env } from "@/lib/env";
+import { SESSION_MAX_AGE_SECONDS } from "./config";
 import { auth } from "./index";
+import { isServerSessionLive } from "./server-sessions";
 
 export type SessionUser = { id: string; email: string | null; name: string | null };
 
@@ -55,7 +57,7 @@ export async function getSessionUserFromRequest(
 ): Promise<{ user: SessionUser | null; expired: boolean }> {
   const secureCookie = secureCookies();
   const token = await getToken({ req, secret: env.AUTH_SECRET, secureCookie });
-  if (token?.sub) {
+  if (token?.sub && (await isServerSessionLive(token.sid, token.sub, SESSION_MAX_AGE_SECONDS))) {
     const user = {
       id: token.sub,
       email: typeof token.email === "string" ? token.email : null,

@@ -29,6 +29,8 @@ import { applySubscription } from "./sync";
 import { eq } from "drizzle-orm";
 
 export const SIGNATURE_TOLERANCE_SECONDS = 300;
+/** Largest webhook body read (provider events are a few KiB; a large invoice stays far below this). */
+export const WEBHOOK_MAX_BODY_BYTES = 256 * 1024;
 
 export type WebhookOutcome =
   | { status: 400; reason: string }

@@ -1,10 +1,10 @@
 /**
  * Run downloads: the whole run as JSON, the per-term table and the per-setting counts
- * as CSV. Structural input types, so the engine's EstimateResult (DESIGN.md §4) and the
+ * as CSV. Structural input types, so the engine's EstimateResult and the
  * API's run resource fit without a conversion.
  *
  * Conventions kept in the files: Pauli words and bitstrings read qubit 0 first
- * (DESIGN.md §2); a setting is named by its bases word (e.g. "XXI"), one letter per qubit.
+ * (the leftmost character); a setting is named by its bases word (e.g. "XXI"), one letter per qubit.
  */
 import { toCsv, type CsvCell } from "./csv";
 

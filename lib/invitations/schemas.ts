@@ -1,6 +1,6 @@
 /** Request shapes of the invitation forms and actions (client-safe). */
 import { z } from "zod";
-import { emailSchema, passwordSchema } from "@/lib/auth/schemas";
+import { emailSchema, passwordSchema, personNameSchema } from "@/lib/auth/schemas";
 import { ASSIGNABLE_ROLES } from "@/lib/members/schemas";
 
 export const inviteSchema = z.object({
@@ -13,7 +13,7 @@ export const invitationIdSchema = z.object({ invitationId: z.uuid({ error: "Choo
 export const acceptInvitationSchema = z.object({ token: z.string().min(10).max(400) });
 
 export const acceptWithSignUpSchema = acceptInvitationSchema.extend({
-  name: z.string().trim().min(1, "Enter your name.").max(80, "Use at most 80 characters."),
+  name: personNameSchema,
   password: passwordSchema,
 });
 

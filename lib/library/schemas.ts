@@ -6,6 +6,7 @@
  */
 import { z } from "zod";
 import { circuitInputSchema, matrixObservableSchema, pauliObservableSchema } from "@/lib/quantum/schemas";
+import { nameSchema } from "@/lib/validation/names";
 import { cursorParamSchema, limitParamSchema, pageSchema, timestampSchema } from "@/lib/openapi/common-schemas";
 
 export const tagSchema = z
@@ -17,7 +18,7 @@ export const tagSchema = z
   .regex(/^[a-z0-9][a-z0-9 ._-]*$/, "letters, digits, space, dot, underscore and hyphen; starting with a letter or digit");
 
 const meta = {
-  name: z.string().trim().min(1, "the name is empty").max(120).describe("Unique within the organisation"),
+  name: nameSchema({ max: 120, empty: "the name is empty" }).describe("Unique within the organisation"),
   description: z.string().trim().max(2000).default(""),
   tags: z.array(tagSchema).max(10).default([]).describe("Up to 10 lower-case labels"),
 };

@@ -1,7 +1,7 @@
 /**
  * Member changes, each in one transaction that locks the organisation's
  * membership rows first, so two admins acting at once cannot remove the last
- * owner between them. Rules (DESIGN.md §6):
+ * owner between them. Rules (roles are cumulative: viewer < member < admin < owner):
  *   - only an owner may change or remove another owner;
  *   - the last owner can be neither demoted nor removed;
  *   - ownership moves only by an explicit transfer (new owner, old owner → admin);
@@ -14,7 +14,7 @@ import { apiKeys, memberships, users } from "@/db/schema";
 import { conflict, forbidden, notFound } from "@/lib/api/problem";
 import type { OrgAccess } from "@/lib/auth/guards";
 import { recordAuditEvent } from "@/lib/orgs/mutations";
-import { ROLE_LABELS, type Role } from "@/lib/orgs/roles";
+import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import type { AssignableRole } from "./schemas";
 import type { Executor } from "./seats";
 
@@ -52,6 +52,7 @@ export async function changeMemberRole(access: OrgAccess, userId: string, role: 
     if (target.role === role) return { changed: false, target };
     guardOwner(access, members, target, "change the role of");
     await tx.update(memberships).set({ role }).where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, userId)));
+    await auditKeysOfCreator(tx, access, userId, role);
     await recordAuditEvent(
       access.org.id,
       {
@@ -65,6 +66,33 @@ export async function changeMemberRole(access: OrgAccess, userId: string, role: 
     );
     return { changed: true, target };
   });
+}
+
+/**
+ * Keys act with the lower of their role and their creator's current role
+ * (lib/api-keys/effective-role.ts). When a member is demoted below one of
+ * their active keys, or leaves, each such key gets an audit entry saying it is
+ * now capped or disabled (`newRole` null = no longer a member).
+ */
+async function auditKeysOfCreator(tx: Tx, access: OrgAccess, userId: string, newRole: Role | null) {
+  const keys = await tx
+    .select({ id: apiKeys.id, name: apiKeys.name, prefix: apiKeys.prefix, role: apiKeys.role, scope: apiKeys.scope })
+    .from(apiKeys)
+    .where(and(eq(apiKeys.orgId, access.org.id), eq(apiKeys.createdById, userId), isNull(apiKeys.revokedAt)));
+  for (const key of keys) {
+    if (newRole && roleAtLeast(newRole, key.role)) continue;
+    await recordAuditEvent(
+      access.org.id,
+      {
+        action: newRole ? "api_key.capped" : "api_key.disabled",
+        actorUserId: access.userId,
+        targetType: "api_key",
+        targetId: key.id,
+        metadata: { name: key.name, prefix: key.prefix, scope: key.scope, keyRole: key.role, ...(newRole ? { actsAs: newRole } : {}) },
+      },
+      tx,
+    );
+  }
 }
 
 /** Revokes the personal keys one user holds in one organisation (organisation keys stay). */
@@ -83,6 +111,7 @@ export async function removeMember(access: OrgAccess, userId: string) {
     guardOwner(access, members, target, "remove");
     await tx.delete(memberships).where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, userId)));
     const revokedKeys = await revokePersonalKeys(tx, access.org.id, userId);
+    await auditKeysOfCreator(tx, access, userId, null);
     await recordAuditEvent(
       access.org.id,
       {

@@ -5,17 +5,18 @@
  */
 import { z } from "zod";
 import { noiseModelSchema } from "@/lib/quantum/schemas";
+import { nameSchema } from "@/lib/validation/names";
 
 export const NOISE_PROFILE_NAME_MAX = 80;
 /** Profiles an organisation may keep (a picker, not a database). */
 export const MAX_NOISE_PROFILES = 50;
 
 export const noiseProfileInputSchema = z.strictObject({
-  name: z
-    .string()
-    .trim()
-    .min(1, "give the profile a name")
-    .max(NOISE_PROFILE_NAME_MAX, `at most ${NOISE_PROFILE_NAME_MAX} characters`),
+  name: nameSchema({
+    max: NOISE_PROFILE_NAME_MAX,
+    empty: "give the profile a name",
+    tooLong: `at most ${NOISE_PROFILE_NAME_MAX} characters`,
+  }),
   noise: noiseModelSchema,
 });
 

@@ -24,10 +24,15 @@ const tooLarge = (max: number) =>
     type: "/problems/body-too-large",
     title: "Request body too large",
     status: 413,
-    detail: `The request body is larger than ${Math.round(max / 1024 / 1024)} MiB.`,
+    detail: `The request body is larger than ${max >= 1024 * 1024 ? `${Math.round(max / 1024 / 1024)} MiB` : `${Math.round(max / 1024)} KiB`}.`,
   });
 
-async function readText(req: Request, maxBytes: number): Promise<string> {
+/**
+ * The body as UTF-8 text, refused with 413 as soon as it passes `maxBytes`:
+ * a declared Content-Length over the cap is refused before any byte is read,
+ * and a streamed body is cancelled at the first chunk past it.
+ */
+export async function readText(req: Request, maxBytes: number): Promise<string> {
   const declared = Number(req.headers.get("content-length") ?? "0");
   if (declared > maxBytes) throw tooLarge(maxBytes);
   if (!req.body) return "";

@@ -7,6 +7,7 @@ import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
 import { db, type Db } from "@/db";
 import { apiKeys, auditEvents, memberships, organizations } from "@/db/schema";
+import { orgNameSchema } from "@/lib/validation/names";
 import { generateApiKey } from "./api-key-format";
 import type { Role } from "./roles";
 
@@ -59,10 +60,11 @@ export async function createOrganization(
   input: { name: string; ownerUserId: string; slug?: string },
   executor: Executor = db,
 ): Promise<{ id: string; slug: string }> {
+  const name = orgNameSchema.parse(input.name);
   const run = async (tx: Executor) => {
-    const slug = input.slug ?? (await uniqueSlug(input.name, tx));
+    const slug = input.slug ?? (await uniqueSlug(name, tx));
     const id = crypto.randomUUID();
-    await tx.insert(organizations).values({ id, name: input.name, slug });
+    await tx.insert(organizations).values({ id, name, slug });
     await tx.insert(memberships).values({ orgId: id, userId: input.ownerUserId, role: "owner" });
     await recordAuditEvent(id, { action: "org.created", actorUserId: input.ownerUserId }, tx);
     return { id, slug };

@@ -65,12 +65,17 @@ export async function countMembers(orgId: string): Promise<number> {
   return rows.length;
 }
 
-/** Tenancy lookup: an unrevoked API key by the SHA-256 of the presented key, with its organisation. */
+/**
+ * Tenancy lookup: an unrevoked API key by the SHA-256 of the presented key,
+ * with its organisation and its creator's current role there (null when the
+ * creator is no longer a member).
+ */
 export async function findActiveApiKeyByHash(hash: string) {
   const rows = await db
-    .select({ key: apiKeys, org: organizations })
+    .select({ key: apiKeys, org: organizations, creatorRole: memberships.role })
     .from(apiKeys)
     .innerJoin(organizations, eq(organizations.id, apiKeys.orgId))
+    .leftJoin(memberships, and(eq(memberships.orgId, apiKeys.orgId), eq(memberships.userId, apiKeys.createdById)))
     .where(and(eq(apiKeys.hash, hash), isNull(apiKeys.revokedAt)))
     .limit(1);
   return rows[0] ?? null;

@@ -1,5 +1,5 @@
 /**
- * Role order and what each role may do (DESIGN.md §6):
+ * Role order and what each role may do (cumulative, each role may do what the ones below may):
  *   viewer reads; member also creates runs/library items and own API keys;
  *   admin also manages members, invitations, org API keys, plan and billing;
  *   owner also transfers ownership and deletes the organisation.

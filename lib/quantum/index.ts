@@ -1,5 +1,5 @@
 /**
- * Public entry point of the Ketwise engine (DESIGN.md §4). Pure TypeScript over typed
+ * Public entry point of the Ketwise engine: `estimate`, `previewRequest` and their schemas. Pure TypeScript over typed
  * arrays: no database, queue or network. Everything else in lib/quantum is internal.
  */
 export { estimate, type EstimateOptions } from "./estimate/estimate";

@@ -1,5 +1,5 @@
 /**
- * The engine's request and result shapes (DESIGN.md §4) as zod 4 schemas — the one
+ * The engine's request and result shapes as zod 4 schemas — the one
  * definition shared by forms, route handlers, the worker and the OpenAPI document
  * (the `.describe()` texts become its descriptions). Plain zod: the API layer registers
  * them with @asteasolutions/zod-to-openapi.
@@ -19,7 +19,9 @@ const matrixPart = (name: string) =>
     .array(z.array(z.number()).max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`))
     .min(1)
     .max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`)
-    .describe(`${name} part of the matrix, row-major; row/column index bit k is qubit k`);
+    .describe(
+      `${name} part of the matrix, row-major, of A0 ⊗ A1 ⊗ … with qubit 0 the leftmost Kronecker factor: row/column index i = Σ_k b_k·2^(n−1−k) (qubit 0 is the most significant bit; kron(Z, I) is Z on qubit 0, like the dense word "ZI")`,
+    );
 
 export const circuitInputSchema = z
   .strictObject({
@@ -126,17 +128,22 @@ const gradientSchema = z
     }),
   )
   .describe("Derivative of the expectation value with respect to every declared input");
+const interval = z.tuple([z.number(), z.number()]);
 
 const estimateSchema = z.object({
-  mean: z.number(),
-  stdErr: z.number().describe("Standard error of the mean"),
-  ci95: z.tuple([z.number(), z.number()]).describe("95 % normal interval"),
+  mean: z.number().describe("Sample mean: constant part plus the average of each setting's shot values"),
+  stdErr: z
+    .number()
+    .describe("Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots"),
+  ci95: interval.describe("95 % interval: posterior mean ± Welch–Satterthwaite t quantile × stdErr, widened to contain the mean, clipped to the possible values"),
+  df: z.number().optional().describe("Welch–Satterthwaite degrees of freedom of the interval's t quantile"),
 });
 
 export const convergencePointSchema = z.object({
   shots: z.int().describe("Shots used so far (a prefix of every setting)"),
   mean: z.number(),
   stdErr: z.number(),
+  ci95: interval.optional().describe("95 % interval at this prefix (same method as `sampled.ci95`)"),
 });
 
 export const shotPlanSchema = z
@@ -150,6 +157,21 @@ export const shotPlanSchema = z
       .describe("(Σ_g √Var_g)²/ε² from the state's exact variances"),
   })
   .describe("Shots needed for a target standard error (McClean et al. 2016)");
+
+export const pauliDecompositionSchema = z
+  .object({
+    terms: z
+      .array(
+        z.object({
+          pauli: z.string().describe("Dense Pauli word, qubit 0 first"),
+          label: z.string().describe('Sparse label, e.g. "X0 Z3"'),
+          coefficient: z.number().describe("Tr(P·A)/2^n"),
+        }),
+      )
+      .describe("Non-zero components, largest |coefficient| first (at most 256)"),
+    omitted: z.int().describe("Non-zero components beyond the 256 listed"),
+  })
+  .describe("How a matrix observable of ≤ 6 qubits was read: A = Σ_P c_P·P with c_P = Tr(P·A)/2^n");
 
 export const estimateResultSchema = z
   .object({
@@ -174,9 +196,11 @@ export const estimateResultSchema = z
         coefficient: z.number(),
         exact: z.number().describe("Exact ⟨P⟩ under the noise model"),
         sampledMean: z.number().optional(),
-        stdErr: z.number().optional(),
+        stdErr: z.number().optional().describe("Posterior standard deviation of the term's ⟨P⟩ (same method as `sampled.stdErr`)"),
+        ci95: interval.optional().describe("95 % interval of ⟨P⟩"),
         mitigatedMean: z.number().optional(),
         mitigatedStdErr: z.number().optional(),
+        mitigatedCi95: interval.optional(),
         group: z.int().nullable().describe("Index of the measurement setting (null for the identity)"),
       }),
     ),
@@ -185,16 +209,20 @@ export const estimateResultSchema = z
         bases: z.string().describe('Basis per qubit, qubit 0 first (X, Y, Z, I = unmeasured), or "eigenbasis"'),
         terms: z.array(z.int()),
         shots: z.int(),
-        counts: z.record(z.string(), z.int()).optional().describe("Histogram keyed by bitstring, qubit 0 first"),
+        counts: z
+          .record(z.string(), z.int())
+          .optional()
+          .describe('Histogram keyed by bitstring, qubit 0 first; for "eigenbasis" the key is the outcome index k (the k-th eigenvalue, ascending) in n binary digits, most significant first'),
         distinctOutcomes: z.int().optional(),
         variance: z.number().optional().describe("Exact single-shot variance of the setting"),
-        eigenvalues: z.array(z.number()).optional().describe("Matrix observables: value of each outcome index"),
+        eigenvalues: z.array(z.number()).optional().describe("Matrix observables: eigenvalue of outcome index k (ascending; the count key of k is k in binary)"),
       }),
     ),
     spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)"),
     shotPlan: shotPlanSchema.optional(),
     gradient: gradientSchema.optional(),
     gradientShots: z.int().optional().describe("Shots of the parameter-shifted circuits (main point)"),
+    pauliDecomposition: pauliDecompositionSchema.optional(),
     sweep: z
       .object({
         kind: z.enum(["grid", "points"]).optional().describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
@@ -241,6 +269,7 @@ export const previewResultSchema = z
     totalShots: z.int().describe("Shots over all parameter points, the gradient's shifted circuits included"),
     shotPlan: shotPlanSchema.nullable(),
     shotsPerSetting: z.array(z.int()).nullable(),
+    pauliDecomposition: pauliDecompositionSchema.optional(),
     varianceSource: z.enum(["worst_case"]).describe("Preview plans from worst-case bounds; runs use the state's variances"),
     notes: z.array(z.string()),
   })

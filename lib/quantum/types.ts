@@ -1,7 +1,7 @@
 /**
  * Shared data shapes of the Ketwise engine (`lib/quantum`). Pure data, no I/O.
  *
- * Conventions (DESIGN.md §2, fixed):
+ * Conventions (fixed; also in DEVELOPERS.md):
  * - Qubit 0 is written first in bitstrings and dense Pauli words (textbook tensor
  *   order P0 ⊗ P1 ⊗ …).
  * - Internally, amplitude index bit k is qubit k (little-endian in the index). This
@@ -81,7 +81,7 @@ export interface PauliSum {
   terms: PauliTerm[];
 }
 
-/** Noise model (probabilities in [0, 1]); semantics in DESIGN.md §2. */
+/** Noise model (probabilities in [0, 1]); semantics in DEVELOPERS.md, "Noise model". */
 export interface NoiseModel {
   depolarizing1q?: number;
   depolarizing2q?: number;

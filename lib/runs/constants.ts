@@ -20,3 +20,11 @@ export type RunMethod = (typeof RUN_METHODS)[number];
 
 /** Longest run name; the API, the form and the column agree on it. */
 export const RUN_NAME_MAX = 120;
+
+/**
+ * Where a run's planned shots come from: the request's `shots` ("fixed"), or the shot
+ * plan for `targetPrecision` from the state's exact variances ("state_aware", the preview
+ * simulated the state within its budget) or from worst-case bounds ("worst_case").
+ */
+export const SHOT_PLAN_SOURCES = ["fixed", "state_aware", "worst_case"] as const;
+export type ShotPlanSource = (typeof SHOT_PLAN_SOURCES)[number];

@@ -24,6 +24,8 @@ export async function insertRun(orgId: string, values: RunInsert): Promise<Run |
     createdByUserId: null,
     createdByApiKeyId: null,
     shots: 0,
+    shotsPlan: null,
+    shotsDrawn: null,
     idempotencyKey: null,
     ...values,
     orgId,

@@ -9,14 +9,14 @@
 import { z } from "zod";
 import { estimateRequestSchema, estimateResultSchema, previewResultSchema, type EstimateRequest } from "@/lib/quantum/schemas";
 import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
+import { nameSchema } from "@/lib/validation/names";
 import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES } from "./constants";
 
-export const runNameSchema = z
-  .string()
-  .trim()
-  .min(1, "the name is empty")
-  .max(RUN_NAME_MAX, `at most ${RUN_NAME_MAX} characters`)
-  .describe("A label for the run (default: derived from the circuit)");
+export const runNameSchema = nameSchema({
+  max: RUN_NAME_MAX,
+  empty: "the name is empty",
+  tooLong: `at most ${RUN_NAME_MAX} characters`,
+}).describe("A label for the run (default: derived from the circuit)");
 
 export const runCreateSchema = estimateRequestSchema
   .safeExtend({ name: runNameSchema.optional() })

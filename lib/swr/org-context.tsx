@@ -36,7 +36,7 @@ export function useWorkspaceOrg(): WorkspaceOrg {
   return v;
 }
 
-/** Members and above may create runs and library items (DESIGN.md §6). */
+/** Members and above may create runs and library items; viewers only read. */
 export function canWrite(role: Role): boolean {
   return role !== "viewer";
 }

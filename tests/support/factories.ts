@@ -10,8 +10,10 @@
  */
 import { encode } from "next-auth/jwt";
 import { db } from "@/db";
-import { users } from "@/db/schema";
+import { and, asc, eq } from "drizzle-orm";
+import { apiKeys, memberships, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
+import { startServerSession } from "@/lib/auth/server-sessions";
 import { createApiKey, createOrganization, upsertMembership } from "@/lib/orgs/mutations";
 import type { Role } from "@/lib/orgs/roles";
 
@@ -44,20 +46,41 @@ export async function addMember(orgId: string, userId: string, role: Role): Prom
   await upsertMembership(orgId, userId, role);
 }
 
-export async function createTestApiKey(orgId: string, role: Role, createdById: string | null = null) {
-  return createApiKey(orgId, { name: `test ${role} key`, role, createdById });
+/**
+ * A key of `orgId` with `role`, made by `createdById` — by default the
+ * organisation's first owner (a key acts with at most its creator's role, and
+ * a key without a member behind it is disabled).
+ */
+export async function createTestApiKey(orgId: string, role: Role, createdById?: string, scope: "personal" | "organization" = "personal") {
+  const creator = createdById ?? (await firstOwner(orgId));
+  const created = await createApiKey(orgId, { name: `test ${role} key`, role, createdById: creator });
+  if (scope === "organization") await db.update(apiKeys).set({ scope }).where(eq(apiKeys.id, created.id));
+  return created;
 }
 
-/** A session cookie as Auth.js would set it after sign-in (JWT, salt = cookie name). */
+async function firstOwner(orgId: string): Promise<string> {
+  const rows = await db
+    .select({ userId: memberships.userId })
+    .from(memberships)
+    .where(and(eq(memberships.orgId, orgId), eq(memberships.role, "owner")))
+    .orderBy(asc(memberships.createdAt))
+    .limit(1);
+  if (!rows[0]) throw new Error(`organisation ${orgId} has no owner`);
+  return rows[0].userId;
+}
+
+/** A session cookie as Auth.js would set it after sign-in (JWT with a live server-side session id, salt = cookie name). */
 export async function sessionCookie(userId: string, options: { maxAgeSeconds?: number } = {}): Promise<string> {
   const name = "authjs.session-token";
   const secret = process.env.AUTH_SECRET;
   if (!secret) throw new Error("AUTH_SECRET is not set");
+  const maxAge = options.maxAgeSeconds ?? 3600;
+  const sid = await startServerSession(userId, Math.max(maxAge, 60));
   const value = await encode({
-    token: { sub: userId },
+    token: { sub: userId, sid },
     secret,
     salt: name,
-    maxAge: options.maxAgeSeconds ?? 3600,
+    maxAge,
   });
   return `${name}=${value}`;
 }

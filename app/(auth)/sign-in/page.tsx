@@ -45,7 +45,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
       ) : null}
       {one(params.signedOut) ? (
         <Alert tone="success" role="status">
-          You have signed out.
+          {one(params.signedOut) === "everywhere"
+            ? "You have signed out on every browser and device."
+            : "You have signed out."}
         </Alert>
       ) : null}
 

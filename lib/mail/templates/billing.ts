@@ -1,4 +1,5 @@
 /** Billing mails to an organisation's owners and admins: payment failed, invoice available. */
+import { subjectSafeName } from "@/lib/validation/names";
 import { frameMail, htmlTemplate, MUTED, P, textTemplate, type RenderedMail } from "./layout";
 
 export type PaymentFailedMailData = {
@@ -31,7 +32,7 @@ Billing settings: {{billingUrl}}`,
 
 export function paymentFailedMail(data: PaymentFailedMailData): RenderedMail {
   return frameMail({
-    subject: `Payment failed for ${data.orgName} — action needed`,
+    subject: `Payment failed for ${subjectSafeName(data.orgName)} — action needed`,
     title: "A payment failed",
     preview: `${data.amount} could not be collected; the subscription is past due.`,
     bodyHtml: failedHtml(data),

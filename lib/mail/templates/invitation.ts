@@ -1,4 +1,5 @@
 /** "You're invited to an organisation" — carries the signed, single-use join link. */
+import { subjectSafeName } from "@/lib/validation/names";
 import { frameMail, htmlTemplate, MUTED, P, textTemplate, type RenderedMail } from "./layout";
 
 export type InvitationMailData = {
@@ -29,7 +30,7 @@ The link works once and expires on {{expires}}. Not expecting this? Ignore this 
 
 export function invitationMail(data: InvitationMailData): RenderedMail {
   return frameMail({
-    subject: `${data.inviterName} invited you to ${data.orgName} on Ketwise`,
+    subject: `You are invited to ${subjectSafeName(data.orgName)} on Ketwise`,
     title: `Join ${data.orgName} on Ketwise`,
     preview: `You're invited as ${data.roleLabel}. The link expires on ${data.expires}.`,
     bodyHtml: html(data),

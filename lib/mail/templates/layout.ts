@@ -8,6 +8,7 @@
  * plain-text part that says everything the HTML says.
  */
 import Handlebars from "handlebars";
+import { subjectSafeName } from "@/lib/validation/names";
 
 /** Ketwise's accent (the verdigris of the logo) and neutrals, as hex for mail clients. */
 export const MAIL_COLORS = { accent: "#13777d", ink: "#1b2430", ink2: "#4b5563", line: "#e3e7ec", canvas: "#f5f7f9" } as const;
@@ -50,7 +51,9 @@ export type RenderedMail = { subject: string; text: string; html: string };
 export function frameMail(input: { subject: string; title: string; preview: string; bodyHtml: string; text: string; footer?: string }): RenderedMail {
   const footer = input.footer ?? "You get this e-mail because of your Ketwise account. Ketwise never asks for your password by e-mail.";
   const html = frame({ title: input.title, preview: input.preview, body: input.bodyHtml, footer });
-  return { subject: input.subject, text: `${input.text.trim()}\n\n— Ketwise\n`, html };
+  // Subjects are one line of bounded length whatever a template put in them.
+  const subject = subjectSafeName(input.subject, 160);
+  return { subject, text: `${input.text.trim()}\n\n— Ketwise\n`, html };
 }
 
 /** A paragraph style shared by the body templates. */

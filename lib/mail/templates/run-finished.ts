@@ -1,4 +1,5 @@
 /** "Your run finished" — sent when a run that took longer than a minute ends. */
+import { subjectSafeName } from "@/lib/validation/names";
 import { frameMail, htmlTemplate, MUTED, P, textTemplate, type RenderedMail } from "./layout";
 
 export type RunFinishedMailData = {
@@ -28,7 +29,7 @@ Open it: {{url}}`,
 
 export function runFinishedMailFrom(data: RunFinishedMailData): RenderedMail {
   return frameMail({
-    subject: `Run "${data.runName}" ${data.verb}`,
+    subject: `Run "${subjectSafeName(data.runName)}" ${data.verb}`,
     title: `Run ${data.verb}`,
     preview: data.outcome,
     bodyHtml: html(data),

@@ -22,12 +22,26 @@ export type Expr =
   | { kind: "binary"; op: BinaryOp; left: Expr; right: Expr; pos: Pos }
   | { kind: "call"; fn: string; args: Expr[]; pos: Pos };
 
-/** `q` (whole register or single qubit) or `q[3]`. */
+/** `q` (whole register or single qubit) or `q[3]` (OpenQASM 3 also `q[i + 1]` with constants). */
 export interface Operand {
   name: string;
-  index: number | null;
+  index: Expr | null;
   pos: Pos;
 }
+
+/** OpenQASM 3 gate modifiers, in source order (`ctrl @ inv @ g` = ctrl(inv(g))). */
+export type Modifier =
+  | { kind: "inv"; pos: Pos }
+  | { kind: "pow"; exponent: Expr; pos: Pos }
+  | { kind: "ctrl" | "negctrl"; count: Expr | null; pos: Pos };
+
+/** Classical types of `const` declarations and loop variables. */
+export type ClassicalType = "int" | "uint" | "float" | "angle";
+
+/** `for` iteration: `[start:end]`, `[start:step:end]` (both ends included) or `{a, b, …}`. */
+export type LoopSet =
+  | { kind: "range"; start: Expr; step: Expr | null; end: Expr; pos: Pos }
+  | { kind: "set"; values: Expr[]; pos: Pos };
 
 export interface Ident {
   name: string;
@@ -36,6 +50,7 @@ export interface Ident {
 
 export interface GateCallStmt {
   kind: "call";
+  modifiers: Modifier[];
   name: string;
   params: Expr[];
   args: Operand[];
@@ -56,7 +71,14 @@ export type Stmt =
   | { kind: "version"; version: string; pos: Pos }
   | { kind: "include"; file: string; pos: Pos }
   /** qreg/creg/qubit/bit; `size` null for the scalar forms `qubit q;` / `bit c;`. */
-  | { kind: "register"; quantum: boolean; name: string; size: number | null; sizePos: Pos | null; pos: Pos; keyword: string }
+  | {
+      kind: "register";
+      quantum: boolean;
+      name: string;
+      size: Expr | null;
+      pos: Pos;
+      keyword: string;
+    }
   | { kind: "input"; name: string; type: "float" | "angle"; pos: Pos }
   | {
       kind: "gateDef";
@@ -70,7 +92,11 @@ export type Stmt =
   | BarrierStmt
   /** `measure a -> b;`, `b = measure a;` (target null for a bare `measure a;`). */
   | { kind: "measure"; source: Operand; target: Operand | null; form: "arrow" | "assign"; pos: Pos }
-  | { kind: "reset"; arg: Operand; pos: Pos };
+  | { kind: "reset"; arg: Operand; pos: Pos }
+  /** `const int n = 3;` (OpenQASM 3): a value known before the run. */
+  | { kind: "const"; name: string; type: ClassicalType; value: Expr; pos: Pos }
+  /** `for int i in [0:3] { … }` (OpenQASM 3), unrolled when the program is compiled. */
+  | { kind: "for"; name: string; type: ClassicalType | null; set: LoopSet; body: Stmt[]; pos: Pos };
 
 export interface ProgramAst {
   statements: Stmt[];

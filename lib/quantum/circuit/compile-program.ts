@@ -3,18 +3,30 @@
  * must be declared before it is used, as in both specifications). Everything that does
  * not need parameter values is checked here: unknown gates, argument and parameter
  * counts, indices, duplicated qubits, undefined registers and parameters, broadcast
- * sizes, non-finite constant expressions.
+ * sizes, non-finite constant expressions. OpenQASM 3 `const` values and `for` loops are
+ * evaluated here (classical.ts): loops are unrolled, so the compiled program is a flat
+ * list of operations whatever the source's structure.
  */
 import type { Expr, GateCallStmt, Operand, Pos, ProgramAst, Stmt } from "./ast";
 import { circuitError, plural, semanticError, syntaxError, unsupported3 } from "./circuit-errors";
+import { compileTimeInteger, constValue, LoopBudget, loopValues } from "./classical";
 import {
   compileExpr,
+  constantOf,
   inputRef,
   isReservedName,
   type Compiled,
   type ExprContext,
 } from "./expressions";
-import { checkArity, GateScope, type Expanded } from "./gate-definitions";
+import {
+  applyModifiers,
+  checkArity,
+  controlCount,
+  GateScope,
+  resolveModifiers,
+  type Expanded,
+  type ResolvedModifier,
+} from "./gate-definitions";
 import { QELIB1, QELIB1_ADDITIONS, STDGATES, type PrimitiveGate } from "./gate-library";
 import type { QasmFormat } from "./parse-source";
 import {
@@ -24,19 +36,37 @@ import {
   type PartTemplate,
   type ProgramInput,
 } from "./program-ir";
-import { broadcast, RegisterTable } from "./registers";
+import { broadcast, RegisterTable, type RegisterRef } from "./registers";
 
 const LIBRARY_FILE: Record<QasmFormat, "qelib1.inc" | "stdgates.inc"> = {
   qasm2: "qelib1.inc",
   qasm3: "stdgates.inc",
 };
-const QASM3_WORDS = new Set(["qubit", "bit", "input", "float", "angle"]);
+const QASM3_WORDS = new Set([
+  "qubit",
+  "bit",
+  "input",
+  "float",
+  "angle",
+  "const",
+  "int",
+  "uint",
+  "ctrl",
+  "negctrl",
+  "inv",
+  "gphase",
+]);
 
 class ProgramCompiler {
   private readonly regs = new RegisterTable();
   private readonly gates: GateScope;
   private readonly inputs: ProgramInput[] = [];
+  /** Inputs, constants and loop variables: the names visible to top-level expressions. */
   private readonly inputScope = new Map<string, Compiled>();
+  /** Constants only (visible inside gate bodies too). */
+  private readonly consts = new Map<string, Compiled>();
+  private readonly loopVars = new Set<string>();
+  private readonly loops = new LoopBudget();
   private readonly ops: CompiledOp[] = [];
   private readonly slots: PartTemplate[] = [];
   private readonly measured = new Set<number>();
@@ -50,7 +80,7 @@ class ProgramCompiler {
     private readonly format: QasmFormat,
     private readonly source: string,
   ) {
-    this.gates = new GateScope(format, source);
+    this.gates = new GateScope(format, source, this.consts);
     this.topCtx = {
       format,
       source,
@@ -95,12 +125,27 @@ class ProgramCompiler {
         return this.version(s.version, s.pos, index);
       case "include":
         return this.include(s.file, s.pos);
-      case "register":
+      case "register": {
         if (this.inputScope.has(s.name))
-          throw semanticError(`'${s.name}' is already declared as an input`, s.pos);
-        return this.regs.declare(s.name, s.quantum, s.size, s.pos, s.sizePos);
+          throw semanticError(`'${s.name}' is already declared as ${this.kindOf(s.name)}`, s.pos);
+        const size =
+          s.size === null
+            ? null
+            : compileTimeInteger(s.size, this.topCtx, `the size of register '${s.name}'`);
+        return this.regs.declare(s.name, s.quantum, size, s.pos, s.size?.pos ?? null);
+      }
       case "input":
         return this.input(s.name, s.type, s.pos);
+      case "const": {
+        this.checkNewName(s.name, s.pos, "constant");
+        const value = constValue(s.type, s.value, this.topCtx, s.name);
+        const c = constantOf(value, s.name, s.pos.line, s.pos.column);
+        this.consts.set(s.name, c);
+        this.inputScope.set(s.name, c);
+        return;
+      }
+      case "for":
+        return this.forLoop(s);
       case "gateDef":
         return this.gates.define(s.name, s.pos, s.params, s.qubits, s.body);
       case "call":
@@ -110,7 +155,7 @@ class ProgramCompiler {
       case "measure":
         return this.measure(s.source, s.target, s.form, s.pos);
       case "reset":
-        for (const q of this.regs.resolveQubits(s.arg).indices) {
+        for (const q of this.regs.resolveQubits(this.ref(s.arg)).indices) {
           this.touch([q]);
           this.reset = true;
           this.push({ kind: "reset", qubit: q, line: s.pos.line }, s.pos);
@@ -149,15 +194,74 @@ class ProgramCompiler {
     this.gates.include(expected);
   }
 
-  private input(name: string, type: "float" | "angle", pos: Pos): void {
-    if (this.inputScope.has(name)) throw semanticError(`input '${name}' is already declared`, pos);
+  private kindOf(name: string): string {
+    if (this.loopVars.has(name)) return "a loop variable";
+    if (this.consts.has(name)) return "a constant";
+    return "an input";
+  }
+
+  /** A new input, constant or loop variable may not reuse a declared name. */
+  private checkNewName(name: string, pos: Pos, what: string): void {
+    if (this.inputScope.has(name)) {
+      const kind = this.kindOf(name);
+      throw semanticError(
+        kind === "an input" && what === "input"
+          ? `input '${name}' is already declared`
+          : `'${name}' is already declared as ${kind}`,
+        pos,
+      );
+    }
     if (this.regs.has(name))
       throw semanticError(`'${name}' is already declared as a register`, pos);
     if (isReservedName(this.format, name))
       throw semanticError(
-        `'${name}' is a built-in constant or function and cannot name an input`,
+        `'${name}' is a built-in constant or function and cannot name ${what === "input" ? "an input" : `a ${what}`}`,
         pos,
       );
+  }
+
+  /** `for` loop: the body is compiled once per value, with the variable as a constant. */
+  private forLoop(s: Extract<Stmt, { kind: "for" }>): void {
+    if (s.type === "float" || s.type === "angle") {
+      throw unsupported3(
+        `loop variables of type '${s.type}' (loop over 'int' or 'uint' values)`,
+        s.pos,
+      );
+    }
+    this.checkNewName(s.name, s.pos, "loop variable");
+    for (const b of s.body) {
+      if (!["call", "barrier", "measure", "reset", "for"].includes(b.kind)) {
+        throw semanticError(
+          "a loop body may contain gate calls, barriers, measurements, resets and loops only (declare registers, inputs, constants and gates before the loop)",
+          b.pos,
+        );
+      }
+    }
+    const values = loopValues(s.set, s.type, this.topCtx, this.loops);
+    this.loopVars.add(s.name);
+    try {
+      for (const v of values) {
+        this.inputScope.set(s.name, constantOf(v, s.name, s.pos.line, s.pos.column));
+        for (const b of s.body) this.statement(b, 1);
+      }
+    } finally {
+      this.inputScope.delete(s.name);
+      this.loopVars.delete(s.name);
+    }
+  }
+
+  /** Evaluates an operand's index (OpenQASM 2.0: an integer literal; 3: a constant expression). */
+  private ref(o: Operand): RegisterRef {
+    if (o.index === null) return { name: o.name, index: null, pos: o.pos };
+    if (this.format === "qasm2" && o.index.kind !== "number") {
+      throw syntaxError("an index must be a non-negative integer in OpenQASM 2.0", o.index.pos);
+    }
+    const index = compileTimeInteger(o.index, this.topCtx, `the index of '${o.name}'`);
+    return { name: o.name, index, pos: o.pos };
+  }
+
+  private input(name: string, type: "float" | "angle", pos: Pos): void {
+    this.checkNewName(name, pos, "input");
     const i = this.inputs.length;
     this.inputs.push({ name, type });
     this.inputScope.set(name, inputRef(i, name, pos.line, pos.column));
@@ -179,16 +283,25 @@ class ProgramCompiler {
     if (entry === undefined) throw this.unknownGate(s.name, s.namePos);
     if (entry.kind === "user" && entry.body === null)
       throw this.gates.opaqueError(entry, s.namePos);
-    checkArity(entry, s.params.length, s.args.length, s.namePos);
+    const modifiers = resolveModifiers(s.modifiers, this.topCtx);
+    checkArity(entry, s.params.length, s.args.length, s.namePos, controlCount(modifiers));
     const params = s.params.map((e: Expr) => compileExpr(e, this.topCtx));
     const instances = broadcast(
-      s.args.map((a) => this.regs.resolveQubits(a)),
+      s.args.map((a) => this.regs.resolveQubits(this.ref(a))),
       "gate call",
       "qubit",
     );
-    const expanded = this.gates.expand(entry, params, s.namePos);
-    this.gates.chargeInstances(expanded.length * (instances.length - 1), s.namePos);
+    const charge = (n: number) => this.gates.charge(n, s.namePos);
+    // Parts on no qubit are global phases (gphase without control): unobservable, dropped.
+    const expanded = applyModifiers(
+      this.gates.expand(entry, params, s.namePos),
+      modifiers,
+      charge,
+    ).filter((x) => x.formals.length > 0);
+    charge(expanded.length * (instances.length - 1));
+    if (instances[0].length === 0) return; // a bare `gphase(γ);`
     const parts = expanded.map((x) => this.template(x));
+    const name = [...modifiers.map(modifierLabel), s.name].join(" @ ");
     for (const qubits of instances) {
       const second = qubits.findIndex((q, i) => qubits.indexOf(q) !== i);
       if (second >= 0) {
@@ -199,10 +312,7 @@ class ProgramCompiler {
       }
       this.touch(qubits);
       const partQubits = parts.map((t) => t.formals.map((f) => qubits[f]));
-      this.push(
-        { kind: "gate", name: s.name, qubits, params, parts, partQubits, line: s.pos.line },
-        s.pos,
-      );
+      this.push({ kind: "gate", name, qubits, params, parts, partQubits, line: s.pos.line }, s.pos);
     }
   }
 
@@ -247,7 +357,7 @@ class ProgramCompiler {
     const qubits =
       args.length === 0
         ? Array.from({ length: this.regs.numQubits }, (_, i) => i)
-        : [...new Set(args.flatMap((a) => this.regs.resolveQubits(a).indices))];
+        : [...new Set(args.flatMap((a) => this.regs.resolveQubits(this.ref(a)).indices))];
     if (qubits.length > 0) this.push({ kind: "barrier", qubits, line: pos.line }, pos);
   }
 
@@ -268,8 +378,8 @@ class ProgramCompiler {
         throw unsupported3("'measure' without a target bit; write 'c = measure q;'", pos);
       throw semanticError("'measure' needs a target: write 'measure q -> c;'", pos);
     }
-    const q = this.regs.resolveQubits(source);
-    const c = this.regs.resolveBits(target);
+    const q = this.regs.resolveQubits(this.ref(source));
+    const c = this.regs.resolveBits(this.ref(target));
     if (q.isRegister !== c.isRegister || q.indices.length !== c.indices.length) {
       throw semanticError(
         `measure needs a qubit and a bit, or two registers of the same size: ${describe(source.name, q.isRegister, q.indices.length, "qubit")}, ${describe(target.name, c.isRegister, c.indices.length, "bit")}`,
@@ -294,6 +404,14 @@ class ProgramCompiler {
     }
     this.ops.push(op);
   }
+}
+
+/** `inv`, `pow(2)`, `ctrl`, `negctrl(2)`: how a modified call is named (e.g. "ctrl(2) @ x"). */
+function modifierLabel(m: ResolvedModifier): string {
+  if (m.kind === "inv") return "inv";
+  if (m.kind === "pow") return `pow(${m.k})`;
+  const word = m.controls[0] ? "ctrl" : "negctrl";
+  return m.controls.length === 1 ? word : `${word}(${m.controls.length})`;
 }
 
 function describe(name: string, isRegister: boolean, size: number, unit: string): string {

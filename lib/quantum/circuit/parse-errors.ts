@@ -3,7 +3,14 @@
  * but found 'cx'") and the conversion of chevrotain's lexing/recognition errors into
  * EngineErrors with a 1-based line and column.
  */
-import { EOF, type ILexingError, type IParserErrorMessageProvider, type IRecognitionException, type IToken, type TokenType } from "chevrotain";
+import {
+  EOF,
+  type ILexingError,
+  type IParserErrorMessageProvider,
+  type IRecognitionException,
+  type IToken,
+  type TokenType,
+} from "chevrotain";
 import { syntaxError, type Location } from "./circuit-errors";
 import type { EngineError } from "../errors";
 
@@ -18,6 +25,9 @@ const RULE_EXPECTATIONS: Record<string, string> = {
   unary: "a number, a name or '('",
   versionStmt: "a version number",
   inputStmt: "a type ('float' or 'angle')",
+  classicalType: "a type (int, uint, float or angle)",
+  loopSet: "a range such as [0:3] or a set such as {0, 2}",
+  modifier: "a gate modifier (ctrl, negctrl, inv or pow(k))",
 };
 
 function label(t: TokenType): string {
@@ -57,7 +67,8 @@ export const qasmErrorMessages: IParserErrorMessageProvider = {
   },
   buildNoViableAltMessage({ expectedPathsPerAlt, actual, previous, ruleName }) {
     const what =
-      RULE_EXPECTATIONS[ruleName] ?? oneOf(expectedPathsPerAlt.flat().map((path) => label(path[0])));
+      RULE_EXPECTATIONS[ruleName] ??
+      oneOf(expectedPathsPerAlt.flat().map((path) => label(path[0])));
     return `expected ${what}${after(previous)}${found(actual[0])}`;
   },
   buildEarlyExitMessage({ expectedIterationPaths, actual, previous, ruleName }) {
@@ -89,7 +100,10 @@ export function fromRecognitionError(e: IRecognitionException): EngineError {
 export function fromLexingError(e: ILexingError, source: string): EngineError {
   const ch = source.charAt(e.offset);
   const cp = source.codePointAt(e.offset) ?? 0;
-  const shownChar = cp < 0x20 || cp === 0x7f ? `U+${cp.toString(16).toUpperCase().padStart(4, "0")}` : `'${String.fromCodePoint(cp)}'`;
+  const shownChar =
+    cp < 0x20 || cp === 0x7f
+      ? `U+${cp.toString(16).toUpperCase().padStart(4, "0")}`
+      : `'${String.fromCodePoint(cp)}'`;
   const message =
     ch === '"' || ch === "'"
       ? "unterminated string: a file name in quotes must end on the same line"

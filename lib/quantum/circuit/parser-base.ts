@@ -1,10 +1,10 @@
 /**
  * Base of the OpenQASM grammar (see parser.ts): the rules shared by statements —
  * identifier lists, operands (`q`, `q[3]`) and parameter expressions:
- *   operand    := id ('[' int ']')?
+ *   operand    := id ('[' expr ']')?      (OpenQASM 2.0 accepts an integer only; checked later)
  *   expr       := term (('+'|'-') term)* ; term := unary (('*'|'/') unary)*
  *   unary      := '-' unary | '+' unary | power ; power := primary (('^'|'**') unary)?
- *   primary    := number | id | id '(' exprs ')' | '(' expr ')'
+ *   primary    := number | id | id '(' exprs ')' | 'pow' '(' exprs ')' | '(' expr ')'
  * Power is right-associative and binds tighter than unary minus (-2^2 = -4, 2^-1 = 0.5).
  */
 import { EmbeddedActionsParser, type IToken } from "chevrotain";
@@ -14,7 +14,12 @@ import { qasmErrorMessages } from "./parse-errors";
 import * as T from "./tokens";
 
 export function posOf(tok: IToken): Pos {
-  return { line: tok.startLine ?? 1, column: tok.startColumn ?? 1, start: tok.startOffset, end: (tok.endOffset ?? tok.startOffset) + 1 };
+  return {
+    line: tok.startLine ?? 1,
+    column: tok.startColumn ?? 1,
+    start: tok.startOffset,
+    end: (tok.endOffset ?? tok.startOffset) + 1,
+  };
 }
 
 export function span(a: Pos, b: Pos): Pos {
@@ -24,7 +29,11 @@ export function span(a: Pos, b: Pos): Pos {
 /** Rules shared by the statement grammar; subclasses call performSelfAnalysis. */
 export abstract class ExpressionParser extends EmbeddedActionsParser {
   constructor() {
-    super(T.allTokens, { recoveryEnabled: false, maxLookahead: 5, errorMessageProvider: qasmErrorMessages });
+    super(T.allTokens, {
+      recoveryEnabled: false,
+      maxLookahead: 5,
+      errorMessageProvider: qasmErrorMessages,
+    });
   }
 
   /** Throws a specific error (never during chevrotain's grammar recording). */
@@ -63,7 +72,7 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
       {
         ALT: () => {
           const name = this.CONSUME(T.Identifier);
-          let index: number | null = null;
+          let index: Expr | null = null;
           let end = posOf(name);
           this.OPTION(() => {
             this.CONSUME(T.LBracket);
@@ -76,37 +85,42 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
       {
         ALT: () => {
           const t = this.CONSUME(T.HardwareQubit);
-          this.fail(() => unsupported3(`physical qubits ('${t.image}'); declare 'qubit[n] q;' and use q[i]`, posOf(t)));
+          this.fail(() =>
+            unsupported3(
+              `physical qubits ('${t.image}'); declare 'qubit[n] q;' and use q[i]`,
+              posOf(t),
+            ),
+          );
           return { name: t.image, index: null, pos: posOf(t) };
         },
       },
     ]),
   );
 
-  protected index = this.RULE("index", (): number =>
+  protected index = this.RULE("index", (): Expr =>
     this.OR([
       {
         ALT: () => {
-          const t = this.CONSUME(T.Integer);
+          const e = this.SUBRULE(this.expr);
           this.OPTION(() => {
             const c = this.CONSUME(T.Colon);
             this.fail(() => unsupported3("register slices (q[a:b])", posOf(c)));
           });
-          return Number(t.image);
+          return e;
         },
       },
       {
-        ALT: () => {
+        ALT: (): Expr => {
           const c = this.CONSUME2(T.Colon);
           this.fail(() => unsupported3("register slices (q[a:b])", posOf(c)));
-          return 0;
+          return { kind: "number", value: 0, pos: posOf(c) };
         },
       },
       {
-        ALT: () => {
+        ALT: (): Expr => {
           const b = this.CONSUME(T.LBrace);
           this.fail(() => unsupported3("index sets (q[{a, b}])", posOf(b)));
-          return 0;
+          return { kind: "number", value: 0, pos: posOf(b) };
         },
       },
     ]),
@@ -127,9 +141,18 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
   protected expr = this.RULE("expr", (): Expr => {
     let left = this.SUBRULE(this.term);
     this.MANY(() => {
-      const op = this.OR([{ ALT: () => this.CONSUME(T.Plus) }, { ALT: () => this.CONSUME(T.Minus) }]);
+      const op = this.OR([
+        { ALT: () => this.CONSUME(T.Plus) },
+        { ALT: () => this.CONSUME(T.Minus) },
+      ]);
       const right = this.SUBRULE2(this.term);
-      left = this.ACTION(() => ({ kind: "binary", op: op.image as "+" | "-", left, right, pos: span(left.pos, right.pos) }));
+      left = this.ACTION(() => ({
+        kind: "binary",
+        op: op.image as "+" | "-",
+        left,
+        right,
+        pos: span(left.pos, right.pos),
+      }));
     });
     return left;
   });
@@ -137,9 +160,18 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
   protected term = this.RULE("term", (): Expr => {
     let left = this.SUBRULE(this.unary);
     this.MANY(() => {
-      const op = this.OR([{ ALT: () => this.CONSUME(T.Star) }, { ALT: () => this.CONSUME(T.Slash) }]);
+      const op = this.OR([
+        { ALT: () => this.CONSUME(T.Star) },
+        { ALT: () => this.CONSUME(T.Slash) },
+      ]);
       const right = this.SUBRULE2(this.unary);
-      left = this.ACTION(() => ({ kind: "binary", op: op.image as "*" | "/", left, right, pos: span(left.pos, right.pos) }));
+      left = this.ACTION(() => ({
+        kind: "binary",
+        op: op.image as "*" | "/",
+        left,
+        right,
+        pos: span(left.pos, right.pos),
+      }));
     });
     return left;
   });
@@ -169,9 +201,18 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
     const base = this.SUBRULE(this.primary);
     let result = base;
     this.OPTION(() => {
-      const op = this.OR([{ ALT: () => this.CONSUME(T.Caret) }, { ALT: () => this.CONSUME(T.DoubleStar) }]);
+      const op = this.OR([
+        { ALT: () => this.CONSUME(T.Caret) },
+        { ALT: () => this.CONSUME(T.DoubleStar) },
+      ]);
       const exponent = this.SUBRULE(this.unary);
-      result = this.ACTION((): Expr => ({ kind: "binary", op: op.image as "^" | "**", left: base, right: exponent, pos: span(base.pos, exponent.pos) }));
+      result = this.ACTION((): Expr => ({
+        kind: "binary",
+        op: op.image as "^" | "**",
+        left: base,
+        right: exponent,
+        pos: span(base.pos, exponent.pos),
+      }));
     });
     return result;
   });
@@ -195,8 +236,28 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
           return this.ACTION((): Expr => {
             const c = call as { args: Expr[]; close: IToken } | null;
             if (c === null) return { kind: "name", name: name.image, pos: posOf(name) };
-            return { kind: "call", fn: name.image, args: c.args, pos: span(posOf(name), posOf(c.close)) };
+            return {
+              kind: "call",
+              fn: name.image,
+              args: c.args,
+              pos: span(posOf(name), posOf(c.close)),
+            };
           });
+        },
+      },
+      {
+        // `pow` is a keyword of the OpenQASM 3 lexer (the modifier) and a function here.
+        ALT: () => {
+          const name = this.CONSUME(T.Pow);
+          this.CONSUME3(T.LParen);
+          const args = this.SUBRULE2(this.exprList);
+          const close = this.CONSUME3(T.RParen);
+          return this.ACTION((): Expr => ({
+            kind: "call",
+            fn: "pow",
+            args,
+            pos: span(posOf(name), posOf(close)),
+          }));
         },
       },
       {
@@ -214,4 +275,3 @@ export abstract class ExpressionParser extends EmbeddedActionsParser {
     return { kind: "number", value: Number(tok.image), pos: posOf(tok) };
   }
 }
-

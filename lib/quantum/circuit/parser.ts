@@ -6,19 +6,34 @@
  *   program    := statement*
  *   statement  := 'OPENQASM' version ';' | 'include' string ';'
  *               | ('qreg'|'creg') id '[' int ']' ';'
- *               | ('qubit'|'bit') ('[' int ']')? id ('=' 'measure' operand)? ';'
+ *               | ('qubit'|'bit') ('[' expr ']')? id ('=' 'measure' operand)? ';'
  *               | 'input' ('float'|'angle') ('[' int ']')? id ';'
+ *               | 'const' type ('[' int ']')? id '=' expr ';'
+ *               | 'for' type? id 'in' ('[' expr ':' expr (':' expr)? ']' | '{' exprs '}') (block | statement)
  *               | 'gate' id ('(' ids? ')')? ids '{' (call | barrier)* '}'
  *               | 'opaque' id ('(' ids? ')')? ids ';'
  *               | 'measure' operand ('->' operand)? ';' | operand '=' 'measure' operand ';'
  *               | 'reset' operand ';' | 'barrier' operands? ';' | call
- *   call       := id ('(' exprs? ')')? operands ';'
+ *   call       := modifier* id ('(' exprs? ')')? operands? ';'
+ *   modifier   := ('inv' | 'pow' '(' expr ')' | ('ctrl'|'negctrl') ('(' expr ')')?) '@'
+ *   type       := ('int'|'uint'|'float'|'angle') ('[' int ']')?
  * (operands and expressions: parser-base.ts).
  * Dialect differences (which operator means power, which statements exist) are checked
  * after parsing, except for reserved OpenQASM 3 words, which are rejected here.
  */
 import type { IToken } from "chevrotain";
-import type { BarrierStmt, Expr, GateBodyStmt, GateCallStmt, Ident, Operand, Stmt } from "./ast";
+import type {
+  BarrierStmt,
+  ClassicalType,
+  Expr,
+  GateBodyStmt,
+  GateCallStmt,
+  Ident,
+  LoopSet,
+  Modifier,
+  Operand,
+  Stmt,
+} from "./ast";
 import { semanticError, unsupported3 } from "./circuit-errors";
 import { ExpressionParser, posOf, span } from "./parser-base";
 import * as T from "./tokens";
@@ -26,13 +41,28 @@ import * as T from "./tokens";
 /** Human description of a reserved OpenQASM 3 word, for the "not supported" error. */
 function describeReserved(word: string): string {
   const lw = word.toLowerCase();
-  if (["for", "while", "if", "else", "switch", "case", "default", "break", "continue", "end", "return"].includes(lw)) {
+  if (
+    [
+      "for",
+      "while",
+      "if",
+      "else",
+      "switch",
+      "case",
+      "default",
+      "break",
+      "continue",
+      "end",
+      "return",
+    ].includes(lw)
+  ) {
     return `'${word}' (classical control flow)`;
   }
   if (["ctrl", "negctrl", "inv", "pow"].includes(lw)) return `gate modifier '${word} @'`;
   if (["def", "extern"].includes(lw)) return `subroutines ('${word}')`;
   if (["defcal", "defcalgrammar", "cal"].includes(lw)) return `pulse-level calibration ('${word}')`;
-  if (["delay", "box", "duration", "stretch", "durationof"].includes(lw)) return `timing ('${word}')`;
+  if (["delay", "box", "duration", "stretch", "durationof"].includes(lw))
+    return `timing ('${word}')`;
   if (lw === "gphase") return "'gphase' (global phase statements)";
   if (lw === "output") return "'output' declarations";
   if (lw === "opaque") return "'opaque' gates";
@@ -61,6 +91,8 @@ class QasmParser extends ExpressionParser {
       { ALT: () => [this.SUBRULE(this.oldRegister)] },
       { ALT: () => this.SUBRULE(this.newRegister) },
       { ALT: () => [this.SUBRULE(this.inputStmt)] },
+      { ALT: () => [this.SUBRULE(this.constStmt)] },
+      { ALT: () => [this.SUBRULE(this.forStmt)] },
       { ALT: () => [this.SUBRULE(this.gateDef)] },
       { ALT: () => [this.SUBRULE(this.opaqueDef)] },
       { ALT: () => [this.SUBRULE(this.measureStmt)] },
@@ -74,7 +106,10 @@ class QasmParser extends ExpressionParser {
 
   private versionStmt = this.RULE("versionStmt", (): Stmt => {
     const kw = this.CONSUME(T.Openqasm);
-    const v = this.OR([{ ALT: () => this.CONSUME(T.Real) }, { ALT: () => this.CONSUME(T.Integer) }]);
+    const v = this.OR([
+      { ALT: () => this.CONSUME(T.Real) },
+      { ALT: () => this.CONSUME(T.Integer) },
+    ]);
     this.CONSUME(T.Semicolon);
     return { kind: "version", version: v.image, pos: span(posOf(kw), posOf(v)) };
   });
@@ -94,18 +129,22 @@ class QasmParser extends ExpressionParser {
     this.CONSUME(T.RBracket);
     this.CONSUME(T.Semicolon);
     return {
-      kind: "register", quantum: kw.image === "qreg", name: name.image, size: Number(size.image),
-      sizePos: posOf(size), pos: posOf(name), keyword: kw.image,
+      kind: "register",
+      quantum: kw.image === "qreg",
+      name: name.image,
+      size: this.numberLiteral(size),
+      pos: posOf(name),
+      keyword: kw.image,
     };
   });
 
   /** `qubit[n] q;`, `qubit q;`, `bit[n] c;`, `bit c;`, `bit[n] c = measure q;` (OpenQASM 3). */
   private newRegister = this.RULE("newRegister", (): Stmt[] => {
     const kw = this.OR([{ ALT: () => this.CONSUME(T.Qubit) }, { ALT: () => this.CONSUME(T.Bit) }]);
-    let size: IToken | null = null;
+    let size: Expr | null = null;
     this.OPTION(() => {
       this.CONSUME(T.LBracket);
-      size = this.CONSUME(T.Integer);
+      size = this.SUBRULE(this.expr);
       this.CONSUME(T.RBracket);
     });
     const name = this.CONSUME(T.Identifier);
@@ -117,11 +156,14 @@ class QasmParser extends ExpressionParser {
     });
     this.CONSUME(T.Semicolon);
     return this.ACTION(() => {
-      const sizeTok = size as IToken | null;
       const quantum = kw.image === "qubit";
       const reg: Stmt = {
-        kind: "register", quantum, name: name.image, size: sizeTok ? Number(sizeTok.image) : null,
-        sizePos: sizeTok ? posOf(sizeTok) : null, pos: posOf(name), keyword: kw.image,
+        kind: "register",
+        quantum,
+        name: name.image,
+        size,
+        pos: posOf(name),
+        keyword: kw.image,
       };
       const i = init as { eq: IToken; source: Operand } | null;
       if (i === null) return [reg];
@@ -138,8 +180,18 @@ class QasmParser extends ExpressionParser {
       { ALT: () => this.CONSUME(T.Angle) },
       {
         ALT: () => {
-          const t = this.OR2([{ ALT: () => this.CONSUME(T.UnsupportedKeyword) }, { ALT: () => this.CONSUME(T.Bit) }]);
-          this.fail(() => unsupported3(`input of type '${t.image}' (inputs must be 'float' or 'angle')`, posOf(t)));
+          const t = this.OR2([
+            { ALT: () => this.CONSUME(T.UnsupportedKeyword) },
+            { ALT: () => this.CONSUME(T.Bit) },
+            { ALT: () => this.CONSUME(T.Int) },
+            { ALT: () => this.CONSUME(T.Uint) },
+          ]);
+          this.fail(() =>
+            unsupported3(
+              `input of type '${t.image}' (inputs must be 'float' or 'angle')`,
+              posOf(t),
+            ),
+          );
           return t;
         },
       },
@@ -151,7 +203,147 @@ class QasmParser extends ExpressionParser {
     });
     const name = this.CONSUME(T.Identifier);
     this.CONSUME(T.Semicolon);
-    return { kind: "input", name: name.image, type: type.image === "angle" ? "angle" : "float", pos: posOf(name) };
+    return {
+      kind: "input",
+      name: name.image,
+      type: type.image === "angle" ? "angle" : "float",
+      pos: posOf(name),
+    };
+  });
+
+  /** `int`, `uint`, `float` or `angle`, with an optional (ignored) bit width. */
+  private classicalType = this.RULE("classicalType", (): ClassicalType => {
+    const t = this.OR([
+      { ALT: () => this.CONSUME(T.Int) },
+      { ALT: () => this.CONSUME(T.Uint) },
+      { ALT: () => this.CONSUME(T.Float) },
+      { ALT: () => this.CONSUME(T.Angle) },
+      {
+        ALT: () => {
+          const u = this.OR2([
+            { ALT: () => this.CONSUME(T.UnsupportedKeyword) },
+            { ALT: () => this.CONSUME(T.Bit) },
+          ]);
+          this.fail(() =>
+            unsupported3(`the type '${u.image}' here (use int, uint, float or angle)`, posOf(u)),
+          );
+          return u;
+        },
+      },
+    ]);
+    this.OPTION(() => {
+      this.CONSUME(T.LBracket);
+      this.CONSUME(T.Integer);
+      this.CONSUME(T.RBracket);
+    });
+    return t.image as ClassicalType;
+  });
+
+  private constStmt = this.RULE("constStmt", (): Stmt => {
+    this.CONSUME(T.Const);
+    const type = this.SUBRULE(this.classicalType);
+    const name = this.CONSUME(T.Identifier);
+    this.CONSUME(T.Equals);
+    const value = this.SUBRULE(this.expr);
+    this.CONSUME(T.Semicolon);
+    return { kind: "const", name: name.image, type, value, pos: posOf(name) };
+  });
+
+  private forStmt = this.RULE("forStmt", (): Stmt => {
+    const kw = this.CONSUME(T.For);
+    let type: ClassicalType | null = null;
+    this.OPTION(() => {
+      type = this.SUBRULE(this.classicalType);
+    });
+    const name = this.CONSUME(T.Identifier);
+    this.CONSUME(T.In);
+    const set = this.SUBRULE(this.loopSet);
+    const body: Stmt[] = [];
+    this.OR([
+      {
+        ALT: () => {
+          this.CONSUME(T.LBrace);
+          this.MANY(() => {
+            const s = this.SUBRULE(this.statement);
+            this.ACTION(() => body.push(...s));
+          });
+          this.CONSUME(T.RBrace);
+        },
+      },
+      {
+        ALT: () => {
+          const s = this.SUBRULE2(this.statement);
+          this.ACTION(() => body.push(...s));
+        },
+      },
+    ]);
+    return { kind: "for", name: name.image, type, set, body, pos: posOf(kw) };
+  });
+
+  private loopSet = this.RULE("loopSet", (): LoopSet =>
+    this.OR([
+      {
+        ALT: () => {
+          const open = this.CONSUME(T.LBracket);
+          const start = this.SUBRULE(this.expr);
+          this.CONSUME(T.Colon);
+          const second = this.SUBRULE2(this.expr);
+          let third: Expr | null = null;
+          this.OPTION(() => {
+            this.CONSUME2(T.Colon);
+            third = this.SUBRULE3(this.expr);
+          });
+          const close = this.CONSUME(T.RBracket);
+          return this.ACTION((): LoopSet => {
+            const t = third as Expr | null;
+            const pos = span(posOf(open), posOf(close));
+            return t === null
+              ? { kind: "range", start, step: null, end: second, pos }
+              : { kind: "range", start, step: second, end: t, pos };
+          });
+        },
+      },
+      {
+        ALT: () => {
+          const open = this.CONSUME(T.LBrace);
+          const values = this.SUBRULE(this.exprList);
+          const close = this.CONSUME(T.RBrace);
+          return { kind: "set", values, pos: span(posOf(open), posOf(close)) };
+        },
+      },
+    ]),
+  );
+
+  private modifier = this.RULE("modifier", (): Modifier => {
+    const m = this.OR([
+      { ALT: (): Modifier => ({ kind: "inv", pos: posOf(this.CONSUME(T.Inv)) }) },
+      {
+        ALT: (): Modifier => {
+          const kw = this.CONSUME(T.Pow);
+          this.CONSUME(T.LParen);
+          const exponent = this.SUBRULE(this.expr);
+          this.CONSUME(T.RParen);
+          return { kind: "pow", exponent, pos: posOf(kw) };
+        },
+      },
+      {
+        ALT: (): Modifier => {
+          const kw = this.OR2([
+            { ALT: () => this.CONSUME(T.Ctrl) },
+            { ALT: () => this.CONSUME(T.Negctrl) },
+          ]);
+          let count: Expr | null = null;
+          this.OPTION(() => {
+            this.CONSUME2(T.LParen);
+            count = this.SUBRULE2(this.expr);
+            this.CONSUME2(T.RParen);
+          });
+          return { kind: kw.image === "ctrl" ? "ctrl" : "negctrl", count, pos: posOf(kw) };
+        },
+      },
+    ]);
+    this.CONSUME(T.At);
+    return m;
   });
 
   private gateSignature = this.RULE("gateSignature", () => {
@@ -178,14 +370,28 @@ class QasmParser extends ExpressionParser {
       this.ACTION(() => body.push(s));
     });
     this.CONSUME(T.RBrace);
-    return this.ACTION((): Stmt => ({ kind: "gateDef", name: sig.name.image, params: sig.params, qubits: sig.qubits, body, pos: posOf(sig.name) }));
+    return this.ACTION((): Stmt => ({
+      kind: "gateDef",
+      name: sig.name.image,
+      params: sig.params,
+      qubits: sig.qubits,
+      body,
+      pos: posOf(sig.name),
+    }));
   });
 
   private opaqueDef = this.RULE("opaqueDef", (): Stmt => {
     this.CONSUME(T.Opaque);
     const sig = this.SUBRULE(this.gateSignature);
     this.CONSUME(T.Semicolon);
-    return this.ACTION((): Stmt => ({ kind: "gateDef", name: sig.name.image, params: sig.params, qubits: sig.qubits, body: null, pos: posOf(sig.name) }));
+    return this.ACTION((): Stmt => ({
+      kind: "gateDef",
+      name: sig.name.image,
+      params: sig.params,
+      qubits: sig.qubits,
+      body: null,
+      pos: posOf(sig.name),
+    }));
   });
 
   private gateBodyStatement = this.RULE("gateBodyStatement", (): GateBodyStmt =>
@@ -214,7 +420,13 @@ class QasmParser extends ExpressionParser {
     this.CONSUME(T.Measure);
     const source = this.SUBRULE2(this.operand);
     this.CONSUME(T.Semicolon);
-    return this.ACTION((): Stmt => ({ kind: "measure", source, target, form: "assign", pos: target.pos }));
+    return this.ACTION((): Stmt => ({
+      kind: "measure",
+      source,
+      target,
+      form: "assign",
+      pos: target.pos,
+    }));
   });
 
   private resetStmt = this.RULE("resetStmt", (): Stmt => {
@@ -235,6 +447,11 @@ class QasmParser extends ExpressionParser {
   });
 
   private gateCall = this.RULE("gateCall", (): GateCallStmt => {
+    const modifiers: Modifier[] = [];
+    this.MANY(() => {
+      const m = this.SUBRULE(this.modifier);
+      this.ACTION(() => modifiers.push(m));
+    });
     const name = this.CONSUME(T.Identifier);
     let params: Expr[] = [];
     this.OPTION(() => {
@@ -244,9 +461,22 @@ class QasmParser extends ExpressionParser {
       });
       this.CONSUME(T.RParen);
     });
-    const args = this.SUBRULE(this.operandList);
+    this.OPTION4(() => {
+      this.CONSUME(T.At);
+      this.fail(() =>
+        semanticError(
+          `unknown gate modifier '${name.image}' (the modifiers are ctrl, negctrl, inv and pow(k))`,
+          posOf(name),
+        ),
+      );
+    });
+    let args: Operand[] = [];
+    this.OPTION3(() => {
+      args = this.SUBRULE(this.operandList);
+    });
     this.CONSUME(T.Semicolon);
-    return { kind: "call", name: name.image, params, args, pos: posOf(name), namePos: posOf(name) };
+    const pos = modifiers.length > 0 ? modifiers[0].pos : posOf(name);
+    return { kind: "call", modifiers, name: name.image, params, args, pos, namePos: posOf(name) };
   });
 
   /** Statements outside the supported language: always throws a specific error. */
@@ -255,7 +485,9 @@ class QasmParser extends ExpressionParser {
       {
         ALT: () => {
           const t = this.CONSUME(T.If);
-          this.fail(() => semanticError("classically controlled gates are not supported ('if')", posOf(t)));
+          this.fail(() =>
+            semanticError("classically controlled gates are not supported ('if')", posOf(t)),
+          );
         },
       },
       {
@@ -266,8 +498,30 @@ class QasmParser extends ExpressionParser {
       },
       {
         ALT: () => {
-          const t = this.OR2([{ ALT: () => this.CONSUME(T.Float) }, { ALT: () => this.CONSUME(T.Angle) }]);
-          this.fail(() => unsupported3(`classical variable declarations ('${t.image}'); use 'input ${t.image} name;' for a parameter`, posOf(t)));
+          const t = this.OR2([
+            { ALT: () => this.CONSUME(T.Float) },
+            { ALT: () => this.CONSUME(T.Angle) },
+          ]);
+          this.fail(() =>
+            unsupported3(
+              `classical variable declarations ('${t.image}'); use 'input ${t.image} name;' for a parameter or 'const ${t.image} name = …;'`,
+              posOf(t),
+            ),
+          );
+        },
+      },
+      {
+        ALT: () => {
+          const t = this.OR3([
+            { ALT: () => this.CONSUME(T.Int) },
+            { ALT: () => this.CONSUME(T.Uint) },
+          ]);
+          this.fail(() =>
+            unsupported3(
+              `classical variables ('${t.image}'); declare a constant with 'const ${t.image} name = …;'`,
+              posOf(t),
+            ),
+          );
         },
       },
       {

@@ -16,7 +16,14 @@ export const LIMITS = {
   maxOps: 1_000_000,
 } as const;
 
-/** One primitive application inside a top-level gate op, with qubits given as positions. */
+/**
+ * One primitive application inside a top-level gate op, with qubits given as positions.
+ * `params[j]` is the compiled expression of the gate's j-th angle in terms of the program
+ * inputs (loops are unrolled and `const`s folded, so every application has its own
+ * template). `gate` may be a gate changed by OpenQASM 3 modifiers (`gate.modification`
+ * set: base primitive, control pattern, inverse — see modified-gates.ts); its matrix is
+ * exact, and `pow(k) @` has already become k separate parts.
+ */
 export interface PartTemplate {
   gate: PrimitiveGate;
   /** Positions into the op's qubit list (the gate's formal arguments). */

@@ -7,7 +7,7 @@
  * `q` (qubit i of the program is q[i]); the original measurements are dropped.
  *
  * - measurementCircuitQasm: rotations into each qubit's Pauli basis (X: h; Y: sdg then
- *   h — DESIGN.md §1) and `measure` of every non-identity qubit into a fresh `creg m`,
+ *   h, so that U·P·U† = Z) and `measure` of every non-identity qubit into a fresh `creg m`,
  *   m[j] being the j-th measured qubit in qubit order.
  * - hadamardTestQasm: the Hadamard test (common practice): an ancilla in |+⟩ (then S† for
  *   the imaginary part) controls P, is rotated back with H and measured; with the state

@@ -3,7 +3,14 @@
  * flat indices. Qubits are numbered in declaration order: the first register's qubits
  * first (so `qreg a[2]; qreg b[1];` gives a[0]=0, a[1]=1, b[0]=2); the same for bits.
  */
-import type { Operand, Pos } from "./ast";
+import type { Pos } from "./ast";
+
+/** An operand with its index evaluated: `q` (index null) or `q[3]`. */
+export interface RegisterRef {
+  name: string;
+  index: number | null;
+  pos: Pos;
+}
 import { circuitError, plural, semanticError } from "./circuit-errors";
 import { LIMITS } from "./program-ir";
 
@@ -35,19 +42,41 @@ export class RegisterTable {
     return this.regs.has(name);
   }
 
-  declare(name: string, quantum: boolean, size: number | null, pos: Pos, sizePos: Pos | null): void {
+  declare(
+    name: string,
+    quantum: boolean,
+    size: number | null,
+    pos: Pos,
+    sizePos: Pos | null,
+  ): void {
+    const bound = quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
+    if (size !== null && size > bound) {
+      const what = quantum ? "qubits" : "classical bits";
+      throw circuitError(
+        "too_large",
+        `register '${name}' declares ${size} ${what}; at most ${bound} are accepted`,
+        sizePos ?? pos,
+      );
+    }
     if (this.regs.has(name)) {
       throw semanticError(`register '${name}' is already declared`, pos);
     }
     const n = size ?? 1;
     if (n < 1 || !Number.isSafeInteger(n)) {
-      throw semanticError(`register '${name}' must have at least 1 ${quantum ? "qubit" : "bit"}`, sizePos ?? pos);
+      throw semanticError(
+        `register '${name}' must have at least 1 ${quantum ? "qubit" : "bit"}`,
+        sizePos ?? pos,
+      );
     }
     const total = (quantum ? this.numQubits : this.numClbits) + n;
     const limit = quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
     if (total > limit) {
       const what = quantum ? "qubits" : "classical bits";
-      throw circuitError("too_large", `the circuit declares ${total} ${what}; at most ${limit} are accepted`, pos);
+      throw circuitError(
+        "too_large",
+        `the circuit declares ${total} ${what}; at most ${limit} are accepted`,
+        pos,
+      );
     }
     const offset = quantum ? this.numQubits : this.numClbits;
     this.regs.set(name, { name, quantum, offset, size: n, scalar: size === null });
@@ -64,18 +93,21 @@ export class RegisterTable {
     return this.qubitLabels[index];
   }
 
-  resolveQubits(op: Operand): Resolved {
+  resolveQubits(op: RegisterRef): Resolved {
     return this.resolve(op, true);
   }
 
-  resolveBits(op: Operand): Resolved {
+  resolveBits(op: RegisterRef): Resolved {
     return this.resolve(op, false);
   }
 
-  private resolve(op: Operand, quantum: boolean): Resolved {
+  private resolve(op: RegisterRef, quantum: boolean): Resolved {
     const reg = this.regs.get(op.name);
     if (reg === undefined) {
-      throw semanticError(`undefined ${quantum ? "quantum" : "classical"} register '${op.name}'`, op.pos);
+      throw semanticError(
+        `undefined ${quantum ? "quantum" : "classical"} register '${op.name}'`,
+        op.pos,
+      );
     }
     if (reg.quantum !== quantum) {
       throw semanticError(
@@ -91,15 +123,23 @@ export class RegisterTable {
     }
     const kind = quantum ? "qubit" : "bit";
     if (reg.scalar) {
-      throw semanticError(`'${op.name}' is a single ${kind}, not a register: write '${op.name}' without an index`, op.pos);
+      throw semanticError(
+        `'${op.name}' is a single ${kind}, not a register: write '${op.name}' without an index`,
+        op.pos,
+      );
     }
-    if (op.index >= reg.size) {
+    if (op.index < 0 || op.index >= reg.size) {
       throw semanticError(
         `${kind} ${op.name}[${op.index}] out of range: register ${op.name} has ${plural(reg.size, kind)}`,
         op.pos,
       );
     }
-    return { indices: [reg.offset + op.index], isRegister: false, registerName: reg.name, pos: op.pos };
+    return {
+      indices: [reg.offset + op.index],
+      isRegister: false,
+      registerName: reg.name,
+      pos: op.pos,
+    };
   }
 }
 
@@ -124,6 +164,7 @@ export function broadcast(args: Resolved[], what: string, unit: string): number[
   }
   const n = first === null ? 1 : size;
   const out: number[][] = [];
-  for (let i = 0; i < n; i++) out.push(args.map((a) => (a.isRegister ? a.indices[i] : a.indices[0])));
+  for (let i = 0; i < n; i++)
+    out.push(args.map((a) => (a.isRegister ? a.indices[i] : a.indices[0])));
   return out;
 }

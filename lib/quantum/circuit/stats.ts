@@ -1,6 +1,6 @@
 /**
  * Summary figures of a bound circuit, over its top-level operations (a call of `ccx`
- * or of a user gate counts once, as in the noise model of DESIGN.md §2).
+ * or of a user gate counts once, as in the noise model, which acts once after each top-level gate).
  */
 import type { Circuit } from "../types";
 

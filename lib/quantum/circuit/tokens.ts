@@ -6,9 +6,10 @@
  * - OpenQASM 2.0 (Cross et al., arXiv:1707.03429): OPENQASM, include, qreg, creg, gate,
  *   opaque, barrier, measure, reset, if. `U`, `CX`, `pi` and the functions are plain
  *   identifiers resolved later, so `qubit` or `input` stay ordinary names there.
- * - OpenQASM 3 (live specification): additionally qubit, bit, input, float, angle, and
- *   the reserved words of features outside Ketwise's subset (for, while, ctrl, …), which
- *   the parser turns into a clear "not supported" error instead of a vague syntax error.
+ * - OpenQASM 3 (live specification): additionally qubit, bit, input, float, angle, const,
+ *   int, uint, for, in, the gate modifiers ctrl, negctrl, inv, pow, and the reserved words
+ *   of features outside Ketwise's subset (while, def, …), which the parser turns into a
+ *   clear "not supported" error instead of a vague syntax error.
  */
 import { createToken, Lexer, type TokenType } from "chevrotain";
 
@@ -21,7 +22,8 @@ export const Identifier = createToken({
   label: "a name",
   // ASCII names; Latin-1/Latin Extended letters, Greek letters (θ, π) and ℇ are OpenQASM 3 only
   // (the OpenQASM 2.0 lexer uses AsciiIdentifier instead).
-  pattern: /[A-Za-z_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F\u0370-\u03FF\u2107][A-Za-z0-9_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F\u0370-\u03FF\u2107]*/,
+  pattern:
+    /[A-Za-z_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F\u0370-\u03FF\u2107][A-Za-z0-9_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\u024F\u0370-\u03FF\u2107]*/,
   start_chars_hint: [
     ..."abcdefghijklmnopqrstuvwxyzABCDEFGHIJKLMNOPQRSTUVWXYZ_",
     ...charRange(0xc0, 0xd6),
@@ -56,11 +58,38 @@ function keyword(word: string, longerAlt: TokenType, categories: TokenType[] = [
 export const UnsupportedKeyword = createToken({ name: "UnsupportedKeyword", pattern: Lexer.NA });
 
 const UNSUPPORTED_WORDS = [
-  "for", "while", "if", "else", "def", "defcal", "defcalgrammar", "cal", "let", "const",
-  "int", "uint", "bool", "complex", "duration", "stretch", "delay", "box", "ctrl", "negctrl",
-  "inv", "pow", "output", "extern", "return", "break", "continue", "switch", "case",
-  "default", "array", "gphase", "durationof", "sizeof", "opaque", "end", "true", "false",
-  "readonly", "mutable", "in", "void",
+  "while",
+  "if",
+  "else",
+  "def",
+  "defcal",
+  "defcalgrammar",
+  "cal",
+  "let",
+  "bool",
+  "complex",
+  "duration",
+  "stretch",
+  "delay",
+  "box",
+  "output",
+  "extern",
+  "return",
+  "break",
+  "continue",
+  "switch",
+  "case",
+  "default",
+  "array",
+  "durationof",
+  "sizeof",
+  "opaque",
+  "end",
+  "true",
+  "false",
+  "readonly",
+  "mutable",
+  "void",
 ] as const;
 
 // Category tokens consumed by the parser (chevrotain matches a token by its categories);
@@ -101,13 +130,69 @@ export const Bit = keyword("bit", Identifier);
 export const Input = keyword("input", Identifier);
 export const Float = keyword("float", Identifier);
 export const Angle = keyword("angle", Identifier);
+export const Const = keyword("const", Identifier);
+export const Int = keyword("int", Identifier);
+export const Uint = keyword("uint", Identifier);
+export const For = keyword("for", Identifier);
+export const In = keyword("in", Identifier);
+export const Ctrl = keyword("ctrl", Identifier);
+export const Negctrl = keyword("negctrl", Identifier);
+export const Inv = keyword("inv", Identifier);
+/** `pow(k) @` modifier; in expressions `pow(a, b)` stays the power function. */
+export const Pow = keyword("pow", Identifier);
+// Order matters: a keyword that is a prefix of another ("in" of "int", "inv", "input") comes after it.
+const qasm3Words = [
+  Qubit,
+  Bit,
+  Input,
+  Float,
+  Angle,
+  Const,
+  Uint,
+  Int,
+  Inv,
+  In,
+  For,
+  Negctrl,
+  Ctrl,
+  Pow,
+];
 // Longest first, so that `defcal` is not lexed as `def` + longer name.
-const unsupportedTokens = [...UNSUPPORTED_WORDS].sort((a, b) => b.length - a.length).map((w) => keyword(w, Identifier, [UnsupportedKeyword]));
+const unsupportedTokens = [...UNSUPPORTED_WORDS]
+  .sort((a, b) => b.length - a.length)
+  .map((w) => keyword(w, Identifier, [UnsupportedKeyword]));
 /** `#pragma …` lines and `@annotation`s (OpenQASM 3), rejected by the parser. */
-export const Pragma = createToken({ name: "Pragma", label: "a pragma", pattern: /#pragma[^\n\r]*/ });
-export const Annotation = createToken({ name: "Annotation", label: "an annotation", pattern: /@[A-Za-z_][A-Za-z0-9_.]*/ });
+export const Pragma = createToken({
+  name: "Pragma",
+  label: "a pragma",
+  pattern: /#pragma[^\n\r]*/,
+});
+const ANNOTATION = /@[A-Za-z_][A-Za-z0-9_.]*/y;
+/**
+ * `@keyword …` at the start of a statement (after ';', '{', '}' or the program start). After
+ * a gate modifier (`ctrl @x q;`) the '@' is the modifier separator and the name a gate.
+ */
+export const Annotation = createToken({
+  name: "Annotation",
+  label: "an annotation",
+  line_breaks: false,
+  start_chars_hint: ["@"],
+  pattern: {
+    exec: (text: string, offset: number): RegExpExecArray | null => {
+      let i = offset - 1;
+      while (i >= 0 && /\s/.test(text[i])) i--;
+      if (i >= 0 && !";{}/".includes(text[i])) return null;
+      ANNOTATION.lastIndex = offset;
+      return ANNOTATION.exec(text);
+    },
+  },
+});
 /** Physical qubit `$3` (OpenQASM 3), rejected by the parser. */
-export const HardwareQubit = createToken({ name: "HardwareQubit", label: "a physical qubit", pattern: /\$[0-9]+/ });
+export const HardwareQubit = createToken({
+  name: "HardwareQubit",
+  label: "a physical qubit",
+  pattern: /\$[0-9]+/,
+});
 export const Colon = createToken({ name: "Colon", label: "':'", pattern: /:/ });
 export const At = createToken({ name: "At", label: "'@'", pattern: /@/ });
 
@@ -118,7 +203,11 @@ export const Real = createToken({
   pattern: /(?:[0-9]+\.[0-9]*|\.[0-9]+)(?:[eE][+-]?[0-9]+)?|[0-9]+[eE][+-]?[0-9]+/,
 });
 export const Integer = createToken({ name: "Integer", label: "an integer", pattern: /[0-9]+/ });
-export const StringLiteral = createToken({ name: "StringLiteral", label: "a file name in quotes", pattern: /"[^"\n\r]*"|'[^'\n\r]*'/ });
+export const StringLiteral = createToken({
+  name: "StringLiteral",
+  label: "a file name in quotes",
+  pattern: /"[^"\n\r]*"|'[^'\n\r]*'/,
+});
 export const Arrow = createToken({ name: "Arrow", label: "'->'", pattern: /->/ });
 export const EqEq = createToken({ name: "EqEq", label: "'=='", pattern: /==/ });
 export const Equals = createToken({ name: "Equals", label: "'='", pattern: /=/ });
@@ -137,35 +226,104 @@ export const RBrace = createToken({ name: "RBrace", label: "'}'", pattern: /}/ }
 export const Semicolon = createToken({ name: "Semicolon", label: "';'", pattern: /;/ });
 export const Comma = createToken({ name: "Comma", label: "','", pattern: /,/ });
 
-export const WhiteSpace = createToken({ name: "WhiteSpace", pattern: /[ \t\r\n\f\v\u00A0\uFEFF]+/, group: Lexer.SKIPPED, line_breaks: true });
-export const LineComment = createToken({ name: "LineComment", pattern: /\/\/[^\n\r]*/, group: Lexer.SKIPPED });
-export const BlockComment = createToken({ name: "BlockComment", pattern: /\/\*[\s\S]*?\*\//, group: Lexer.SKIPPED, line_breaks: true });
+export const WhiteSpace = createToken({
+  name: "WhiteSpace",
+  pattern: /[ \t\r\n\f\v\u00A0\uFEFF]+/,
+  group: Lexer.SKIPPED,
+  line_breaks: true,
+});
+export const LineComment = createToken({
+  name: "LineComment",
+  pattern: /\/\/[^\n\r]*/,
+  group: Lexer.SKIPPED,
+});
+export const BlockComment = createToken({
+  name: "BlockComment",
+  pattern: /\/\*[\s\S]*?\*\//,
+  group: Lexer.SKIPPED,
+  line_breaks: true,
+});
 
 const punctuation = [
-  Real, Integer, StringLiteral, Arrow, EqEq, Equals, DoubleStar, Star, Slash, Plus, Minus,
-  Caret, LParen, RParen, LBracket, RBracket, LBrace, RBrace, Semicolon, Comma,
+  Real,
+  Integer,
+  StringLiteral,
+  Arrow,
+  EqEq,
+  Equals,
+  DoubleStar,
+  Star,
+  Slash,
+  Plus,
+  Minus,
+  Caret,
+  LParen,
+  RParen,
+  LBracket,
+  RBracket,
+  LBrace,
+  RBrace,
+  Semicolon,
+  Comma,
 ];
 
 /** Token order of the OpenQASM 2.0 lexer (comments before '/', keywords before names). */
 export const qasm2LexerTokens: TokenType[] = [
-  WhiteSpace, LineComment, BlockComment,
-  ...kw2, Opaque, If, AsciiIdentifier,
+  WhiteSpace,
+  LineComment,
+  BlockComment,
+  ...kw2,
+  Opaque,
+  If,
+  AsciiIdentifier,
   ...punctuation,
 ];
 
 /** Token order of the OpenQASM 3 lexer. */
 export const qasm3LexerTokens: TokenType[] = [
-  WhiteSpace, LineComment, BlockComment, Pragma, Annotation, HardwareQubit,
-  ...kw3, Qubit, Bit, Input, Float, Angle, ...unsupportedTokens, Identifier,
-  Colon, At, ...punctuation,
+  WhiteSpace,
+  LineComment,
+  BlockComment,
+  Pragma,
+  Annotation,
+  HardwareQubit,
+  ...kw3,
+  ...qasm3Words,
+  ...unsupportedTokens,
+  Identifier,
+  Colon,
+  At,
+  ...punctuation,
 ];
 
 /** Every token type the shared parser knows (categories included). */
 export const allTokens: TokenType[] = [
-  WhiteSpace, LineComment, BlockComment, Pragma, Annotation, HardwareQubit,
-  Openqasm, Include, Qreg, Creg, Gate, Barrier, Measure, Reset, UnsupportedKeyword,
-  ...kw2, ...kw3, Opaque, If, Qubit, Bit, Input, Float, Angle,
-  ...unsupportedTokens, AsciiIdentifier, Identifier, Colon, At, ...punctuation,
+  WhiteSpace,
+  LineComment,
+  BlockComment,
+  Pragma,
+  Annotation,
+  HardwareQubit,
+  Openqasm,
+  Include,
+  Qreg,
+  Creg,
+  Gate,
+  Barrier,
+  Measure,
+  Reset,
+  UnsupportedKeyword,
+  ...kw2,
+  ...kw3,
+  Opaque,
+  If,
+  ...qasm3Words,
+  ...unsupportedTokens,
+  AsciiIdentifier,
+  Identifier,
+  Colon,
+  At,
+  ...punctuation,
 ];
 
 let lexers: { qasm2: Lexer; qasm3: Lexer } | null = null;

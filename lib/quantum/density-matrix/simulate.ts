@@ -1,5 +1,5 @@
 /**
- * Density-matrix simulation with the noise model of DESIGN.md §2.
+ * Density-matrix simulation with the noise model described in DEVELOPERS.md ("Noise model").
  *
  * Starting from ρ = |0…0⟩⟨0…0|, each top-level op in order:
  * - gate on k qubits: its parts (fused, fusion.ts) as ρ → UρU†; then, on its k qubits,

@@ -1,5 +1,5 @@
 /**
- * Density-matrix storage (DESIGN.md §2 conventions): row-major d×d with d = 2^n, split
+ * Density-matrix storage: row-major d×d with d = 2^n, split
  * real/imaginary Float64Arrays of length d²; element (r, c) sits at index r·d + c, and
  * bit k of a row or column index is qubit k.
  *

@@ -1,5 +1,6 @@
 /**
- * `estimate(request, { onProgress, signal })` — the engine contract of DESIGN.md §4.
+ * `estimate(request, { onProgress, signal })` — the engine contract (request = the body of
+ * POST /api/v1/runs without `name`; result as in `estimateResultSchema`).
  *
  * Order: validate (zod) → parse the circuit and the observable (sizes checked before any
  * state is allocated) → for each parameter point (one, or the sweep grid): bind, simulate,
@@ -10,6 +11,7 @@
 import { parseProgram } from "../circuit";
 import { EngineError } from "../errors";
 import { SPECTRUM_STEP_BUDGET, lanczosExtremes, lanczosStepCost } from "../observable/lanczos";
+import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { sparseLabel } from "../observable/pauli-word";
 import { chooseSeed } from "../sampling/rng";
 import type { PreparedObservable } from "../sampling/sample-observable";
@@ -136,6 +138,8 @@ function assemble(
   if (s?.mitigated) result.mitigated = s.mitigated;
   if (spectrum) result.spectrum = spectrum;
   if (s?.plan) result.shotPlan = s.plan;
+  const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
+  if (decomposition) result.pauliDecomposition = decomposition;
   if (main.gradient) {
     result.gradient = main.gradient;
     result.gradientShots = main.gradientShots;

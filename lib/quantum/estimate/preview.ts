@@ -1,12 +1,13 @@
 /**
  * `previewRequest(request)` — the cheap, synchronous preview a request handler may
- * compute (DESIGN.md §3, §5): validation, qubit count, gate counts and depth, the
+ * compute (POST /api/v1/runs/preview): validation, qubit count, gate counts and depth, the
  * measurement settings and a shot plan. No state is simulated: exact variances would
  * need the state, so the plan uses the worst-case bounds — Σ_{i∈g}|c_i| per Pauli
  * setting, the Gershgorin row-sum bound for a matrix — and says so. The same errors
  * as `estimate` are thrown for the same bad input.
  */
 import { circuitStats, parseProgram } from "../circuit";
+import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { allocateShots, planShots } from "../planning/shot-plan";
 import { gershgorinBound } from "../sampling/sample-observable";
 import type { PreviewResult } from "../schemas";
@@ -72,6 +73,7 @@ export function previewRequest(request: unknown): PreviewResult {
       );
     }
   }
+  const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
   return {
     qubits: n,
     method: req.method,
@@ -88,6 +90,7 @@ export function previewRequest(request: unknown): PreviewResult {
     totalShots: (shots + (gradient?.shotsPerPoint ?? 0)) * grid.points.length,
     shotPlan,
     shotsPerSetting: perSetting,
+    ...(decomposition ? { pauliDecomposition: decomposition } : {}),
     varianceSource: "worst_case",
     notes,
   };

@@ -1,7 +1,7 @@
 /**
  * Request validation: the zod schema first (issues → EngineError "invalid_request" with
  * their paths), then the checks that need no parsing: method limits, gate noise only
- * with the density-matrix method. Defaults are applied here (DESIGN.md §4).
+ * with the density-matrix method. Defaults are applied here (statevector, 0 shots).
  */
 import { EngineError, type EngineIssue } from "../errors";
 import { hasStateNoise } from "../noise/validate";

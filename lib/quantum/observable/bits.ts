@@ -25,7 +25,7 @@ export function parity(v: number): number {
 export const MAX_PAULI_QUBIT_INDEX = 29;
 
 /**
- * Bitstring of an index over n qubits, qubit 0 FIRST (DESIGN.md §2):
+ * Bitstring of an index over n qubits, qubit 0 FIRST (leftmost):
  * index 0b011 with n = 3 is "110" (qubits 0 and 1 are 1).
  */
 export function indexToBitstring(index: number, n: number): string {

@@ -1,14 +1,23 @@
 /**
- * Matrix observables `{ real, imag? }` (DESIGN.md §2): a 2^n × 2^n complex
+ * Matrix observables `{ real, imag? }`: a 2^n × 2^n complex
  * matrix H = real + i·imag, checked Hermitian (H_ij = conj(H_ji)) to a relative
- * tolerance of 1e-10 of the largest entry modulus. Row/column index bit k = qubit k
- * (index 1 = qubit 0 in |1⟩), the same order as the statevector.
+ * tolerance of 1e-10 of the largest entry modulus.
+ *
+ * Qubit order (the one order of the product): the matrix as written is that of
+ * A0 ⊗ A1 ⊗ … ⊗ A(n−1) with qubit 0 the LEFTMOST Kronecker factor, so row/column
+ * index i = Σ_k b_k·2^(n−1−k) (qubit 0 is the most significant bit; `kron(Z, I)` is
+ * Z on qubit 0, like the dense word "ZI"). The statevector's index bit k is qubit k,
+ * so the parsed matrix is stored with its indices bit-reversed (`HermitianMatrix` is in
+ * state order); error messages keep the indices as written.
  */
 import Complex from "complex.js";
 import { EngineError } from "../errors";
 import { MAX_MATRIX_QUBITS } from "../estimate/limits";
 
-/** Hermitian matrix, row-major d×d, split re/im (symmetrised (H + H†)/2 after the check). */
+/**
+ * Hermitian matrix, row-major d×d, split re/im (symmetrised (H + H†)/2 after the check),
+ * in STATE order: index bit k = qubit k (the written matrix with bit-reversed indices).
+ */
 export interface HermitianMatrix {
   n: number;
   dim: number;
@@ -98,11 +107,43 @@ export function parseMatrixObservable(input: MatrixObservableInput, numQubits?: 
   }
   const outRe = new Float64Array(dim * dim);
   const outIm = new Float64Array(dim * dim);
+  const rev = bitReversal(n);
   for (let i = 0; i < dim; i++) {
+    const row = rev[i] * dim;
     for (let j = 0; j < dim; j++) {
-      outRe[i * dim + j] = 0.5 * (re[i * dim + j] + re[j * dim + i]);
-      outIm[i * dim + j] = 0.5 * (im[i * dim + j] - im[j * dim + i]);
+      outRe[row + rev[j]] = 0.5 * (re[i * dim + j] + re[j * dim + i]);
+      outIm[row + rev[j]] = 0.5 * (im[i * dim + j] - im[j * dim + i]);
     }
   }
   return { n, dim, re: outRe, im: outIm };
+}
+
+/**
+ * rev[i] = i with its n bits reversed: the state-order index of written index i
+ * (written bit n−1−k ↔ state bit k). An involution, so it also maps back.
+ */
+export function bitReversal(n: number): Uint32Array {
+  const d = 2 ** n;
+  const rev = new Uint32Array(d);
+  for (let i = 0; i < d; i++) {
+    let r = 0;
+    for (let k = 0; k < n; k++) r |= ((i >>> k) & 1) << (n - 1 - k);
+    rev[i] = r >>> 0;
+  }
+  return rev;
+}
+
+/**
+ * The written form of a state-order matrix (inverse of the parse permutation):
+ * `{ real, imag }` rows in the product's order, qubit 0 the leftmost factor.
+ */
+export function writtenMatrix(h: HermitianMatrix): { real: number[][]; imag: number[][] } {
+  const rev = bitReversal(h.n);
+  const real: number[][] = [];
+  const imag: number[][] = [];
+  for (let i = 0; i < h.dim; i++) {
+    real.push(Array.from({ length: h.dim }, (_, j) => h.re[rev[i] * h.dim + rev[j]]));
+    imag.push(Array.from({ length: h.dim }, (_, j) => h.im[rev[i] * h.dim + rev[j]]));
+  }
+  return { real, imag };
 }

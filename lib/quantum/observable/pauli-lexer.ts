@@ -1,5 +1,5 @@
 /**
- * Tokens of the Pauli-sum text (DESIGN.md §2), built with chevrotain 11.
+ * Tokens of the Pauli-sum text (grammar below and in DEVELOPERS.md), built with chevrotain 11.
  *
  *   sum   := [sign] term (sign term)*          sign := "+" | "-" | "−" (U+2212)
  *   term  := coef [["*"] word] | word

@@ -1,5 +1,5 @@
 /**
- * Pauli-sum text → `PauliSum` (DESIGN.md §2). Every problem becomes an
+ * Pauli-sum text → `PauliSum`. Every problem becomes an
  * `EngineError` ("observable_syntax" for the shape, "observable_invalid" for
  * meaning) with path ["observable","terms"], a line, a column and a specific message.
  */

@@ -1,7 +1,7 @@
 /**
  * Pauli words as bit masks (types.ts `PauliTerm`): qubit k carries
  * I (x=0,z=0), X (x=1,z=0), Z (x=0,z=1) or Y (x=1,z=1), where bit k of
- * `xMask`/`zMask` is qubit k. Dense words read qubit 0 first (DESIGN.md §2).
+ * `xMask`/`zMask` is qubit k. Dense words read qubit 0 first (leftmost letter).
  */
 import { EngineError } from "../errors";
 import type { PauliSum, PauliTerm } from "../types";

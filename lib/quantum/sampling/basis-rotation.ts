@@ -1,5 +1,5 @@
 /**
- * Rotation into a measurement setting (DESIGN.md §1): each measured qubit is turned
+ * Rotation into a measurement setting: each measured qubit is turned
  * so that its Pauli becomes Z — X: H; Y: S† then H (U = H·S†, U Y U† = Z); Z and I:
  * nothing. Works on a COPY of the state, with the kernels' `applyMatrix` /
  * `applyUnitaryDM`; the result's Born probabilities are the setting's outcome law.

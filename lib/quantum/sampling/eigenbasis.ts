@@ -1,5 +1,5 @@
 /**
- * Outcome law of a matrix observable measured in its eigenbasis (DESIGN.md §1):
+ * Outcome law of a matrix observable measured in its eigenbasis (the outcomes are its eigenvalues):
  * outcome k (eigenvector v_k, ascending eigenvalues) has probability |⟨v_k|ψ⟩|² for a
  * statevector and ⟨v_k|ρ|v_k⟩ for a density matrix; its value is λ_k. Dense O(d²)/O(d³)
  * work, fine for the ≤ 8-qubit matrices accepted.

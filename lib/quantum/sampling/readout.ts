@@ -1,5 +1,5 @@
 /**
- * Readout (assignment) error, the same on every qubit (DESIGN.md §2):
+ * Readout (assignment) error, the same on every qubit, acting on sampled outcomes only:
  * e0 = p(read 1 | 0) = `p1Given0`, e1 = p(read 0 | 1) = `p0Given1`. The assignment
  * matrix A = [[1−e0, e1], [e0, 1−e1]] maps true to read probabilities (columns: true
  * 0, 1). Independent per-qubit flips act on a distribution as A^{⊗n}, so drawing

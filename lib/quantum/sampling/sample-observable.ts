@@ -1,13 +1,13 @@
 /**
- * Sampled estimate of ⟨A⟩ with shots (DESIGN.md §1, §4).
+ * Sampled estimate of ⟨A⟩ with shots (`sampled` in the result: mean, stdErr, ci95).
  *
  * Per measurement setting (a qubit-wise commuting Pauli group, or the eigenbasis of a
  * matrix observable): the outcome law is computed on a rotated COPY of the statevector
  * (or as the diagonal of UρU†, density-diagonal.ts) with readout error folded in (readout.ts); shots are split over settings ∝ √Var_g (exact
  * single-shot variances, "optimal") or evenly, or chosen by a target standard error
  * (shot-plan.ts); each setting draws from its own jumped PRNG stream (rng.ts); the
- * statistics (statistics.ts) give the estimate, standard error, 95 % interval, per-term
- * means, a convergence series and, when asked, the readout-mitigated values.
+ * statistics (statistics.ts, interval.ts) give the estimate, posterior standard error, 95 % interval, per-term
+ * means and intervals, a convergence series and, when asked, the readout-mitigated values.
  */
 import { EngineError } from "../errors";
 import { MAX_SHOTS } from "../estimate/limits";
@@ -25,7 +25,8 @@ import { eigenbasisLawOfDensity, eigenbasisLawOfState } from "./eigenbasis";
 import { convolveReadout, mitigationFactors, type Readout } from "./readout";
 import { StreamFactory } from "./rng";
 import { eigenbasisSettingModel, pauliSettingModel, type SettingModel } from "./setting-model";
-import { combineSettings, convergenceSeries, meanVariance, planCheckpoints, withInterval, type ConvergencePoint, type Estimate } from "./statistics";
+import { estimateLinearCombination } from "./interval";
+import { combineSettings, convergenceSeries, planCheckpoints, type ConvergencePoint, type Estimate, type SettingRanges } from "./statistics";
 
 export type PreparedState = { kind: "statevector"; state: StateVector } | { kind: "density_matrix"; rho: DensityMatrix };
 
@@ -51,8 +52,10 @@ export interface SamplingOptions {
 export interface TermSample {
   sampledMean: number;
   stdErr: number;
+  ci95: [number, number];
   mitigatedMean?: number;
   mitigatedStdErr?: number;
+  mitigatedCi95?: [number, number];
 }
 
 export interface GroupSample {
@@ -188,10 +191,12 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
     );
     done += perSetting[k];
   }
-  const raw = combineSettings(offset, samples, false);
-  const mitigated = opts.mitigate ? combineSettings(offset, samples, true) : null;
+  const ranges: SettingRanges[] = specs.map((s) => ({ raw: s.model.range, mitigated: s.model.mitigatedRange }));
+  const physical = physicalRange(obs, offset);
+  const raw = combineSettings(offset, samples, ranges, false, physical);
+  const mitigated = opts.mitigate ? combineSettings(offset, samples, ranges, true, physical) : null;
   return {
-    sampled: { ...raw, shots: totalShots, settings: g, convergence: convergenceSeries(offset, samples) },
+    sampled: { ...raw, shots: totalShots, settings: g, convergence: convergenceSeries(offset, samples, ranges, physical) },
     mitigated,
     terms: obs.kind === "pauli" ? termSamples(obs.sum, specs, samples, opts.mitigate) : [],
     groups: specs.map((spec, k) => groupSample(spec, samples[k], dim, variances?.[k], obs)),
@@ -199,21 +204,34 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
   };
 }
 
+/** Values the exact ⟨A⟩ can take: c_I ± Σ|c_i| for a Pauli sum, [λ_min, λ_max] for a matrix. */
+function physicalRange(obs: PreparedObservable, offset: number): [number, number] {
+  if (obs.kind === "matrix") {
+    const v = obs.eigen.values;
+    return [v[0], v[v.length - 1]];
+  }
+  const spread = obs.sum.terms.reduce((a, t) => a + (t.xMask === 0 && t.zMask === 0 ? 0 : Math.abs(t.coefficient)), 0);
+  return [offset - spread, offset + spread];
+}
+
+const PAULI_RANGE: [number, number] = [-1, 1];
+
 function termSamples(sum: PauliSum, specs: Spec[], samples: SettingSample[], mitigate: boolean): TermSample[] {
-  const out: TermSample[] = sum.terms.map((t) =>
-    t.xMask === 0 && t.zMask === 0 ? { sampledMean: 1, stdErr: 0, ...(mitigate ? { mitigatedMean: 1, mitigatedStdErr: 0 } : {}) } : { sampledMean: 0, stdErr: 0 },
-  );
+  const exactOne: [number, number] = [1, 1];
+  const identity: TermSample = { sampledMean: 1, stdErr: 0, ci95: exactOne, ...(mitigate ? { mitigatedMean: 1, mitigatedStdErr: 0, mitigatedCi95: exactOne } : {}) };
+  const out: TermSample[] = sum.terms.map(() => identity);
   specs.forEach((spec, k) => {
     const s = samples[k];
     spec.termIndices.forEach((i, j) => {
-      const m = s.termSums[j] / s.shots;
-      // ±1 outcomes: plug-in standard error √((1 − m²)/N)
-      const entry: TermSample = { sampledMean: m, stdErr: Math.sqrt(Math.max(0, 1 - m * m) / s.shots) };
+      // ±1 outcomes (Σv² = N): the term's own Dirichlet posterior (interval.ts)
+      const e = estimateLinearCombination([{ shots: s.shots, sum: s.termSums[j], sumSq: s.shots, lo: -1, hi: 1 }], { range: PAULI_RANGE });
+      const entry: TermSample = { sampledMean: e.mean, stdErr: e.stdErr, ci95: e.ci95 };
       if (mitigate && s.termMitSums && s.termMitSumSq) {
-        const mv = meanVariance(s.termMitSums[j], s.termMitSumSq[j], s.shots);
-        const e = withInterval(mv.mean, Math.sqrt(mv.variance / s.shots));
-        entry.mitigatedMean = e.mean;
-        entry.mitigatedStdErr = e.stdErr;
+        const bound = spec.model.termMitigatedBound[j];
+        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo: -bound, hi: bound }], { range: PAULI_RANGE });
+        entry.mitigatedMean = m.mean;
+        entry.mitigatedStdErr = m.stdErr;
+        entry.mitigatedCi95 = m.ci95;
       }
       out[i] = entry;
     });
@@ -226,7 +244,11 @@ function groupSample(spec: Spec, s: SettingSample, dim: number, variance: number
   const group: GroupSample = { bases: spec.bases, terms: spec.termIndices, shots: s.shots, distinctOutcomes: s.outcomes.length };
   if (s.outcomes.length <= MAX_COUNT_KEYS) {
     const counts: Record<string, number> = {};
-    for (let j = 0; j < s.outcomes.length; j++) counts[indexToBitstring(s.outcomes[j], n)] = s.counts[j];
+    // Pauli settings: the measured bitstring, qubit 0 first. Eigenbasis: outcome k (the k-th
+    // eigenvalue, ascending) written as n binary digits, most significant first — the same
+    // reading as the matrix's row index (qubit 0 the leftmost digit).
+    const key = obs.kind === "matrix" ? (k: number) => k.toString(2).padStart(n, "0") : (k: number) => indexToBitstring(k, n);
+    for (let j = 0; j < s.outcomes.length; j++) counts[key(s.outcomes[j])] = s.counts[j];
     group.counts = counts;
   }
   if (variance !== undefined) group.variance = variance;

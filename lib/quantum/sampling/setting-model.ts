@@ -6,6 +6,9 @@
  *   f0^{|s_i| − h} f1^{h} with h = |b & s_i| (readout.ts).
  * - Matrix observable measured in its eigenbasis: outcome b is eigenvector b (ascending
  *   eigenvalues), O(b) = λ_b; mitigated value m = λ·(A^{-1})^{⊗n}.
+ * Value ranges (for the interval's pseudo-shots, interval.ts): a Pauli setting's O(b) lies in
+ * ±Σ|c_i| and its mitigated value in ±Σ|c_i|·F^{|s_i|}, F = max(|f0|, |f1|) (bounds, attained
+ * for disjoint supports); a matrix observable's in [λ_min, λ_max] and [min m, max m] (exact).
  */
 import { POPCOUNT16 } from "../observable/bits";
 import type { PauliSum } from "../types";
@@ -14,6 +17,12 @@ import { mitigateValueTable, type MitigationFactors } from "./readout";
 export interface SettingModel {
   /** Number of Pauli terms this setting estimates (0 for a matrix observable). */
   termCount: number;
+  /** Bounds [lo, hi] on the per-shot value O(b) (interval.ts puts its pseudo-shots there). */
+  range: [number, number];
+  /** Bounds on the mitigated per-shot value, when mitigation is on. */
+  mitigatedRange: [number, number] | null;
+  /** Per term (setting order): bound M_i on |mitigated term value| (1 without mitigation). */
+  termMitigatedBound: Float64Array;
   value(b: number): number;
   /** Present when readout mitigation is on. */
   mitigated: ((b: number) => number) | null;
@@ -39,12 +48,23 @@ export function pauliSettingModel(sum: PauliSum, termIndices: number[], mitigati
       pow1[j] = mitigation.f1 ** j;
     }
   }
+  const fMax = mitigation ? Math.max(Math.abs(mitigation.f0), Math.abs(mitigation.f1)) : 1;
+  const termBound = Float64Array.from(size, (w) => fMax ** w);
+  let bound = 0;
+  let mitBound = 0;
+  for (let i = 0; i < k; i++) {
+    bound += Math.abs(c[i]);
+    mitBound += Math.abs(c[i]) * termBound[i];
+  }
   const mitTerm = (b: number, i: number): number => {
     const h = pc(b & s[i]);
     return pow0[size[i] - h] * pow1[h];
   };
   return {
     termCount: k,
+    range: [-bound, bound],
+    mitigatedRange: mitigation ? [-mitBound, mitBound] : null,
+    termMitigatedBound: termBound,
     value(b) {
       let v = 0;
       for (let i = 0; i < k; i++) v += pc(b & s[i]) & 1 ? -c[i] : c[i];
@@ -79,8 +99,23 @@ export function eigenbasisSettingModel(eigenvalues: Float64Array, mitigation: Mi
   const t = table;
   return {
     termCount: 0,
+    range: [minOf(eigenvalues), maxOf(eigenvalues)],
+    mitigatedRange: t ? [minOf(t), maxOf(t)] : null,
+    termMitigatedBound: new Float64Array(0),
     value: (b) => eigenvalues[b],
     mitigated: t ? (b) => t[b] : null,
     accumulateTerms() {},
   };
+}
+
+function minOf(a: Float64Array): number {
+  let m = Number.POSITIVE_INFINITY;
+  for (const x of a) m = Math.min(m, x);
+  return m;
+}
+
+function maxOf(a: Float64Array): number {
+  let m = Number.NEGATIVE_INFINITY;
+  for (const x of a) m = Math.max(m, x);
+  return m;
 }

@@ -1,50 +1,60 @@
 /**
- * Shot statistics (common practice; J. R. McClean et al., New J. Phys. 18, 023023 (2016)).
+ * Shot statistics of a whole observable: the total over measurement settings, raw or
+ * readout-mitigated, and its running value at checkpoint prefixes.
  *
- * Setting g with N_g shots of value O_g(b) = Σ_{i∈g} c_i v_i(b): sample mean ō_g and
- * plug-in variance s_g² = (1/N_g) Σ O_g² − ō_g², which equals Σ_{i,j∈g} c_i c_j Ĉov(v_i, v_j)
- * (the sample covariances of the terms on the shared shots). The total estimate is
- * c_I + Σ_g ō_g with variance Σ_g s_g² / N_g; the 95 % interval is mean ± 1.959964·stdErr
- * (normal approximation). For one ±1 term the standard error is √((1 − m²)/N).
+ * Setting g with N_g shots of value O_g(b) = Σ_{i∈g} c_i v_i(b) contributes its power sums
+ * (N_g, Σ O_g, Σ O_g²) and its value range; interval.ts turns them into the estimate c_I + Σ_g ō_g,
+ * a posterior standard error that includes the covariances of the terms on the shared shots
+ * (Σ O_g² carries them; J. R. McClean et al., New J. Phys. 18, 023023 (2016)) and a 95 %
+ * interval that stays honest when a setting's outcomes are (nearly) deterministic.
  */
 import type { SettingSample } from "./draw-setting";
+import { estimateLinearCombination, type IntervalEstimate, type SettingMoments } from "./interval";
 
-/** Two-sided 95 % standard-normal quantile Φ⁻¹(0.975). */
+/** Two-sided 95 % standard-normal quantile Φ⁻¹(0.975) (the t quantile's limit for many shots). */
 export const Z95 = 1.959964;
 
-export interface Estimate {
-  mean: number;
-  stdErr: number;
-  ci95: [number, number];
+export type Estimate = IntervalEstimate;
+
+/** Per-shot value ranges of one setting, raw and (when mitigating) mitigated. */
+export interface SettingRanges {
+  raw: [number, number];
+  mitigated: [number, number] | null;
 }
 
-export function withInterval(mean: number, stdErr: number): Estimate {
-  return { mean, stdErr, ci95: [mean - Z95 * stdErr, mean + Z95 * stdErr] };
+function momentsOf(
+  shots: number,
+  sum: number,
+  sumSq: number,
+  range: [number, number],
+): SettingMoments {
+  return { shots, sum, sumSq, lo: range[0], hi: range[1] };
 }
 
-/** Plug-in mean and variance of the per-shot values from (Σx, Σx², N). */
-export function meanVariance(sum: number, sumSq: number, n: number): { mean: number; variance: number } {
-  if (n <= 0) return { mean: 0, variance: 0 };
-  const mean = sum / n;
-  return { mean, variance: Math.max(0, sumSq / n - mean * mean) };
-}
-
-/** Total raw (or mitigated) estimate over settings, plus the constant identity part. */
-export function combineSettings(offset: number, samples: SettingSample[], mitigated: boolean): Estimate {
-  let mean = offset;
-  let variance = 0;
-  for (const s of samples) {
-    const mv = mitigated ? meanVariance(s.mitSum, s.mitSumSq, s.shots) : meanVariance(s.sum, s.sumSq, s.shots);
-    mean += mv.mean;
-    variance += mv.variance / s.shots;
-  }
-  return withInterval(mean, Math.sqrt(variance));
+/**
+ * Total raw (or mitigated) estimate over settings plus the constant identity part.
+ * `physical` is the range the exact total can take (clips the interval).
+ */
+export function combineSettings(
+  offset: number,
+  samples: SettingSample[],
+  ranges: SettingRanges[],
+  mitigated: boolean,
+  physical: [number, number],
+): Estimate {
+  const moments = samples.map((s, g) =>
+    mitigated
+      ? momentsOf(s.shots, s.mitSum, s.mitSumSq, ranges[g].mitigated!)
+      : momentsOf(s.shots, s.sum, s.sumSq, ranges[g].raw),
+  );
+  return estimateLinearCombination(moments, { offset, range: physical });
 }
 
 export interface ConvergencePoint {
   shots: number;
   mean: number;
   stdErr: number;
+  ci95: [number, number];
 }
 
 /**
@@ -61,7 +71,9 @@ export function planCheckpoints(perSetting: number[], maxPoints = 40): number[][
   let lastTotal = 0;
   for (let j = 0; j < k; j++) {
     const f = k === 1 ? 1 : fMin * (1 / fMin) ** (j / (k - 1));
-    const sizes = perSetting.map((n) => (j === k - 1 ? n : Math.min(n, Math.max(1, Math.round(f * n)))));
+    const sizes = perSetting.map((n) =>
+      j === k - 1 ? n : Math.min(n, Math.max(1, Math.round(f * n))),
+    );
     const t = sizes.reduce((a, b) => a + b, 0);
     if (t <= lastTotal) continue;
     lastTotal = t;
@@ -70,23 +82,25 @@ export function planCheckpoints(perSetting: number[], maxPoints = 40): number[][
   return prefixes;
 }
 
-/** Running estimate and standard error at each checkpoint (raw values). */
-export function convergenceSeries(offset: number, samples: SettingSample[]): ConvergencePoint[] {
+/** Running estimate, standard error and interval at each checkpoint (raw values). */
+export function convergenceSeries(
+  offset: number,
+  samples: SettingSample[],
+  ranges: SettingRanges[],
+  physical: [number, number],
+): ConvergencePoint[] {
   if (samples.length === 0) return [];
   const points = samples[0].checkpoints.length;
   const out: ConvergencePoint[] = [];
   for (let j = 0; j < points; j++) {
-    let mean = offset;
-    let variance = 0;
     let shots = 0;
-    for (const s of samples) {
+    const moments = samples.map((s, g) => {
       const c = s.checkpoints[j];
-      const mv = meanVariance(c.sum, c.sumSq, c.shots);
-      mean += mv.mean;
-      variance += mv.variance / c.shots;
       shots += c.shots;
-    }
-    out.push({ shots, mean, stdErr: Math.sqrt(variance) });
+      return momentsOf(c.shots, c.sum, c.sumSq, ranges[g].raw);
+    });
+    const e = estimateLinearCombination(moments, { offset, range: physical });
+    out.push({ shots, mean: e.mean, stdErr: e.stdErr, ci95: e.ci95 });
   }
   return out;
 }

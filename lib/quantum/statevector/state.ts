@@ -1,5 +1,5 @@
 /**
- * Statevector storage (DESIGN.md §2 conventions): split real/imaginary Float64Arrays of
+ * Statevector storage: split real/imaginary Float64Arrays of
  * length 2^n; amplitude index bit k is qubit k (little-endian in the index).
  */
 import type { StateVector } from "../types";

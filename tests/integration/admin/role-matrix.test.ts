@@ -1,5 +1,5 @@
 /**
- * Role matrix of every admin operation (DESIGN.md §6: viewer < member < admin
+ * Role matrix of every admin operation (viewer < member < admin
  * < owner, cumulative): each role calls each operation through `runOperation`,
  * i.e. the same role check, schema and body as the server action. Too weak →
  * 403 "Not allowed"; allowed → the body runs (its own rule may still refuse,

@@ -1,6 +1,6 @@
 /**
  * Tenancy: a user or key of organisation A asking for organisation B's data
- * gets 404 (never 403 — no existence leak, DESIGN.md §5), and org-scoped
+ * gets 404 (never 403 — no existence leak), and org-scoped
  * writes with a foreign id change nothing.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";

@@ -1,7 +1,7 @@
 /**
  * Role helper matrix against the real database: a member of an organisation
  * may act from their role up, never above it (roles are cumulative:
- * viewer < member < admin < owner, DESIGN.md §6). 403 for a member whose role
+ * viewer < member < admin < owner). 403 for a member whose role
  * is too weak; the same check through withOrg for sessions and API keys.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";

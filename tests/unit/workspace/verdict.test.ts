@@ -8,7 +8,7 @@ import {
   twoSidedP,
   zScore,
 } from "@/components/runs/verdict";
-/** jstat (statistics reference library, REFERENCES.md) ships no type declarations. */
+/** jstat (statistics reference library) ships no type declarations. */
 const { jStat } = createRequire(import.meta.url)("jstat") as {
   jStat: {
     normal: {
@@ -76,7 +76,7 @@ describe("agreementVerdict", () => {
   });
 });
 
-describe("pickComparison — readout error biases the raw mean (DESIGN.md §2)", () => {
+describe("pickComparison — readout error biases the raw mean", () => {
   it("compares the mitigated mean when readout error is present and mitigation ran", () => {
     expect(pickComparison({ readout: { p1Given0: 0.02 }, hasMitigated: true })).toEqual({
       basis: "mitigated",

@@ -10,13 +10,31 @@ import { listVisibleKeys } from "@/lib/api-keys/queries";
 import { KEY_ROLES } from "@/lib/api-keys/schemas";
 import { requireCurrentOrg } from "@/lib/auth/guards";
 import { env } from "@/lib/env";
-import { ROLE_LABELS, roleAtLeast } from "@/lib/orgs/roles";
+import { describeStanding, keyStanding, type KeyStanding } from "@/lib/api-keys/effective-role";
+import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { revokeApiKeyAction } from "./actions";
 import { CreateKeyForm } from "./create-key-form";
 
 export const metadata: Metadata = { title: "API keys" };
 
 const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+
+/** The key's role, and when its creator's role limits it, what it acts as and why. */
+function KeyRole({ role, standing }: { role: Role; standing: KeyStanding | null }) {
+  const why = standing ? describeStanding(standing) : null;
+  if (!standing || !why) return <>{ROLE_LABELS[role]}</>;
+  return (
+    <div className="grid gap-1">
+      <span>
+        {ROLE_LABELS[role]}{" "}
+        <Badge tone={standing.state === "disabled" ? "danger" : "warn"} className="ml-1">
+          {standing.state === "disabled" ? "Disabled" : `Acts as ${ROLE_LABELS[standing.role]}`}
+        </Badge>
+      </span>
+      <span className="text-[12.5px] text-ink-3">{why}</span>
+    </div>
+  );
+}
 
 export default async function ApiKeysPage() {
   const access = await requireCurrentOrg("viewer");
@@ -36,7 +54,7 @@ export default async function ApiKeysPage() {
         description={
           <>
             Keys let scripts and pipelines call the REST API as <code className="font-mono text-[13px]">Authorization: Bearer kw_…</code>. A key never
-            has more rights than the person who made it. {isAdmin ? "As an admin you see every key of the organisation." : "You see your own keys."}
+            has more rights than the person who made it: on every request it acts with the lower of its own role and its creator&apos;s current role. {isAdmin ? "As an admin you see every key of the organisation." : "You see your own keys."}
           </>
         }
       />
@@ -45,7 +63,7 @@ export default async function ApiKeysPage() {
           <Card>
             <CardHeader
               title="New key"
-              description="Personal keys stop working when their creator leaves the organisation; organisation keys (admins) are for shared automation."
+              description="A key follows its creator: demoting them lowers what the key may do, and a key stops working when its creator leaves the organisation. Organisation keys (admins) are for shared automation."
             />
             <CardBody>
               <CreateKeyForm roles={roles} scopes={scopes} appUrl={env.APP_URL} />
@@ -85,7 +103,9 @@ export default async function ApiKeysPage() {
                   <TD>
                     <code className="font-mono text-[12.5px]">kw_{k.prefix}_••••</code>
                   </TD>
-                  <TD>{ROLE_LABELS[k.role]}</TD>
+                  <TD>
+                    <KeyRole role={k.role} standing={k.revokedAt ? null : keyStanding(k.role, k.creatorRole)} />
+                  </TD>
                   {isAdmin ? <TD className="text-ink-2">{k.createdByName ?? k.createdByEmail ?? "—"}</TD> : null}
                   <TD className="text-ink-2">{when.format(k.createdAt)}</TD>
                   <TD className="text-ink-2">{k.lastUsedAt ? when.format(k.lastUsedAt) : "Never"}</TD>

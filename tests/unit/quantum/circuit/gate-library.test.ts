@@ -1,5 +1,5 @@
 /**
- * The strongest check of the gate library (REFERENCES.md): every standard gate, called
+ * The strongest check of the gate library (OpenQASM 2.0 paper, Cross et al. 2017, qelib1.inc definitions): every standard gate, called
  * through the parser on randomly chosen qubits with random parameters, must equal the
  * product of its specification decomposition — built from U and CX only by the
  * test-only composer in spec-gates.ts — up to ONE global phase of the whole gate

@@ -10,7 +10,7 @@
  *   T_j(ρ) = ¼(ρ + XρX + YρY + ZρZ) = I/2 ⊗ Tr_j ρ (§8.3.4, eq. 8.102 for one qubit; the
  *   product of twirls giving I/2^k ⊗ Tr ρ is common practice).
  * - non-selective Z measurement: P0 = |0⟩⟨0|, P1 = |1⟩⟨1|; reset: |0⟩⟨0|, |0⟩⟨1|.
- * Semantics per DESIGN.md §2: noise once after each top-level gate op on its qubits
+ * Semantics (DEVELOPERS.md, "Noise model"): noise once after each top-level gate op on its qubits
  * (depolarizing1q for k = 1, depolarizing2q for k ≥ 2), then damping per qubit; final
  * measurements (nothing later on that qubit) are not applied.
  */

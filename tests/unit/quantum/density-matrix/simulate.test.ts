@@ -1,5 +1,5 @@
 /**
- * simulateDensityMatrix: the noise semantics of DESIGN.md §2 (noise once per top-level gate,
+ * simulateDensityMatrix: the noise semantics (noise once per top-level gate,
  * `id` is a gate, barrier is not, depolarizing2q for k ≥ 2), measurement/reset handling,
  * agreement with the statevector without noise, guards and noise validation.
  */
@@ -40,7 +40,7 @@ function engineError(fn: () => unknown): EngineError {
 /** ⟨X⟩ of qubit 0 of a 1-qubit ρ: 2 Re ρ01. */
 const xOf = (re: Float64Array): number => 2 * re[1];
 
-describe("simulateDensityMatrix — noise semantics (DESIGN.md §2)", () => {
+describe("simulateDensityMatrix — noise semantics", () => {
   it("applies the noise ONCE after a top-level gate, however many parts it has", () => {
     // a user gate made of h, x, x (= h): ⟨X⟩ = 1 before noise; depolarizing p → (1 − p)
     const op = gate("mygate", [0], [

@@ -124,3 +124,16 @@ export function expectationOf(a: M | null, psi: M, applied?: M): number {
   const z = (math.multiply(math.ctranspose(psi), applied ?? (math.multiply(a!, psi) as M)) as M).get([0, 0]) as math.Complex | number;
   return typeof z === "number" ? z : z.re;
 }
+
+/**
+ * ψ with its amplitudes in the order users write matrices in (kron(A0, A1, …), qubit 0
+ * the most significant digit): index digits reversed as a binary string.
+ */
+export function writtenOrder(psi: M, n: number): M {
+  const amps = (psi.toArray() as unknown as (math.Complex | number)[][]).map((row) => row[0]);
+  const out = new Array<math.Complex | number>(amps.length);
+  amps.forEach((a, i) => {
+    out[parseInt(i.toString(2).padStart(n, "0").split("").reverse().join(""), 2)] = a;
+  });
+  return math.matrix(out.map((a) => [typeof a === "number" ? C(a) : a]));
+}

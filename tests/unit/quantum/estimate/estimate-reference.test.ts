@@ -9,7 +9,7 @@ import { describe, expect, it } from "vitest";
 import { estimate } from "@/lib/quantum";
 import { complexToArrays, sumMatrix } from "../observable/dense-reference";
 import { mulberry32, randomPauliText } from "../observable/random-states";
-import { expectationOf, pauliExpectationOf, randomCircuit, referenceState, toQasm2 } from "./circuit-reference";
+import { expectationOf, pauliExpectationOf, randomCircuit, referenceState, toQasm2, writtenOrder } from "./circuit-reference";
 
 function randomHermitianInput(n: number, rand: () => number): { real: number[][]; imag: number[][] } {
   const d = 2 ** n;
@@ -41,7 +41,8 @@ describe("estimate() vs mathjs dense reference (220 random circuits)", () => {
       if (useMatrix) {
         const h = randomHermitianInput(n, rand);
         observable = { format: "matrix", ...h };
-        expected = expectationOf(math.add(math.matrix(h.real), math.multiply(math.complex(0, 1), math.matrix(h.imag))) as math.Matrix, psi);
+        // matrices are written with qubit 0 as the leftmost Kronecker factor
+        expected = expectationOf(math.add(math.matrix(h.real), math.multiply(math.complex(0, 1), math.matrix(h.imag))) as math.Matrix, writtenOrder(psi, n));
       } else {
         const text = randomPauliText(n, 1 + Math.floor(rand() * 6), rand);
         observable = { format: "pauli", terms: text };

@@ -48,7 +48,7 @@ describe("previewRequest", () => {
 });
 
 describe("estimateRequestSchema", () => {
-  it("accepts the DESIGN.md §4 request shape and rejects bad fields", () => {
+  it("accepts the documented request shape and rejects bad fields", () => {
     expect(estimateRequestSchema.safeParse({ ...base, method: "density_matrix", shots: 0, seed: 42, parameters: { a: 1 }, noise: { depolarizing1q: 0.01, readout: { p1Given0: 0.02 } }, mitigateReadout: true }).success).toBe(true);
     const bad = [
       { ...base, shots: -1 },

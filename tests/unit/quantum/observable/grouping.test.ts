@@ -1,4 +1,4 @@
-/** Qubit-wise commuting grouping (DESIGN.md §1): properties of the greedy colouring. */
+/** Qubit-wise commuting grouping: properties of the greedy colouring. */
 import { describe, expect, it } from "vitest";
 import { groupQubitWise } from "@/lib/quantum/observable/grouping";
 import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";

@@ -8,7 +8,7 @@ import { EngineError } from "@/lib/quantum/errors";
 import { hermitianEigen } from "@/lib/quantum/observable/hermitian-eigen";
 import { matrixExpectationOnDensity, matrixExpectationOnState } from "@/lib/quantum/observable/matrix-expectation";
 import { parseMatrixObservable } from "@/lib/quantum/observable/matrix-observable";
-import { complexToArrays, denseExpectation, denseTrace, sumMatrix } from "./dense-reference";
+import { complexToArrays, denseExpectation, denseTrace, sumMatrix, writtenOrderDensity, writtenOrderState } from "./dense-reference";
 import { mulberry32, randomDensity, randomState } from "./random-states";
 
 function randomHermitian(n: number, rand: () => number): { real: number[][]; imag: number[][] } {
@@ -76,9 +76,11 @@ describe("exact expectation vs mathjs dense computation (random Hermitian, 1–4
       const h = parseMatrixObservable(input, n);
       const ref = math.add(math.matrix(input.real), math.multiply(math.complex(0, 1), math.matrix(input.imag))) as math.Matrix;
       const s = randomState(n, rand);
-      expect(Math.abs(matrixExpectationOnState(s, h) - denseExpectation(ref, s))).toBeLessThan(1e-10);
+      // the matrix is written in textbook order (qubit 0 the leftmost factor); the engine's
+      // state has index bit k = qubit k, so the reference reads the state in written order
+      expect(Math.abs(matrixExpectationOnState(s, h) - denseExpectation(ref, writtenOrderState(s)))).toBeLessThan(1e-10);
       const rho = randomDensity(n, rand);
-      expect(Math.abs(matrixExpectationOnDensity(rho, h) - denseTrace(ref, rho))).toBeLessThan(1e-10);
+      expect(Math.abs(matrixExpectationOnDensity(rho, h) - denseTrace(ref, writtenOrderDensity(rho)))).toBeLessThan(1e-10);
     }
   });
 });

@@ -1,5 +1,5 @@
 /**
- * Pauli-sum text (DESIGN.md §2 grammar). Expected words follow the design's fixed
+ * Pauli-sum text grammar. Expected words follow the project's fixed
  * convention: dense words read qubit 0 first; bit k of the masks is qubit k.
  */
 import fc from "fast-check";

@@ -6,11 +6,16 @@ import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
 import { padPauliSum } from "@/lib/quantum/observable/pauli-word";
 import type { PreparedObservable, PreparedState, SamplingOptions } from "@/lib/quantum/sampling/sample-observable";
 
-/** jstat (statistics reference library, REFERENCES.md) has no type declarations. */
+/** jstat (statistics reference library) has no type declarations. */
 const jstat = createRequire(import.meta.url)("jstat") as {
-  jStat: { chisquare: { inv(p: number, dof: number): number; cdf(x: number, dof: number): number } };
+  jStat: {
+    chisquare: { inv(p: number, dof: number): number; cdf(x: number, dof: number): number };
+    beta: { variance(a: number, b: number): number };
+  };
 };
 export const chiSquareInv = (p: number, dof: number): number => jstat.jStat.chisquare.inv(p, dof);
+/** Variance of the Beta(a, b) distribution (jstat). */
+export const betaVariance = (a: number, b: number): number => jstat.jStat.beta.variance(a, b);
 
 export function pauliObservable(text: string, n: number): PreparedObservable & { kind: "pauli" } {
   const sum = padPauliSum(parsePauliSum(text), n);

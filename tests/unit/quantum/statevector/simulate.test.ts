@@ -48,7 +48,7 @@ describe("simulateStatevector", () => {
     expect(Math.abs(psi.re[1]) + Math.abs(psi.re[2]) + Math.abs(psi.im[0]) + Math.abs(psi.im[3])).toBeLessThan(1e-15);
   });
 
-  it("puts qubit k at index bit k (DESIGN.md §2; asymmetric check: x on q[2] of 3 → index 4)", () => {
+  it("puts qubit k at index bit k (asymmetric check: x on q[2] of 3 → index 4)", () => {
     const p = probabilities(simulateStatevector(circuit(3, [gate("x", [2], X)])));
     expect(Array.from(p)).toEqual([0, 0, 0, 0, 1, 0, 0, 0]);
     // cx with control q[2], target q[0] after x q[2]: |q0 q1 q2⟩ = |1 0 1⟩ → index 1 + 4 = 5
