@@ -228,8 +228,11 @@ describe("shift rules", () => {
 });
 
 describe("gradients through OpenQASM 3 modifiers, loops and constants", () => {
-  it("ctrl @, negctrl @, inv @, pow(k) @, for loops and const: exact agrees with central differences (1e-7); sampled within 5 stdErr", { timeout: 60_000 }, async () => {
-    const source = `OPENQASM 3.0;
+  it(
+    "ctrl @, negctrl @, inv @, pow(k) @, for loops and const: exact agrees with central differences (1e-7); sampled within 5 stdErr",
+    { timeout: 60_000 },
+    async () => {
+      const source = `OPENQASM 3.0;
 include "stdgates.inc";
 qubit[3] q;
 input float a;
@@ -245,13 +248,20 @@ for int i in [0:2] {
   ry(a + i*b) q[i];
 }
 `;
-    const req = { circuit: { format: "qasm3", source }, observable };
-    const r = await estimate({ ...req, parameters: x, gradient: true, shots: 20_000, seed: 9 } as never);
-    for (const name of ["a", "b"] as const) {
-      const ref = await fd(req, name);
-      expect(Math.abs(r.gradient![name].exact - ref)).toBeLessThan(1e-7);
-      const s = r.gradient![name].sampled!;
-      expect(Math.abs(s.mean - r.gradient![name].exact)).toBeLessThan(5 * s.stdErr);
-    }
-  });
+      const req = { circuit: { format: "qasm3", source }, observable };
+      const r = await estimate({
+        ...req,
+        parameters: x,
+        gradient: true,
+        shots: 20_000,
+        seed: 9,
+      } as never);
+      for (const name of ["a", "b"] as const) {
+        const ref = await fd(req, name);
+        expect(Math.abs(r.gradient![name].exact - ref)).toBeLessThan(1e-7);
+        const s = r.gradient![name].sampled!;
+        expect(Math.abs(s.mean - r.gradient![name].exact)).toBeLessThan(5 * s.stdErr);
+      }
+    },
+  );
 });
