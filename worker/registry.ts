@@ -5,6 +5,7 @@
  */
 import { DelayedError, type Job } from "bullmq";
 import type { z } from "zod";
+import { withLogContext } from "@/lib/observability/logger";
 import { JOB_SCHEMAS, type JobName, type JobPayload } from "@/lib/queue/jobs";
 import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
@@ -47,7 +48,11 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
 }
 
 /** Validates and dispatches one job. */
-export async function dispatch(registry: Registry, job: Job, token: string | undefined): Promise<unknown> {
+export async function dispatch(
+  registry: Registry,
+  job: Job,
+  token: string | undefined,
+): Promise<unknown> {
   const entry = registry[job.name as JobName] as Entry<JobName> | undefined;
   if (!entry) {
     log(`dropping job ${job.id}: unknown job name "${job.name}"`);
@@ -55,8 +60,14 @@ export async function dispatch(registry: Registry, job: Job, token: string | und
   }
   const parsed = entry.schema.safeParse(job.data);
   if (!parsed.success) {
-    log(`dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`);
+    log(
+      `dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`,
+    );
     return "dropped";
   }
-  return (entry.handler as Handler<JobName>)(parsed.data, { job, token });
+  const { requestId, orgId } = parsed.data;
+  const runId = "runId" in parsed.data ? parsed.data.runId : undefined;
+  return withLogContext({ requestId, orgId, runId, jobId: job.id }, () =>
+    (entry.handler as Handler<JobName>)(parsed.data, { job, token }),
+  );
 }

@@ -135,8 +135,7 @@ const estimateSchema = z.object({
   stdErr: z
     .number()
     .describe("Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots"),
-  ci95: interval.describe("95 % interval: posterior mean ± Welch–Satterthwaite t quantile × stdErr, widened to contain the mean, clipped to the possible values"),
-  df: z.number().optional().describe("Welch–Satterthwaite degrees of freedom of the interval's t quantile"),
+  ci95: interval.describe("95 % interval: per setting posterior mean ± Student t quantile × posterior sd, settings combined by square-and-add (MOVER) around the mean, clipped to the possible values"),
 });
 
 export const convergencePointSchema = z.object({
@@ -154,7 +153,7 @@ export const shotPlanSchema = z
     stateAware: z
       .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
       .nullable()
-      .describe("(Σ_g √Var_g)²/ε² from the state's exact variances"),
+      .describe("Fewest shots whose expected posterior standard error (the reported stdErr) is at most ε, from the state's exact per-setting means and variances"),
   })
   .describe("Shots needed for a target standard error (McClean et al. 2016)");
 

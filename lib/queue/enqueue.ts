@@ -5,7 +5,15 @@
  */
 import "server-only";
 import { Queue } from "bullmq";
-import { JOB_ATTEMPTS, JOB_BACKOFF, JOB_SCHEMAS, RUNS_QUEUE, type JobName, type JobPayload } from "./jobs";
+import { currentRequestId } from "@/lib/observability/logger";
+import {
+  JOB_ATTEMPTS,
+  JOB_BACKOFF,
+  JOB_SCHEMAS,
+  RUNS_QUEUE,
+  type JobName,
+  type JobPayload,
+} from "./jobs";
 import { producerConnection, queuePrefix } from "./connection";
 
 export class QueueUnavailableError extends Error {
@@ -22,7 +30,10 @@ const holder = ((globalThis as { __ketwiseQueue?: Holder }).__ketwiseQueue ??= {
 
 export function getRunsQueue(): Queue {
   if (!holder.queue) {
-    holder.queue = new Queue(RUNS_QUEUE, { connection: producerConnection(), prefix: queuePrefix() });
+    holder.queue = new Queue(RUNS_QUEUE, {
+      connection: producerConnection(),
+      prefix: queuePrefix(),
+    });
     // Connection errors surface per call; without a listener they would be logged as unhandled.
     holder.queue.on("error", () => {});
   }
@@ -48,7 +59,8 @@ export async function enqueue<N extends JobName>(
   payload: JobPayload<N>,
   options: { jobId: string; delayMs?: number },
 ): Promise<void> {
-  const data = JOB_SCHEMAS[name].parse(payload);
+  const requestId = payload.requestId ?? currentRequestId();
+  const data = JOB_SCHEMAS[name].parse(requestId ? { ...payload, requestId } : payload);
   try {
     await withTimeout(
       getRunsQueue().add(name, data, {
@@ -71,7 +83,8 @@ export async function removeWaitingJob(jobId: string): Promise<void> {
   try {
     const job = await withTimeout(getRunsQueue().getJob(jobId), ENQUEUE_TIMEOUT_MS);
     const state = job ? await job.getState() : null;
-    if (job && (state === "waiting" || state === "delayed" || state === "prioritized")) await job.remove();
+    if (job && (state === "waiting" || state === "delayed" || state === "prioritized"))
+      await job.remove();
   } catch {
     // The worker skips canceled runs anyway.
   }

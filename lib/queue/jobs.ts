@@ -8,15 +8,23 @@ import { z } from "zod";
 
 export const RUNS_QUEUE = "ketwise-runs";
 
+/** The API request that queued the job (its `X-Request-Id`), carried into the worker's log lines. */
+const requestId = z
+  .string()
+  .regex(/^[A-Za-z0-9._-]{8,64}$/)
+  .optional();
+
 export const runJobSchema = z.strictObject({
   orgId: z.uuid(),
   runId: z.uuid(),
+  requestId,
 });
 export type RunJob = z.infer<typeof runJobSchema>;
 
 export const runFinishedMailSchema = z.strictObject({
   orgId: z.uuid(),
   runId: z.uuid(),
+  requestId,
 });
 export type RunFinishedMailJob = z.infer<typeof runFinishedMailSchema>;
 
@@ -24,6 +32,7 @@ export type RunFinishedMailJob = z.infer<typeof runFinishedMailSchema>;
 export const overageJobSchema = z.strictObject({
   orgId: z.uuid(),
   period: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/),
+  requestId,
 });
 export type OverageJob = z.infer<typeof overageJobSchema>;
 

@@ -10,6 +10,7 @@
 import "server-only";
 import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
+import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
 
 export type Budget = { points: number; duration: number };
@@ -45,11 +46,17 @@ function limiter(name: string, budget: Budget): RateLimiterRedis {
  * Spends one point of `name`'s budget for `key`; throws 429 when spent out.
  * `message` is the user-facing detail; the wait is appended in minutes/seconds.
  */
-export async function consume(name: string, budget: Budget, key: string, message: string): Promise<void> {
+export async function consume(
+  name: string,
+  budget: Budget,
+  key: string,
+  message: string,
+): Promise<void> {
   try {
     await limiter(name, budget).consume(key);
   } catch (error) {
     if (error instanceof RateLimiterRes) {
+      metrics().rateLimitRefusals.inc({ budget: name });
       const seconds = Math.ceil(error.msBeforeNext / 1000);
       const wait = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
       throw tooManyRequests(`${message} Try again in ${wait}.`, seconds);

@@ -7,6 +7,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
 import { runs } from "@/db/schema";
+import { GET as ready } from "@/app/api/ready/route";
 import { closeQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestApiKey, createUserWithOrg } from "../../support/factories";
@@ -31,6 +32,16 @@ afterAll(async () => {
 });
 
 describe("Redis down", () => {
+  it("is not ready: 503 naming the Redis check, while the database check passes", async () => {
+    const res = await ready();
+    const body = await res.json();
+    expect(res.status).toBe(503);
+    expect(res.headers.get("content-type")).toBe("application/problem+json");
+    expect(body.detail).toMatch(/^redis: /);
+    expect(body.checks.database.ok).toBe(true);
+    expect(body.checks.redis.ok).toBe(false);
+  });
+
   it("answers 503 on submit and leaves no run behind", async () => {
     const started = Date.now();
     const res = await api("POST", "/api/v1/runs", { key, body: bellRequest(), headers: { "idempotency-key": "redis-down-1" } });

@@ -62,6 +62,23 @@ export const ROUTE_TABLE: RouteRow[] = [
     access: { public: "payment provider; authenticated by the signature" },
   },
   {
+    file: "app/api/health/route.ts",
+    method: "GET",
+    access: { public: "liveness probe for load balancers" },
+  },
+  {
+    file: "app/api/ready/route.ts",
+    method: "GET",
+    access: { public: "readiness probe: names the failing dependency, no data" },
+  },
+  {
+    file: "app/api/metrics/route.ts",
+    method: "GET",
+    access: {
+      public: "operator's METRICS_TOKEN, not an organisation credential (404 while unset)",
+    },
+  },
+  {
     file: "app/api/v1/openapi.json/route.ts",
     method: "GET",
     access: { public: "the API description" },
