@@ -7,6 +7,7 @@
  * noise.readout.p1Given0, parameters.theta, …) so the shared schema's issues land on the
  * right field; `formPath` maps the few that differ.
  */
+import { pauliTermsToText } from "@/lib/quantum/observable/pauli-terms-text";
 import type { EstimateRequest } from "@/lib/quantum/schemas";
 
 export type Budget = "exact" | "shots" | "precision";
@@ -298,15 +299,17 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
     observable:
       req.observable.format === "pauli"
         ? { format: "pauli", terms: req.observable.terms, matrixText: "" }
-        : {
-            format: "matrix",
-            terms: DEFAULT_VALUES.observable.terms,
-            matrixText: JSON.stringify(
-              req.observable.imag
-                ? { real: req.observable.real, imag: req.observable.imag }
-                : { real: req.observable.real },
-            ),
-          },
+        : req.observable.format === "terms"
+          ? { format: "pauli", terms: pauliTermsToText(req.observable.terms), matrixText: "" }
+          : {
+              format: "matrix",
+              terms: DEFAULT_VALUES.observable.terms,
+              matrixText: JSON.stringify(
+                req.observable.imag
+                  ? { real: req.observable.real, imag: req.observable.imag }
+                  : { real: req.observable.real },
+              ),
+            },
     method: req.method ?? "statevector",
     budget,
     shots: budget === "shots" ? String(req.shots) : DEFAULT_VALUES.shots,

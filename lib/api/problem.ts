@@ -65,10 +65,23 @@ export function tooManyRequests(detail: string, retryAfterSeconds: number): Prob
 export const internalError = (errorId: string) =>
   make(500, "internal", "Internal error", `Something went wrong on our side (error id ${errorId}). Try again.`);
 
-/** Field errors from a zod failure; `path` is dotted (`observable.terms`). */
+/**
+ * A field path as shown in problems: names joined by dots, list indices in brackets
+ * (`observable.terms[3].pauli`, `noise.readout`); "(root)" for the whole body.
+ */
+export function formatFieldPath(path: readonly PropertyKey[]): string {
+  let out = "";
+  for (const seg of path) {
+    if (typeof seg === "number") out += `[${seg}]`;
+    else out += out === "" ? String(seg) : `.${String(seg)}`;
+  }
+  return out || "(root)";
+}
+
+/** Field errors from a zod failure; `path` as formatFieldPath writes it. */
 export function zodFieldErrors(error: ZodError): ProblemFieldError[] {
   return error.issues.map((issue) => ({
-    path: issue.path.map(String).join(".") || "(root)",
+    path: formatFieldPath(issue.path),
     message: issue.message,
   }));
 }

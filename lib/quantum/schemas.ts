@@ -7,7 +7,7 @@
  * Request objects are strict: an unknown field is an error, not silently dropped.
  */
 import { z } from "zod";
-import { MAX_MATRIX_QUBITS, MAX_POINTS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
+import { MAX_MATRIX_QUBITS, MAX_OBSERVABLE_TERMS, MAX_POINTS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
 
 /** Rows and columns of a matrix observable (its eigendecomposition stays within seconds). */
 const MAX_MATRIX_DIM = 2 ** MAX_MATRIX_QUBITS;
@@ -49,7 +49,27 @@ export const matrixObservableSchema = z
   })
   .describe("Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)");
 
-export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema]);
+export const termsObservableSchema = z
+  .strictObject({
+    format: z.literal("terms"),
+    terms: z
+      .array(
+        z.strictObject({
+          coefficient: z.number().describe("Real coefficient of the word"),
+          pauli: z
+            .string()
+            .min(1, "the Pauli word is empty")
+            .max(MAX_SOURCE_CHARS)
+            .describe('One Pauli word, sparse ("X0 Z3") or dense ("XIZY", one letter per qubit); qubit 0 first'),
+        }),
+      )
+      .min(1, "the observable has no terms")
+      .max(MAX_OBSERVABLE_TERMS, `at most ${MAX_OBSERVABLE_TERMS} terms`)
+      .describe("Σ coefficient·word; equal words are summed. Words follow the rules of Pauli-sum text, and errors point at terms[i].pauli"),
+  })
+  .describe("Observable as a JSON list of weighted Pauli words (for generated Hamiltonians)");
+
+export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema, termsObservableSchema]);
 
 export const noiseModelSchema = z
   .strictObject({

@@ -13,6 +13,8 @@ export const MAX_SWEEP_POINTS = 10_000;
 export const MAX_POINTS = 10_000;
 /** Largest circuit source / Pauli text (characters). */
 export const MAX_SOURCE_CHARS = 1_000_000;
+/** Entries of a JSON term-list observable ({ format: "terms" }). */
+export const MAX_OBSERVABLE_TERMS = 100_000;
 /** Matrix observables: at most 8 qubits (256 × 256). */
 export const MAX_MATRIX_QUBITS = 8;
 /** Qubit ceilings of the methods (the kernels enforce the same numbers). */
