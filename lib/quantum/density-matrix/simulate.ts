@@ -2,23 +2,28 @@
  * Density-matrix simulation with the noise model described in DEVELOPERS.md ("Noise model").
  *
  * Starting from ρ = |0…0⟩⟨0…0|, each top-level op in order:
- * - gate on k qubits: its parts (fused, fusion.ts) as ρ → UρU†; then, on its k qubits,
+ * - gate on k qubits: its parts as ρ → UρU†; then, on its k qubits,
  *   (1) depolarizing of their 2^k-dim space with p = depolarizing1q (k = 1) or
  *   depolarizing2q (k ≥ 2), (2) amplitude damping γ and (3) phase damping λ on each qubit
  *   (formulas and sources in noise/channels.ts). `id` is a gate and gets the noise.
  * - barrier: nothing. Final measurement (nothing acts on that qubit afterwards): ignored —
  *   the expectation is taken before it. Mid-circuit measurement: non-selective projective
  *   Z measurement (dephasing). reset: ρ → |0⟩⟨0| ⊗ Tr_q ρ.
- * Without state noise, gates are fused across ops (between measurements/resets).
+ * With state noise, a gate on ≤ 2 qubits (its parts multiplied into one matrix) and its noise
+ * are ONE pass over ρ (noisy-gate.ts); wider gates take the fused unitary passes and then the
+ * channel kernels. Without state noise, gates are fused across ops (between measurements/resets).
+ * The noise parameters are handed to the kernels per gate application (gateNoise).
  */
 import type { Circuit, DensityMatrix, GateApplication, NoiseModel } from "../types";
 import { checkCircuit } from "../statevector/circuit-check";
 import { GateFuser, fuseGates } from "../statevector/fusion";
 import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
 import { RunControl, type RunOptions } from "../statevector/run-control";
-import { dampQubit, depolarize, measureNonSelective, noiseAfter1q, resetQubit } from "../noise/channels";
+import { dampQubit, depolarize, measureNonSelective, resetQubit } from "../noise/channels";
 import { hasStateNoise, validateNoiseModel } from "../noise/validate";
+import { embedMatrix, multiplyMatrices } from "../statevector/matrix-ops";
 import { applyUnitaryDMUnchecked } from "./kernels";
+import { type GateNoise, applyNoisyGate } from "./noisy-gate";
 import { createZeroDensity } from "./state";
 
 export type DensityOptions = RunOptions & MemoryLimits;
@@ -26,6 +31,8 @@ export type DensityOptions = RunOptions & MemoryLimits;
 type Step =
   | { kind: "unitary"; gate: GateApplication }
   | { kind: "noise"; qubits: number[] }
+  /** A gate on ≤ 2 qubits and its noise in one pass (noisy-gate.ts); matrix on `qubits`, null = identity. */
+  | { kind: "noisy-gate"; qubits: number[]; matrix: Float64Array | null }
   | { kind: "measure"; qubit: number }
   | { kind: "reset"; qubit: number };
 
@@ -47,6 +54,32 @@ function finalMeasurements(circuit: Circuit): boolean[] {
   return final;
 }
 
+/** The product of an op's parts (later parts on the left) on the op's own operands; null when none. */
+function opMatrix(
+  qubits: readonly number[],
+  parts: readonly GateApplication[],
+): Float64Array | null {
+  const d = 1 << qubits.length;
+  let m: Float64Array | null = null;
+  for (const part of parts) {
+    const u = embedMatrix(part.matrix, part.qubits, qubits);
+    m = m ? multiplyMatrices(u, m, d) : u;
+  }
+  return m;
+}
+
+/** The noise after one gate on `qubits` under the model (the same rates for every gate and qubit). */
+export function gateNoise(
+  qubits: readonly number[],
+  rates: { p1: number; p2: number; gamma: number; lambda: number },
+): GateNoise {
+  return {
+    p: qubits.length === 1 ? rates.p1 : rates.p2,
+    gamma: qubits.map(() => rates.gamma),
+    lambda: qubits.map(() => rates.lambda),
+  };
+}
+
 /** The step list: unitaries (fused), noise after each gate op, measurements and resets. */
 export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
   const steps: Step[] = [];
@@ -58,7 +91,13 @@ export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
   };
   circuit.ops.forEach((op, i) => {
     if (op.kind === "gate") {
-      if (noisy) {
+      if (noisy && op.qubits.length <= 2) {
+        steps.push({
+          kind: "noisy-gate",
+          qubits: op.qubits,
+          matrix: opMatrix(op.qubits, op.parts),
+        });
+      } else if (noisy) {
         for (const gate of fuseGates(op.parts)) steps.push({ kind: "unitary", gate });
         steps.push({ kind: "noise", qubits: op.qubits });
       } else {
@@ -85,10 +124,12 @@ export function simulateDensityMatrix(
   assertDensityMatrixFits(circuit.numQubits, opts);
   checkCircuit(circuit);
   const noisy = hasStateNoise(noise);
-  const p1 = noise?.depolarizing1q ?? 0;
-  const p2 = noise?.depolarizing2q ?? 0;
-  const gamma = noise?.amplitudeDamping ?? 0;
-  const lambda = noise?.phaseDamping ?? 0;
+  const rates = {
+    p1: noise?.depolarizing1q ?? 0,
+    p2: noise?.depolarizing2q ?? 0,
+    gamma: noise?.amplitudeDamping ?? 0,
+    lambda: noise?.phaseDamping ?? 0,
+  };
   const steps = densitySteps(circuit, noisy);
   const control = new RunControl(opts, steps.length, "simulate");
   const rho = createZeroDensity(circuit.numQubits);
@@ -96,13 +137,12 @@ export function simulateDensityMatrix(
     const step = steps[i];
     if (step.kind === "unitary") {
       applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
+    } else if (step.kind === "noisy-gate") {
+      applyNoisyGate(rho, step.qubits, step.matrix, gateNoise(step.qubits, rates));
     } else if (step.kind === "noise") {
-      if (step.qubits.length === 1) {
-        noiseAfter1q(rho, step.qubits[0], p1, gamma, lambda);
-      } else {
-        depolarize(rho, step.qubits, p2);
-        for (const q of step.qubits) dampQubit(rho, q, gamma, lambda);
-      }
+      const gn = gateNoise(step.qubits, rates);
+      depolarize(rho, step.qubits, gn.p);
+      step.qubits.forEach((q, j) => dampQubit(rho, q, gn.gamma[j], gn.lambda[j]));
     } else if (step.kind === "measure") {
       measureNonSelective(rho, step.qubit);
     } else {
