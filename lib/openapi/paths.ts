@@ -94,7 +94,7 @@ function route(registry: OpenAPIRegistry, config: RouteConfig) {
 const fileMedia: Record<string, { type: string; what: string }> = {
   "terms.csv": {
     type: "text/csv",
-    what: "One row per Pauli term: pauli, coefficient, exact, sampled_mean, std_err, setting, setting_bases",
+    what: "One row per Pauli term: pauli, coefficient, exact, sampled_mean, std_err, setting, setting_bases, ci95_low, ci95_high",
   },
   "counts.csv": {
     type: "text/csv",
