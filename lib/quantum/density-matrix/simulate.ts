@@ -6,6 +6,8 @@
  *   (1) depolarizing of their 2^k-dim space with p = depolarizing1q (k = 1) or
  *   depolarizing2q (k ≥ 2), (2) amplitude damping γ and (3) phase damping λ on each qubit
  *   (formulas and sources in noise/channels.ts). `id` is a gate and gets the noise.
+ *   Rates may be overridden per gate name and idle qubits may get noise too: the
+ *   parameters of every application are resolved by NoisePlan (noise/gate-noise.ts).
  * - barrier: nothing. Final measurement (nothing acts on that qubit afterwards): ignored —
  *   the expectation is taken before it. Mid-circuit measurement: non-selective projective
  *   Z measurement (dephasing). reset: ρ → |0⟩⟨0| ⊗ Tr_q ρ.
@@ -16,7 +18,8 @@ import { checkCircuit } from "../statevector/circuit-check";
 import { GateFuser, fuseGates } from "../statevector/fusion";
 import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
 import { RunControl, type RunOptions } from "../statevector/run-control";
-import { dampQubit, depolarize, measureNonSelective, noiseAfter1q, resetQubit } from "../noise/channels";
+import { measureNonSelective, resetQubit } from "../noise/channels";
+import { applyOpNoise, NoisePlan, type OpNoise } from "../noise/gate-noise";
 import { hasStateNoise, validateNoiseModel } from "../noise/validate";
 import { applyUnitaryDMUnchecked } from "./kernels";
 import { createZeroDensity } from "./state";
@@ -25,7 +28,7 @@ export type DensityOptions = RunOptions & MemoryLimits;
 
 type Step =
   | { kind: "unitary"; gate: GateApplication }
-  | { kind: "noise"; qubits: number[] }
+  | { kind: "noise"; noise: OpNoise }
   | { kind: "measure"; qubit: number }
   | { kind: "reset"; qubit: number };
 
@@ -48,7 +51,7 @@ function finalMeasurements(circuit: Circuit): boolean[] {
 }
 
 /** The step list: unitaries (fused), noise after each gate op, measurements and resets. */
-export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
+export function densitySteps(circuit: Circuit, noisy: boolean, plan: NoisePlan = new NoisePlan(undefined, circuit.numQubits)): Step[] {
   const steps: Step[] = [];
   const final = finalMeasurements(circuit);
   let fuser = new GateFuser();
@@ -60,7 +63,7 @@ export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
     if (op.kind === "gate") {
       if (noisy) {
         for (const gate of fuseGates(op.parts)) steps.push({ kind: "unitary", gate });
-        steps.push({ kind: "noise", qubits: op.qubits });
+        steps.push({ kind: "noise", noise: plan.after(op) });
       } else {
         for (const part of op.parts) fuser.add(part);
       }
@@ -81,15 +84,11 @@ export function simulateDensityMatrix(
   noise: NoiseModel | undefined,
   opts: DensityOptions = {},
 ): DensityMatrix {
-  validateNoiseModel(noise);
+  validateNoiseModel(noise, circuit.numQubits);
   assertDensityMatrixFits(circuit.numQubits, opts);
   checkCircuit(circuit);
   const noisy = hasStateNoise(noise);
-  const p1 = noise?.depolarizing1q ?? 0;
-  const p2 = noise?.depolarizing2q ?? 0;
-  const gamma = noise?.amplitudeDamping ?? 0;
-  const lambda = noise?.phaseDamping ?? 0;
-  const steps = densitySteps(circuit, noisy);
+  const steps = densitySteps(circuit, noisy, new NoisePlan(noise, circuit.numQubits));
   const control = new RunControl(opts, steps.length, "simulate");
   const rho = createZeroDensity(circuit.numQubits);
   for (let i = 0; i < steps.length; i++) {
@@ -97,12 +96,7 @@ export function simulateDensityMatrix(
     if (step.kind === "unitary") {
       applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
     } else if (step.kind === "noise") {
-      if (step.qubits.length === 1) {
-        noiseAfter1q(rho, step.qubits[0], p1, gamma, lambda);
-      } else {
-        depolarize(rho, step.qubits, p2);
-        for (const q of step.qubits) dampQubit(rho, q, gamma, lambda);
-      }
+      applyOpNoise(rho, step.noise);
     } else if (step.kind === "measure") {
       measureNonSelective(rho, step.qubit);
     } else {

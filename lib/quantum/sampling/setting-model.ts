@@ -49,17 +49,32 @@ export function pauliSettingModel(sum: PauliSum, termIndices: number[], mitigati
     }
   }
   const fMax = mitigation ? Math.max(Math.abs(mitigation.f0), Math.abs(mitigation.f1)) : 1;
-  const termBound = Float64Array.from(size, (w) => fMax ** w);
+  // Qubits with their own readout rates (noise.readout.qubits): factors per qubit.
+  const own = mitigation?.qubits;
+  const fq = (q: number) => own?.[q] ?? (mitigation as MitigationFactors);
+  const termBound = own
+    ? Float64Array.from(s, (m) => {
+        let bound = 1;
+        for (let q = 0; q < n; q++) if ((m >> q) & 1) bound *= Math.max(Math.abs(fq(q).f0), Math.abs(fq(q).f1));
+        return bound;
+      })
+    : Float64Array.from(size, (w) => fMax ** w);
   let bound = 0;
   let mitBound = 0;
   for (let i = 0; i < k; i++) {
     bound += Math.abs(c[i]);
     mitBound += Math.abs(c[i]) * termBound[i];
   }
-  const mitTerm = (b: number, i: number): number => {
-    const h = pc(b & s[i]);
-    return pow0[size[i] - h] * pow1[h];
-  };
+  const mitTerm = own
+    ? (b: number, i: number): number => {
+        let v = 1;
+        for (let m = s[i], q = 0; m !== 0; m >>>= 1, q++) if (m & 1) v *= (b >> q) & 1 ? fq(q).f1 : fq(q).f0;
+        return v;
+      }
+    : (b: number, i: number): number => {
+        const h = pc(b & s[i]);
+        return pow0[size[i] - h] * pow1[h];
+      };
   return {
     termCount: k,
     range: [-bound, bound],
@@ -94,7 +109,8 @@ export function eigenbasisSettingModel(eigenvalues: Float64Array, mitigation: Mi
   let table: Float64Array | null = null;
   if (mitigation) {
     table = eigenvalues.slice();
-    mitigateValueTable(table, mitigation);
+    const n = Math.round(Math.log2(eigenvalues.length));
+    mitigateValueTable(table, mitigation, (b) => n - 1 - b);
   }
   const t = table;
   return {
