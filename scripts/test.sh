@@ -1,12 +1,16 @@
 #!/usr/bin/env bash
-# npm test: services (+ Chromium) → fresh test database → migrations → type check → every Vitest project.
+# npm test: services (+ Chromium, npm packages) → lint and format check → fresh test database →
+# migrations → type check → every Vitest project.
 # Extra arguments go to vitest, e.g. `npm test -- --project unit`.
 set -euo pipefail
 source "$(dirname "${BASH_SOURCE[0]}")/lib/common.sh"
 cd "$ROOT"
 started=$SECONDS
 
-bash scripts/services.sh start --browser
+bash scripts/services.sh start --browser   # also installs npm packages when missing
+log "linting (eslint, no warnings allowed) and checking the format (prettier)"
+npm run --silent lint || die "lint errors (above) — fix them before the tests run"
+npm run --silent format:check || die "unformatted files (above) — run \`npm run format\`"
 load_env
 [[ -x /usr/bin/chromium ]] || die "Chromium is missing at /usr/bin/chromium (apt-get install chromium)"
 bash scripts/services.sh reset-db "${DB_NAME}_test"

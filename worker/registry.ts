@@ -22,6 +22,8 @@ type Entry<N extends JobName> = { schema: z.ZodType<JobPayload<N>>; handler: Han
 export type Registry = { [N in JobName]: Entry<N> };
 
 export function buildRegistry(deps: { engine: EngineRunner }): Registry {
+  // Runs this process has reported as waiting for a slot (logged once, not every retry).
+  const waiting = new Set<string>();
   return {
     "run.execute": {
       schema: JOB_SCHEMAS["run.execute"],
@@ -29,9 +31,13 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
         const outcome = await executeRun(payload, deps.engine, log);
         if (outcome.kind === "busy") {
           // The plan's concurrent-run slots are full: wait without spending an attempt.
+          if (!waiting.has(payload.runId))
+            log(`run ${payload.runId}: waiting for a slot (${outcome.running} of ${outcome.limit} running)`);
+          waiting.add(payload.runId);
           await job.moveToDelayed(Date.now() + SLOT_RETRY_MS, token);
           throw new DelayedError();
         }
+        waiting.delete(payload.runId);
         if (outcome.kind !== "missing") log(`run ${payload.runId}: ${outcome.kind}`);
         return outcome.kind;
       },

@@ -1,6 +1,6 @@
 "use client";
 /**
- * The live preview beside the composer: what the run will be (qubits, gates, depth),
+ * The live preview beside the new-run form: what the run will be (qubits, gates, depth),
  * how it will be measured (settings), how many shots it will draw and whether the plan
  * accepts it now. Updated as the user types; the last good answer stays visible (dimmed)
  * while the next one is computed or while the draft has errors.
