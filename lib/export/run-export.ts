@@ -14,6 +14,7 @@ export type ExportTerm = {
   exact: number | null;
   sampledMean?: number | null;
   stdErr?: number | null;
+  ci95?: readonly [number, number] | null;
   group?: number | null;
 };
 
@@ -31,14 +32,37 @@ export function runJson(run: unknown): string {
   return `${JSON.stringify(run, null, 2)}\n`;
 }
 
-/** One row per Pauli term: word, coefficient, exact ⟨P⟩, sampled ⟨P⟩, its standard error, setting. */
+/**
+ * One row per Pauli term: word, coefficient, exact ⟨P⟩, sampled ⟨P⟩, its standard error
+ * (posterior sd), setting, then the 95 % interval of ⟨P⟩ (same method as the run's).
+ */
 export function termsCsv(result: ExportResult): string {
   const rows: CsvCell[][] = [
-    ["pauli", "coefficient", "exact", "sampled_mean", "std_err", "setting", "setting_bases"],
+    [
+      "pauli",
+      "coefficient",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "setting",
+      "setting_bases",
+      "ci95_low",
+      "ci95_high",
+    ],
   ];
   for (const t of result.terms) {
     const g = typeof t.group === "number" ? result.groups[t.group] : undefined;
-    rows.push([t.pauli, t.coefficient, t.exact, t.sampledMean, t.stdErr, t.group, g?.bases]);
+    rows.push([
+      t.pauli,
+      t.coefficient,
+      t.exact,
+      t.sampledMean,
+      t.stdErr,
+      t.group,
+      g?.bases,
+      t.ci95?.[0],
+      t.ci95?.[1],
+    ]);
   }
   return toCsv(rows);
 }
@@ -75,14 +99,28 @@ export type ExportSweep = {
     params: Record<string, number>;
     ideal: number;
     exact: number;
-    sampled: { mean: number; stdErr: number; shots: number } | null;
+    sampled: {
+      mean: number;
+      stdErr: number;
+      ci95?: readonly [number, number];
+      shots: number;
+    } | null;
   }[];
 };
 
-/** One row per sweep point: the swept parameters, then ideal, exact, sampled mean, std. error, shots. */
+/** One row per sweep point: the swept parameters, then ideal, exact, sampled mean, std. error, shots, 95 % interval. */
 export function sweepCsv(sweep: ExportSweep): string {
   const rows: CsvCell[][] = [
-    [...sweep.parameters, "ideal", "exact", "sampled_mean", "std_err", "shots"],
+    [
+      ...sweep.parameters,
+      "ideal",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "shots",
+      "ci95_low",
+      "ci95_high",
+    ],
   ];
   for (const p of sweep.points) {
     rows.push([
@@ -92,6 +130,8 @@ export function sweepCsv(sweep: ExportSweep): string {
       p.sampled?.mean,
       p.sampled?.stdErr,
       p.sampled?.shots,
+      p.sampled?.ci95?.[0],
+      p.sampled?.ci95?.[1],
     ]);
   }
   return toCsv(rows);

@@ -6,6 +6,7 @@
  *
  * Request objects are strict: an unknown field is an error, not silently dropped.
  */
+import { INTERVAL_METHOD_SENTENCE } from "./sampling/interval";
 import { z } from "zod";
 import { MAX_MATRIX_QUBITS, MAX_OBSERVABLE_TERMS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
 
@@ -211,7 +212,7 @@ export const estimateResultSchema = z
         convergence: z.array(convergencePointSchema).describe("Running estimate at log-spaced shot counts"),
       })
       .nullable()
-      .describe("Estimate from shots (readout error included), or null without shots"),
+      .describe(`Estimate from shots (readout error included), or null without shots. ${INTERVAL_METHOD_SENTENCE}`),
     mitigated: estimateSchema.optional().describe("Readout-mitigated sampled value (tensored inverse)"),
     terms: z.array(
       z.object({

@@ -2,7 +2,7 @@
  * Density-matrix simulation with the noise model described in DEVELOPERS.md ("Noise model").
  *
  * Starting from ρ = |0…0⟩⟨0…0|, each top-level op in order:
- * - gate on k qubits: its parts (fused, fusion.ts) as ρ → UρU†; then, on its k qubits,
+ * - gate on k qubits: its parts as ρ → UρU†; then, on its k qubits,
  *   (1) depolarizing of their 2^k-dim space with p = depolarizing1q (k = 1) or
  *   depolarizing2q (k ≥ 2), (2) amplitude damping γ and (3) phase damping λ on each qubit
  *   (formulas and sources in noise/channels.ts). `id` is a gate and gets the noise.
@@ -11,7 +11,10 @@
  * - barrier: nothing. Final measurement (nothing acts on that qubit afterwards): ignored —
  *   the expectation is taken before it. Mid-circuit measurement: non-selective projective
  *   Z measurement (dephasing). reset: ρ → |0⟩⟨0| ⊗ Tr_q ρ.
- * Without state noise, gates are fused across ops (between measurements/resets).
+ * With state noise, a gate on ≤ 2 qubits (its parts multiplied into one matrix) and its noise
+ * are ONE pass over ρ (noisy-gate.ts); wider gates take the fused unitary passes and then the
+ * channel kernels. Without state noise, gates are fused across ops (between measurements/resets).
+ * The noise parameters are handed to the kernels per gate application (NoisePlan).
  */
 import type { Circuit, DensityMatrix, GateApplication, NoiseModel } from "../types";
 import { checkCircuit } from "../statevector/circuit-check";
@@ -19,9 +22,11 @@ import { GateFuser, fuseGates } from "../statevector/fusion";
 import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
 import { RunControl, type RunOptions } from "../statevector/run-control";
 import { measureNonSelective, resetQubit } from "../noise/channels";
-import { applyOpNoise, NoisePlan, type OpNoise } from "../noise/gate-noise";
+import { applyIdleNoise, applyOpNoise, NoisePlan, type OpNoise } from "../noise/gate-noise";
 import { hasStateNoise, validateNoiseModel } from "../noise/validate";
+import { embedMatrix, multiplyMatrices } from "../statevector/matrix-ops";
 import { applyUnitaryDMUnchecked } from "./kernels";
+import { applyNoisyGate } from "./noisy-gate";
 import { createZeroDensity } from "./state";
 
 export type DensityOptions = RunOptions & MemoryLimits;
@@ -29,6 +34,8 @@ export type DensityOptions = RunOptions & MemoryLimits;
 type Step =
   | { kind: "unitary"; gate: GateApplication }
   | { kind: "noise"; noise: OpNoise }
+  /** A gate on ≤ 2 qubits and its noise in one pass (noisy-gate.ts); matrix on `qubits`, null = identity. */
+  | { kind: "noisy-gate"; qubits: readonly number[]; matrix: Float64Array | null; noise: OpNoise }
   | { kind: "measure"; qubit: number }
   | { kind: "reset"; qubit: number };
 
@@ -50,6 +57,20 @@ function finalMeasurements(circuit: Circuit): boolean[] {
   return final;
 }
 
+/** The product of an op's parts (later parts on the left) on the op's own operands; null when none. */
+function opMatrix(
+  qubits: readonly number[],
+  parts: readonly GateApplication[],
+): Float64Array | null {
+  const d = 1 << qubits.length;
+  let m: Float64Array | null = null;
+  for (const part of parts) {
+    const u = embedMatrix(part.matrix, part.qubits, qubits);
+    m = m ? multiplyMatrices(u, m, d) : u;
+  }
+  return m;
+}
+
 /** The step list: unitaries (fused), noise after each gate op, measurements and resets. */
 export function densitySteps(circuit: Circuit, noisy: boolean, plan: NoisePlan = new NoisePlan(undefined, circuit.numQubits)): Step[] {
   const steps: Step[] = [];
@@ -61,7 +82,14 @@ export function densitySteps(circuit: Circuit, noisy: boolean, plan: NoisePlan =
   };
   circuit.ops.forEach((op, i) => {
     if (op.kind === "gate") {
-      if (noisy) {
+      if (noisy && op.qubits.length <= 2) {
+        steps.push({
+          kind: "noisy-gate",
+          qubits: op.qubits,
+          matrix: opMatrix(op.qubits, op.parts),
+          noise: plan.after(op),
+        });
+      } else if (noisy) {
         for (const gate of fuseGates(op.parts)) steps.push({ kind: "unitary", gate });
         steps.push({ kind: "noise", noise: plan.after(op) });
       } else {
@@ -95,6 +123,9 @@ export function simulateDensityMatrix(
     const step = steps[i];
     if (step.kind === "unitary") {
       applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
+    } else if (step.kind === "noisy-gate") {
+      applyNoisyGate(rho, step.qubits, step.matrix, step.noise.gate);
+      if (step.noise.idle) applyIdleNoise(rho, step.noise.idle);
     } else if (step.kind === "noise") {
       applyOpNoise(rho, step.noise);
     } else if (step.kind === "measure") {

@@ -92,5 +92,10 @@ export function applyOpNoise(rho: DensityMatrix, noise: OpNoise): void {
     depolarize(rho, qubits, gate.p);
     qubits.forEach((q, j) => dampQubit(rho, q, gate.gamma[j], gate.lambda[j]));
   }
-  if (idle) for (const q of idle.qubits) noiseAfter1q(rho, q, idle.p, idle.gamma, idle.lambda);
+  if (idle) applyIdleNoise(rho, idle);
+}
+
+/** The idle part alone (for simulators that fuse the gate's own noise into its pass). */
+export function applyIdleNoise(rho: DensityMatrix, idle: IdleNoise): void {
+  for (const q of idle.qubits) noiseAfter1q(rho, q, idle.p, idle.gamma, idle.lambda);
 }

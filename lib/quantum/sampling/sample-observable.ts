@@ -232,8 +232,8 @@ function termSamples(sum: PauliSum, specs: Spec[], samples: SettingSample[], mit
       const e = estimateLinearCombination([{ shots: s.shots, sum: s.termSums[j], sumSq: s.shots, lo: -1, hi: 1 }], { range: PAULI_RANGE });
       const entry: TermSample = { sampledMean: e.mean, stdErr: e.stdErr, ci95: e.ci95 };
       if (mitigate && s.termMitSums && s.termMitSumSq) {
-        const bound = spec.model.termMitigatedBound[j];
-        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo: -bound, hi: bound }], { range: PAULI_RANGE });
+        const [lo, hi] = spec.model.termMitigatedRange[j];
+        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo, hi }], { range: PAULI_RANGE });
         entry.mitigatedMean = m.mean;
         entry.mitigatedStdErr = m.stdErr;
         entry.mitigatedCi95 = m.ci95;
