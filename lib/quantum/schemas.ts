@@ -8,7 +8,7 @@
  */
 import { INTERVAL_METHOD_SENTENCE } from "./sampling/interval";
 import { z } from "zod";
-import { MAX_MATRIX_QUBITS, MAX_OBSERVABLE_TERMS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
+import { MAX_MATRIX_QUBITS, MAX_OBSERVABLE_TERMS, MAX_POINTS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
 
 /** Rows and columns of a matrix observable (its eigendecomposition stays within seconds). */
 const MAX_MATRIX_DIM = 2 ** MAX_MATRIX_QUBITS;
@@ -138,10 +138,27 @@ export const estimateRequestSchema = z
       .record(z.string(), z.array(z.number()).min(1).max(MAX_SWEEP_POINTS))
       .optional()
       .describe("Parameter grid: each named input takes every listed value (Cartesian product)"),
+    points: z
+      .array(z.record(z.string(), z.number()))
+      .min(1, "points is empty: give at least one binding")
+      .max(MAX_POINTS, `at most ${MAX_POINTS} points per run`)
+      .optional()
+      .describe(
+        "Explicit list of input bindings, evaluated in order (exclusive with sweep). Each point overrides `parameters`; together they must give every declared input.",
+      ),
+    gradient: z
+      .boolean()
+      .optional()
+      .describe(
+        "Also compute d⟨A⟩/d(input) for every declared input: exact by adjoint differentiation, sampled by parameter-shift rules when shots are drawn (the shifted circuits' shots are counted and billed)",
+      ),
   })
   .superRefine((req, ctx) => {
     if (req.targetPrecision !== undefined && (req.shots ?? 0) > 0) {
       ctx.addIssue({ code: "custom", path: ["targetPrecision"], message: "give either shots or targetPrecision, not both" });
+    }
+    if (req.sweep && req.points) {
+      ctx.addIssue({ code: "custom", path: ["points"], message: "give either sweep (a grid) or points (a list), not both" });
     }
     if (req.sweep) {
       const points = Object.values(req.sweep).reduce((a, v) => a * v.length, 1);
@@ -154,6 +171,18 @@ export const estimateRequestSchema = z
 
 export type EstimateRequest = z.infer<typeof estimateRequestSchema>;
 
+const gradientSchema = z
+  .record(
+    z.string(),
+    z.object({
+      exact: z.number().describe("d/d(input) of the exact value (of the noisy Tr(ρA) under noise)"),
+      sampled: z
+        .object({ mean: z.number(), stdErr: z.number().describe("Standard error of the shift-rule estimate") })
+        .optional()
+        .describe("Parameter-shift estimate from the shifted circuits' shots"),
+    }),
+  )
+  .describe("Derivative of the expectation value with respect to every declared input");
 const interval = z.tuple([z.number(), z.number()]);
 
 const estimateSchema = z.object({
@@ -245,9 +274,12 @@ export const estimateResultSchema = z
     ),
     spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)"),
     shotPlan: shotPlanSchema.optional(),
+    gradient: gradientSchema.optional(),
+    gradientShots: z.int().optional().describe("Shots of the parameter-shifted circuits (main point)"),
     pauliDecomposition: pauliDecompositionSchema.optional(),
     sweep: z
       .object({
+        kind: z.enum(["grid", "points"]).optional().describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
         parameters: z.array(z.string()),
         points: z.array(
           z.object({
@@ -255,6 +287,8 @@ export const estimateResultSchema = z
             ideal: z.number(),
             exact: z.number(),
             sampled: estimateSchema.extend({ shots: z.int() }).nullable(),
+            gradient: gradientSchema.optional(),
+            gradientShots: z.int().optional().describe("Shots of this point's parameter-shifted circuits"),
           }),
         ),
       })
@@ -276,9 +310,17 @@ export const previewResultSchema = z
     observable: z.object({ format: z.enum(["pauli", "matrix"]), terms: z.int(), settings: z.int() }),
     groups: z.array(z.object({ bases: z.string(), terms: z.array(z.int()) })),
     stateBytes: z.number().describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
-    sweepPoints: z.int(),
-    shots: z.int().describe("Shots per sweep point (planned from targetPrecision when given)"),
-    totalShots: z.int().describe("Shots over all sweep points"),
+    sweepPoints: z.int().describe("Parameter points of the run (grid points or listed points)"),
+    shots: z.int().describe("Shots per parameter point (planned from targetPrecision when given)"),
+    gradient: z
+      .object({
+        inputs: z.array(z.string()),
+        shiftedCircuits: z.int().describe("Parameter-shifted circuits per point (0 without shots)"),
+        shotsPerPoint: z.int().describe("Extra shots per point for the sampled gradient"),
+      })
+      .nullable()
+      .describe("Gradient plan when `gradient` is true"),
+    totalShots: z.int().describe("Shots over all parameter points, the gradient's shifted circuits included"),
     shotPlan: shotPlanSchema.nullable(),
     shotsPerSetting: z.array(z.int()).nullable(),
     pauliDecomposition: pauliDecompositionSchema.optional(),

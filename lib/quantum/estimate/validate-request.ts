@@ -20,6 +20,8 @@ export interface NormalisedRequest {
   mitigate: boolean;
   parameters: Record<string, number>;
   sweep: Record<string, number[]> | null;
+  points: Record<string, number>[] | null;
+  gradient: boolean;
 }
 
 export function validateRequest(request: unknown): NormalisedRequest {
@@ -53,6 +55,8 @@ export function validateRequest(request: unknown): NormalisedRequest {
     mitigate: raw.mitigateReadout ?? false,
     parameters: raw.parameters ?? {},
     sweep: raw.sweep && Object.keys(raw.sweep).length > 0 ? raw.sweep : null,
+    points: raw.points ?? null,
+    gradient: raw.gradient ?? false,
   };
 }
 
