@@ -72,6 +72,24 @@ export const termsObservableSchema = z
 
 export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema, termsObservableSchema]);
 
+const readoutRates = {
+  p1Given0: probability.optional().describe("Probability of reading 1 when the qubit is 0"),
+  p0Given1: probability.optional().describe("Probability of reading 0 when the qubit is 1"),
+};
+
+const gateChannels = z.strictObject({
+  depolarizing: probability
+    .optional()
+    .describe("Depolarizing probability of the whole gate's 2^k-dimensional space (replaces depolarizing1q / depolarizing2q)"),
+  amplitudeDamping: probability.optional().describe("Amplitude damping γ on each qubit (replaces amplitudeDamping)"),
+  phaseDamping: probability.optional().describe("Phase damping λ on each qubit (replaces phaseDamping)"),
+});
+
+/** Qubit index as a record key: "0", "1", … (at most 6 digits; checked against the circuit). */
+const qubitKey = z.string().regex(/^(0|[1-9][0-9]{0,5})$/, 'a qubit index such as "0" or "3"');
+/** Gate name as written in the circuit, e.g. "cx", "mygate", "ctrl @ x". */
+const gateKey = z.string().min(1).max(120);
+
 export const noiseModelSchema = z
   .strictObject({
     depolarizing1q: probability.optional().describe("Depolarizing probability after each 1-qubit gate"),
@@ -80,13 +98,29 @@ export const noiseModelSchema = z
     phaseDamping: probability.optional().describe("Phase damping λ on each qubit a gate touches"),
     readout: z
       .strictObject({
-        p1Given0: probability.optional().describe("Probability of reading 1 when the qubit is 0"),
-        p0Given1: probability.optional().describe("Probability of reading 0 when the qubit is 1"),
+        ...readoutRates,
+        qubits: z
+          .record(qubitKey, z.strictObject(readoutRates))
+          .optional()
+          .describe('Per-qubit readout rates keyed by qubit index ("0" = qubit 0); unset fields use the two rates above'),
       })
       .optional()
-      .describe("Readout error on sampled outcomes (the same for every qubit)"),
+      .describe("Readout error on sampled outcomes (never in `exact`); the same for every qubit unless `qubits` says otherwise"),
+    gates: z
+      .record(gateKey, gateChannels)
+      .optional()
+      .describe(
+        'Overrides by gate name as written in the circuit ("cx", "h", a user gate, "ctrl @ x"): after a call of that gate, the given fields replace the model\'s rates; unset fields keep them',
+      ),
+    idle: gateChannels
+      .optional()
+      .describe(
+        "Idle noise (off unless given): after every gate, each qubit the gate does not touch gets the 1-qubit depolarizing channel, then amplitude and phase damping, with these rates",
+      ),
   })
-  .describe("Noise model; gate noise needs the density-matrix method");
+  .describe(
+    "Noise model (probabilities). After every gate as written (a user gate or ccx counts once): depolarizing of its qubits' space, then amplitude and phase damping on each of them; per-gate overrides and idle noise as described. Gate and idle noise need the density-matrix method; readout error works with both",
+  );
 
 export const estimateRequestSchema = z
   .strictObject({

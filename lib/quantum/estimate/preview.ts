@@ -7,6 +7,7 @@
  * as `estimate` are thrown for the same bad input.
  */
 import { circuitStats, parseProgram } from "../circuit";
+import { validateNoiseModel } from "../noise/validate";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { allocateShots, planShots } from "../planning/shot-plan";
 import { gershgorinBound } from "../sampling/sample-observable";
@@ -25,6 +26,7 @@ export function previewRequest(request: unknown): PreviewResult {
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
+  validateNoiseModel(req.noise, n); // per-qubit readout keys must name qubits of this circuit
   checkQubitLimit(n, req.method);
   const grid = parameterPoints(req.parameters, req.sweep, req.points, program.inputs);
   const circuit = program.bind(grid.points[0]);

@@ -105,7 +105,8 @@ function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: Samp
     const bound = gershgorinBound(obs.matrix);
     const law = (): Float64Array => {
       const p = prepared.kind === "statevector" ? eigenbasisLawOfState(prepared.state, obs.eigen) : eigenbasisLawOfDensity(prepared.rho, obs.eigen);
-      convolveReadout(p, opts.readout);
+      const n = Math.round(Math.log2(p.length));
+      convolveReadout(p, opts.readout, (b) => n - 1 - b);
       return p;
     };
     return [{ bases: "eigenbasis", termIndices: [], model, stdDevBound: bound, law }];
