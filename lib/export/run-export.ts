@@ -93,7 +93,10 @@ export function fileStem(name: string | null | undefined, id: string): string {
   return slug ? `${slug}-${shortId}` : `run-${shortId}`;
 }
 
+type ExportGradient = Record<string, { exact: number; sampled?: { mean: number; stdErr: number } }>;
+
 export type ExportSweep = {
+  kind?: "grid" | "points";
   parameters: readonly string[];
   points: readonly {
     params: Record<string, number>;
@@ -105,13 +108,28 @@ export type ExportSweep = {
       ci95?: readonly [number, number];
       shots: number;
     } | null;
+    gradient?: ExportGradient;
+    gradientShots?: number;
   }[];
 };
 
-/** One row per sweep point: the swept parameters, then ideal, exact, sampled mean, std. error, shots, 95 % interval. */
-export function sweepCsv(sweep: ExportSweep): string {
+/**
+ * One row per parameter point, in request order (the file the run page downloads and
+ * `GET /api/v1/runs/:id/points.csv` serves). Columns: `point` (0-based index), the inputs
+ * the grid or list sets, ideal, exact, sampled_mean, std_err, shots, ci95_low, ci95_high;
+ * with gradients, per input x: `d_exact_x`, `d_sampled_x`, `d_std_err_x`, then
+ * `gradient_shots`.
+ */
+export function pointsCsv(sweep: ExportSweep): string {
+  const inputs = Object.keys(sweep.points.find((p) => p.gradient)?.gradient ?? {});
+  const gradientColumns = inputs.flatMap((n) => [
+    `d_exact_${n}`,
+    `d_sampled_${n}`,
+    `d_std_err_${n}`,
+  ]);
   const rows: CsvCell[][] = [
     [
+      "point",
       ...sweep.parameters,
       "ideal",
       "exact",
@@ -120,10 +138,12 @@ export function sweepCsv(sweep: ExportSweep): string {
       "shots",
       "ci95_low",
       "ci95_high",
+      ...(inputs.length ? [...gradientColumns, "gradient_shots"] : []),
     ],
   ];
-  for (const p of sweep.points) {
+  sweep.points.forEach((p, i) => {
     rows.push([
+      i,
       ...sweep.parameters.map((n) => p.params[n]),
       p.ideal,
       p.exact,
@@ -132,7 +152,19 @@ export function sweepCsv(sweep: ExportSweep): string {
       p.sampled?.shots,
       p.sampled?.ci95?.[0],
       p.sampled?.ci95?.[1],
+      ...(inputs.length
+        ? [
+            ...inputs.flatMap((n) => {
+              const g = p.gradient?.[n];
+              return [g?.exact, g?.sampled?.mean, g?.sampled?.stdErr];
+            }),
+            p.gradientShots,
+          ]
+        : []),
     ]);
-  }
+  });
   return toCsv(rows);
 }
+
+/** The points file of a sweep (the same bytes as pointsCsv). */
+export const sweepCsv = pointsCsv;

@@ -99,8 +99,9 @@ export async function executeRun(
       });
       return { kind: done ? "failed" : "superseded", elapsedMs };
     }
-    await recordCanceledRunUsage(orgId, runId, seconds);
-    return { kind: "canceled", elapsedMs };
+    // Stopped because the run is no longer this attempt's: canceled by a person, or taken over by another worker.
+    const canceled = await recordCanceledRunUsage(orgId, runId, seconds);
+    return { kind: canceled ? "canceled" : "superseded", elapsedMs };
   }
 
   if (outcome.kind === "engine-error") {

@@ -131,7 +131,8 @@ export function buildSpecs(
         prepared.kind === "statevector"
           ? eigenbasisLawOfState(prepared.state, obs.eigen)
           : eigenbasisLawOfDensity(prepared.rho, obs.eigen);
-      convolveReadout(p, opts.readout);
+      const n = Math.round(Math.log2(p.length));
+      convolveReadout(p, opts.readout, (b) => n - 1 - b);
       return p;
     };
     return [{ bases: "eigenbasis", termIndices: [], model, stdDevBound: bound, law }];
