@@ -178,26 +178,30 @@ export async function finishRun(
   return done;
 }
 
-/** Meters the compute a canceled run consumed (once; nothing if the run is not canceled). */
+/**
+ * Meters the compute a canceled run consumed (once). Returns false, metering
+ * nothing, when the run is not canceled — another attempt owns it now.
+ */
 export async function recordCanceledRunUsage(
   orgId: string,
   runId: string,
   simulationSeconds: number,
-): Promise<void> {
-  await db.transaction(async (tx) => {
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
     const [run] = await tx
       .select({ status: runs.status, finishedAt: runs.finishedAt })
       .from(runs)
       .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)))
       .for("update");
-    if (run?.status !== "canceled") return;
+    if (run?.status !== "canceled") return false;
     await recordRunUsage(tx, orgId, runId, periodOf(run.finishedAt ?? new Date()), {
       simulationSeconds,
     });
+    return true;
   });
 }
 
-/** Fails a run that has not finished (malformed row, retries exhausted), and announces it. False if it already had. */
+/** Fails a run that has not finished (malformed row, retries exhausted). False if it already had. */
 export async function failUnfinishedRun(
   orgId: string,
   runId: string,
@@ -209,7 +213,5 @@ export async function failUnfinishedRun(
     .where(
       and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])),
     );
-  if (result.affectedRows === 0) return false;
-  await announceRunFinished(orgId, runId, "failed");
-  return true;
+  return result.affectedRows > 0;
 }

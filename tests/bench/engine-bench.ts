@@ -7,6 +7,7 @@
 import { type BenchRow, type RowResult, createContext, machineLine, printTable } from "./bench-kit";
 import { ansatzRow } from "./rows/ansatz";
 import { densityRow } from "./rows/density";
+import { gradientRows } from "./rows/gradient";
 import { kernelRows } from "./rows/kernels";
 import { memoryRow } from "./rows/memory";
 import { numpyRow } from "./rows/numpy";
@@ -22,6 +23,7 @@ const ROWS: Record<string, BenchRow> = {
   memory: memoryRow,
   numpy: numpyRow,
   observables: observableRows,
+  gradient: gradientRows,
 };
 
 async function main(): Promise<void> {
