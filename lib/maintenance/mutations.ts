@@ -7,7 +7,7 @@
  */
 import "server-only";
 import { and, eq, isNotNull, sql } from "drizzle-orm";
-import { getDb, type Db } from "@/db";
+import { getDb, type Db, type Tx } from "@/db";
 import { dataMigrations, observables, runs, usageEvents } from "@/db/schema";
 import {
   legacyMatrixToWritten,
@@ -15,8 +15,6 @@ import {
   migrateRunResult,
   type StoredMatrix,
 } from "./matrix-order";
-
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
 /** Restricts a step to one organisation's rows (tests); the migrator passes none. */
 export type MigrationScope = { orgId?: string };

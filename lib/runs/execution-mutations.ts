@@ -204,7 +204,7 @@ export async function recordCanceledRunUsage(
   });
 }
 
-/** Fails a run that has not finished (malformed row, retries exhausted). False if it already had. */
+/** Fails a run that has not finished (malformed row, retries exhausted) and announces it. False if it already had. */
 export async function failUnfinishedRun(
   orgId: string,
   runId: string,
@@ -216,5 +216,7 @@ export async function failUnfinishedRun(
     .where(
       and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])),
     );
-  return result.affectedRows > 0;
+  if (result.affectedRows === 0) return false;
+  await announceRunFinished(orgId, runId, "failed");
+  return true;
 }
