@@ -6,6 +6,7 @@
  * RFC 3056 6to4); the public examples are addresses outside every such range.
  */
 import { describe, expect, it } from "vitest";
+import { envSchema } from "@/lib/env";
 import { embeddedIpv4, parseNetworks, refusalOf } from "@/lib/webhooks/address-guard";
 
 describe("refusalOf", () => {
@@ -89,5 +90,18 @@ describe("parseNetworks", () => {
     expect(parseNetworks("10.0.0.0/8,192.168.1.7").check("192.168.1.7")).toBe(true);
     expect(() => parseNetworks("10.0.0.0/33")).toThrow(/10\.0\.0\.0\/33/);
     expect(() => parseNetworks("localhost")).toThrow(/localhost/);
+  });
+});
+
+describe("WEBHOOK_ALLOWED_NETWORKS", () => {
+  it("is checked with the environment, not at the first delivery", () => {
+    const base = { DATABASE_URL: "mysql://u:p@127.0.0.1:3306/k", AUTH_SECRET: "x".repeat(32) };
+    expect(envSchema.safeParse({ ...base, WEBHOOK_ALLOWED_NETWORKS: "10.0.0.0/8" }).success).toBe(
+      true,
+    );
+    const bad = envSchema.safeParse({ ...base, WEBHOOK_ALLOWED_NETWORKS: "10.0.0.0/8, intranet" });
+    expect(bad.success).toBe(false);
+    expect(bad.error?.issues[0].path).toEqual(["WEBHOOK_ALLOWED_NETWORKS"]);
+    expect(bad.error?.issues[0].message).toMatch(/intranet/);
   });
 });
