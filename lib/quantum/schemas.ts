@@ -423,6 +423,17 @@ export const estimateResultSchema = z
           .enum(["grid", "points"])
           .optional()
           .describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
+        topLevel: z
+          .object({
+            index: z.int().describe("Index into `points` of the point the top level describes"),
+            rule: z
+              .literal("lowest_exact")
+              .describe("The point with the lowest exact value (ties: the earliest)"),
+          })
+          .optional()
+          .describe(
+            "Which point the top-level ideal/exact/sampled/terms/groups/gradient describe: the point of lowest exact value, not silently point 0 (absent on runs stored before this field: there it was point 0)",
+          ),
         parameters: z.array(z.string()),
         points: z.array(
           z.object({
