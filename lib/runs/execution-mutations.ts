@@ -142,6 +142,8 @@ export type RunFinish = {
   result?: Record<string, unknown>;
   error?: StoredProblem;
   timings?: { parseMs: number; simulateMs: number; sampleMs: number };
+  /** Shots the engine drew (succeeded runs): shown beside the planned shots, and billed. */
+  shotsDrawn?: number;
   usage: RunUsage;
 };
 
@@ -167,6 +169,7 @@ export async function finishRun(
         result: finish.result ?? null,
         error: finish.error ?? null,
         finishedAt,
+        ...(finish.shotsDrawn !== undefined ? { shotsDrawn: finish.shotsDrawn } : {}),
         ...(finish.timings ?? {}),
       })
       .where(current(orgId, runId, attempt));
