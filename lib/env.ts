@@ -10,6 +10,7 @@
  */
 import { existsSync } from "node:fs";
 import { z } from "zod";
+import { parseNetworks } from "@/lib/webhooks/address-guard";
 
 const port = z.coerce.number().int().min(1).max(65_535);
 const flag = z
@@ -50,6 +51,8 @@ export const envSchema = z.object({
   PORT: port.default(3000),
   /** Jobs one worker process runs at once (each in its own engine thread). */
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+  /** Engine threads per run (1 = single-thread engine); unset: cores ÷ WORKER_CONCURRENCY. */
+  KETWISE_ENGINE_THREADS: z.coerce.number().int().min(1).max(16).optional(),
   /** Requests per minute per API key or user on /api/v1 (raised only for load tests). */
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(300),
   /** Run submissions per minute per person (all their keys and their session together). */
@@ -57,7 +60,16 @@ export const envSchema = z.object({
   /** Queued + running runs an organisation may hold before submissions answer 429. */
   RUNS_MAX_UNFINISHED: z.coerce.number().int().min(1).default(100),
   /** Networks (CIDR list) webhook deliveries may reach although private or loopback (tests, on-premises receivers). */
-  WEBHOOK_ALLOWED_NETWORKS: z.string().default(""),
+  WEBHOOK_ALLOWED_NETWORKS: z
+    .string()
+    .default("")
+    .superRefine((value, ctx) => {
+      try {
+        parseNetworks(value);
+      } catch (error) {
+        ctx.addIssue({ code: "custom", message: (error as Error).message });
+      }
+    }),
   /** HTTP attempts per webhook delivery (exponential backoff between them). */
   WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
   /** Delay before the first webhook retry in ms; doubled on each further retry. */

@@ -94,7 +94,7 @@ function route(registry: OpenAPIRegistry, config: RouteConfig) {
 const fileMedia: Record<string, { type: string; what: string }> = {
   "terms.csv": {
     type: "text/csv",
-    what: "One row per Pauli term: pauli, coefficient, exact, sampled_mean, std_err, setting, setting_bases",
+    what: "One row per Pauli term: pauli, coefficient, exact, sampled_mean, std_err, setting, setting_bases, ci95_low, ci95_high",
   },
   "counts.csv": {
     type: "text/csv",
@@ -102,7 +102,7 @@ const fileMedia: Record<string, { type: string; what: string }> = {
   },
   "points.csv": {
     type: "text/csv",
-    what: "One row per sweep grid point or `points` entry, in request order: the inputs, then ideal, exact, sampled_mean, std_err, shots",
+    what: "One row per sweep grid point or `points` entry, in request order: the inputs, then ideal, exact, sampled_mean, std_err, shots; with `gradient`, d_exact_<input>, d_sampled_<input>, d_std_err_<input> per input and gradient_shots",
   },
   "circuits.zip": {
     type: "application/zip",

@@ -142,6 +142,8 @@ export type RunFinish = {
   result?: Record<string, unknown>;
   error?: StoredProblem;
   timings?: { parseMs: number; simulateMs: number; sampleMs: number };
+  /** Shots the engine drew (succeeded runs): shown beside the planned shots, and billed. */
+  shotsDrawn?: number;
   usage: RunUsage;
 };
 
@@ -167,6 +169,7 @@ export async function finishRun(
         result: finish.result ?? null,
         error: finish.error ?? null,
         finishedAt,
+        ...(finish.shotsDrawn !== undefined ? { shotsDrawn: finish.shotsDrawn } : {}),
         ...(finish.timings ?? {}),
       })
       .where(current(orgId, runId, attempt));
@@ -178,26 +181,30 @@ export async function finishRun(
   return done;
 }
 
-/** Meters the compute a canceled run consumed (once; nothing if the run is not canceled). */
+/**
+ * Meters the compute a canceled run consumed (once). Returns false, metering
+ * nothing, when the run is not canceled — another attempt owns it now.
+ */
 export async function recordCanceledRunUsage(
   orgId: string,
   runId: string,
   simulationSeconds: number,
-): Promise<void> {
-  await db.transaction(async (tx) => {
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
     const [run] = await tx
       .select({ status: runs.status, finishedAt: runs.finishedAt })
       .from(runs)
       .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)))
       .for("update");
-    if (run?.status !== "canceled") return;
+    if (run?.status !== "canceled") return false;
     await recordRunUsage(tx, orgId, runId, periodOf(run.finishedAt ?? new Date()), {
       simulationSeconds,
     });
+    return true;
   });
 }
 
-/** Fails a run that has not finished (malformed row, retries exhausted), and announces it. False if it already had. */
+/** Fails a run that has not finished (malformed row, retries exhausted) and announces it. False if it already had. */
 export async function failUnfinishedRun(
   orgId: string,
   runId: string,

@@ -12,11 +12,13 @@ import { kernelRows } from "./rows/kernels";
 import { memoryRow } from "./rows/memory";
 import { numpyRow } from "./rows/numpy";
 import { observableRows } from "./rows/observables";
+import { threadRows } from "./rows/threads";
 
 /** In table order; `npm run bench -- kernels observables` runs only the named groups. */
 const ROWS: Record<string, BenchRow> = {
   kernels: kernelRows,
   ansatz: ansatzRow,
+  threads: threadRows,
   density: densityRow,
   memory: memoryRow,
   numpy: numpyRow,

@@ -2,8 +2,9 @@
  * The shipped Python client (public/clients/ketwise.py) against the live production
  * build and a real worker: the module is downloaded from the server as a user would,
  * then Debian's `python3` runs tests/e2e/python/client_check.py with it. The script
- * submits single runs and a sweep through the client (submit → wait via ?wait → result,
- * exports, idempotency keys, typed errors, RateLimit fields) and compares every value
+ * submits single runs, a list of points with gradients, a value-and-gradient call and a
+ * sweep through the client (submit → wait via ?wait → result, exports, idempotency keys,
+ * typed errors, RateLimit fields) and compares every value and gradient
  * with the engine's own result for the same request, computed here with
  * lib/quantum `estimate` (same engine, same seed: exact values to 1e-9, sampled
  * figures to 1e-12).
@@ -58,6 +59,7 @@ type Case = {
   label: string;
   kind: "single" | "sweep" | "points" | "gradient";
   request: Record<string, unknown>;
+  fd?: { at: number; plus: number; minus: number; input: string; h: number };
 };
 
 const CASES: Case[] = [
@@ -82,6 +84,37 @@ const CASES: Case[] = [
       noise: { depolarizing1q: 0.01, depolarizing2q: 0.02 },
       shots: 1000,
       seed: 5,
+    },
+  },
+  {
+    label: "three points with gradients, sampled",
+    kind: "points",
+    request: {
+      circuit: { format: "qasm3", source: ANSATZ },
+      observable: { format: "pauli", terms: "Z0 Z1 + 0.5 X1 - 0.25 Y0" },
+      // Points 3 and 4 are point 0 shifted by ±h in a: the script checks the exact gradient
+      // against their central difference (O(h²) error, common practice).
+      points: [
+        { a: 0.1, b: 0.2 },
+        { a: 0.7, b: -1.3 },
+        { a: 2.0, b: 0.5 },
+        { a: 0.1 + 1e-5, b: 0.2 },
+        { a: 0.1 - 1e-5, b: 0.2 },
+      ],
+      gradient: true,
+      shots: 400,
+      seed: 9,
+    },
+    fd: { at: 0, plus: 3, minus: 4, input: "a", h: 1e-5 },
+  },
+  {
+    label: "value and gradient at one point",
+    kind: "gradient",
+    request: {
+      circuit: { format: "qasm3", source: ANSATZ },
+      observable: { format: "pauli", terms: "Z0 Z1 + 0.5 X1" },
+      parameters: { a: 0.3, b: -1.1 },
+      gradient: true,
     },
   },
   {

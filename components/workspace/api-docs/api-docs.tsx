@@ -49,6 +49,10 @@ const METHOD_TONE: Record<string, string> = {
   delete: "border-danger/30 bg-danger-soft text-danger",
 };
 
+/** Whether the 200 answer is a file (CSV, zip) rather than JSON. */
+const isFileAnswer = (op: Operation) =>
+  Object.keys(op.responses["200"]?.content ?? {}).some((type) => !type.includes("json"));
+
 const anchor = (method: string, path: string) =>
   `${method}-${path.replace(/[^a-z0-9]+/gi, "-")}`.replace(/-+$/, "");
 
@@ -140,6 +144,7 @@ function OperationCard({
     baseUrl,
     body: body ? (body.example ?? {}) : undefined,
     headers: idem ? { "Idempotency-Key": "my-retry-key-1" } : undefined,
+    download: isFileAnswer(op) ? path.split("/").pop() : undefined,
   });
   const params = (op.parameters ?? []).filter(
     (p) => p.in !== "header" || p.name.toLowerCase() === "idempotency-key",

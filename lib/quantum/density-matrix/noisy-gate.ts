@@ -14,19 +14,13 @@
  * The parameters come with every application (GateNoise), so they may differ per gate and
  * per qubit. Gates on three or more qubits use the separate passes (kernels.ts, channels.ts).
  */
+import type { GateNoise } from "../noise/gate-noise";
 import type { DensityMatrix } from "../types";
 import { classifyMatrix } from "../statevector/matrix-classify";
 import { type SparseMap, blockKernel } from "./block-codegen";
 import { noisy1qDense } from "./noisy-gate-1q";
 
-/** The noise that follows one gate application: p for its 2^k-dim space, γ and λ per operand. */
-export interface GateNoise {
-  p: number;
-  /** Amplitude-damping γ per operand (operand order). */
-  gamma: readonly number[];
-  /** Phase-damping λ per operand (operand order). */
-  lambda: readonly number[];
-}
+export type { GateNoise };
 
 /** Row and column index offsets of the 2^k local states (first operand = most significant). */
 function offsets(

@@ -9,6 +9,7 @@
  * `sweep.points` lists every point. The seed is the request's or a fresh one, returned.
  */
 import { parseProgram } from "../circuit";
+import { validateNoiseModel } from "../noise/validate";
 import { EngineError } from "../errors";
 import { SPECTRUM_STEP_BUDGET, lanczosExtremes, lanczosStepCost } from "../observable/lanczos";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
@@ -51,6 +52,7 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
+  validateNoiseModel(req.noise, n); // per-qubit readout keys must name qubits of this circuit
   checkQubitLimit(n, req.method);
   const grid = parameterPoints(req.parameters, req.sweep, req.points, program.inputs);
   if (req.gradient) assertDifferentiable(program);

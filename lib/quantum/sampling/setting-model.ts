@@ -58,11 +58,28 @@ export function pauliSettingModel(
       pow1[j] = mitigation.f1 ** j;
     }
   }
-  // mitigated term value f0^{w−h}·f1^h over h = 0 … w (w = |s_i|): its extremes, exactly
-  const termRange: [number, number][] = Array.from(size, (w) => {
+  // Qubits with their own readout rates (noise.readout.qubits): factors per qubit.
+  const own = mitigation?.qubits;
+  const fq = (q: number) => own?.[q] ?? (mitigation as MitigationFactors);
+  // mitigated term value f0^{w−h}·f1^h over h = 0 … w (w = |s_i|): its extremes, exactly;
+  // with per-qubit factors, the product over the support of f0_q or f1_q: the extremes of a
+  // product are reached by extremes of the running product times each factor.
+  const termRange: [number, number][] = Array.from(size, (w, i) => {
     if (!mitigation) return [-1, 1];
     let lo = Number.POSITIVE_INFINITY;
     let hi = Number.NEGATIVE_INFINITY;
+    if (own) {
+      lo = 1;
+      hi = 1;
+      for (let q = 0; q < n; q++) {
+        if (!((s[i] >> q) & 1)) continue;
+        const { f0, f1 } = fq(q);
+        const cands = [lo * f0, lo * f1, hi * f0, hi * f1];
+        lo = Math.min(...cands);
+        hi = Math.max(...cands);
+      }
+      return [lo, hi];
+    }
     for (let h = 0; h <= w; h++) {
       const v = mitigation.f0 ** (w - h) * mitigation.f1 ** h;
       lo = Math.min(lo, v);
@@ -78,10 +95,16 @@ export function pauliSettingModel(
     mitRange[0] += Math.min(c[i] * a, c[i] * b);
     mitRange[1] += Math.max(c[i] * a, c[i] * b);
   }
-  const mitTerm = (b: number, i: number): number => {
-    const h = pc(b & s[i]);
-    return pow0[size[i] - h] * pow1[h];
-  };
+  const mitTerm = own
+    ? (b: number, i: number): number => {
+        let v = 1;
+        for (let m = s[i], q = 0; m !== 0; m >>>= 1, q++) if (m & 1) v *= (b >> q) & 1 ? fq(q).f1 : fq(q).f0;
+        return v;
+      }
+    : (b: number, i: number): number => {
+        const h = pc(b & s[i]);
+        return pow0[size[i] - h] * pow1[h];
+      };
   return {
     termCount: k,
     range: [-bound, bound],
@@ -119,7 +142,8 @@ export function eigenbasisSettingModel(
   let table: Float64Array | null = null;
   if (mitigation) {
     table = eigenvalues.slice();
-    mitigateValueTable(table, mitigation);
+    const n = Math.round(Math.log2(eigenvalues.length));
+    mitigateValueTable(table, mitigation, (b) => n - 1 - b);
   }
   const t = table;
   return {

@@ -86,6 +86,11 @@ def main(path):
                     for name in w["gradient"]
                 )
                 check(label + ": exact gradients at every point", ok)
+                fd = case.get("fd")
+                if fd:
+                    central = (got[fd["plus"]]["exact"] - got[fd["minus"]]["exact"]) / (2 * fd["h"])
+                    analytic = got[fd["at"]]["gradient"][fd["input"]]["exact"]
+                    check(label + ": gradient agrees with the central difference", close(central, analytic, 1e-6), (central, analytic))
                 if any(w["gradient"][n].get("sampled") for w in want for n in w["gradient"]):
                     ok = all(
                         close(g["gradient"][n]["sampled"]["mean"], w["gradient"][n]["sampled"]["mean"], 1e-12)

@@ -159,6 +159,7 @@ export async function pollRun(
 ): Promise<Json> {
   const deadline = Date.now() + (options.timeoutMs ?? 30_000);
   const until = options.until ?? ((run: Json) => TERMINAL.has(run.status));
+  let polls = 0;
   for (;;) {
     const res = await api("GET", `/api/v1/runs/${id}`, { key });
     if (res.status !== 200)
@@ -168,6 +169,8 @@ export async function pollRun(
       throw new Error(
         `run ${id} still ${res.body.status} (progress ${res.body.progress}) after timeout`,
       );
-    await new Promise((r) => setTimeout(r, options.intervalMs ?? 50));
+    // Back off from 50 ms to 250 ms: a slow run on a busy machine must not spend the key's rate budget.
+    polls++;
+    await new Promise((r) => setTimeout(r, options.intervalMs ?? Math.min(50 * polls, 250)));
   }
 }
