@@ -28,6 +28,7 @@ import {
 } from "@/lib/queue/jobs";
 import { engineThreads } from "@/lib/quantum/parallel/config";
 import { EnginePool } from "./engine-pool";
+import { failDeliveryAfterRetries } from "@/lib/webhooks/deliveries";
 import { failRunAfterRetries } from "./give-up";
 import { rootLogger } from "@/lib/observability/logger";
 import { log } from "./log";
@@ -70,6 +71,9 @@ async function main(): Promise<void> {
     if (!job) return;
     log(`job ${job.id} (${job.name}) attempt ${job.attemptsMade} failed`, error);
     void failRunAfterRetries(job, error);
+    void failDeliveryAfterRetries(job).catch((e: unknown) =>
+      log(`webhook delivery job ${job.id}: could not be marked failed`, e),
+    );
   });
   await worker.waitUntilReady();
   const sweeper = startSweeper();
