@@ -18,7 +18,7 @@ import { getSessionUserFromRequest } from "@/lib/auth/session";
 import { ORG_COOKIE, accessFrom, pickCurrentOrg } from "@/lib/auth/guards";
 import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
 import { keyStanding } from "@/lib/api-keys/effective-role";
-import { touchApiKey } from "@/lib/orgs/mutations";
+import { touchApiKey } from "@/lib/api-keys/mutations";
 import { findActiveApiKeyByHash, listMembershipsForUser, type OrgSummary } from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { env } from "@/lib/env";
