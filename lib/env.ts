@@ -50,12 +50,22 @@ export const envSchema = z.object({
   PORT: port.default(3000),
   /** Jobs one worker process runs at once (each in its own engine thread). */
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
+  /** Engine threads per run (1 = single-thread engine); unset: cores ÷ WORKER_CONCURRENCY. */
+  KETWISE_ENGINE_THREADS: z.coerce.number().int().min(1).max(16).optional(),
   /** Requests per minute per API key or user on /api/v1 (raised only for load tests). */
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(300),
   /** Run submissions per minute per person (all their keys and their session together). */
   RUN_SUBMIT_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(60),
   /** Queued + running runs an organisation may hold before submissions answer 429. */
   RUNS_MAX_UNFINISHED: z.coerce.number().int().min(1).default(100),
+  /** Networks (CIDR list) webhook deliveries may reach although private or loopback (tests, on-premises receivers). */
+  WEBHOOK_ALLOWED_NETWORKS: z.string().default(""),
+  /** HTTP attempts per webhook delivery (exponential backoff between them). */
+  WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
+  /** Delay before the first webhook retry in ms; doubled on each further retry. */
+  WEBHOOK_RETRY_BASE_MS: z.coerce.number().int().min(10).default(30_000),
+  /** Timeout of one webhook attempt in ms (connect + answer). */
+  WEBHOOK_TIMEOUT_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
   /** How often the worker's sweeper looks for runs whose job went missing. */
   RUN_SWEEP_SECONDS: z.coerce.number().int().min(1).max(3600).default(30),
   /** A queued run with no job in the queue for this long is enqueued again (crash between insert and enqueue). */

@@ -4,7 +4,8 @@
  * Runs queued jobs (lib/queue/jobs.ts) with WORKER_CONCURRENCY jobs at once,
  * each run's engine in its own thread (engine-pool.ts) so the event loop keeps
  * the queue locks, progress writes and cancellation checks going.
- * Env: DATABASE_URL, REDIS_URL, WORKER_CONCURRENCY (default 2), SMTP_* for mail;
+ * Env: DATABASE_URL, REDIS_URL, WORKER_CONCURRENCY (default 2), KETWISE_ENGINE_THREADS
+ * (engine threads per run; default cores ÷ WORKER_CONCURRENCY), SMTP_* for mail;
  * WORKER_METRICS_PORT (+ METRICS_TOKEN) serves /health and /metrics.
  *
  * Faults: infrastructure errors are retried with backoff (JOB_ATTEMPTS); a job
@@ -25,6 +26,7 @@ import {
   RUNS_QUEUE,
   STALLED_INTERVAL_MS,
 } from "@/lib/queue/jobs";
+import { engineThreads } from "@/lib/quantum/parallel/config";
 import { EnginePool } from "./engine-pool";
 import { failRunAfterRetries } from "./give-up";
 import { rootLogger } from "@/lib/observability/logger";
@@ -40,6 +42,10 @@ const SHUTDOWN_GRACE_MS = 10_000;
 async function main(): Promise<void> {
   rootLogger("worker");
   const concurrency = env.WORKER_CONCURRENCY;
+  // Runs × engine threads ≤ cores: each run's engine splits its state over
+  // cores ÷ WORKER_CONCURRENCY threads unless KETWISE_ENGINE_THREADS says otherwise
+  // (engine threads read it from their copy of the environment).
+  process.env.KETWISE_ENGINE_THREADS = String(env.KETWISE_ENGINE_THREADS ?? engineThreads(concurrency));
   const started = performance.now();
   const pool = new EnginePool(concurrency);
   await pool.start();

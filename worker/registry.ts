@@ -10,6 +10,7 @@ import { JOB_SCHEMAS, type JobName, type JobPayload } from "@/lib/queue/jobs";
 import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
 import { sendRunFinishedMail } from "@/lib/runs/notify";
+import { deliverWebhook, fanOutRunFinished } from "@/lib/webhooks/deliveries";
 import { reportOverageJob } from "./jobs/billing-overage";
 import { log } from "./log";
 
@@ -49,6 +50,25 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
     "billing.report-overage": {
       schema: JOB_SCHEMAS["billing.report-overage"],
       handler: async (payload) => reportOverageJob(payload),
+    },
+    "webhook.fanout": {
+      schema: JOB_SCHEMAS["webhook.fanout"],
+      handler: async (payload) => {
+        const endpoints = await fanOutRunFinished(payload);
+        if (endpoints) log(`run ${payload.runId}: ${endpoints} webhook delivery(ies) queued`);
+        return endpoints;
+      },
+    },
+    "webhook.deliver": {
+      schema: JOB_SCHEMAS["webhook.deliver"],
+      handler: async (payload, { job }) => {
+        const outcome = await deliverWebhook(
+          payload,
+          job.attemptsMade + 1 >= (job.opts.attempts ?? 1),
+        );
+        if (outcome !== "skipped") log(`webhook delivery ${payload.deliveryId}: ${outcome}`);
+        return outcome;
+      },
     },
   };
 }

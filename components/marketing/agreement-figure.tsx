@@ -2,7 +2,7 @@
  * The "agreement" strip: one number line with the exact value (ink line), a tolerance
  * band around it, the sampled 95 % interval (verdigris bar, mean dot) and the value a
  * noise model predicts (copper diamond with its own interval). Pure SVG, data-driven.
- * The interval is mean ± 1.96·stdErr (normal approximation).
+ * The illustration draws mean ± 1.96·stdErr (the product's intervals are the run's ci95).
  */
 export type AgreementFigureProps = {
   exact: number;

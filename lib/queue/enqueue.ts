@@ -52,12 +52,13 @@ function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
 
 /**
  * Adds a job. `jobId` makes the add idempotent (BullMQ ignores a second job with
- * the same id while the first exists); run jobs use the run id.
+ * the same id while the first exists); run jobs use the run id. `attempts` and
+ * `backoffMs` (first retry delay, doubled each time) override the default policy.
  */
 export async function enqueue<N extends JobName>(
   name: N,
   payload: JobPayload<N>,
-  options: { jobId: string; delayMs?: number },
+  options: { jobId: string; delayMs?: number; attempts?: number; backoffMs?: number },
 ): Promise<void> {
   const requestId = payload.requestId ?? currentRequestId();
   const data = JOB_SCHEMAS[name].parse(requestId ? { ...payload, requestId } : payload);
@@ -66,8 +67,10 @@ export async function enqueue<N extends JobName>(
       getRunsQueue().add(name, data, {
         jobId: options.jobId,
         delay: options.delayMs,
-        attempts: JOB_ATTEMPTS,
-        backoff: JOB_BACKOFF,
+        attempts: options.attempts ?? JOB_ATTEMPTS,
+        backoff: options.backoffMs
+          ? { type: "exponential", delay: options.backoffMs }
+          : JOB_BACKOFF,
         removeOnComplete: { age: 3_600, count: 10_000 },
         removeOnFail: { age: 7 * 86_400 },
       }),

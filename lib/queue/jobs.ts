@@ -36,10 +36,29 @@ export const overageJobSchema = z.strictObject({
 });
 export type OverageJob = z.infer<typeof overageJobSchema>;
 
+/** Make one delivery per enabled webhook endpoint for a run that became terminal (lib/webhooks/deliveries.ts). */
+export const webhookFanoutSchema = z.strictObject({
+  orgId: z.uuid(),
+  runId: z.uuid(),
+  status: z.enum(["succeeded", "failed", "canceled"]),
+  requestId,
+});
+export type WebhookFanoutJob = z.infer<typeof webhookFanoutSchema>;
+
+/** One signed POST of a delivery; retried with WEBHOOK_MAX_ATTEMPTS / WEBHOOK_RETRY_BASE_MS. */
+export const webhookDeliverSchema = z.strictObject({
+  orgId: z.uuid(),
+  deliveryId: z.uuid(),
+  requestId,
+});
+export type WebhookDeliverJob = z.infer<typeof webhookDeliverSchema>;
+
 export const JOB_SCHEMAS = {
   "run.execute": runJobSchema,
   "run.finished-mail": runFinishedMailSchema,
   "billing.report-overage": overageJobSchema,
+  "webhook.fanout": webhookFanoutSchema,
+  "webhook.deliver": webhookDeliverSchema,
 } as const;
 
 export type JobName = keyof typeof JOB_SCHEMAS;

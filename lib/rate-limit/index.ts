@@ -5,13 +5,17 @@
  * a successful sign-in clears the e-mail's counter. Magic-link requests: 5 per
  * e-mail and 20 per IP per 15 minutes. API (withOrg): API_RATE_LIMIT_PER_MINUTE
  * requests per minute per key or user (route handlers may ask for another budget).
- * A limit answers `ProblemError` 429 with Retry-After in seconds.
+ * A limit answers `ProblemError` 429 with Retry-After in seconds; `consume`
+ * returns the budget's state for the RateLimit-* answer fields (./headers.ts).
  */
 import "server-only";
 import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
+import type { RateLimitState } from "./headers";
 import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
+
+export type { RateLimitState } from "./headers";
 
 export type Budget = { points: number; duration: number };
 
@@ -42,24 +46,40 @@ function limiter(name: string, budget: Budget): RateLimiterRedis {
   return found;
 }
 
+function stateOf(budget: Budget, res: RateLimiterRes): RateLimitState {
+  return {
+    limit: budget.points,
+    remaining: Math.max(0, res.remainingPoints),
+    resetSeconds: Math.max(0, Math.ceil(res.msBeforeNext / 1000)),
+    windowSeconds: budget.duration,
+  };
+}
+
 /**
- * Spends one point of `name`'s budget for `key`; throws 429 when spent out.
- * `message` is the user-facing detail; the wait is appended in minutes/seconds.
+ * Spends one point of `name`'s budget for `key` and returns what is left of it;
+ * throws 429 (carrying the same state) when spent out. `message` is the
+ * user-facing detail; the wait is appended in minutes/seconds.
  */
 export async function consume(
   name: string,
   budget: Budget,
   key: string,
   message: string,
-): Promise<void> {
+): Promise<RateLimitState> {
   try {
-    await limiter(name, budget).consume(key);
+    return stateOf(budget, await limiter(name, budget).consume(key));
   } catch (error) {
     if (error instanceof RateLimiterRes) {
       metrics().rateLimitRefusals.inc({ budget: name });
-      const seconds = Math.ceil(error.msBeforeNext / 1000);
+      const seconds = Math.max(1, Math.ceil(error.msBeforeNext / 1000));
       const wait = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
-      throw tooManyRequests(`${message} Try again in ${wait}.`, seconds);
+      const limited = tooManyRequests(`${message} Try again in ${wait}.`, seconds);
+      limited.problem.rateLimit = {
+        ...stateOf(budget, error),
+        remaining: 0,
+        resetSeconds: seconds,
+      };
+      throw limited;
     }
     throw error;
   }

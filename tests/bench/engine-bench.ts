@@ -7,19 +7,23 @@
 import { type BenchRow, type RowResult, createContext, machineLine, printTable } from "./bench-kit";
 import { ansatzRow } from "./rows/ansatz";
 import { densityRow } from "./rows/density";
+import { gradientRows } from "./rows/gradient";
 import { kernelRows } from "./rows/kernels";
 import { memoryRow } from "./rows/memory";
 import { numpyRow } from "./rows/numpy";
 import { observableRows } from "./rows/observables";
+import { threadRows } from "./rows/threads";
 
 /** In table order; `npm run bench -- kernels observables` runs only the named groups. */
 const ROWS: Record<string, BenchRow> = {
   kernels: kernelRows,
   ansatz: ansatzRow,
+  threads: threadRows,
   density: densityRow,
   memory: memoryRow,
   numpy: numpyRow,
   observables: observableRows,
+  gradient: gradientRows,
 };
 
 async function main(): Promise<void> {

@@ -151,6 +151,8 @@ describe("run workspace", () => {
       "std_err",
       "setting",
       "setting_bases",
+      "ci95_low",
+      "ci95_high",
     ]);
     const byWord = new Map(rows.slice(1).map((r) => [r[0], r]));
     expect(Number(byWord.get("ZZ")![2])).toBeCloseTo(1, 12);
@@ -186,7 +188,16 @@ describe("run workspace", () => {
     // Every exact point against E(θ) = c0 + 2J + 3h cos θ + (k − m) sin θ (derived by hand in
     // tests/support/three-spin-closed-form.ts).
     const csv = parseCsv((await download("Sweep (CSV)")).bytes.toString("utf8"));
-    expect(csv[0]).toEqual(["theta", "ideal", "exact", "sampled_mean", "std_err", "shots"]);
+    expect(csv[0]).toEqual([
+      "theta",
+      "ideal",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "shots",
+      "ci95_low",
+      "ci95_high",
+    ]);
     const points = csv.slice(1).map((r) => ({ theta: Number(r[0]), exact: Number(r[2]) }));
     expect(points).toHaveLength(25);
     for (const p of points) expect(p.exact).toBeCloseTo(threeSpinEnergy(p.theta), 10);

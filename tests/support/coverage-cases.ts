@@ -13,9 +13,10 @@
  *                  (|000⟩ ± |111⟩)/√2: four settings, value cos 2ε = a (N. D. Mermin, Phys. Rev.
  *                  Lett. 65, 1838 (1990): ⟨M⟩ = 4 on the GHZ state).
  * - "heisenberg":  the 6-term sum Σ_{(i,j)∈{(0,1),(2,3)}} (X_i X_j + Y_i Y_j + Z_i Z_j) on
- *                  (cos ε|S⟩ + sin ε|T0⟩)^{⊗2} (singlet / triplet-zero pairs): ground energy −6 at
- *                  ε = 0 (the singlet has σ·σ = −3, common textbook value); three settings with
- *                  two correlated terms each, Z Z deterministic, ⟨X X⟩ = ⟨Y Y⟩ = −cos 2ε.
+ *                  (cos ε|S⟩ + sin ε|T⟩)^{⊗2}, |S⟩ the singlet and |T⟩ an equal mix of the three
+ *                  triplets: ground energy −6 at ε = 0 (σ·σ = −3 on the singlet, +1 on a triplet;
+ *                  textbook values), energy −6 + 8 sin²ε = −6a; three settings with two correlated
+ *                  terms each, every term close to −1 (flip rates ≈ q, q/3, 2q/3, q = sin²ε).
  * "mitigated" runs add readout error (p1Given0 = 0.02, p0Given1 = 0.05) and check the
  * readout-mitigated interval against the exact (readout-free) value.
  */
@@ -122,13 +123,18 @@ export function caseSetup(
       };
     }
     case "heisenberg": {
-      // energy −6a = −2 − 4 cos 2ε  →  cos 2ε = (6a − 2)/4
-      const e = 0.5 * Math.acos((6 * a - 2) / 4);
-      const [c, s] = [Math.cos(e), Math.sin(e)];
-      // singlet (|01⟩ − |10⟩)/√2, triplet-zero (|01⟩ + |10⟩)/√2; index = b0 + 2 b1
+      // per pair cos ε|S⟩ + sin ε|T⟩, |T⟩ = (|T+⟩ + |T0⟩ + |T−⟩)/√3: ⟨σ·σ⟩ = −3 + 4q, q = sin²ε;
+      // energy −6 + 8q = −6a  →  q = 3(1 − a)/4
+      const q = (3 * (1 - a)) / 4;
+      const [c, s] = [Math.sqrt(1 - q), Math.sqrt(q)];
+      const t = s / Math.sqrt(3);
+      // index = b0 + 2·b1: |00⟩ = 0, |10⟩ (qubit 0 = 1) = 1, |01⟩ = 2, |11⟩ = 3
+      // singlet (|01⟩ − |10⟩)/√2, T0 = (|01⟩ + |10⟩)/√2, T+ = |00⟩, T− = |11⟩
       const pair = state(2, [
-        [2, S2 * (c + s)],
-        [1, S2 * (s - c)],
+        [0, t],
+        [3, t],
+        [2, S2 * (c + t)],
+        [1, S2 * (t - c)],
       ]);
       return {
         state: kron(pair, pair),

@@ -16,8 +16,8 @@
  *    ≈ (range/N)², the honest size of what N identical shots cannot exclude.
  * 2. Per setting, a 95 % interval [l_g, u_g] = m_g ± t_{0.975, N_g+1}·√Var μ_g (a Student t quantile:
  *    heavy tails for few shots, 1.96 for many), clipped to [lo_g, hi_g]. For one ±1 outcome this
- *    keeps coverage within a few points of 95 % for every N ≥ 10 and every ⟨Z⟩ (exact binomial
- *    sums), where the plug-in (Wald) interval collapses near ⟨Z⟩ = ±1.
+ *    keeps the exact coverage ≥ 91.6 % for every N = 10 … 400 and every ⟨Z⟩ (≥ 93 % from N = 50;
+ *    mean ≈ 95–97 %; binomial sums), where the plug-in (Wald) interval collapses near ⟨Z⟩ = ±1.
  * 3. Settings are independent; the sum c + Σ w_g μ_g gets the MOVER ("square-and-add") limits
  *    L = x̄ − √Σ(w_g(x̄_g − l_g))², U = x̄ + √Σ(w_g(u_g − x̄_g))² around the sample estimate x̄
  *    (R. G. Newcombe, Stat. Med. 17, 873 (1998); G. Y. Zou & A. Donner, Stat. Med. 27, 1693

@@ -105,7 +105,8 @@ function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: Samp
     const bound = gershgorinBound(obs.matrix);
     const law = (): Float64Array => {
       const p = prepared.kind === "statevector" ? eigenbasisLawOfState(prepared.state, obs.eigen) : eigenbasisLawOfDensity(prepared.rho, obs.eigen);
-      convolveReadout(p, opts.readout);
+      const n = Math.round(Math.log2(p.length));
+      convolveReadout(p, opts.readout, (b) => n - 1 - b);
       return p;
     };
     return [{ bases: "eigenbasis", termIndices: [], model, stdDevBound: bound, law }];
@@ -231,8 +232,8 @@ function termSamples(sum: PauliSum, specs: Spec[], samples: SettingSample[], mit
       const e = estimateLinearCombination([{ shots: s.shots, sum: s.termSums[j], sumSq: s.shots, lo: -1, hi: 1 }], { range: PAULI_RANGE });
       const entry: TermSample = { sampledMean: e.mean, stdErr: e.stdErr, ci95: e.ci95 };
       if (mitigate && s.termMitSums && s.termMitSumSq) {
-        const bound = spec.model.termMitigatedBound[j];
-        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo: -bound, hi: bound }], { range: PAULI_RANGE });
+        const [lo, hi] = spec.model.termMitigatedRange[j];
+        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo, hi }], { range: PAULI_RANGE });
         entry.mitigatedMean = m.mean;
         entry.mitigatedStdErr = m.stdErr;
         entry.mitigatedCi95 = m.ci95;

@@ -15,8 +15,12 @@ export const ansatzRow: BenchRow = (ctx) => {
   const circuit = layeredAnsatz(ANSATZ_N, ANSATZ_LAYERS);
   const gateCount = circuit.ops.length;
   const passes = circuitGates(circuit).length;
-  let state: StateVector = simulateStatevector(circuit);
-  const p = paired(() => (state = simulateStatevector(circuit)), ctx.copy(ANSATZ_N), { warmup: 0 });
+  let state: StateVector = simulateStatevector(circuit, { threads: 1 });
+  const p = paired(
+    () => (state = simulateStatevector(circuit, { threads: 1 })),
+    ctx.copy(ANSATZ_N),
+    { warmup: 0 },
+  );
   ctx.shared.set("ansatzMs", p.row.cpu.median);
   ctx.shared.set("ansatzState", state);
   const scaled = {

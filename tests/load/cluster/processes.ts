@@ -85,6 +85,11 @@ export async function stop(
   clearTimeout(timer);
 }
 
+/** The processes still running (their output is kept for the logs). */
+export function running(): Proc[] {
+  return [...all];
+}
+
 /** SIGKILLs every process still running (cleanup path). */
 export async function stopAll(): Promise<void> {
   const left = [...all];

