@@ -24,7 +24,7 @@ import { AgreementPanel } from "./agreement-panel";
 import { PauliDecompositionList } from "./pauli-decomposition-list";
 import { ReproduceCard } from "./reproduce-card";
 import { RunDownloads } from "./run-downloads";
-import { formatDuration, formatWhen } from "./run-meta";
+import { formatDuration, formatWhen, shotsText } from "./run-meta";
 import { RunFailure, RunProgress } from "./run-status-card";
 import { SpectrumCard } from "./spectrum-card";
 import { GradientCard } from "./gradient-card";
@@ -35,7 +35,7 @@ function Facts({ run }: { run: Run }) {
   const items: [string, React.ReactNode][] = [
     ["Method", RUN_METHOD_LABELS[run.method]],
     ["Qubits", run.qubits],
-    ["Shots", run.shots ? run.shots.toLocaleString("en-US") : "exact only"],
+    ["Shots", shotsText(run).long],
     [
       "Seed",
       <span key="s" className="figures">

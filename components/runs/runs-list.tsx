@@ -19,7 +19,7 @@ import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunStatus } from "@/lib/swr/types";
 import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
-import { formatAgo } from "./run-meta";
+import { formatAgo, shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
 
@@ -262,7 +262,9 @@ export function RunsList() {
                   {RUN_METHOD_LABELS[r.method]}
                 </TD>
                 <TD numeric>{r.qubits}</TD>
-                <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
+                <TD numeric title={shotsText(r).long}>
+                  {shotsText(r).short}
+                </TD>
                 <TD numeric>
                   <RunValueCell run={r} />
                 </TD>
