@@ -10,7 +10,10 @@
  * 3. for scale, the framework's ceiling: a GET of the cached OpenAPI document;
  * 4. small-run throughput with 1 and 2 worker processes (1 engine thread
  *    each): 300 runs queued while the queue is paused, then
- *    runs / (last finishedAt − first startedAt).
+ *    runs / (last finishedAt − first startedAt);
+ * 5. light requests (GET /api/v1/usage, 10 connections, 20 s) alone and while
+ *    one client loops the heaviest preview the caps allow (./bench-preview.ts).
+ *    `npm run bench:api -- --preview-only` runs this phase alone.
  *
  * The bench organisation is on the Institute plan; the bench server raises
  * the API's rate limits and backlog cap (they would refuse a load test).
@@ -23,6 +26,7 @@ import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { createApiKey, createOrganization } from "@/lib/orgs/mutations";
 import { smallRequest } from "../integration/runs/support/requests";
 import { startServer, startWorker, type Proc } from "./bench-processes";
+import { previewIsolationPhase } from "./bench-preview";
 import { median, percentile, table } from "./bench-stats";
 
 const PORT = Number(process.env.BENCH_PORT ?? 3310);
@@ -152,9 +156,39 @@ async function throughputPhase(orgId: string, key: string, processes: number): P
   return THROUGHPUT_RUNS / seconds;
 }
 
+async function previewOnly(key: string, procs: Proc[]): Promise<void> {
+  log(`starting next start on ${PORT}`);
+  procs.push(await startServer(PORT, childEnv));
+  const p = await previewPhase(key);
+  console.log("\n" + table(p));
+}
+
+async function previewPhase(key: string): Promise<[string, string, string][]> {
+  log("light requests alone, then while one client loops the heaviest allowed preview (20 s each)");
+  const r = await previewIsolationPhase(BASE, key);
+  log(`  alone p95 ${r.baseline.p95} ms; with heavy previews p95 ${r.loaded.p95} ms; heavy: ${r.heavy.count} (${r.heavy.statuses}), median ${Math.round(r.heavy.medianMs)} ms`);
+  return [
+    ["GET /api/v1/usage, 10 connections, alone: p95", `${r.baseline.p95} ms (${r.baseline.requests} requests, ${r.baseline.errors} errors)`, "—"],
+    ["… while one client loops the heaviest allowed preview: p95", `${r.loaded.p95} ms (${r.loaded.requests} requests, ${r.loaded.errors} errors)`, "< 100 ms"],
+    ["… ratio loaded : alone (p95)", (r.loaded.p95 / r.baseline.p95).toFixed(2), "—"],
+    [`heaviest allowed preview (${(r.bodyBytes / 1024).toFixed(0)} KiB body): answers, median`, `${r.heavy.statuses}; ${Math.round(r.heavy.medianMs)} ms`, "—"],
+  ];
+}
+
 async function main(): Promise<void> {
   const { orgId, key } = await setupOrg();
   const procs: Proc[] = [];
+  if (process.argv.includes("--preview-only")) {
+    try {
+      await previewOnly(key, procs);
+    } finally {
+      await Promise.all(procs.map((p) => p.stop()));
+      await db.delete(organizations).where(eq(organizations.id, orgId)).catch(() => {});
+      await closeQueue();
+      await closeDb();
+    }
+    return;
+  }
   try {
     log(`starting next start on ${PORT} and one worker`);
     procs.push(await startServer(PORT, childEnv));
@@ -179,6 +213,8 @@ async function main(): Promise<void> {
     await drain(orgId);
     const two = await throughputPhase(orgId, key, 2);
     log(`  1 worker ${one.toFixed(1)} runs/s, 2 workers ${two.toFixed(1)} runs/s, ratio ${(two / one).toFixed(2)}`);
+    await drain(orgId);
+    const preview = await previewPhase(key);
 
     console.log(
       "\n" +
@@ -193,6 +229,7 @@ async function main(): Promise<void> {
           ["throughput, 1 worker process", `${one.toFixed(1)} runs/s`, "—"],
           ["throughput, 2 worker processes", `${two.toFixed(1)} runs/s`, "—"],
           ["throughput ratio 2 : 1", (two / one).toFixed(2), "≥ 1.6"],
+          ...preview,
         ]),
     );
   } finally {

@@ -9,6 +9,9 @@ import { closeDb, db } from "@/db";
 import { runs } from "@/db/schema";
 import { closeQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
+import { closePreviewPool } from "@/lib/runs/preview-pool";
+import { previewOrThrow } from "@/lib/runs/preview-run";
+import { engineRequestOf } from "@/lib/runs/schemas";
 import { createTestApiKey, createUserWithOrg } from "../../support/factories";
 import { api } from "../runs/support/api";
 import { bellRequest } from "../runs/support/requests";
@@ -22,9 +25,12 @@ let key: string;
 beforeAll(async () => {
   org = await createUserWithOrg("redis-down");
   key = (await createTestApiKey(org.orgId, "member", org.user.id)).key;
+  // Start the preview threads first, so the time bound below measures Redis timeouts, not thread start-up.
+  await previewOrThrow(engineRequestOf(bellRequest() as never));
 });
 
 afterAll(async () => {
+  await closePreviewPool();
   await closeQueue();
   await closeRedis();
   await closeDb();
