@@ -10,6 +10,10 @@ import { env } from "@/lib/env";
 import * as schema from "./schema";
 
 export type Db = MySql2Database<typeof schema>;
+/** The client handed to a `db.transaction` callback. */
+export type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
+/** Either: for data-access functions that run alone or inside a caller's transaction. */
+export type Executor = Db | Tx;
 
 type Holder = { pool?: mysql.Pool; db?: Db };
 // One pool per process, also across Next dev hot reloads.

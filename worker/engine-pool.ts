@@ -46,6 +46,11 @@ export class EnginePool implements EngineRunner {
 
   constructor(readonly size: number) {}
 
+  /** Fraction of the pool's threads running a job now (metrics). */
+  busyRatio(): number {
+    return this.slots.length === 0 ? 0 : this.slots.filter((s) => s.busy).length / this.slots.length;
+  }
+
   /** Starts every thread and waits until each has loaded the engine. */
   async start(): Promise<void> {
     this.slots = Array.from({ length: this.size }, spawn);

@@ -5,10 +5,12 @@
  */
 import { DelayedError, type Job } from "bullmq";
 import type { z } from "zod";
+import { withLogContext } from "@/lib/observability/logger";
 import { JOB_SCHEMAS, type JobName, type JobPayload } from "@/lib/queue/jobs";
 import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
 import { sendRunFinishedMail } from "@/lib/runs/notify";
+import { deliverWebhook, fanOutRunFinished } from "@/lib/webhooks/deliveries";
 import { reportOverageJob } from "./jobs/billing-overage";
 import { log } from "./log";
 
@@ -21,6 +23,8 @@ type Entry<N extends JobName> = { schema: z.ZodType<JobPayload<N>>; handler: Han
 export type Registry = { [N in JobName]: Entry<N> };
 
 export function buildRegistry(deps: { engine: EngineRunner }): Registry {
+  // Runs this process has reported as waiting for a slot (logged once, not every retry).
+  const waiting = new Set<string>();
   return {
     "run.execute": {
       schema: JOB_SCHEMAS["run.execute"],
@@ -28,9 +32,13 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
         const outcome = await executeRun(payload, deps.engine, log);
         if (outcome.kind === "busy") {
           // The plan's concurrent-run slots are full: wait without spending an attempt.
+          if (!waiting.has(payload.runId))
+            log(`run ${payload.runId}: waiting for a slot (${outcome.running} of ${outcome.limit} running)`);
+          waiting.add(payload.runId);
           await job.moveToDelayed(Date.now() + SLOT_RETRY_MS, token);
           throw new DelayedError();
         }
+        waiting.delete(payload.runId);
         if (outcome.kind !== "missing") log(`run ${payload.runId}: ${outcome.kind}`);
         return outcome.kind;
       },
@@ -43,11 +51,34 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
       schema: JOB_SCHEMAS["billing.report-overage"],
       handler: async (payload) => reportOverageJob(payload),
     },
+    "webhook.fanout": {
+      schema: JOB_SCHEMAS["webhook.fanout"],
+      handler: async (payload) => {
+        const endpoints = await fanOutRunFinished(payload);
+        if (endpoints) log(`run ${payload.runId}: ${endpoints} webhook delivery(ies) queued`);
+        return endpoints;
+      },
+    },
+    "webhook.deliver": {
+      schema: JOB_SCHEMAS["webhook.deliver"],
+      handler: async (payload, { job }) => {
+        const outcome = await deliverWebhook(
+          payload,
+          job.attemptsMade + 1 >= (job.opts.attempts ?? 1),
+        );
+        if (outcome !== "skipped") log(`webhook delivery ${payload.deliveryId}: ${outcome}`);
+        return outcome;
+      },
+    },
   };
 }
 
 /** Validates and dispatches one job. */
-export async function dispatch(registry: Registry, job: Job, token: string | undefined): Promise<unknown> {
+export async function dispatch(
+  registry: Registry,
+  job: Job,
+  token: string | undefined,
+): Promise<unknown> {
   const entry = registry[job.name as JobName] as Entry<JobName> | undefined;
   if (!entry) {
     log(`dropping job ${job.id}: unknown job name "${job.name}"`);
@@ -55,8 +86,14 @@ export async function dispatch(registry: Registry, job: Job, token: string | und
   }
   const parsed = entry.schema.safeParse(job.data);
   if (!parsed.success) {
-    log(`dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`);
+    log(
+      `dropping job ${job.id} (${job.name}): malformed payload: ${parsed.error.issues.map((i) => i.message).join("; ")}`,
+    );
     return "dropped";
   }
-  return (entry.handler as Handler<JobName>)(parsed.data, { job, token });
+  const { requestId, orgId } = parsed.data;
+  const runId = "runId" in parsed.data ? parsed.data.runId : undefined;
+  return withLogContext({ requestId, orgId, runId, jobId: job.id }, () =>
+    (entry.handler as Handler<JobName>)(parsed.data, { job, token }),
+  );
 }

@@ -1,8 +1,7 @@
-/** Runs lib/runs/sweep.ts every 30 s (first pass after 10 s). */
+/** Runs lib/runs/sweep.ts every RUN_SWEEP_SECONDS (default 30; first pass after a third of that). */
+import { env } from "@/lib/env";
 import { sweepOrphanRuns } from "@/lib/runs/sweep";
 import { log } from "./log";
-
-const SWEEP_EVERY_MS = 30_000;
 
 export function startSweeper(): { stop: () => void } {
   let busy = false;
@@ -11,15 +10,17 @@ export function startSweeper(): { stop: () => void } {
     busy = true;
     try {
       const { requeued, failed } = await sweepOrphanRuns();
-      if (requeued || failed) log(`sweeper: ${requeued} run(s) re-queued, ${failed} lost run(s) failed`);
+      if (requeued || failed)
+        log(`sweeper: ${requeued} run(s) re-queued, ${failed} lost run(s) failed`);
     } catch (error) {
       log("sweeper pass failed", error);
     } finally {
       busy = false;
     }
   };
-  const first = setTimeout(pass, 10_000);
-  const timer = setInterval(pass, SWEEP_EVERY_MS);
+  const everyMs = env.RUN_SWEEP_SECONDS * 1000;
+  const first = setTimeout(pass, Math.ceil(everyMs / 3));
+  const timer = setInterval(pass, everyMs);
   return {
     stop() {
       clearTimeout(first);

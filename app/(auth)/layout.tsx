@@ -1,6 +1,21 @@
 import Link from "next/link";
 import type { ReactNode } from "react";
 import { Logo } from "@/components/ui/logo";
+import figures from "@/lib/examples/example-figures.json";
+import { formatFixed, formatPlusMinus } from "@/lib/format/uncertainty";
+
+/** The side panel's figures: the invented three-spin cluster, as the engine computes it. */
+const panel = [
+  { label: "exact", value: formatFixed(figures.exact, 6) },
+  {
+    label: `${figures.shots.toLocaleString("en-US").replace(/,/g, "\u202f")} shots`,
+    value: formatPlusMinus(figures.sampled.mean, figures.sampled.stdErr),
+  },
+  {
+    label: "noisy, mitigated",
+    value: formatPlusMinus(figures.mitigated.mean, figures.mitigated.stdErr),
+  },
+];
 
 /** Two-column frame for sign-in, sign-up and friends: what Ketwise does on the left, the form on the right. */
 export default function AuthLayout({ children }: { children: ReactNode }) {
@@ -16,24 +31,21 @@ export default function AuthLayout({ children }: { children: ReactNode }) {
           </p>
           <p className="text-[15px] leading-7 text-ink-2">
             Ketwise computes ⟨ψ|A|ψ⟩ for the state your circuit prepares — exactly, as a finite
-            number of shots would estimate it, and under a noise model — and shows the three
-            side by side.
+            number of shots would estimate it, and under a noise model — and shows the three side by
+            side.
           </p>
           <dl className="figures grid gap-2 rounded-lg border border-line bg-surface p-4 text-[13px] shadow-card">
-            <div className="flex justify-between gap-4">
-              <dt className="text-ink-2">exact</dt>
-              <dd className="text-ink">−1.137 284</dd>
-            </div>
-            <div className="flex justify-between gap-4">
-              <dt className="text-ink-2">8 192 shots</dt>
-              <dd className="text-ink">−1.1361 ± 0.0049</dd>
-            </div>
-            <div className="flex justify-between gap-4">
-              <dt className="text-ink-2">noisy, mitigated</dt>
-              <dd className="text-ink">−1.1203 ± 0.0061</dd>
-            </div>
+            {panel.map((row) => (
+              <div key={row.label} className="flex justify-between gap-4">
+                <dt className="text-ink-2">{row.label}</dt>
+                <dd className="text-ink">{row.value}</dd>
+              </div>
+            ))}
           </dl>
-          <p className="text-xs text-ink-3">Illustrative figures for a two-qubit hydrogen ansatz.</p>
+          <p className="text-xs text-ink-3">
+            Invented example: a three-spin cluster of our own at θ = {formatFixed(figures.theta, 2)}
+            , computed by Ketwise.
+          </p>
         </div>
         <p className="text-xs text-ink-3">Simulated values are not device measurements.</p>
       </aside>

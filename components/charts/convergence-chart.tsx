@@ -1,7 +1,7 @@
 "use client";
 /**
  * The running estimate against shots (log axis): the mean at each checkpoint, its 95 %
- * band (mean ± 1.96·stdErr), and the exact value as a reference line. A correct sampler's
+ * band (the run's ci95 at that prefix; mean ± 1.96·stdErr for older runs), and the exact value as a reference line. A correct sampler's
  * band narrows as 1/√N around the exact value (or around the readout-biased value when
  * the noise model has readout error).
  */
@@ -20,7 +20,13 @@ import { Z95 } from "@/components/runs/verdict";
 import { ChartFigure, LegendKey, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
 import { logTicks, niceTicks, paddedDomain, tickLabel } from "./scale";
 
-export type ConvergencePoint = { shots: number; mean: number; stdErr: number };
+export type ConvergencePoint = {
+  shots: number;
+  mean: number;
+  stdErr: number;
+  /** The run's 95 % interval at this prefix (older runs: mean ± 1.96·stdErr). */
+  ci95?: readonly [number, number];
+};
 
 const compact = new Intl.NumberFormat("en-US", { notation: "compact", maximumFractionDigits: 1 });
 
@@ -36,7 +42,9 @@ export function ConvergenceChart({
   const data = points.map((p) => ({
     shots: p.shots,
     mean: p.mean,
-    band: [p.mean - Z95 * p.stdErr, p.mean + Z95 * p.stdErr] as [number, number],
+    band: (p.ci95
+      ? [p.ci95[0], p.ci95[1]]
+      : [p.mean - Z95 * p.stdErr, p.mean + Z95 * p.stdErr]) as [number, number],
   }));
   const last = points[points.length - 1];
   const yDomain = paddedDomain([exact, ...data.flatMap((d) => d.band)], 0.06);

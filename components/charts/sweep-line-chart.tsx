@@ -2,7 +2,7 @@
 /**
  * A 1-D sweep: ⟨A⟩ against one parameter. The exact value (under the noise model, if any)
  * as a line, the noiseless ideal dashed when it differs, sampled points with 95 % error
- * bars (mean ± 1.96·stdErr) when the run drew shots, and the minimum of the exact curve
+ * bars (the point's ci95, asymmetric next to a deterministic outcome) when the run drew shots, and the minimum of the exact curve
  * marked with a ring and its coordinates.
  */
 import {
@@ -40,7 +40,15 @@ export function SweepLineChart({
       exact: p.exact,
       ideal: p.ideal,
       sampled: p.sampled?.mean ?? null,
-      err: p.sampled ? Z95 * p.sampled.stdErr : null,
+      // asymmetric bars from the run's 95 % interval (older runs: ±1.96·stdErr)
+      err: p.sampled
+        ? p.sampled.ci95
+          ? ([p.sampled.mean - p.sampled.ci95[0], p.sampled.ci95[1] - p.sampled.mean] as [
+              number,
+              number,
+            ])
+          : Z95 * p.sampled.stdErr
+        : null,
     }))
     .sort((a, b) => a.x - b.x);
   const hasSampled = data.some((d) => d.sampled !== null);

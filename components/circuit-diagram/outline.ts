@@ -1,5 +1,5 @@
 /**
- * What the composer needs to draw a circuit and offer its parameters: the qubit labels,
+ * What the new-run page needs to draw a circuit and offer its parameters: the qubit labels,
  * the OpenQASM 3 inputs and the top-level operations (measure/reset/barrier/gates with
  * numeric parameters). Produced on the server (the parser stays out of the browser).
  */

@@ -1,6 +1,6 @@
 "use client";
 /**
- * Picks a saved circuit or observable of the organisation (used by the composer).
+ * Picks a saved circuit or observable of the organisation (used by the new-run page).
  * A searchable list inside a dialog; Enter or a click on an entry picks it.
  */
 import Link from "next/link";

@@ -2,7 +2,7 @@
  * The "agreement" strip: one number line with the exact value (ink line), a tolerance
  * band around it, the sampled 95 % interval (verdigris bar, mean dot) and the value a
  * noise model predicts (copper diamond with its own interval). Pure SVG, data-driven.
- * The interval is mean ± 1.96·stdErr (normal approximation).
+ * The illustration draws mean ± 1.96·stdErr (the product's intervals are the run's ci95).
  */
 export type AgreementFigureProps = {
   exact: number;
@@ -14,6 +14,24 @@ export type AgreementFigureProps = {
   ticks: number[];
   className?: string;
 };
+
+/**
+ * A domain a little wider than the given values and ticks at a round step (1, 2 or 5
+ * times a power of ten) that give three to six labels.
+ */
+export function agreementAxis(values: number[]): { domain: [number, number]; ticks: number[] } {
+  const lo = Math.min(...values);
+  const hi = Math.max(...values);
+  const span = hi - lo || Math.abs(hi) || 1;
+  const domain: [number, number] = [lo - 0.12 * span, hi + 0.12 * span];
+  const raw = (domain[1] - domain[0]) / 5;
+  const power = 10 ** Math.floor(Math.log10(raw));
+  const step = ([1, 2, 5, 10].find((m) => m * power >= raw) ?? 10) * power;
+  const ticks: number[] = [];
+  for (let t = Math.ceil(domain[0] / step) * step; t <= domain[1]; t += step)
+    ticks.push(Number(t.toFixed(12)));
+  return { domain, ticks };
+}
 
 const W = 560;
 const H = 132;
@@ -45,7 +63,7 @@ export function AgreementFigure({
       viewBox={`0 0 ${W} ${H}`}
       className={className}
       role="img"
-      aria-label={`Number line: the exact value ${fmt(exact)}; the sampled 95 % interval from ${s[0].toFixed(4)} to ${s[1].toFixed(4)} contains it; the noise-model value sits near ${noisy.mean.toFixed(4)}, outside it.`}
+      aria-label={`Number line: the exact value ${fmt(exact)}; the sampled 95 % interval from ${s[0].toFixed(4)} to ${s[1].toFixed(4)} ${exact >= s[0] && exact <= s[1] ? "contains" : "misses"} it; the noise-model value sits near ${noisy.mean.toFixed(4)}, ${noisy.mean >= s[0] && noisy.mean <= s[1] ? "inside" : "outside"} that interval.`}
     >
       {tolerance ? (
         <rect

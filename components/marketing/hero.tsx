@@ -2,15 +2,27 @@ import Link from "next/link";
 import { StatusBadge } from "@/components/ui/badge";
 import { buttonClasses } from "@/components/ui/button";
 import { Value } from "@/components/ui/value";
-import { AgreementFigure } from "./agreement-figure";
+import figures from "@/lib/examples/example-figures.json";
+import { AgreementFigure, agreementAxis } from "./agreement-figure";
 
-/* An invented example: a 4-qubit toy Hamiltonian, 8 192 shots, 1 % two-qubit depolarizing. */
+/* The invented three-spin cluster (lib/examples): every figure below is the engine's. */
 const example = {
-  exact: -1.137284,
-  sampled: { mean: -1.13412, stdErr: 0.00418 },
-  noisy: { mean: -1.09621, stdErr: 0.00447 },
+  exact: figures.exact,
+  sampled: figures.sampled,
+  noisy: { mean: figures.noisy.mean, stdErr: figures.noisy.stdErr },
 };
 const zScore = (example.sampled.mean - example.exact) / example.sampled.stdErr;
+/** Half-width of the shaded band around the exact value. */
+const TOLERANCE = 0.02;
+const axis = agreementAxis([
+  example.exact - TOLERANCE,
+  example.exact + TOLERANCE,
+  example.sampled.mean - 1.96 * example.sampled.stdErr,
+  example.sampled.mean + 1.96 * example.sampled.stdErr,
+  example.noisy.mean - 1.96 * example.noisy.stdErr,
+  example.noisy.mean + 1.96 * example.noisy.stdErr,
+]);
+const count = (n: number) => n.toLocaleString("en-US").replace(/,/g, "\u202f");
 
 function Row({
   swatch,
@@ -76,9 +88,12 @@ export function Hero() {
         <figure className="rounded-xl border border-line bg-surface shadow-pop">
           <div className="flex items-center justify-between gap-3 border-b border-line px-4 py-3">
             <div className="grid">
-              <span className="text-[13px] font-semibold text-ink">toy-hamiltonian · θ = 0.23</span>
+              <span className="text-[13px] font-semibold text-ink">
+                three-spin cluster · θ = {figures.theta.toFixed(2).replace("-", "\u2212")}
+              </span>
               <span className="figures text-2xs text-ink-3">
-                4 qubits · 15 terms · 5 settings · 8 192 shots
+                {figures.qubits} qubits · {figures.terms} terms · {figures.settings} settings ·{" "}
+                {count(figures.shots)} shots
               </span>
             </div>
             <StatusBadge status="succeeded" />
@@ -94,7 +109,9 @@ export function Hero() {
             <Row
               swatch={<span className="size-2.5 rounded-full bg-sampled" />}
               label="Sampled mean"
-              detail={`8 192 shots · z = ${zScore.toFixed(2)} · consistent`}
+              detail={`${count(figures.shots)} shots · z = ${zScore.toFixed(2).replace("-", "\u2212")} · ${
+                Math.abs(zScore) <= 1.96 ? "consistent" : "off by more than 1.96σ"
+              }`}
             >
               <Value
                 value={example.sampled.mean}
@@ -106,7 +123,7 @@ export function Hero() {
             <Row
               swatch={<span className="size-2.5 rotate-45 bg-noisy" />}
               label="Under the noise model"
-              detail="1 % depolarizing per two-qubit gate"
+              detail={`${figures.noise.depolarizing2q * 100} % depolarizing per two-qubit gate`}
             >
               <Value
                 value={example.noisy.mean}
@@ -119,15 +136,15 @@ export function Hero() {
           <div className="border-t border-line px-2 pt-3 pb-1">
             <AgreementFigure
               {...example}
-              tolerance={0.0016}
-              domain={[-1.16, -1.06]}
-              ticks={[-1.15, -1.13, -1.11, -1.09, -1.07]}
+              tolerance={TOLERANCE}
+              domain={axis.domain}
+              ticks={axis.ticks}
               className="w-full"
             />
           </div>
           <figcaption className="border-t border-line px-4 py-2.5 text-xs leading-5 text-ink-3">
-            Invented example. Shaded: ±1.6 mHa around the exact value. Simulated values, not device
-            measurements.
+            Invented example: a three-spin cluster of our own, computed by Ketwise. Shaded: ±
+            {TOLERANCE} around the exact value. Simulated values, not device measurements.
           </figcaption>
         </figure>
       </div>

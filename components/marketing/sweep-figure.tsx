@@ -1,34 +1,31 @@
 /**
- * An illustrative 1-D energy landscape: the exact curve E(θ) = a + b·cos(θ − θ₀), sampled
- * points with ±1.96σ error bars (fixed, invented offsets), and the minimum marked.
+ * The invented three-spin cluster's landscape along its one-parameter ansatz: the exact
+ * curve E(θ) on a fine grid, thirteen sampled points with ±1.96σ error bars and the
+ * minimum of the grid marked. Every number is the engine's (lib/examples).
  */
+import figures from "@/lib/examples/example-figures.json";
+import { agreementAxis } from "./agreement-figure";
+
 const W = 520;
 const H = 240;
 const M = { l: 46, r: 14, t: 14, b: 34 };
-const a = -0.56;
-const b = -0.58;
-const theta0 = 0.23;
-const E = (t: number) => a + b * Math.cos(t - theta0);
 const domainX: [number, number] = [-Math.PI, Math.PI];
-const domainY: [number, number] = [-1.35, 0.1];
-const offsets = [
-  0.011, -0.007, 0.004, -0.012, 0.006, 0.002, -0.009, 0.013, -0.004, 0.008, -0.006, 0.003, -0.01,
-];
-const sigma = 0.0105;
+const minus = (v: string) => v.replace("-", "\u2212");
+const best = figures.curve.reduce((a, p) => (p.exact < a.exact ? p : a));
+const yAxis = agreementAxis([
+  ...figures.curve.map((p) => p.exact),
+  ...figures.points.flatMap((p) => [p.mean - 1.96 * p.stdErr, p.mean + 1.96 * p.stdErr]),
+]);
+const domainY = yAxis.domain;
 
 const x = (t: number) => M.l + ((t - domainX[0]) / (domainX[1] - domainX[0])) * (W - M.l - M.r);
 const y = (e: number) => M.t + ((domainY[1] - e) / (domainY[1] - domainY[0])) * (H - M.t - M.b);
 
 export function SweepFigure({ className }: { className?: string }) {
-  const curve = Array.from({ length: 121 }, (_, i) => {
-    const t = domainX[0] + (i / 120) * (domainX[1] - domainX[0]);
-    return `${i ? "L" : "M"}${x(t).toFixed(1)} ${y(E(t)).toFixed(1)}`;
-  }).join(" ");
-  const pts = offsets.map((o, i) => {
-    const t = domainX[0] + ((i + 0.5) / offsets.length) * (domainX[1] - domainX[0]);
-    return { t, e: E(t) + o };
-  });
-  const yTicks = [-1.2, -0.9, -0.6, -0.3, 0];
+  const curve = figures.curve
+    .map((p, i) => `${i ? "L" : "M"}${x(p.theta).toFixed(1)} ${y(p.exact).toFixed(1)}`)
+    .join(" ");
+  const yTicks = yAxis.ticks;
   const xTicks = [
     { v: -Math.PI, l: "−π" },
     { v: -Math.PI / 2, l: "−π/2" },
@@ -41,7 +38,7 @@ export function SweepFigure({ className }: { className?: string }) {
       viewBox={`0 0 ${W} ${H}`}
       className={className}
       role="img"
-      aria-label="Energy against the parameter θ from −π to π: a smooth exact curve with its minimum near θ = 0.23, and thirteen sampled points with error bars lying on it."
+      aria-label={`Energy against the parameter θ from −π to π: a smooth exact curve with its minimum near θ = ${minus(best.theta.toFixed(2))}, and ${figures.points.length} sampled points with error bars lying on it.`}
     >
       {yTicks.map((v) => (
         <g key={v}>
@@ -60,7 +57,7 @@ export function SweepFigure({ className }: { className?: string }) {
             className="fill-ink-3 figures"
             fontSize={10}
           >
-            {v.toFixed(1).replace("-", "\u2212")}
+            {minus(String(v))}
           </text>
         </g>
       ))}
@@ -80,18 +77,18 @@ export function SweepFigure({ className }: { className?: string }) {
         θ (rad)
       </text>
       <path d={curve} fill="none" className="stroke-exact" strokeWidth={1.6} />
-      {pts.map((p) => (
-        <g key={p.t} className="stroke-sampled">
+      {figures.points.map((p) => (
+        <g key={p.theta} className="stroke-sampled">
           <line
-            x1={x(p.t)}
-            x2={x(p.t)}
-            y1={y(p.e - 1.96 * sigma)}
-            y2={y(p.e + 1.96 * sigma)}
+            x1={x(p.theta)}
+            x2={x(p.theta)}
+            y1={y(p.mean - 1.96 * p.stdErr)}
+            y2={y(p.mean + 1.96 * p.stdErr)}
             strokeWidth={1.3}
           />
           <circle
-            cx={x(p.t)}
-            cy={y(p.e)}
+            cx={x(p.theta)}
+            cy={y(p.mean)}
             r={3.2}
             className="fill-sampled stroke-surface"
             strokeWidth={1.2}
@@ -99,29 +96,29 @@ export function SweepFigure({ className }: { className?: string }) {
         </g>
       ))}
       <line
-        x1={x(theta0)}
-        x2={x(theta0)}
-        y1={y(E(theta0)) + 6}
+        x1={x(best.theta)}
+        x2={x(best.theta)}
+        y1={y(best.exact) + 6}
         y2={H - M.b}
         className="stroke-accent"
         strokeDasharray="3 3"
       />
       <circle
-        cx={x(theta0)}
-        cy={y(E(theta0))}
+        cx={x(best.theta)}
+        cy={y(best.exact)}
         r={5}
         fill="none"
         className="stroke-accent"
         strokeWidth={1.6}
       />
       <text
-        x={x(theta0) + 9}
-        y={y(E(theta0)) + 16}
+        x={x(best.theta) + 9}
+        y={y(best.exact) + 16}
         className="fill-accent-ink figures"
         fontSize={10.5}
         fontWeight={600}
       >
-        min −1.140 at θ = 0.23
+        min {minus(best.exact.toFixed(3))} at θ = {minus(best.theta.toFixed(2))}
       </text>
     </svg>
   );

@@ -1,3 +1,4 @@
+import figures from "@/lib/examples/example-figures.json";
 import { Section } from "./section";
 import { SweepFigure } from "./sweep-figure";
 
@@ -17,7 +18,9 @@ export function SweepsSection() {
               <span aria-hidden className="h-0.5 w-4 rounded bg-exact" /> exact ⟨H⟩(θ)
             </span>
             <span className="flex items-center gap-2">
-              <span aria-hidden className="size-2 rounded-full bg-sampled" /> 2 048 shots, 95 % bars
+              <span aria-hidden className="size-2 rounded-full bg-sampled" />{" "}
+              {figures.points[0].shots.toLocaleString("en-US").replace(/,/g, "\u202f")} shots, 95 %
+              bars
             </span>
             <span className="flex items-center gap-2">
               <span aria-hidden className="size-2.5 rounded-full border-[1.5px] border-accent" />{" "}
@@ -26,7 +29,8 @@ export function SweepsSection() {
           </div>
           <SweepFigure className="w-full" />
           <figcaption className="sr-only">
-            Illustrative sweep of an invented two-parameter ansatz along θ.
+            Sweep of the invented three-spin cluster along its one-parameter ansatz, computed by
+            Ketwise.
           </figcaption>
         </figure>
         <dl className="grid gap-5 sm:grid-cols-2 lg:grid-cols-1">

@@ -11,6 +11,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { cn } from "@/components/ui/cn";
 import { Value, type ValueTone } from "@/components/ui/value";
 import type { EstimateRequest, EstimateResult } from "@/lib/swr/types";
+import { FEW_SHOTS_PER_SETTING, INTERVAL_METHOD_SENTENCE } from "@/lib/quantum/sampling/interval";
 import { agreementVerdict, pickComparison, verdictSentence, type Verdict } from "./verdict";
 
 function Figure({
@@ -71,6 +72,8 @@ export function AgreementPanel({
   const verdict = agreementVerdict(basis, exact.value);
   const rawVerdict = choice.basis === "mitigated" ? agreementVerdict(sampled, exact.value) : null;
   const look = verdictLook[verdict.kind];
+  const thinnest = result.groups.length > 0 ? Math.min(...result.groups.map((g) => g.shots)) : 0;
+  const fewShots = sampled && thinnest > 0 && thinnest < FEW_SHOTS_PER_SETTING ? thinnest : 0;
 
   const lanes: AgreementLane[] = [];
   if (sampled)
@@ -158,6 +161,18 @@ export function AgreementPanel({
               z = {verdict.z.toFixed(2).replace("-", "−")} · two-sided p ={" "}
               {verdict.p! < 1e-4 ? verdict.p!.toExponential(1) : verdict.p!.toFixed(3)} · verdict
               threshold |z| ≤ 3
+            </p>
+          ) : null}
+          {sampled ? (
+            <p className="text-xs text-ink-2" data-testid="interval-method">
+              {INTERVAL_METHOD_SENTENCE}
+            </p>
+          ) : null}
+          {fewShots ? (
+            <p className="text-xs text-warn" role="note" data-testid="few-shots">
+              Only {fewShots} shot{fewShots === 1 ? "" : "s"} in the thinnest measurement setting:
+              fewer than {FEW_SHOTS_PER_SETTING} per setting cannot give an honest precision, so
+              read the bar as a rough range and add shots before relying on it.
             </p>
           ) : null}
           {choice.readoutBiased ? (

@@ -1,48 +1,54 @@
 "use client";
 /**
- * Downloads of a run: the whole run as JSON, the per-term table and the counts as CSV,
- * and the measurement circuits (one OpenQASM file per setting) as a zip built in the
- * browser with fflate.
+ * Downloads of a run: the whole run as JSON (built here from the run resource), and
+ * the per-term table, the counts and the measurement circuits fetched from the API
+ * exports (`/api/v1/runs/:id/terms.csv|counts.csv|circuits.zip`, lib/export/run-files.ts),
+ * so a script and this page always get the same bytes.
  */
 import { useState } from "react";
-import { measurementCircuitsAction } from "@/app/(app)/app/runs/[id]/actions";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { IconDownload } from "@/components/workspace/icons";
 import { MIME, downloadBlob } from "@/lib/export/download";
-import { countsCsv, fileStem, runJson, termsCsv } from "@/lib/export/run-export";
-import { zipTextFiles } from "@/lib/export/zip";
+import { fileStem, runJson } from "@/lib/export/run-export";
+import { apiFetchFile, isApiError } from "@/lib/swr/api-client";
+import { useWorkspaceOrg } from "@/lib/swr/org-context";
 import type { Run } from "@/lib/swr/types";
 
+type ExportFile = "terms.csv" | "counts.csv" | "circuits.zip";
+
 export function RunDownloads({ run }: { run: Run }) {
-  const [busy, setBusy] = useState(false);
+  const { orgId } = useWorkspaceOrg();
+  const [busy, setBusy] = useState<ExportFile | null>(null);
   const [message, setMessage] = useState<string | null>(null);
   const stem = fileStem(run.name, run.id);
   const result = run.result;
   const hasCounts = !!result?.groups.some((g) => g.counts && Object.keys(g.counts).length);
 
-  const zip = async () => {
-    setBusy(true);
+  const download = async (file: ExportFile) => {
+    setBusy(file);
     setMessage(null);
     try {
-      const answer = await measurementCircuitsAction(run.id);
-      if (!answer.ok) {
-        setMessage(answer.message);
-        return;
-      }
-      const readme = {
-        name: "README.txt",
-        text:
-          `Measurement circuits of Ketwise run ${run.id} (${run.name}).\n` +
-          `One OpenQASM 2.0 file per measurement setting; the file name carries the setting's bases, qubit 0 first.\n` +
-          `Each circuit prepares the run's state, rotates every measured qubit into its basis (X: h; Y: sdg then h) and measures it.\n`,
-      };
-      const bytes = zipTextFiles([readme, ...answer.files]);
-      downloadBlob(bytes.slice().buffer, `${stem}-circuits.zip`, MIME.zip);
+      const { bytes, type, fileName } = await apiFetchFile(orgId, `/api/v1/runs/${run.id}/${file}`);
+      downloadBlob(bytes, fileName ?? `${stem}-${file}`, type);
+    } catch (error) {
+      setMessage(isApiError(error) ? error.message : "The file could not be downloaded.");
     } finally {
-      setBusy(false);
+      setBusy(null);
     }
   };
+
+  const exportButton = (file: ExportFile, label: string) => (
+    <Button
+      variant="secondary"
+      size="sm"
+      icon={<IconDownload />}
+      loading={busy === file}
+      onClick={() => download(file)}
+    >
+      {label}
+    </Button>
+  );
 
   return (
     <div className="grid gap-3">
@@ -55,37 +61,9 @@ export function RunDownloads({ run }: { run: Run }) {
         >
           Run (JSON)
         </Button>
-        {result ? (
-          <Button
-            variant="secondary"
-            size="sm"
-            icon={<IconDownload />}
-            onClick={() => downloadBlob(termsCsv(result), `${stem}-terms.csv`, MIME.csv)}
-          >
-            Terms (CSV)
-          </Button>
-        ) : null}
-        {hasCounts && result ? (
-          <Button
-            variant="secondary"
-            size="sm"
-            icon={<IconDownload />}
-            onClick={() => downloadBlob(countsCsv(result), `${stem}-counts.csv`, MIME.csv)}
-          >
-            Counts (CSV)
-          </Button>
-        ) : null}
-        {result ? (
-          <Button
-            variant="secondary"
-            size="sm"
-            icon={<IconDownload />}
-            loading={busy}
-            onClick={zip}
-          >
-            Measurement circuits (zip)
-          </Button>
-        ) : null}
+        {result ? exportButton("terms.csv", "Terms (CSV)") : null}
+        {hasCounts && result ? exportButton("counts.csv", "Counts (CSV)") : null}
+        {result ? exportButton("circuits.zip", "Measurement circuits (zip)") : null}
       </div>
       {message ? (
         <Alert tone="warning" compact role="status">

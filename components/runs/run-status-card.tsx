@@ -91,7 +91,7 @@ export function RunFailure({ run }: { run: Run }) {
           className={buttonClasses({ variant: "secondary", size: "sm" })}
           href={`/app/runs/new?from=${run.id}`}
         >
-          Open in the composer to fix
+          Edit this run and submit again
         </Link>
       }
     >

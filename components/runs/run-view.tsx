@@ -26,6 +26,7 @@ import { RunDownloads } from "./run-downloads";
 import { METHOD_LABEL, formatDuration, formatWhen } from "./run-meta";
 import { RunFailure, RunProgress } from "./run-status-card";
 import { SpectrumCard } from "./spectrum-card";
+import { GradientCard } from "./gradient-card";
 import { SweepCard } from "./sweep-card";
 import { TermsTable } from "./terms-table";
 
@@ -137,10 +138,18 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
       {result ? (
         <>
           {/* A sweep's landscape comes first; the panels below describe its first grid point. */}
-          {result.sweep && result.sweep.points.length > 1 ? (
+          {result.sweep && (result.sweep.points.length > 1 || result.sweep.kind === "points") ? (
             <SweepCard sweep={result.sweep} noisy={hasNoise} fileStem={stem} />
           ) : null}
           <AgreementPanel request={run.request} result={result} pointLabel={pointLabel} />
+          {result.gradient ? (
+            <GradientCard
+              gradient={result.gradient}
+              shots={result.gradientShots}
+              noisy={hasNoise}
+              pointLabel={pointLabel}
+            />
+          ) : null}
           <div className="grid gap-5 xl:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             {result.sampled && result.sampled.convergence.length > 1 ? (
               <Card>

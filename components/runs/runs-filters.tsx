@@ -1,5 +1,11 @@
 "use client";
-/** Filter bar of the runs list: name search, status, method, submitter and queued days. */
+/**
+ * Filter bar of the runs list: name search, status, method, submitter and queued days.
+ * `value` comes from the URL; the search box keeps what is being typed and hands it on
+ * once typing pauses, and takes the URL's text whenever that changes elsewhere (Clear,
+ * back and forward).
+ */
+import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
@@ -25,6 +31,8 @@ export const EMPTY_FILTERS: RunFilters = {
   to: "",
 };
 
+const SEARCH_PAUSE_MS = 300;
+
 const STATUS_LABEL: Record<string, string> = {
   queued: "Queued",
   running: "Running",
@@ -45,6 +53,18 @@ export function RunsFilters({
   const set = (k: keyof RunFilters) => (e: { target: { value: string } }) =>
     onChange({ ...value, [k]: e.target.value });
   const active = Object.values(value).some(Boolean);
+  const [draft, setDraft] = useState(value.q);
+  const [seenQ, setSeenQ] = useState(value.q);
+  if (seenQ !== value.q) {
+    setSeenQ(value.q);
+    if (draft.trim() !== value.q) setDraft(value.q);
+  }
+  useEffect(() => {
+    const text = draft.trim();
+    if (text === value.q) return;
+    const t = setTimeout(() => onChange({ ...value, q: text }), SEARCH_PAUSE_MS);
+    return () => clearTimeout(t);
+  }, [draft, value, onChange]);
   return (
     <div
       role="search"
@@ -57,8 +77,8 @@ export function RunsFilters({
         <Input
           type="search"
           placeholder="Search by name"
-          value={value.q}
-          onChange={set("q")}
+          value={draft}
+          onChange={(e) => setDraft(e.target.value)}
           className="pl-8"
         />
       </label>

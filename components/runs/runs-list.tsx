@@ -5,8 +5,8 @@
  * queued or running ones, or compare 2–6 finished ones.
  */
 import Link from "next/link";
-import { usePathname, useRouter, useSearchParams } from "next/navigation";
-import { useEffect, useMemo, useState } from "react";
+import { usePathname, useSearchParams } from "next/navigation";
+import { useCallback, useMemo, useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { StatusBadge } from "@/components/ui/badge";
 import { Button, buttonClasses } from "@/components/ui/button";
@@ -16,7 +16,6 @@ import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import { IconStop } from "@/components/workspace/icons";
 import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { cancelRuns } from "@/lib/swr/run-mutations";
-import { useDebounced } from "@/lib/swr/use-debounced";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunStatus } from "@/lib/swr/types";
 import { METHOD_LABEL, formatAgo } from "./run-meta";
@@ -32,32 +31,45 @@ function readFilters(params: URLSearchParams): RunFilters {
   return f;
 }
 
+/**
+ * The URL is the only source of truth for the filters (shareable, survives reload, back
+ * and forward work). Paging and the selection belong to one filter set: they are stored
+ * with the query they were made for and read as empty once the query changes.
+ */
 export function RunsList() {
   const { orgId, role, members } = useWorkspaceOrg();
-  const router = useRouter();
   const pathname = usePathname();
   const params = useSearchParams();
-  const [filters, setFilters] = useState<RunFilters>(() =>
-    readFilters(new URLSearchParams(params.toString())),
-  );
-  const [cursors, setCursors] = useState<(string | null)[]>([null]);
-  const [selected, setSelected] = useState<Set<string>>(new Set());
+  const query = params.toString();
+  const filters = useMemo(() => readFilters(new URLSearchParams(query)), [query]);
+  const [paging, setPaging] = useState<{ query: string; cursors: (string | null)[] }>({
+    query,
+    cursors: [null],
+  });
+  const [picked, setPicked] = useState<{ query: string; ids: Set<string> }>({
+    query,
+    ids: new Set(),
+  });
   const [notice, setNotice] = useState<{ tone: "success" | "error"; text: string } | null>(null);
   const [busy, setBusy] = useState(false);
-  const q = useDebounced(filters.q.trim(), 300);
+  const cursors = paging.query === query ? paging.cursors : [null];
+  const selected = picked.query === query ? picked.ids : new Set<string>();
+  const setCursors = (next: (c: (string | null)[]) => (string | null)[]) =>
+    setPaging({ query, cursors: next(cursors) });
+  const setSelected = (next: Set<string> | ((s: Set<string>) => Set<string>)) =>
+    setPicked({ query, ids: typeof next === "function" ? next(selected) : next });
 
-  // Keep the filters in the URL (shareable, survives reload), and restart paging on change.
-  useEffect(() => {
-    const next = new URLSearchParams();
-    const f = { ...filters, q };
-    for (const [k, v] of Object.entries(f)) if (v) next.set(k, v);
-    const s = next.toString();
-    if (s !== params.toString())
-      router.replace(s ? `${pathname}?${s}` : pathname, { scroll: false });
-    setCursors([null]);
-    setSelected(new Set());
-    // eslint-disable-next-line react-hooks/exhaustive-deps -- the URL follows the filters, not the other way round
-  }, [q, filters.status, filters.method, filters.createdBy, filters.from, filters.to]);
+  // History entries are replaced without a server round trip; Next's router follows them.
+  const setFilters = useCallback(
+    (next: RunFilters) => {
+      const search = new URLSearchParams();
+      for (const [k, v] of Object.entries(next)) if (v) search.set(k, v);
+      const s = search.toString();
+      if (s !== query) window.history.replaceState(null, "", s ? `${pathname}?${s}` : pathname);
+    },
+    [query, pathname],
+  );
+  const q = filters.q;
 
   const cursor = cursors[cursors.length - 1];
   const { data, error, isLoading, mutate } = useRuns({
@@ -245,7 +257,9 @@ export function RunsList() {
                 <TD>
                   <StatusBadge status={r.status} />
                 </TD>
-                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">{METHOD_LABEL[r.method]}</TD>
+                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">
+                  {METHOD_LABEL[r.method]}
+                </TD>
                 <TD numeric>{r.qubits}</TD>
                 <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
                 <TD numeric>

@@ -1,7 +1,9 @@
 "use client";
 /**
- * Sweep results of a run: a line chart for one swept parameter, a heat map for two, the
- * minimum marked; the points as a table and a CSV download.
+ * Parameter points of a run — a sweep grid or an explicit `points` list: for a grid, a
+ * line chart for one swept parameter and a heat map for two; for a list, the values
+ * against the point number (request order). The minimum is marked; the points as a
+ * table (with the gradient per input when the run computed it) and a CSV download.
  */
 import { useState } from "react";
 import { SweepHeatmap } from "@/components/charts/sweep-heatmap";
@@ -12,12 +14,16 @@ import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import { Value } from "@/components/ui/value";
 import { Segmented } from "@/components/workspace/segmented";
+import { GradientValue } from "./gradient-card";
 import { IconDownload } from "@/components/workspace/icons";
 import { MIME, downloadBlob } from "@/lib/export/download";
-import { sweepCsv } from "@/lib/export/run-export";
+import { pointsCsv } from "@/lib/export/run-export";
 import type { EstimateResult } from "@/lib/swr/types";
 
 type Sweep = NonNullable<EstimateResult["sweep"]>;
+
+/** Chart axis of a points list: the point's position in the request. */
+const POINT_AXIS = "point";
 
 export function SweepCard({
   sweep,
@@ -31,16 +37,24 @@ export function SweepCard({
   const [metric, setMetric] = useState<SweepMetric>("exact");
   const [table, setTable] = useState(false);
   const names = sweep.parameters;
+  const isList = sweep.kind === "points";
+  const gradientNames = Object.keys(sweep.points.find((p) => p.gradient)?.gradient ?? {});
   const hasSampled = sweep.points.some((p) => p.sampled);
-  const iMin = argMin(sweep.points.map((p) => metricOf(p, names.length === 2 ? metric : "exact")));
+  const heat = !isList && names.length === 2;
+  const iMin = argMin(sweep.points.map((p) => metricOf(p, heat ? metric : "exact")));
   const min = iMin >= 0 ? sweep.points[iMin] : null;
+  const indexed = isList
+    ? sweep.points.map((p, i) => ({ ...p, params: { ...p.params, [POINT_AXIS]: i } }))
+    : null;
   return (
     <Card aria-labelledby="sweep-title">
       <CardHeader
-        eyebrow="Sweep"
+        eyebrow={isList ? "Points" : "Sweep"}
         title={
           <span id="sweep-title">
-            Landscape over {names.join(" × ")}{" "}
+            {isList
+              ? `Values at the listed bindings${names.length ? ` of ${names.join(", ")}` : ""}`
+              : `Landscape over ${names.join(" × ")}`}{" "}
             <span className="figures font-normal text-ink-3">
               · {sweep.points.length.toLocaleString("en-US")} points
             </span>
@@ -51,14 +65,22 @@ export function SweepCard({
             variant="ghost"
             size="sm"
             icon={<IconDownload />}
-            onClick={() => downloadBlob(sweepCsv(sweep), `${fileStem}-sweep.csv`, MIME.csv)}
+            onClick={() =>
+              downloadBlob(
+                pointsCsv(sweep),
+                `${fileStem}-${isList ? "points" : "sweep"}.csv`,
+                MIME.csv,
+              )
+            }
           >
-            Sweep (CSV)
+            {isList ? "Points (CSV)" : "Sweep (CSV)"}
           </Button>
         }
       />
       <CardBody className="grid gap-4">
-        {names.length === 1 ? (
+        {indexed ? (
+          <SweepLineChart points={indexed} name={POINT_AXIS} noisy={noisy} />
+        ) : names.length === 1 ? (
           <SweepLineChart points={sweep.points} name={names[0]} noisy={noisy} />
         ) : names.length === 2 ? (
           <>
@@ -78,14 +100,10 @@ export function SweepCard({
         ) : null}
         {min ? (
           <p className="text-[13px] text-ink-2" data-testid="sweep-min">
-            Minimum of the {names.length === 2 ? metric : "exact"} value:{" "}
-            <Value
-              value={metricOf(min, names.length === 2 ? metric : "exact")}
-              tone="exact"
-              size="sm"
-            />{" "}
-            at{" "}
+            Minimum of the {heat ? metric : "exact"} value:{" "}
+            <Value value={metricOf(min, heat ? metric : "exact")} tone="exact" size="sm" /> at{" "}
             <span className="figures text-ink">
+              {isList ? `point ${iMin}${names.length ? ": " : ""}` : ""}
               {names.map((n) => `${n} = ${Number(min.params[n].toPrecision(6))}`).join(", ")}
             </span>
             {min.sampled ? (
@@ -116,6 +134,7 @@ export function SweepCard({
             <Table className="mt-2" frameClassName="max-h-96 overflow-y-auto">
               <THead>
                 <TR>
+                  {isList ? <TH numeric>#</TH> : null}
                   {names.map((n) => (
                     <TH key={n} numeric>
                       {n}
@@ -124,11 +143,17 @@ export function SweepCard({
                   {noisy ? <TH numeric>Ideal</TH> : null}
                   <TH numeric>{noisy ? "Exact (noise)" : "Exact"}</TH>
                   {hasSampled ? <TH numeric>Sampled</TH> : null}
+                  {gradientNames.map((n) => (
+                    <TH key={`d-${n}`} numeric>
+                      ∂/∂{n}
+                    </TH>
+                  ))}
                 </TR>
               </THead>
               <TBody>
                 {sweep.points.map((p, i) => (
                   <TR key={i} aria-selected={i === iMin || undefined}>
+                    {isList ? <TD numeric>{i}</TD> : null}
                     {names.map((n) => (
                       <TD key={n} numeric>
                         {Number(p.params[n].toPrecision(6))}
@@ -156,6 +181,11 @@ export function SweepCard({
                         )}
                       </TD>
                     ) : null}
+                    {gradientNames.map((n) => (
+                      <TD key={`d-${n}`} numeric>
+                        <GradientValue entry={p.gradient?.[n]} />
+                      </TD>
+                    ))}
                   </TR>
                 ))}
               </TBody>

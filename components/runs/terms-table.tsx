@@ -18,6 +18,7 @@ import { useMemo, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import { Value } from "@/components/ui/value";
+import { intervalZ } from "@/lib/quantum/sampling/interval";
 import type { EstimateResult } from "@/lib/swr/types";
 import { IconSort } from "@/components/workspace/icons";
 
@@ -73,7 +74,10 @@ const columns = helper.columns([
   }),
   helper.accessor(
     (r) =>
-      r.sampledMean === undefined || !r.stdErr ? Number.NaN : (r.sampledMean - r.exact) / r.stdErr,
+      r.sampledMean === undefined || !r.stdErr
+        ? Number.NaN
+        : (intervalZ({ mean: r.sampledMean, stdErr: r.stdErr, ci95: r.ci95 }, r.exact) ??
+          Number.NaN),
     {
       id: "z",
       header: "z",

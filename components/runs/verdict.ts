@@ -1,7 +1,9 @@
 /**
  * Agreement between a sampled estimate and the exact value it should scatter around.
  *
- * z = (mean − reference) / stdErr. Under the central limit theorem the sampled mean of N
+ * z = (mean − reference) / stdErr — or, when the estimate carries its 95 % interval, divided by
+ * the interval's half-width on the reference's side over 1.96 (the intervals are asymmetric
+ * next to a deterministic outcome; the standard error is never 0 from shots). Under the central limit theorem the sampled mean of N
  * shots is approximately normal around the exact value, so the two-sided p-value is
  * p = 2·(1 − Φ(|z|)) = erfc(|z|/√2). The verdict calls |z| ≤ 3 (p ≥ 0.0027, the common
  * "three sigma" practice) consistent and anything beyond suspicious: at 1.96 a correct
@@ -11,6 +13,8 @@
  * does (readout error acts on sampled outcomes only), so with readout error the raw mean is biased by design; the fair
  * comparison is then the readout-mitigated mean, which `pickComparison` selects.
  */
+
+import { intervalZ } from "@/lib/quantum/sampling/interval";
 
 export const Z_THRESHOLD = 3;
 
@@ -73,7 +77,7 @@ export function zScore(mean: number, reference: number, stdErr: number): number 
  * `tolerance` (relative to the larger magnitude, at least absolute 1e-12), else suspicious.
  */
 export function agreementVerdict(
-  sample: { mean: number; stdErr: number } | null | undefined,
+  sample: { mean: number; stdErr: number; ci95?: [number, number] | null } | null | undefined,
   reference: number | null | undefined,
   { threshold = Z_THRESHOLD, tolerance = 1e-9 }: { threshold?: number; tolerance?: number } = {},
 ): Verdict {
@@ -89,7 +93,10 @@ export function agreementVerdict(
     const agrees = Math.abs(deviation) <= Math.max(tolerance * scale, 1e-12);
     return { kind: agrees ? "exact" : "suspicious", z: null, p: null, deviation };
   }
-  const z = deviation / sample.stdErr;
+  // With an interval, the distance is measured in its half-width on the reference's side
+  // (intervalZ): near a deterministic outcome the interval is one-sided, and |z| ≤ 1.96
+  // exactly when the exact value lies inside ci95.
+  const z = intervalZ(sample, reference) ?? deviation / sample.stdErr;
   return {
     kind: Math.abs(z) <= threshold ? "consistent" : "suspicious",
     z,

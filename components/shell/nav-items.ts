@@ -12,6 +12,7 @@ export type NavIconName =
   | "members"
   | "billing"
   | "audit"
+  | "webhooks"
   | "docs";
 
 export type NavItem = {
@@ -41,6 +42,7 @@ export const defaultNavSections: NavSection[] = [
     items: [
       { href: "/app/members", label: "Members", icon: "members" },
       { href: "/app/api-keys", label: "API keys", icon: "api-keys" },
+      { href: "/app/webhooks", label: "Webhooks", icon: "webhooks" },
       { href: "/app/billing", label: "Billing", icon: "billing" },
       { href: "/app/audit", label: "Audit log", icon: "audit" },
     ],

@@ -9,6 +9,7 @@ import {
   IconCompare,
   IconDashboard,
   IconDocs,
+  IconExternal,
   IconKey,
   IconLibrary,
   IconMembers,
@@ -27,6 +28,7 @@ const icons: Record<NavIconName, typeof IconRuns> = {
   members: IconMembers,
   billing: IconBilling,
   audit: IconAudit,
+  webhooks: IconExternal,
   docs: IconDocs,
 };
 

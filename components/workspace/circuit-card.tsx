@@ -1,6 +1,6 @@
 "use client";
 /**
- * Circuit slot of the composer: format, the OpenQASM editor with inline issues, drag and
+ * Circuit slot of the new-run form: format, the OpenQASM editor with inline issues, drag and
  * drop / upload of a .qasm file, a saved circuit from the library, and the diagram.
  */
 import { useState } from "react";

@@ -15,6 +15,8 @@ import { editorChrome, editorHighlighting } from "./editor-theme";
 import { issueRange, type SourceIssue } from "./issue-ranges";
 import { pauliLanguage, qasmLanguage } from "./qasm-language";
 
+const SUBMIT_EVENT = "ketwise-editor-submit";
+
 export function CodeEditor({
   value,
   onChange,
@@ -46,9 +48,15 @@ export function CodeEditor({
   id?: string;
 }) {
   const ref = useRef<ReactCodeMirrorRef>(null);
-  const submit = useRef(onSubmit);
+  const frame = useRef<HTMLDivElement>(null);
+
+  // Mod-Enter raises SUBMIT_EVENT on the editor; the frame hands it to the current onSubmit.
   useEffect(() => {
-    submit.current = onSubmit;
+    const el = frame.current;
+    if (!el || !onSubmit) return;
+    const handle = () => onSubmit();
+    el.addEventListener(SUBMIT_EVENT, handle);
+    return () => el.removeEventListener(SUBMIT_EVENT, handle);
   }, [onSubmit]);
 
   const extensions = useMemo(
@@ -67,8 +75,8 @@ export function CodeEditor({
         keymap.of([
           {
             key: "Mod-Enter",
-            run: () => {
-              submit.current?.();
+            run: (view) => {
+              view.dom.dispatchEvent(new Event(SUBMIT_EVENT, { bubbles: true }));
               return true;
             },
           },
@@ -101,6 +109,7 @@ export function CodeEditor({
 
   return (
     <div
+      ref={frame}
       data-invalid={invalid || undefined}
       className={cn(
         "overflow-hidden rounded-md border border-line-strong bg-surface transition-[border-color,box-shadow] duration-150",

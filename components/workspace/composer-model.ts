@@ -7,6 +7,7 @@
  * noise.readout.p1Given0, parameters.theta, …) so the shared schema's issues land on the
  * right field; `formPath` maps the few that differ.
  */
+import { pauliTermsToText } from "@/lib/quantum/observable/pauli-terms-text";
 import type { EstimateRequest } from "@/lib/quantum/schemas";
 
 export type Budget = "exact" | "shots" | "precision";
@@ -34,6 +35,9 @@ export type ComposerValues = {
   };
   parameters: Record<string, string>;
   sweepAxes: SweepAxis[];
+  /** Explicit bindings as JSON, `[{"theta": 0.1}, …]` (blank: none); exclusive with sweepAxes. */
+  pointsText: string;
+  gradient: boolean;
 };
 
 export const STARTER_QASM = `OPENQASM 2.0;
@@ -65,7 +69,22 @@ export const DEFAULT_VALUES: ComposerValues = {
   },
   parameters: {},
   sweepAxes: [],
+  pointsText: "",
+  gradient: false,
 };
+
+/** Reads the points text: a JSON array of objects mapping input names to numbers. */
+export function parsePointsText(text: string): Record<string, number>[] | string {
+  let data: unknown;
+  try {
+    data = JSON.parse(text);
+  } catch (e) {
+    return `not valid JSON (${e instanceof Error ? e.message : "parse error"})`;
+  }
+  if (!Array.isArray(data) || data.some((p) => !p || typeof p !== "object" || Array.isArray(p)))
+    return 'expected a list of bindings, e.g. [{"theta": 0.1}, {"theta": 0.2}]';
+  return data as Record<string, number>[];
+}
 
 export type FormIssue = { path: string; message: string };
 
@@ -220,6 +239,12 @@ export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Bu
     });
     if (Object.keys(sweep).length) request.sweep = sweep;
   }
+  if (v.circuit.format === "qasm3" && v.pointsText.trim()) {
+    const points = parsePointsText(v.pointsText);
+    if (typeof points === "string") issues.push({ path: "pointsText", message: points });
+    else request.points = points;
+  }
+  if (v.circuit.format === "qasm3" && v.gradient) request.gradient = true;
   return { request, name: v.name.trim(), issues };
 }
 
@@ -229,6 +254,8 @@ export function formPath(requestPath: string, sweptNames: readonly string[] = []
     return "observable.matrixText";
   if (requestPath === "observable" || requestPath.startsWith("observable.format"))
     return "observable.terms";
+  if (requestPath === "points" || requestPath.startsWith("points.")) return "pointsText";
+  if (requestPath === "gradient") return "gradient";
   if (requestPath.startsWith("sweep")) {
     const name = requestPath.split(".")[1];
     const i = sweptNames.indexOf(name);
@@ -272,15 +299,17 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
     observable:
       req.observable.format === "pauli"
         ? { format: "pauli", terms: req.observable.terms, matrixText: "" }
-        : {
-            format: "matrix",
-            terms: DEFAULT_VALUES.observable.terms,
-            matrixText: JSON.stringify(
-              req.observable.imag
-                ? { real: req.observable.real, imag: req.observable.imag }
-                : { real: req.observable.real },
-            ),
-          },
+        : req.observable.format === "terms"
+          ? { format: "pauli", terms: pauliTermsToText(req.observable.terms), matrixText: "" }
+          : {
+              format: "matrix",
+              terms: DEFAULT_VALUES.observable.terms,
+              matrixText: JSON.stringify(
+                req.observable.imag
+                  ? { real: req.observable.real, imag: req.observable.imag }
+                  : { real: req.observable.real },
+              ),
+            },
     method: req.method ?? "statevector",
     budget,
     shots: budget === "shots" ? String(req.shots) : DEFAULT_VALUES.shots,
@@ -301,5 +330,7 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
       Object.entries(req.parameters ?? {}).map(([k, v]) => [k, String(v)]),
     ),
     sweepAxes,
+    pointsText: req.points ? JSON.stringify(req.points) : "",
+    gradient: !!req.gradient,
   };
 }

@@ -1,13 +1,13 @@
 "use client";
 /**
- * The new-run composer: circuit, observable, parameters, estimate settings and noise on
+ * The new-run form: circuit, observable, parameters, estimate settings and noise on
  * the left, the live preview on the right. One react-hook-form form validated by the
  * shared run schema (composer-resolver); the draft is saved per organisation and
  * restored after a reload; submit with the button or Ctrl/Cmd+Enter from anywhere in it.
  */
 import { useRouter, useSearchParams } from "next/navigation";
-import { useCallback, useEffect, useMemo, useRef, useState } from "react";
-import { FormProvider, useForm, type Path } from "react-hook-form";
+import { useCallback, useEffect, useMemo, useRef, useState, useSyncExternalStore } from "react";
+import { FormProvider, useForm, useWatch, type Path } from "react-hook-form";
 import { Alert, SimulationCaution } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
@@ -38,57 +38,80 @@ import { useCircuitOutline } from "./use-circuit-outline";
 
 const EDITOR_PATHS = ["circuit.source", "observable.terms"];
 
+type Start = { from: "none" } | { from: "draft" | "prefill"; values: ComposerValues };
+const noSubscription = () => () => {};
+
 export function Composer() {
   const { orgId, role } = useWorkspaceOrg();
   const readOnly = !canWrite(role);
   const router = useRouter();
   const search = useSearchParams();
-  const [inputNames, setInputNames] = useState<string[] | undefined>(undefined);
+  const [inputNames, setInputNames] = useState<readonly string[] | undefined>(undefined);
   const form = useForm<ComposerValues, ComposerContext, ComposerOutput>({
     defaultValues: DEFAULT_VALUES,
     resolver: composerResolver,
     context: { inputNames },
   });
-  const { watch, reset, setValue, setError, clearErrors, handleSubmit, formState } = form;
+  const { subscribe, reset, setValue, setError, clearErrors, handleSubmit, formState } = form;
   const [submitError, setSubmitError] = useState<ApiError | null>(null);
-  const [restored, setRestored] = useState<"draft" | "prefill" | null>(null);
   const loaded = useRef(false);
 
   // Restore: an explicit prefill (?from=run, ?circuit=…, ?observable=…) wins over the draft.
+  // The start is decided once, in render, when both are known (the stored draft reads as
+  // undefined on the server and while hydrating); the effect then fills the form with it.
   const prefill = usePrefill(search);
+  const storedDraft = useSyncExternalStore(
+    noSubscription,
+    () => window.localStorage.getItem(draftKey(orgId)),
+    () => undefined,
+  );
+  const [start, setStart] = useState<Start | null>(null);
+  if (!start && prefill.state !== "loading" && storedDraft !== undefined) {
+    const draft = prefill.state === "ready" ? null : readDraft(storedDraft);
+    setStart(
+      prefill.state === "ready"
+        ? { from: "prefill", values: prefill.values }
+        : draft
+          ? { from: "draft", values: draft }
+          : { from: "none" },
+    );
+  }
   useEffect(() => {
-    if (loaded.current || prefill.state === "loading") return;
+    if (!start || loaded.current) return;
     loaded.current = true;
-    if (prefill.state === "ready") {
-      reset(prefill.values);
-      setRestored("prefill");
-      return;
-    }
-    const draft = readDraft(window.localStorage.getItem(draftKey(orgId)));
-    if (draft) {
-      reset(draft);
-      setRestored("draft");
-    }
-  }, [prefill, orgId, reset]);
+    if (start.from !== "none") reset(start.values);
+  }, [start, reset]);
+  const restored = start && start.from !== "none" ? start.from : null;
 
-  // Save the draft on every change (cheap: one JSON string per keystroke, debounced by idle).
+  // Save the draft after each pause in typing, and at once when the page is left (a reload
+  // right after a change must not lose it).
   useEffect(() => {
     let t: ReturnType<typeof setTimeout> | undefined;
-    const sub = watch((values) => {
-      if (!loaded.current) return;
+    let pending: ComposerValues | null = null;
+    const flush = () => {
       clearTimeout(t);
-      t = setTimeout(
-        () => window.localStorage.setItem(draftKey(orgId), writeDraft(values as ComposerValues)),
-        300,
-      );
-    });
-    return () => {
-      clearTimeout(t);
-      sub.unsubscribe();
+      if (pending) window.localStorage.setItem(draftKey(orgId), writeDraft(pending));
+      pending = null;
     };
-  }, [watch, orgId]);
+    const unsubscribe = subscribe({
+      formState: { values: true },
+      callback: ({ values }) => {
+        if (!loaded.current) return;
+        pending = values;
+        clearTimeout(t);
+        t = setTimeout(flush, 300);
+      },
+    });
+    window.addEventListener("pagehide", flush);
+    return () => {
+      flush();
+      window.removeEventListener("pagehide", flush);
+      unsubscribe();
+    };
+  }, [subscribe, orgId]);
 
-  const values = watch();
+  // The whole form, as the preview and the outline need it (a fresh object per change).
+  const values = useWatch({ control: form.control }) as ComposerValues;
   const built = useMemo(() => toRequest(values, inputNames), [values, inputNames]);
   const numericParams = built.request.parameters ?? {};
   const { outline, stale } = useCircuitOutline(
@@ -97,12 +120,16 @@ export function Composer() {
     numericParams,
   );
 
+  // The circuit's inputs follow its latest outline (adjusted in render, not in an effect).
+  const outlineNames = outline?.inputs.map((i) => i.name);
+  if (outlineNames && outlineNames.join("\n") !== inputNames?.join("\n"))
+    setInputNames(outlineNames);
+
   const seenInputs = useRef(new Set<string>());
   // Inputs of the circuit: give new ones a starting value, forget sweeps of vanished ones.
   useEffect(() => {
     if (!outline) return;
     const names = outline.inputs.map((i) => i.name);
-    setInputNames(names);
     for (const n of names) {
       if (seenInputs.current.has(n)) continue;
       seenInputs.current.add(n);
@@ -209,7 +236,7 @@ export function Composer() {
                     onClick={() => {
                       window.localStorage.removeItem(draftKey(orgId));
                       reset(DEFAULT_VALUES);
-                      setRestored(null);
+                      setStart({ from: "none" });
                     }}
                   >
                     Start over

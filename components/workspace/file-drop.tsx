@@ -1,6 +1,6 @@
 "use client";
 /**
- * Drag-and-drop target and an "Upload" button for one composer slot. Files are checked
+ * Drag-and-drop target and an "Upload" button for one slot of the new-run form. Files are checked
  * (extension, size, text) before their text is handed to `onLoad`; a rejected file gives
  * `onReject(message)` and leaves the editor untouched.
  */

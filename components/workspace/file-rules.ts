@@ -1,5 +1,5 @@
 /**
- * Which dropped or chosen files the composer accepts, checked before reading them:
+ * Which dropped or chosen files the new-run form accepts, checked before reading them:
  * the extension must fit the slot, the size must be within its limit, and the content
  * must be UTF-8 text (no NUL bytes). Messages name the file and the limit.
  */

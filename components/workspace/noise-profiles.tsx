@@ -1,6 +1,6 @@
 "use client";
 /**
- * The organisation's saved noise profiles in the composer: loaded through a server
+ * The organisation's saved noise profiles on the new-run page: loaded through a server
  * action (SWR key includes the org id), applied from the profile picker, saved from the
  * current fields (same name = edit), deleted.
  */

@@ -1,6 +1,6 @@
 "use client";
 /**
- * Observable slot of the composer: a Pauli sum (with its own highlighting and inline
+ * Observable slot of the new-run form: a Pauli sum (with its own highlighting and inline
  * issues) or a Hermitian matrix as JSON; drag and drop / upload; the library; and a
  * summary line with the term count, the qubits it acts on and the measurement settings.
  */
@@ -10,6 +10,7 @@ import { ObservablePicker } from "@/components/library/library-picker";
 import { Alert } from "@/components/ui/alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Textarea } from "@/components/ui/textarea";
+import { CLUSTER_TERMS } from "@/lib/examples/three-spin-cluster";
 import type { LibraryObservable } from "@/lib/swr/types";
 import { CodeEditor } from "./code-editor";
 import type { ComposerValues } from "./composer-model";
@@ -127,7 +128,7 @@ export function ObservableCard({
                   minHeight="5.5rem"
                   maxHeight="16rem"
                   readOnly={readOnly}
-                  placeholder="-1.05 + 0.39 Z0 - 0.39 Z1 - 0.01 Z0 Z1 + 0.18 X0 X1"
+                  placeholder={CLUSTER_TERMS}
                 />
               )}
             />

@@ -3,9 +3,11 @@
  * Values of the circuit's OpenQASM 3 inputs, and the sweep: up to two inputs can each
  * take evenly spaced values over a range (a line for one, a grid for two). Angles are in
  * radians; "pi" may be typed as a number only (e.g. 3.14159), the range fields accept the
- * same plain numbers.
+ * same plain numbers. Or an explicit list of points (JSON), and the gradient toggle.
  */
-import { useFormContext } from "react-hook-form";
+import { Controller, useFormContext } from "react-hook-form";
+import { Checkbox } from "@/components/ui/checkbox";
+import { Textarea } from "@/components/ui/textarea";
 import { Badge } from "@/components/ui/badge";
 import { Button } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
@@ -33,7 +35,7 @@ export function ParametersCard({
   inputs: { name: string; type: string }[];
   readOnly?: boolean;
 }) {
-  const { register, watch, setValue, formState } = useFormContext<ComposerValues>();
+  const { register, watch, setValue, formState, control } = useFormContext<ComposerValues>();
   const axes = watch("sweepAxes");
   const errors = formState.errors;
   const sweptIndex = (name: string) => axes.findIndex((a) => a.name === name);
@@ -170,6 +172,36 @@ export function ParametersCard({
         {typeof errors.sweepAxes?.message === "string" ? (
           <p className="mt-2 text-[12.5px] text-danger">{errors.sweepAxes.message}</p>
         ) : null}
+        <div className="mt-4 grid gap-3">
+          <Field
+            label="Points"
+            optional
+            hint='Instead of a sweep: a JSON list of bindings evaluated in order, e.g. [{"theta": 0.1}, {"theta": 0.4}] (up to 10,000; inputs left out take the values above).'
+            error={errors.pointsText?.message}
+          >
+            <Textarea
+              mono
+              rows={3}
+              readOnly={readOnly}
+              disabled={axes.length > 0}
+              placeholder={axes.length > 0 ? "not with a sweep" : "[]"}
+              {...register("pointsText")}
+            />
+          </Field>
+          <Controller
+            control={control}
+            name="gradient"
+            render={({ field }) => (
+              <Checkbox
+                label="Gradient"
+                description="Also compute d⟨A⟩/d(input) for every input: exact by the adjoint method, and with shots by parameter-shift rules (extra shifted circuits, counted in the shots)."
+                checked={field.value}
+                disabled={readOnly}
+                onChange={(ev) => field.onChange(ev.target.checked)}
+              />
+            )}
+          />
+        </div>
       </CardBody>
     </Card>
   );

@@ -1,6 +1,6 @@
 "use client";
 /**
- * The live preview beside the composer: what the run will be (qubits, gates, depth),
+ * The live preview beside the new-run form: what the run will be (qubits, gates, depth),
  * how it will be measured (settings), how many shots it will draw and whether the plan
  * accepts it now. Updated as the user types; the last good answer stays visible (dimmed)
  * while the next one is computed or while the draft has errors.
@@ -113,7 +113,7 @@ export function PreviewPanel({
   }
   const stale = pending || !!error;
   const gates = preview ? Object.entries(preview.gateCounts).sort((a, b) => b[1] - a[1]) : [];
-  const totalShots = preview ? preview.shots * Math.max(1, preview.sweepPoints) : 0;
+  const totalShots = preview ? preview.totalShots : 0;
   return (
     <Card aria-labelledby="preview-title">
       <CardHeader
@@ -190,8 +190,23 @@ export function PreviewPanel({
               </div>
               {preview.sweepPoints > 1 ? (
                 <div className="flex justify-between gap-3">
-                  <span className="text-ink-2">Sweep points</span>
+                  <span className="text-ink-2">Parameter points</span>
                   <span className="figures text-ink">{fmt.format(preview.sweepPoints)}</span>
+                </div>
+              ) : null}
+              {preview.gradient && preview.gradient.shiftedCircuits > 0 ? (
+                <div className="flex justify-between gap-3" data-testid="preview-gradient-shots">
+                  <span className="text-ink-2">
+                    Gradient: {preview.gradient.shiftedCircuits} shifted circuits per point
+                  </span>
+                  <span className="figures text-ink">
+                    +{fmt.format(preview.gradient.shotsPerPoint)} shots
+                  </span>
+                </div>
+              ) : preview.gradient ? (
+                <div className="flex justify-between gap-3">
+                  <span className="text-ink-2">Gradient</span>
+                  <span className="text-ink">exact only</span>
                 </div>
               ) : null}
               {preview.shotPlan ? (

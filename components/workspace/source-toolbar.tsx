@@ -1,6 +1,6 @@
 "use client";
 /**
- * The row above a source editor in the composer: a form switch on the left
+ * The row above a source editor on the new-run page: a form switch on the left
  * (e.g. OpenQASM 2.0 / 3, Pauli sum / matrix) and, unless read-only, the
  * library picker and file upload on the right. Shared by the circuit and
  * observable cards.

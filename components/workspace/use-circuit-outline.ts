@@ -26,10 +26,7 @@ export function useCircuitOutline(
       source: string;
       parameters: Record<string, number>;
     };
-    if (!input.source.trim()) {
-      setOutline(null);
-      return;
-    }
+    if (!input.source.trim()) return;
     circuitOutlineAction(input)
       .then((answer) => {
         if (mine !== seq.current) return;
@@ -43,5 +40,6 @@ export function useCircuitOutline(
       });
   }, [key]);
 
-  return { outline, stale };
+  // An empty editor has no outline, whatever the last answer was.
+  return { outline: source.trim() ? outline : null, stale };
 }

@@ -1,6 +1,6 @@
 "use client";
 /**
- * Values to start the composer with, from the URL: `?from=<run id>` (run again with
+ * Values to start the new-run form with, from the URL: `?from=<run id>` (run again with
  * changes), or `?circuit=<id>` and/or `?observable=<id>` (from the library). Loaded once.
  */
 import type { ReadonlyURLSearchParams } from "next/navigation";

@@ -8,4 +8,5 @@ export * from "./library";
 export * from "./usage";
 export * from "./billing";
 export * from "./noise-profiles";
+export * from "./webhooks";
 export * from "./data-migrations";

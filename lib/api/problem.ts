@@ -8,6 +8,7 @@
  * at the edge. Anything else is logged with an id and answered generically.
  */
 import { ZodError } from "zod";
+import { applyRateLimitHeaders, type RateLimitState } from "@/lib/rate-limit/headers";
 
 export type ProblemFieldError = { path: string; message: string; line?: number; column?: number };
 
@@ -19,6 +20,8 @@ export type Problem = {
   errors?: ProblemFieldError[];
   /** Seconds, for 429 answers; sent as the Retry-After header, not in the body. */
   retryAfter?: number;
+  /** The rate budget that refused the request (429s); sent as RateLimit-* headers, not in the body. */
+  rateLimit?: RateLimitState;
 };
 
 export const PROBLEM_CONTENT_TYPE = "application/problem+json";
@@ -40,18 +43,36 @@ export function isProblemError(error: unknown): error is ProblemError {
   return error instanceof ProblemError;
 }
 
-function make(status: number, slug: string, title: string, detail: string, errors?: ProblemFieldError[]) {
-  return new ProblemError({ type: `/problems/${slug}`, title, status, detail, ...(errors ? { errors } : {}) });
+function make(
+  status: number,
+  slug: string,
+  title: string,
+  detail: string,
+  errors?: ProblemFieldError[],
+) {
+  return new ProblemError({
+    type: `/problems/${slug}`,
+    title,
+    status,
+    detail,
+    ...(errors ? { errors } : {}),
+  });
 }
 
 export const badRequest = (detail: string, errors?: ProblemFieldError[]) =>
   make(400, "bad-request", "Bad request", detail, errors);
 export const validationFailed = (detail: string, errors: ProblemFieldError[]) =>
   make(422, "validation-failed", "Validation failed", detail, errors);
-export const unauthorized = (detail = "Sign in, or send an API key as `Authorization: Bearer kw_…`.") =>
-  make(401, "unauthorized", "Not signed in", detail);
+export const unauthorized = (
+  detail = "Sign in, or send an API key as `Authorization: Bearer kw_…`.",
+) => make(401, "unauthorized", "Not signed in", detail);
 export const sessionExpired = () =>
-  make(401, "session-expired", "Session expired", "Your session has expired. Sign in again to continue.");
+  make(
+    401,
+    "session-expired",
+    "Session expired",
+    "Your session has expired. Sign in again to continue.",
+  );
 export const forbidden = (detail: string) => make(403, "forbidden", "Not allowed", detail);
 export const notFound = (detail = "No such resource in this organisation.") =>
   make(404, "not-found", "Not found", detail);
@@ -63,22 +84,41 @@ export function tooManyRequests(detail: string, retryAfterSeconds: number): Prob
   return error;
 }
 export const internalError = (errorId: string) =>
-  make(500, "internal", "Internal error", `Something went wrong on our side (error id ${errorId}). Try again.`);
+  make(
+    500,
+    "internal",
+    "Internal error",
+    `Something went wrong on our side (error id ${errorId}). Try again.`,
+  );
 
-/** Field errors from a zod failure; `path` is dotted (`observable.terms`). */
+/**
+ * A field path as shown in problems: names joined by dots, list indices in brackets
+ * (`observable.terms[3].pauli`, `noise.readout`); "(root)" for the whole body.
+ */
+export function formatFieldPath(path: readonly PropertyKey[]): string {
+  let out = "";
+  for (const seg of path) {
+    if (typeof seg === "number") out += `[${seg}]`;
+    else out += out === "" ? String(seg) : `.${String(seg)}`;
+  }
+  return out || "(root)";
+}
+
+/** Field errors from a zod failure; `path` as formatFieldPath writes it. */
 export function zodFieldErrors(error: ZodError): ProblemFieldError[] {
   return error.issues.map((issue) => ({
-    path: issue.path.map(String).join(".") || "(root)",
+    path: formatFieldPath(issue.path),
     message: issue.message,
   }));
 }
 
 /** Serialises a problem as a Response with the right status, media type and headers. */
 export function problemResponse(problem: Problem, init?: { headers?: HeadersInit }): Response {
-  const { retryAfter, ...body } = problem;
+  const { retryAfter, rateLimit, ...body } = problem;
   const headers = new Headers(init?.headers);
   headers.set("content-type", PROBLEM_CONTENT_TYPE);
   if (retryAfter !== undefined) headers.set("retry-after", String(retryAfter));
+  if (rateLimit) applyRateLimitHeaders(headers, rateLimit);
   return new Response(JSON.stringify(body), { status: problem.status, headers });
 }
 
@@ -94,7 +134,8 @@ export function newErrorId(): string {
 export function toProblem(error: unknown, context = "request"): Problem {
   if (isProblemError(error)) return error.problem;
   if (error instanceof ZodError) {
-    return validationFailed("The request does not match the schema.", zodFieldErrors(error)).problem;
+    return validationFailed("The request does not match the schema.", zodFieldErrors(error))
+      .problem;
   }
   const id = newErrorId();
   console.error(`[ketwise] unexpected error in ${context} (error id ${id})`, error);

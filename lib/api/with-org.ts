@@ -12,6 +12,9 @@
  * disabled; for users the membership's); (4) spends one point of the actor's rate
  * budget; then runs the handler. Every failure answers problem+json:
  * 401 no/expired credentials, 404 not a member, 403 role too weak, 429 rate.
+ * Every answer after step (4) — successes, problems and 429s alike — carries
+ * the RateLimit-* fields of the budget (lib/rate-limit/headers.ts); a 429 from
+ * another budget inside the handler (run submissions) carries that budget's.
  */
 import "server-only";
 import { getSessionUserFromRequest } from "@/lib/auth/session";
@@ -19,11 +22,23 @@ import { ORG_COOKIE, authorizeMember, pickCurrentOrg } from "@/lib/auth/guards";
 import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
 import { keyStanding } from "@/lib/api-keys/effective-role";
 import { touchApiKey } from "@/lib/orgs/mutations";
-import { findActiveApiKeyByHash, listMembershipsForUser, type OrgSummary } from "@/lib/orgs/queries";
+import {
+  findActiveApiKeyByHash,
+  listMembershipsForUser,
+  type OrgSummary,
+} from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { env } from "@/lib/env";
-import { consume, type Budget } from "@/lib/rate-limit";
-import { forbidden, notFound, problemResponse, sessionExpired, toProblem, unauthorized } from "./problem";
+import { consume, type Budget, type RateLimitState } from "@/lib/rate-limit";
+import { applyRateLimitHeaders } from "@/lib/rate-limit/headers";
+import {
+  forbidden,
+  notFound,
+  problemResponse,
+  sessionExpired,
+  toProblem,
+  unauthorized,
+} from "./problem";
 
 export type Actor =
   | { kind: "user"; userId: string }
@@ -56,20 +71,29 @@ function readCookie(req: Request, name: string): string | null {
 }
 
 async function fromApiKey(token: string, min: Role): Promise<Omit<OrgContext, "params">> {
-  if (!looksLikeApiKey(token)) throw unauthorized("The API key is malformed; keys look like kw_xxxxxxxx_….");
+  if (!looksLikeApiKey(token))
+    throw unauthorized("The API key is malformed; keys look like kw_xxxxxxxx_….");
   const found = await findActiveApiKeyByHash(hashApiKey(token));
   if (!found) throw unauthorized("The API key is unknown or has been revoked.");
   const { key, org } = found;
   // Rights are the lower of the key's role and its creator's current role, checked on every request.
   const standing = keyStanding(key.role, found.creatorRole);
   if (standing.state === "disabled") {
-    throw forbidden(`This API key is disabled: the person who created it is no longer a member of ${org.name}. Create a new key.`);
+    throw forbidden(
+      `This API key is disabled: the person who created it is no longer a member of ${org.name}. Create a new key.`,
+    );
   }
   if (!roleAtLeast(standing.role, min)) {
-    const why = standing.state === "capped" ? ` (the key is ${ROLE_LABELS[key.role]}, but its creator is now ${ROLE_LABELS[standing.creatorRole]})` : "";
-    throw forbidden(`This needs a key with the ${ROLE_LABELS[min]} role or higher; this key acts as ${ROLE_LABELS[standing.role]}${why}.`);
+    const why =
+      standing.state === "capped"
+        ? ` (the key is ${ROLE_LABELS[key.role]}, but its creator is now ${ROLE_LABELS[standing.creatorRole]})`
+        : "";
+    throw forbidden(
+      `This needs a key with the ${ROLE_LABELS[min]} role or higher; this key acts as ${ROLE_LABELS[standing.role]}${why}.`,
+    );
   }
-  if (!key.lastUsedAt || Date.now() - key.lastUsedAt.getTime() > 60_000) await touchApiKey(org.id, key.id);
+  if (!key.lastUsedAt || Date.now() - key.lastUsedAt.getTime() > 60_000)
+    await touchApiKey(org.id, key.id);
   return {
     org: { id: org.id, name: org.name, slug: org.slug, plan: org.plan },
     role: standing.role,
@@ -91,7 +115,10 @@ async function fromSession(req: Request, min: Role): Promise<Omit<OrgContext, "p
 }
 
 /** Resolves actor, organisation and role for a request; throws ProblemError. Exported for tests. */
-export async function resolveOrgContext(req: Request, min: Role = "viewer"): Promise<Omit<OrgContext, "params">> {
+export async function resolveOrgContext(
+  req: Request,
+  min: Role = "viewer",
+): Promise<Omit<OrgContext, "params">> {
   const authorization = req.headers.get("authorization");
   if (authorization) {
     const match = /^Bearer\s+(\S+)$/i.exec(authorization.trim());
@@ -106,17 +133,35 @@ export function withOrg<P = Record<string, string>>(
   options: WithOrgOptions = {},
 ) {
   return async (req: Request, route?: RouteContext<P>): Promise<Response> => {
+    let rate: RateLimitState | undefined;
     try {
       const ctx = await resolveOrgContext(req, options.role ?? "viewer");
       if (options.rateLimit !== false) {
-        const actorKey = ctx.actor.kind === "user" ? `u:${ctx.actor.userId}` : `k:${ctx.actor.apiKeyId}`;
+        const actorKey =
+          ctx.actor.kind === "user" ? `u:${ctx.actor.userId}` : `k:${ctx.actor.apiKeyId}`;
         const budget = options.rateLimit ?? { points: env.API_RATE_LIMIT_PER_MINUTE, duration: 60 };
-        await consume("api", budget, actorKey, "Too many API requests.");
+        rate = await consume("api", budget, actorKey, "Too many API requests.");
       }
       const params = (route ? await route.params : {}) as P;
-      return await handler(req, { ...ctx, params });
+      return withRateLimit(await handler(req, { ...ctx, params }), rate);
     } catch (error) {
-      return problemResponse(toProblem(error, `${req.method} ${new URL(req.url).pathname}`));
+      const problem = toProblem(error, `${req.method} ${new URL(req.url).pathname}`);
+      return problemResponse(
+        problem.rateLimit || !rate ? problem : { ...problem, rateLimit: rate },
+      );
     }
   };
+}
+
+/** The handler's answer with the budget's RateLimit-* fields (copied into a new Response if its headers are immutable). */
+function withRateLimit(res: Response, rate: RateLimitState | undefined): Response {
+  if (!rate) return res;
+  try {
+    applyRateLimitHeaders(res.headers, rate);
+    return res;
+  } catch {
+    const headers = new Headers(res.headers);
+    applyRateLimitHeaders(headers, rate);
+    return new Response(res.body, { status: res.status, statusText: res.statusText, headers });
+  }
 }

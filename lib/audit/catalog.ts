@@ -7,6 +7,7 @@ export const AUDIT_GROUPS = {
   members: "Members and roles",
   invitations: "Invitations",
   api_keys: "API keys",
+  webhooks: "Webhooks",
   billing: "Plan and billing",
   organization: "Organisation",
 } as const;
@@ -25,6 +26,10 @@ export const AUDIT_ACTIONS = {
   "invitation.accepted": { label: "Invitation accepted", group: "invitations" },
   "api_key.created": { label: "API key created", group: "api_keys" },
   "api_key.revoked": { label: "API key revoked", group: "api_keys" },
+  "webhook.created": { label: "Webhook endpoint added", group: "webhooks" },
+  "webhook.enabled": { label: "Webhook endpoint enabled", group: "webhooks" },
+  "webhook.disabled": { label: "Webhook endpoint disabled", group: "webhooks" },
+  "webhook.deleted": { label: "Webhook endpoint deleted", group: "webhooks" },
   "api_key.capped": { label: "API key limited to its creator's role", group: "api_keys" },
   "api_key.disabled": { label: "API key disabled (creator left)", group: "api_keys" },
   "billing.checkout_started": { label: "Checkout started", group: "billing" },
@@ -44,5 +49,7 @@ export function auditLabel(action: string): string {
 }
 
 export function actionsInGroup(group: AuditGroup): AuditAction[] {
-  return (Object.keys(AUDIT_ACTIONS) as AuditAction[]).filter((a) => AUDIT_ACTIONS[a].group === group);
+  return (Object.keys(AUDIT_ACTIONS) as AuditAction[]).filter(
+    (a) => AUDIT_ACTIONS[a].group === group,
+  );
 }

@@ -11,14 +11,13 @@
 import "server-only";
 import { eq } from "drizzle-orm";
 import type Stripe from "stripe";
-import { db } from "@/db";
+import { db, type Tx } from "@/db";
 import { organizations } from "@/db/schema";
 import { lockOrganization } from "@/lib/members/seats";
 import { recordAuditEvent } from "@/lib/orgs/mutations";
 import { ensureCatalog, type Catalog } from "./catalog";
 import { getPlan } from "./plans";
 
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 const ENDED = new Set(["canceled", "incomplete_expired"]);
 

@@ -14,6 +14,7 @@ export type ExportTerm = {
   exact: number | null;
   sampledMean?: number | null;
   stdErr?: number | null;
+  ci95?: readonly [number, number] | null;
   group?: number | null;
 };
 
@@ -31,14 +32,37 @@ export function runJson(run: unknown): string {
   return `${JSON.stringify(run, null, 2)}\n`;
 }
 
-/** One row per Pauli term: word, coefficient, exact ⟨P⟩, sampled ⟨P⟩, its standard error, setting. */
+/**
+ * One row per Pauli term: word, coefficient, exact ⟨P⟩, sampled ⟨P⟩, its standard error
+ * (posterior sd), setting, then the 95 % interval of ⟨P⟩ (same method as the run's).
+ */
 export function termsCsv(result: ExportResult): string {
   const rows: CsvCell[][] = [
-    ["pauli", "coefficient", "exact", "sampled_mean", "std_err", "setting", "setting_bases"],
+    [
+      "pauli",
+      "coefficient",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "setting",
+      "setting_bases",
+      "ci95_low",
+      "ci95_high",
+    ],
   ];
   for (const t of result.terms) {
     const g = typeof t.group === "number" ? result.groups[t.group] : undefined;
-    rows.push([t.pauli, t.coefficient, t.exact, t.sampledMean, t.stdErr, t.group, g?.bases]);
+    rows.push([
+      t.pauli,
+      t.coefficient,
+      t.exact,
+      t.sampledMean,
+      t.stdErr,
+      t.group,
+      g?.bases,
+      t.ci95?.[0],
+      t.ci95?.[1],
+    ]);
   }
   return toCsv(rows);
 }
@@ -69,30 +93,78 @@ export function fileStem(name: string | null | undefined, id: string): string {
   return slug ? `${slug}-${shortId}` : `run-${shortId}`;
 }
 
+type ExportGradient = Record<string, { exact: number; sampled?: { mean: number; stdErr: number } }>;
+
 export type ExportSweep = {
+  kind?: "grid" | "points";
   parameters: readonly string[];
   points: readonly {
     params: Record<string, number>;
     ideal: number;
     exact: number;
-    sampled: { mean: number; stdErr: number; shots: number } | null;
+    sampled: {
+      mean: number;
+      stdErr: number;
+      ci95?: readonly [number, number];
+      shots: number;
+    } | null;
+    gradient?: ExportGradient;
+    gradientShots?: number;
   }[];
 };
 
-/** One row per sweep point: the swept parameters, then ideal, exact, sampled mean, std. error, shots. */
-export function sweepCsv(sweep: ExportSweep): string {
+/**
+ * One row per parameter point, in request order (the file the run page downloads and
+ * `GET /api/v1/runs/:id/points.csv` serves). Columns: `point` (0-based index), the inputs
+ * the grid or list sets, ideal, exact, sampled_mean, std_err, shots, ci95_low, ci95_high;
+ * with gradients, per input x: `d_exact_x`, `d_sampled_x`, `d_std_err_x`, then
+ * `gradient_shots`.
+ */
+export function pointsCsv(sweep: ExportSweep): string {
+  const inputs = Object.keys(sweep.points.find((p) => p.gradient)?.gradient ?? {});
+  const gradientColumns = inputs.flatMap((n) => [
+    `d_exact_${n}`,
+    `d_sampled_${n}`,
+    `d_std_err_${n}`,
+  ]);
   const rows: CsvCell[][] = [
-    [...sweep.parameters, "ideal", "exact", "sampled_mean", "std_err", "shots"],
+    [
+      "point",
+      ...sweep.parameters,
+      "ideal",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "shots",
+      "ci95_low",
+      "ci95_high",
+      ...(inputs.length ? [...gradientColumns, "gradient_shots"] : []),
+    ],
   ];
-  for (const p of sweep.points) {
+  sweep.points.forEach((p, i) => {
     rows.push([
+      i,
       ...sweep.parameters.map((n) => p.params[n]),
       p.ideal,
       p.exact,
       p.sampled?.mean,
       p.sampled?.stdErr,
       p.sampled?.shots,
+      p.sampled?.ci95?.[0],
+      p.sampled?.ci95?.[1],
+      ...(inputs.length
+        ? [
+            ...inputs.flatMap((n) => {
+              const g = p.gradient?.[n];
+              return [g?.exact, g?.sampled?.mean, g?.sampled?.stdErr];
+            }),
+            p.gradientShots,
+          ]
+        : []),
     ]);
-  }
+  });
   return toCsv(rows);
 }
+
+/** The points file of a sweep (the same bytes as pointsCsv). */
+export const sweepCsv = pointsCsv;

@@ -7,7 +7,7 @@
  */
 import "server-only";
 import { and, eq, gt, isNull } from "drizzle-orm";
-import { db } from "@/db";
+import { db, type Tx } from "@/db";
 import { invitations, memberships, users, type Invitation } from "@/db/schema";
 import { conflict, notFound } from "@/lib/api/problem";
 import type { OrgAccess } from "@/lib/auth/guards";
@@ -23,7 +23,6 @@ import { invitationLinkProblem, seatsExhausted, wrongRecipient } from "./problem
 import type { InviteInput } from "./schemas";
 import { hashInvitationToken, invitationExpiry, signInvitationToken, verifyInvitationToken } from "./token";
 
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 export function invitationUrl(token: string): string {
   return `${env.APP_URL.replace(/\/$/, "")}/invite/${token}`;

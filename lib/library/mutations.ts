@@ -8,6 +8,7 @@ import { and, eq } from "drizzle-orm";
 import { db } from "@/db";
 import { circuits, observables } from "@/db/schema";
 import { conflict } from "@/lib/api/problem";
+import { pauliTermsToText } from "@/lib/quantum";
 import { isDuplicateKey } from "@/lib/runs/mutations";
 import { getCircuitOrThrow, getObservableOrThrow } from "./queries";
 import type { CircuitCreateInput, ObservableCreateInput } from "./schemas";
@@ -48,8 +49,9 @@ export async function createObservable(orgId: string, userId: string | null, inp
       name: input.name,
       description: input.description,
       tags: [...new Set(input.tags)],
-      format: input.format,
-      terms: input.format === "pauli" ? input.terms : null,
+      // A JSON term list is kept as the equivalent Pauli-sum text (same numbers, same words).
+      format: input.format === "terms" ? "pauli" : input.format,
+      terms: input.format === "pauli" ? input.terms : input.format === "terms" ? pauliTermsToText(input.terms) : null,
       matrix: input.format === "matrix" ? { real: input.real, ...(input.imag ? { imag: input.imag } : {}) } : null,
       qubits,
     });

@@ -5,7 +5,7 @@
  * name, description and tags, so it can be pasted into a run request as is.
  */
 import { z } from "zod";
-import { circuitInputSchema, matrixObservableSchema, pauliObservableSchema } from "@/lib/quantum/schemas";
+import { circuitInputSchema, matrixObservableSchema, pauliObservableSchema, termsObservableSchema } from "@/lib/quantum/schemas";
 import { nameSchema } from "@/lib/validation/names";
 import { cursorParamSchema, limitParamSchema, pageSchema, timestampSchema } from "@/lib/openapi/common-schemas";
 
@@ -27,8 +27,8 @@ export const circuitCreateSchema = circuitInputSchema.extend(meta).describe("A c
 export type CircuitCreateInput = z.infer<typeof circuitCreateSchema>;
 
 export const observableCreateSchema = z
-  .discriminatedUnion("format", [pauliObservableSchema.extend(meta), matrixObservableSchema.extend(meta)])
-  .describe("An observable to save in the library");
+  .discriminatedUnion("format", [pauliObservableSchema.extend(meta), matrixObservableSchema.extend(meta), termsObservableSchema.extend(meta)])
+  .describe('An observable to save in the library (a "terms" list is saved as the equivalent Pauli-sum text)');
 export type ObservableCreateInput = z.infer<typeof observableCreateSchema>;
 
 const stored = {

@@ -5,7 +5,7 @@
  * field paths point into the library request (`source`, `terms`, `real`…).
  */
 import { ProblemError } from "@/lib/api/problem";
-import { isEngineError, parseMatrixObservable, parsePauliSum, parseProgram } from "@/lib/quantum";
+import { isEngineError, parseMatrixObservable, parsePauliSum, parsePauliTerms, parseProgram } from "@/lib/quantum";
 import { engineProblem } from "@/lib/runs/problems";
 import type { CircuitCreateInput, ObservableCreateInput } from "./schemas";
 
@@ -26,6 +26,10 @@ export function circuitQubits(input: Pick<CircuitCreateInput, "format" | "source
 
 export function observableQubits(input: ObservableCreateInput): number {
   return engineChecked(() =>
-    input.format === "pauli" ? parsePauliSum(input.terms).numQubits : parseMatrixObservable({ real: input.real, imag: input.imag }).n,
+    input.format === "pauli"
+      ? parsePauliSum(input.terms).numQubits
+      : input.format === "terms"
+        ? parsePauliTerms(input.terms).numQubits
+        : parseMatrixObservable({ real: input.real, imag: input.imag }).n,
   );
 }

@@ -9,16 +9,13 @@
  */
 import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
-import { db } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import { apiKeys, memberships, users } from "@/db/schema";
 import { conflict, forbidden, notFound } from "@/lib/api/problem";
 import type { OrgAccess } from "@/lib/auth/guards";
 import { recordAuditEvent } from "@/lib/orgs/mutations";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import type { AssignableRole } from "./schemas";
-import type { Executor } from "./seats";
-
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 async function lockMembers(tx: Tx, orgId: string) {
   return tx

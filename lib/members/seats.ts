@@ -6,12 +6,10 @@
  */
 import "server-only";
 import { and, eq, gt, isNull, sql } from "drizzle-orm";
-import { db, type Db } from "@/db";
+import { db, type Executor, type Tx } from "@/db";
 import { invitations, memberships, organizations, type Organization } from "@/db/schema";
 import { getPlan, isPaidPlan } from "@/lib/billing/plans";
 
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
-export type Executor = Db | Tx;
 
 export type SeatUsage = { members: number; pending: number; used: number; limit: number; paid: boolean };
 

@@ -1,6 +1,6 @@
 /**
  * A noise profile: a name and the engine's own noise model (lib/quantum/schemas.ts,
- * strict: probabilities in [0, 1], unknown fields rejected). Shared by the composer's
+ * strict: probabilities in [0, 1], unknown fields rejected). Shared by the new-run form’s
  * server actions and their tests.
  */
 import { z } from "zod";

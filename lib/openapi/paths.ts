@@ -13,7 +13,15 @@ import {
   observablePageSchema,
   observableSchema,
 } from "@/lib/library/schemas";
-import { runCreateSchema, runListQuerySchema, runPageSchema, runPreviewSchema, runSchema } from "@/lib/runs/schemas";
+import { RUN_FILES } from "@/lib/export/run-files";
+import {
+  runCreateSchema,
+  runGetQuerySchema,
+  runListQuerySchema,
+  runPageSchema,
+  runPreviewSchema,
+  runSchema,
+} from "@/lib/runs/schemas";
 import { usageReportSchema } from "@/lib/usage/schemas";
 import { problemSchema } from "./common-schemas";
 import { bellRunExample } from "./examples";
@@ -24,7 +32,7 @@ const PROBLEM_TEXT: Record<number, string> = {
   402: "Over a plan limit (qubits for the method, monthly shots or simulation-seconds)",
   403: "The key's or member's role is too weak",
   404: "No such item in this organisation",
-  409: "Conflict with the item's current state",
+  409: "Conflict with the item's current state (for exports: the run has not finished yet)",
   413: "Request body larger than the limit",
   415: "Body is not JSON",
   422: "Body does not match the schema (each field error with its path)",
@@ -34,7 +42,13 @@ const PROBLEM_TEXT: Record<number, string> = {
 
 function problems(...codes: number[]): RouteConfig["responses"] {
   return Object.fromEntries(
-    codes.map((code) => [code, { description: PROBLEM_TEXT[code], content: { "application/problem+json": { schema: problemSchema } } }]),
+    codes.map((code) => [
+      code,
+      {
+        description: PROBLEM_TEXT[code],
+        content: { "application/problem+json": { schema: problemSchema } },
+      },
+    ]),
   );
 }
 
@@ -47,9 +61,54 @@ const idParams = z.object({ id: z.uuid().describe("The item's id") });
 const security: Record<string, string[]>[] = [{ bearerKey: [] }, { session: [] }];
 const common = [401, 403, 429];
 
+/** RateLimit-* fields (draft-ietf-httpapi-ratelimit-headers-06) on every answer of an authenticated request. */
+const rateLimitHeaders = z.object({
+  "ratelimit-limit": z.string().describe("Requests allowed per window for this key or user"),
+  "ratelimit-remaining": z.string().describe("Requests left in the current window"),
+  "ratelimit-reset": z.string().describe("Seconds until the window restarts"),
+  "ratelimit-policy": z
+    .string()
+    .describe('The quota policy, e.g. "300;w=60" (300 requests per 60 s)'),
+});
+const retryAfterHeader = z.object({
+  "retry-after": z.string().describe("Seconds to wait before trying again"),
+});
+
 function route(registry: OpenAPIRegistry, config: RouteConfig) {
-  registry.registerPath({ security, ...config });
+  const responses: RouteConfig["responses"] = {};
+  for (const [status, response] of Object.entries(config.responses)) {
+    if (status === "401" || "$ref" in response) {
+      responses[status] = response;
+      continue;
+    }
+    const own = response.headers instanceof z.ZodObject ? response.headers.shape : {};
+    const extra = status === "429" || status === "503" ? retryAfterHeader.shape : {};
+    responses[status] = {
+      ...response,
+      headers: z.object({ ...rateLimitHeaders.shape, ...extra, ...own }),
+    };
+  }
+  registry.registerPath({ security, ...config, responses });
 }
+
+const fileMedia: Record<string, { type: string; what: string }> = {
+  "terms.csv": {
+    type: "text/csv",
+    what: "One row per Pauli term: pauli, coefficient, exact, sampled_mean, std_err, setting, setting_bases, ci95_low, ci95_high",
+  },
+  "counts.csv": {
+    type: "text/csv",
+    what: "One row per (measurement setting, bitstring): setting, setting_bases, bitstring (qubit 0 first), count, setting_shots",
+  },
+  "points.csv": {
+    type: "text/csv",
+    what: "One row per sweep grid point or `points` entry, in request order: the inputs, then ideal, exact, sampled_mean, std_err, shots; with `gradient`, d_exact_<input>, d_sampled_<input>, d_std_err_<input> per input and gradient_shots",
+  },
+  "circuits.zip": {
+    type: "application/zip",
+    what: "One OpenQASM 2.0 measurement circuit per Pauli setting (at the first point) and a README.txt",
+  },
+};
 
 export function registerPaths(registry: OpenAPIRegistry): void {
   route(registry, {
@@ -62,8 +121,17 @@ export function registerPaths(registry: OpenAPIRegistry): void {
       "Validates the request, checks the plan's limits, stores the run as `queued` and answers 202 with its `Location`. " +
       "With an `Idempotency-Key`, a repeated request answers the original run; the same key with another body is 422.",
     request: {
-      headers: z.object({ "idempotency-key": z.string().max(255).optional().describe("Makes retries safe: the same key returns the same run") }),
-      body: { required: true, content: { "application/json": { schema: runCreateSchema, example: bellRunExample } } },
+      headers: z.object({
+        "idempotency-key": z
+          .string()
+          .max(255)
+          .optional()
+          .describe("Makes retries safe: the same key returns the same run"),
+      }),
+      body: {
+        required: true,
+        content: { "application/json": { schema: runCreateSchema, example: bellRunExample } },
+      },
     },
     responses: {
       202: {
@@ -88,19 +156,51 @@ export function registerPaths(registry: OpenAPIRegistry): void {
     operationId: "previewRun",
     tags: ["Runs"],
     summary: "Preview a run without simulating it",
-    description: "Parses the circuit and observable and answers at once: qubits, gate counts, depth, measurement settings, the shot plan for `targetPrecision`, and whether the plan would accept the run now.",
-    request: { body: { required: true, content: { "application/json": { schema: runCreateSchema, example: bellRunExample } } } },
-    responses: { 200: json(runPreviewSchema, "The preview"), ...problems(400, 413, 415, 422, ...common) },
+    description:
+      "Parses the circuit and observable and answers at once: qubits, gate counts, depth, measurement settings, the shot plan for `targetPrecision`, and whether the plan would accept the run now.",
+    request: {
+      body: {
+        required: true,
+        content: { "application/json": { schema: runCreateSchema, example: bellRunExample } },
+      },
+    },
+    responses: {
+      200: json(runPreviewSchema, "The preview"),
+      ...problems(400, 413, 415, 422, ...common),
+    },
   });
   route(registry, {
     method: "get",
     path: "/api/v1/runs/{id}",
     operationId: "getRun",
     tags: ["Runs"],
-    summary: "Get a run (poll until its status is succeeded, failed or canceled)",
-    request: { params: idParams },
-    responses: { 200: json(runSchema, "The run"), ...problems(404, ...common) },
+    summary: "Get a run; with ?wait=N, wait up to N seconds for it to finish",
+    description:
+      "With `wait`, the answer is held until the run is succeeded, failed or canceled (it is woken by the run's finish, not by polling) " +
+      "or until N seconds have passed, then the run is answered as it is then. Loop on it instead of polling. " +
+      "A server holds a bounded number of waiting requests; past that a wait answers at once.",
+    request: { params: idParams, query: runGetQuerySchema },
+    responses: { 200: json(runSchema, "The run"), ...problems(400, 404, ...common) },
   });
+  for (const file of RUN_FILES) {
+    const media = fileMedia[file];
+    route(registry, {
+      method: "get",
+      path: `/api/v1/runs/{id}/${file}`,
+      operationId: `getRun${file.replace(/\.(\w)/, (_m, c: string) => c.toUpperCase()).replace(/^\w/, (c) => c.toUpperCase())}`,
+      tags: ["Runs"],
+      summary: `Download ${file} of a succeeded run (the run page's file, same bytes)`,
+      description: `${media.what}. 409 while the run is queued or running; 404 when it failed, was canceled or has no such data.`,
+      request: { params: idParams },
+      responses: {
+        200: {
+          description: `${file} (Content-Disposition: attachment)`,
+          content: { [media.type]: { schema: z.string().describe(media.what) } },
+        },
+        ...problems(404, 409, ...common),
+      },
+    });
+  }
   route(registry, {
     method: "post",
     path: "/api/v1/runs/{id}/cancel",
@@ -112,8 +212,22 @@ export function registerPaths(registry: OpenAPIRegistry): void {
   });
 
   for (const kind of [
-    { name: "circuits", tag: "Circuits", create: circuitCreateSchema, item: circuitSchema, page: circuitPageSchema, one: "circuit" },
-    { name: "observables", tag: "Observables", create: observableCreateSchema, item: observableSchema, page: observablePageSchema, one: "observable" },
+    {
+      name: "circuits",
+      tag: "Circuits",
+      create: circuitCreateSchema,
+      item: circuitSchema,
+      page: circuitPageSchema,
+      one: "circuit",
+    },
+    {
+      name: "observables",
+      tag: "Observables",
+      create: observableCreateSchema,
+      item: observableSchema,
+      page: observablePageSchema,
+      one: "observable",
+    },
   ] as const) {
     const op = kind.one[0].toUpperCase() + kind.one.slice(1);
     route(registry, {
@@ -131,8 +245,13 @@ export function registerPaths(registry: OpenAPIRegistry): void {
       operationId: `create${op}`,
       tags: [kind.tag],
       summary: `Save a ${kind.one} in the library`,
-      request: { body: { required: true, content: { "application/json": { schema: kind.create } } } },
-      responses: { 201: json(kind.item, `The saved ${kind.one}`), ...problems(400, 409, 413, 415, 422, ...common) },
+      request: {
+        body: { required: true, content: { "application/json": { schema: kind.create } } },
+      },
+      responses: {
+        201: json(kind.item, `The saved ${kind.one}`),
+        ...problems(400, 409, 413, 415, 422, ...common),
+      },
     });
     route(registry, {
       method: "get",
@@ -169,6 +288,11 @@ export function registerPaths(registry: OpenAPIRegistry): void {
     tags: ["Meta"],
     summary: "This document",
     security: [],
-    responses: { 200: { description: "OpenAPI 3.1 document", content: { "application/json": { schema: z.record(z.string(), z.unknown()) } } } },
+    responses: {
+      200: {
+        description: "OpenAPI 3.1 document",
+        content: { "application/json": { schema: z.record(z.string(), z.unknown()) } },
+      },
+    },
   });
 }

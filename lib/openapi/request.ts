@@ -6,16 +6,16 @@
  * is named in its own issue).
  */
 import type { z } from "zod";
-import { badRequest, ProblemError, validationFailed, type ProblemFieldError } from "@/lib/api/problem";
+import { badRequest, formatFieldPath, ProblemError, validationFailed, type ProblemFieldError } from "@/lib/api/problem";
 
 /** Field errors from a zod failure; unknown keys get one entry each, at their own path. */
 export function schemaErrors(error: z.ZodError): ProblemFieldError[] {
   return error.issues.flatMap((issue) => {
-    const base = issue.path.map(String);
+    const base = issue.path;
     if (issue.code === "unrecognized_keys") {
-      return issue.keys.map((key) => ({ path: [...base, key].join("."), message: "unknown field" }));
+      return issue.keys.map((key) => ({ path: formatFieldPath([...base, key]), message: "unknown field" }));
     }
-    return [{ path: base.join(".") || "(root)", message: issue.message }];
+    return [{ path: formatFieldPath(base), message: issue.message }];
   });
 }
 

@@ -5,14 +5,12 @@
  */
 import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
-import { db, type Db } from "@/db";
+import { db, type Executor } from "@/db";
 import { apiKeys, auditEvents, memberships, organizations } from "@/db/schema";
 import { orgNameSchema } from "@/lib/validation/names";
 import { generateApiKey } from "./api-key-format";
 import type { Role } from "./roles";
 
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
-type Executor = Db | Tx;
 
 export type AuditInput = {
   action: string;

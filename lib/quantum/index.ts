@@ -15,6 +15,7 @@ export {
   observableInputSchema,
   pauliObservableSchema,
   matrixObservableSchema,
+  termsObservableSchema,
   noiseModelSchema,
   type EstimateRequest,
   type EstimateResult,
@@ -28,6 +29,7 @@ export type { ParsedProgram, CircuitStats, ProgramInput, QasmFormat } from "./ci
 
 // Observables.
 export { parsePauliSum, type ParsedPauliSum, type TermOrigin } from "./observable/pauli-parse";
+export { parsePauliTerms, pauliTermsToText, type ParsedPauliTerms, type PauliTermInput } from "./observable/pauli-terms";
 export { padPauliSum, sparseLabel, masksToWord } from "./observable/pauli-word";
 export { groupQubitWise, type MeasurementSetting } from "./observable/grouping";
 export { parseMatrixObservable, type HermitianMatrix, type MatrixObservableInput } from "./observable/matrix-observable";

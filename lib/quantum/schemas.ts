@@ -6,8 +6,9 @@
  *
  * Request objects are strict: an unknown field is an error, not silently dropped.
  */
+import { INTERVAL_METHOD_SENTENCE } from "./sampling/interval";
 import { z } from "zod";
-import { MAX_MATRIX_QUBITS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
+import { MAX_MATRIX_QUBITS, MAX_OBSERVABLE_TERMS, MAX_POINTS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
 
 /** Rows and columns of a matrix observable (its eigendecomposition stays within seconds). */
 const MAX_MATRIX_DIM = 2 ** MAX_MATRIX_QUBITS;
@@ -49,7 +50,45 @@ export const matrixObservableSchema = z
   })
   .describe("Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)");
 
-export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema]);
+export const termsObservableSchema = z
+  .strictObject({
+    format: z.literal("terms"),
+    terms: z
+      .array(
+        z.strictObject({
+          coefficient: z.number().describe("Real coefficient of the word"),
+          pauli: z
+            .string()
+            .min(1, "the Pauli word is empty")
+            .max(MAX_SOURCE_CHARS)
+            .describe('One Pauli word, sparse ("X0 Z3") or dense ("XIZY", one letter per qubit); qubit 0 first'),
+        }),
+      )
+      .min(1, "the observable has no terms")
+      .max(MAX_OBSERVABLE_TERMS, `at most ${MAX_OBSERVABLE_TERMS} terms`)
+      .describe("Σ coefficient·word; equal words are summed. Words follow the rules of Pauli-sum text, and errors point at terms[i].pauli"),
+  })
+  .describe("Observable as a JSON list of weighted Pauli words (for generated Hamiltonians)");
+
+export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema, termsObservableSchema]);
+
+const readoutRates = {
+  p1Given0: probability.optional().describe("Probability of reading 1 when the qubit is 0"),
+  p0Given1: probability.optional().describe("Probability of reading 0 when the qubit is 1"),
+};
+
+const gateChannels = z.strictObject({
+  depolarizing: probability
+    .optional()
+    .describe("Depolarizing probability of the whole gate's 2^k-dimensional space (replaces depolarizing1q / depolarizing2q)"),
+  amplitudeDamping: probability.optional().describe("Amplitude damping γ on each qubit (replaces amplitudeDamping)"),
+  phaseDamping: probability.optional().describe("Phase damping λ on each qubit (replaces phaseDamping)"),
+});
+
+/** Qubit index as a record key: "0", "1", … (at most 6 digits; checked against the circuit). */
+const qubitKey = z.string().regex(/^(0|[1-9][0-9]{0,5})$/, 'a qubit index such as "0" or "3"');
+/** Gate name as written in the circuit, e.g. "cx", "mygate", "ctrl @ x". */
+const gateKey = z.string().min(1).max(120);
 
 export const noiseModelSchema = z
   .strictObject({
@@ -59,13 +98,29 @@ export const noiseModelSchema = z
     phaseDamping: probability.optional().describe("Phase damping λ on each qubit a gate touches"),
     readout: z
       .strictObject({
-        p1Given0: probability.optional().describe("Probability of reading 1 when the qubit is 0"),
-        p0Given1: probability.optional().describe("Probability of reading 0 when the qubit is 1"),
+        ...readoutRates,
+        qubits: z
+          .record(qubitKey, z.strictObject(readoutRates))
+          .optional()
+          .describe('Per-qubit readout rates keyed by qubit index ("0" = qubit 0); unset fields use the two rates above'),
       })
       .optional()
-      .describe("Readout error on sampled outcomes (the same for every qubit)"),
+      .describe("Readout error on sampled outcomes (never in `exact`); the same for every qubit unless `qubits` says otherwise"),
+    gates: z
+      .record(gateKey, gateChannels)
+      .optional()
+      .describe(
+        'Overrides by gate name as written in the circuit ("cx", "h", a user gate, "ctrl @ x"): after a call of that gate, the given fields replace the model\'s rates; unset fields keep them',
+      ),
+    idle: gateChannels
+      .optional()
+      .describe(
+        "Idle noise (off unless given): after every gate, each qubit the gate does not touch gets the 1-qubit depolarizing channel, then amplitude and phase damping, with these rates",
+      ),
   })
-  .describe("Noise model; gate noise needs the density-matrix method");
+  .describe(
+    "Noise model (probabilities). After every gate as written (a user gate or ccx counts once): depolarizing of its qubits' space, then amplitude and phase damping on each of them; per-gate overrides and idle noise as described. Gate and idle noise need the density-matrix method; readout error works with both",
+  );
 
 export const estimateRequestSchema = z
   .strictObject({
@@ -83,10 +138,27 @@ export const estimateRequestSchema = z
       .record(z.string(), z.array(z.number()).min(1).max(MAX_SWEEP_POINTS))
       .optional()
       .describe("Parameter grid: each named input takes every listed value (Cartesian product)"),
+    points: z
+      .array(z.record(z.string(), z.number()))
+      .min(1, "points is empty: give at least one binding")
+      .max(MAX_POINTS, `at most ${MAX_POINTS} points per run`)
+      .optional()
+      .describe(
+        "Explicit list of input bindings, evaluated in order (exclusive with sweep). Each point overrides `parameters`; together they must give every declared input.",
+      ),
+    gradient: z
+      .boolean()
+      .optional()
+      .describe(
+        "Also compute d⟨A⟩/d(input) for every declared input: exact by adjoint differentiation, sampled by parameter-shift rules when shots are drawn (the shifted circuits' shots are counted and billed)",
+      ),
   })
   .superRefine((req, ctx) => {
     if (req.targetPrecision !== undefined && (req.shots ?? 0) > 0) {
       ctx.addIssue({ code: "custom", path: ["targetPrecision"], message: "give either shots or targetPrecision, not both" });
+    }
+    if (req.sweep && req.points) {
+      ctx.addIssue({ code: "custom", path: ["points"], message: "give either sweep (a grid) or points (a list), not both" });
     }
     if (req.sweep) {
       const points = Object.values(req.sweep).reduce((a, v) => a * v.length, 1);
@@ -99,6 +171,18 @@ export const estimateRequestSchema = z
 
 export type EstimateRequest = z.infer<typeof estimateRequestSchema>;
 
+const gradientSchema = z
+  .record(
+    z.string(),
+    z.object({
+      exact: z.number().describe("d/d(input) of the exact value (of the noisy Tr(ρA) under noise)"),
+      sampled: z
+        .object({ mean: z.number(), stdErr: z.number().describe("Standard error of the shift-rule estimate") })
+        .optional()
+        .describe("Parameter-shift estimate from the shifted circuits' shots"),
+    }),
+  )
+  .describe("Derivative of the expectation value with respect to every declared input");
 const interval = z.tuple([z.number(), z.number()]);
 
 const estimateSchema = z.object({
@@ -106,8 +190,7 @@ const estimateSchema = z.object({
   stdErr: z
     .number()
     .describe("Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots"),
-  ci95: interval.describe("95 % interval: posterior mean ± Welch–Satterthwaite t quantile × stdErr, widened to contain the mean, clipped to the possible values"),
-  df: z.number().optional().describe("Welch–Satterthwaite degrees of freedom of the interval's t quantile"),
+  ci95: interval.describe("95 % interval: per setting posterior mean ± Student t quantile × posterior sd, settings combined by square-and-add (MOVER) around the mean, clipped to the possible values"),
 });
 
 export const convergencePointSchema = z.object({
@@ -125,7 +208,7 @@ export const shotPlanSchema = z
     stateAware: z
       .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
       .nullable()
-      .describe("(Σ_g √Var_g)²/ε² from the state's exact variances"),
+      .describe("Fewest shots whose expected posterior standard error (the reported stdErr) is at most ε, from the state's exact per-setting means and variances"),
   })
   .describe("Shots needed for a target standard error (McClean et al. 2016)");
 
@@ -158,7 +241,7 @@ export const estimateResultSchema = z
         convergence: z.array(convergencePointSchema).describe("Running estimate at log-spaced shot counts"),
       })
       .nullable()
-      .describe("Estimate from shots (readout error included), or null without shots"),
+      .describe(`Estimate from shots (readout error included), or null without shots. ${INTERVAL_METHOD_SENTENCE}`),
     mitigated: estimateSchema.optional().describe("Readout-mitigated sampled value (tensored inverse)"),
     terms: z.array(
       z.object({
@@ -191,9 +274,12 @@ export const estimateResultSchema = z
     ),
     spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)"),
     shotPlan: shotPlanSchema.optional(),
+    gradient: gradientSchema.optional(),
+    gradientShots: z.int().optional().describe("Shots of the parameter-shifted circuits (main point)"),
     pauliDecomposition: pauliDecompositionSchema.optional(),
     sweep: z
       .object({
+        kind: z.enum(["grid", "points"]).optional().describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
         parameters: z.array(z.string()),
         points: z.array(
           z.object({
@@ -201,6 +287,8 @@ export const estimateResultSchema = z
             ideal: z.number(),
             exact: z.number(),
             sampled: estimateSchema.extend({ shots: z.int() }).nullable(),
+            gradient: gradientSchema.optional(),
+            gradientShots: z.int().optional().describe("Shots of this point's parameter-shifted circuits"),
           }),
         ),
       })
@@ -222,9 +310,17 @@ export const previewResultSchema = z
     observable: z.object({ format: z.enum(["pauli", "matrix"]), terms: z.int(), settings: z.int() }),
     groups: z.array(z.object({ bases: z.string(), terms: z.array(z.int()) })),
     stateBytes: z.number().describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
-    sweepPoints: z.int(),
-    shots: z.int().describe("Shots per sweep point (planned from targetPrecision when given)"),
-    totalShots: z.int().describe("Shots over all sweep points"),
+    sweepPoints: z.int().describe("Parameter points of the run (grid points or listed points)"),
+    shots: z.int().describe("Shots per parameter point (planned from targetPrecision when given)"),
+    gradient: z
+      .object({
+        inputs: z.array(z.string()),
+        shiftedCircuits: z.int().describe("Parameter-shifted circuits per point (0 without shots)"),
+        shotsPerPoint: z.int().describe("Extra shots per point for the sampled gradient"),
+      })
+      .nullable()
+      .describe("Gradient plan when `gradient` is true"),
+    totalShots: z.int().describe("Shots over all parameter points, the gradient's shifted circuits included"),
     shotPlan: shotPlanSchema.nullable(),
     shotsPerSetting: z.array(z.int()).nullable(),
     pauliDecomposition: pauliDecompositionSchema.optional(),

@@ -87,7 +87,12 @@ export interface NoiseModel {
   depolarizing2q?: number;
   amplitudeDamping?: number;
   phaseDamping?: number;
-  readout?: { p1Given0?: number; p0Given1?: number };
+  /** Readout error; `qubits["3"]` overrides the two rates for qubit 3. */
+  readout?: { p1Given0?: number; p0Given1?: number; qubits?: Record<string, { p1Given0?: number; p0Given1?: number }> };
+  /** Overrides by gate name as written ("cx", "mygate", "ctrl @ x"); unset fields keep the defaults. */
+  gates?: Record<string, { depolarizing?: number; amplitudeDamping?: number; phaseDamping?: number }>;
+  /** Noise on every qubit a gate does NOT touch, after that gate (off unless given). */
+  idle?: { depolarizing?: number; amplitudeDamping?: number; phaseDamping?: number };
 }
 
 /** Progress report: fraction in [0, 1] and a short phase label. */

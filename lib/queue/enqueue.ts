@@ -5,7 +5,15 @@
  */
 import "server-only";
 import { Queue } from "bullmq";
-import { JOB_ATTEMPTS, JOB_BACKOFF, JOB_SCHEMAS, RUNS_QUEUE, type JobName, type JobPayload } from "./jobs";
+import { currentRequestId } from "@/lib/observability/logger";
+import {
+  JOB_ATTEMPTS,
+  JOB_BACKOFF,
+  JOB_SCHEMAS,
+  RUNS_QUEUE,
+  type JobName,
+  type JobPayload,
+} from "./jobs";
 import { producerConnection, queuePrefix } from "./connection";
 
 export class QueueUnavailableError extends Error {
@@ -22,7 +30,10 @@ const holder = ((globalThis as { __ketwiseQueue?: Holder }).__ketwiseQueue ??= {
 
 export function getRunsQueue(): Queue {
   if (!holder.queue) {
-    holder.queue = new Queue(RUNS_QUEUE, { connection: producerConnection(), prefix: queuePrefix() });
+    holder.queue = new Queue(RUNS_QUEUE, {
+      connection: producerConnection(),
+      prefix: queuePrefix(),
+    });
     // Connection errors surface per call; without a listener they would be logged as unhandled.
     holder.queue.on("error", () => {});
   }
@@ -41,21 +52,25 @@ function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
 
 /**
  * Adds a job. `jobId` makes the add idempotent (BullMQ ignores a second job with
- * the same id while the first exists); run jobs use the run id.
+ * the same id while the first exists); run jobs use the run id. `attempts` and
+ * `backoffMs` (first retry delay, doubled each time) override the default policy.
  */
 export async function enqueue<N extends JobName>(
   name: N,
   payload: JobPayload<N>,
-  options: { jobId: string; delayMs?: number },
+  options: { jobId: string; delayMs?: number; attempts?: number; backoffMs?: number },
 ): Promise<void> {
-  const data = JOB_SCHEMAS[name].parse(payload);
+  const requestId = payload.requestId ?? currentRequestId();
+  const data = JOB_SCHEMAS[name].parse(requestId ? { ...payload, requestId } : payload);
   try {
     await withTimeout(
       getRunsQueue().add(name, data, {
         jobId: options.jobId,
         delay: options.delayMs,
-        attempts: JOB_ATTEMPTS,
-        backoff: JOB_BACKOFF,
+        attempts: options.attempts ?? JOB_ATTEMPTS,
+        backoff: options.backoffMs
+          ? { type: "exponential", delay: options.backoffMs }
+          : JOB_BACKOFF,
         removeOnComplete: { age: 3_600, count: 10_000 },
         removeOnFail: { age: 7 * 86_400 },
       }),
@@ -71,7 +86,8 @@ export async function removeWaitingJob(jobId: string): Promise<void> {
   try {
     const job = await withTimeout(getRunsQueue().getJob(jobId), ENQUEUE_TIMEOUT_MS);
     const state = job ? await job.getState() : null;
-    if (job && (state === "waiting" || state === "delayed" || state === "prioritized")) await job.remove();
+    if (job && (state === "waiting" || state === "delayed" || state === "prioritized"))
+      await job.remove();
   } catch {
     // The worker skips canceled runs anyway.
   }

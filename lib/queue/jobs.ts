@@ -8,15 +8,23 @@ import { z } from "zod";
 
 export const RUNS_QUEUE = "ketwise-runs";
 
+/** The API request that queued the job (its `X-Request-Id`), carried into the worker's log lines. */
+const requestId = z
+  .string()
+  .regex(/^[A-Za-z0-9._-]{8,64}$/)
+  .optional();
+
 export const runJobSchema = z.strictObject({
   orgId: z.uuid(),
   runId: z.uuid(),
+  requestId,
 });
 export type RunJob = z.infer<typeof runJobSchema>;
 
 export const runFinishedMailSchema = z.strictObject({
   orgId: z.uuid(),
   runId: z.uuid(),
+  requestId,
 });
 export type RunFinishedMailJob = z.infer<typeof runFinishedMailSchema>;
 
@@ -24,13 +32,33 @@ export type RunFinishedMailJob = z.infer<typeof runFinishedMailSchema>;
 export const overageJobSchema = z.strictObject({
   orgId: z.uuid(),
   period: z.string().regex(/^\d{4}-(0[1-9]|1[0-2])$/),
+  requestId,
 });
 export type OverageJob = z.infer<typeof overageJobSchema>;
+
+/** Make one delivery per enabled webhook endpoint for a run that became terminal (lib/webhooks/deliveries.ts). */
+export const webhookFanoutSchema = z.strictObject({
+  orgId: z.uuid(),
+  runId: z.uuid(),
+  status: z.enum(["succeeded", "failed", "canceled"]),
+  requestId,
+});
+export type WebhookFanoutJob = z.infer<typeof webhookFanoutSchema>;
+
+/** One signed POST of a delivery; retried with WEBHOOK_MAX_ATTEMPTS / WEBHOOK_RETRY_BASE_MS. */
+export const webhookDeliverSchema = z.strictObject({
+  orgId: z.uuid(),
+  deliveryId: z.uuid(),
+  requestId,
+});
+export type WebhookDeliverJob = z.infer<typeof webhookDeliverSchema>;
 
 export const JOB_SCHEMAS = {
   "run.execute": runJobSchema,
   "run.finished-mail": runFinishedMailSchema,
   "billing.report-overage": overageJobSchema,
+  "webhook.fanout": webhookFanoutSchema,
+  "webhook.deliver": webhookDeliverSchema,
 } as const;
 
 export type JobName = keyof typeof JOB_SCHEMAS;

@@ -7,14 +7,19 @@
  * Magic-link requests: 5 per e-mail and 20 per IP per 15 minutes. Sign-ups:
  * 3 per e-mail and 10 per IP per hour. API (withOrg): API_RATE_LIMIT_PER_MINUTE
  * requests per minute per key or user (route handlers may ask for another budget).
- * A limit answers `ProblemError` 429 with Retry-After in seconds.
+ * A limit answers `ProblemError` 429 with Retry-After in seconds; `consume`
+ * returns the budget's state for the RateLimit-* answer fields (./headers.ts).
  */
 import "server-only";
 import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
 import { env } from "@/lib/env";
 import { clientIpFrom } from "./client-ip";
+import type { RateLimitState } from "./headers";
+import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
+
+export type { RateLimitState } from "./headers";
 
 export type Budget = { points: number; duration: number };
 
@@ -46,18 +51,40 @@ function limiter(name: string, budget: Budget): RateLimiterRedis {
   return found;
 }
 
+function stateOf(budget: Budget, res: RateLimiterRes): RateLimitState {
+  return {
+    limit: budget.points,
+    remaining: Math.max(0, res.remainingPoints),
+    resetSeconds: Math.max(0, Math.ceil(res.msBeforeNext / 1000)),
+    windowSeconds: budget.duration,
+  };
+}
+
 /**
- * Spends one point of `name`'s budget for `key`; throws 429 when spent out.
- * `message` is the user-facing detail; the wait is appended in minutes/seconds.
+ * Spends one point of `name`'s budget for `key` and returns what is left of it;
+ * throws 429 (carrying the same state) when spent out. `message` is the
+ * user-facing detail; the wait is appended in minutes/seconds.
  */
-export async function consume(name: string, budget: Budget, key: string, message: string): Promise<void> {
+export async function consume(
+  name: string,
+  budget: Budget,
+  key: string,
+  message: string,
+): Promise<RateLimitState> {
   try {
-    await limiter(name, budget).consume(key);
+    return stateOf(budget, await limiter(name, budget).consume(key));
   } catch (error) {
     if (error instanceof RateLimiterRes) {
-      const seconds = Math.ceil(error.msBeforeNext / 1000);
+      metrics().rateLimitRefusals.inc({ budget: name });
+      const seconds = Math.max(1, Math.ceil(error.msBeforeNext / 1000));
       const wait = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
-      throw tooManyRequests(`${message} Try again in ${wait}.`, seconds);
+      const limited = tooManyRequests(`${message} Try again in ${wait}.`, seconds);
+      limited.problem.rateLimit = {
+        ...stateOf(budget, error),
+        remaining: 0,
+        resetSeconds: seconds,
+      };
+      throw limited;
     }
     throw error;
   }

@@ -26,8 +26,15 @@ export function compactResult(result: EstimateResult): EstimateResult {
   };
 }
 
-/** Shots actually drawn: every sweep point's, or the single estimate's. */
+/**
+ * Shots actually drawn: every parameter point's (grid or list), or the single estimate's,
+ * each with the shots of its gradient's parameter-shifted circuits.
+ */
 export function shotsDrawn(result: EstimateResult): number {
-  if (result.sweep) return result.sweep.points.reduce((sum, p) => sum + (p.sampled?.shots ?? 0), 0);
-  return result.sampled?.shots ?? 0;
+  if (result.sweep)
+    return result.sweep.points.reduce(
+      (sum, p) => sum + (p.sampled?.shots ?? 0) + (p.gradientShots ?? 0),
+      0,
+    );
+  return (result.sampled?.shots ?? 0) + (result.gradientShots ?? 0);
 }

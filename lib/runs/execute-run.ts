@@ -19,7 +19,12 @@ import { estimateRequestSchema, type EstimateResult } from "@/lib/quantum/schema
 import type { RunJob } from "@/lib/queue/jobs";
 import { compactResult, shotsDrawn } from "./compact-result";
 import type { EngineRunner } from "./engine-runner";
-import { claimRun, failUnfinishedRun, finishRun, recordCanceledRunUsage } from "./execution-mutations";
+import {
+  claimRun,
+  failUnfinishedRun,
+  finishRun,
+  recordCanceledRunUsage,
+} from "./execution-mutations";
 import { notifyIfLong } from "./notify";
 import { engineProblem, malformedRunProblem, timeLimitProblem } from "./problems";
 import { startProgressTicker } from "./progress-ticker";
@@ -37,7 +42,12 @@ export type ExecuteOptions = {
   timeLimitMs?: number;
 };
 
-export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger, options: ExecuteOptions = {}): Promise<ExecuteOutcome> {
+export async function executeRun(
+  job: RunJob,
+  engine: EngineRunner,
+  log: Logger,
+  options: ExecuteOptions = {},
+): Promise<ExecuteOutcome> {
   const { orgId, runId } = job;
   const claim = await claimRun(orgId, runId);
   if (claim.kind === "missing" || claim.kind === "terminal") return { kind: claim.kind };
@@ -48,7 +58,11 @@ export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger,
   const parsed = estimateRequestSchema.safeParse({ ...run.request, seed: run.seed });
   if (!parsed.success) {
     const first = parsed.error.issues[0];
-    await failUnfinishedRun(orgId, runId, malformedRunProblem(`${first.path.join(".") || "request"}: ${first.message}`));
+    await failUnfinishedRun(
+      orgId,
+      runId,
+      malformedRunProblem(`${first.path.join(".") || "request"}: ${first.message}`),
+    );
     return { kind: "failed", elapsedMs: 0 };
   }
 
@@ -59,10 +73,16 @@ export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger,
     controller.abort();
   };
   const ticker = startProgressTicker({ orgId, runId, attempt }, () => stop("canceled"), log);
-  const timer = setTimeout(() => stop("time-limit"), options.timeLimitMs ?? plan.limits.maxRunSeconds * 1000);
+  const timer = setTimeout(
+    () => stop("time-limit"),
+    options.timeLimitMs ?? plan.limits.maxRunSeconds * 1000,
+  );
   let outcome;
   try {
-    outcome = await engine.run(parsed.data, { onProgress: ticker.report, signal: controller.signal });
+    outcome = await engine.run(parsed.data, {
+      onProgress: ticker.report,
+      signal: controller.signal,
+    });
   } finally {
     clearTimeout(timer);
     await ticker.stop();
@@ -79,8 +99,9 @@ export async function executeRun(job: RunJob, engine: EngineRunner, log: Logger,
       });
       return { kind: done ? "failed" : "superseded", elapsedMs };
     }
-    await recordCanceledRunUsage(orgId, runId, seconds);
-    return { kind: "canceled", elapsedMs };
+    // Stopped because the run is no longer this attempt's: canceled by a person, or taken over by another worker.
+    const canceled = await recordCanceledRunUsage(orgId, runId, seconds);
+    return { kind: canceled ? "canceled" : "superseded", elapsedMs };
   }
 
   if (outcome.kind === "engine-error") {

@@ -15,6 +15,7 @@ import { getPlan, type Plan } from "@/lib/billing/plans";
 import { recordRunUsage, type RunUsage } from "@/lib/usage/mutations";
 import { periodOf } from "@/lib/usage/period";
 import { isTerminalStatus, type RunStatus } from "./constants";
+import { announceRunFinished } from "./run-events";
 
 export type ClaimResult =
   | { kind: "missing" }
@@ -52,7 +53,14 @@ export async function claimRun(orgId: string, runId: string): Promise<ClaimResul
     const [claimed] = await db
       .update(runs)
       .set({ status: "running", attempts: attempt, startedAt, progress: 0, phase: "starting" })
-      .where(and(eq(runs.orgId, orgId), eq(runs.id, runId), eq(runs.status, run.status), eq(runs.attempts, run.attempts)));
+      .where(
+        and(
+          eq(runs.orgId, orgId),
+          eq(runs.id, runId),
+          eq(runs.status, run.status),
+          eq(runs.attempts, run.attempts),
+        ),
+      );
     if (claimed.affectedRows === 0) continue; // changed under us: read again
     if (!redelivered) {
       const [{ running }] = await db
@@ -62,26 +70,52 @@ export async function claimRun(orgId: string, runId: string): Promise<ClaimResul
       if (running > plan.limits.concurrentRuns) {
         const [undone] = await db
           .update(runs)
-          .set({ status: "queued", attempts: run.attempts, startedAt: null, progress: 0, phase: null })
+          .set({
+            status: "queued",
+            attempts: run.attempts,
+            startedAt: null,
+            progress: 0,
+            phase: null,
+          })
           .where(current(orgId, runId, attempt));
         if (undone.affectedRows === 0) continue; // canceled meanwhile: read again
         return { kind: "busy", running: running - 1, limit: plan.limits.concurrentRuns };
       }
       // A cancel between the compare-and-set and the count found the run
       // "running" and ended it: it never started, so it is not ours to run.
-      const [still] = await db.select({ id: runs.id }).from(runs).where(current(orgId, runId, attempt));
+      const [still] = await db
+        .select({ id: runs.id })
+        .from(runs)
+        .where(current(orgId, runId, attempt));
       if (!still) continue;
     }
-    return { kind: "claimed", run: { ...run, status: "running", attempts: attempt, startedAt }, attempt, plan, redelivered };
+    return {
+      kind: "claimed",
+      run: { ...run, status: "running", attempts: attempt, startedAt },
+      attempt,
+      plan,
+      redelivered,
+    };
   }
   throw new Error(`run ${runId} kept changing while it was being claimed`);
 }
 
 const current = (orgId: string, runId: string, attempt: number) =>
-  and(eq(runs.orgId, orgId), eq(runs.id, runId), eq(runs.status, "running"), eq(runs.attempts, attempt));
+  and(
+    eq(runs.orgId, orgId),
+    eq(runs.id, runId),
+    eq(runs.status, "running"),
+    eq(runs.attempts, attempt),
+  );
 
 /** Writes progress; false when the run is no longer this attempt's (canceled or superseded). */
-export async function writeProgress(orgId: string, runId: string, attempt: number, progress: number, phase: string) {
+export async function writeProgress(
+  orgId: string,
+  runId: string,
+  attempt: number,
+  progress: number,
+  phase: string,
+) {
   const [result] = await db
     .update(runs)
     .set({ progress: Math.min(1, Math.max(0, progress)), phase: phase.slice(0, 64) })
@@ -90,8 +124,16 @@ export async function writeProgress(orgId: string, runId: string, attempt: numbe
 }
 
 /** True while the run is `running` under this attempt. */
-export async function isCurrentAttempt(orgId: string, runId: string, attempt: number): Promise<boolean> {
-  const rows = await db.select({ id: runs.id }).from(runs).where(current(orgId, runId, attempt)).limit(1);
+export async function isCurrentAttempt(
+  orgId: string,
+  runId: string,
+  attempt: number,
+): Promise<boolean> {
+  const rows = await db
+    .select({ id: runs.id })
+    .from(runs)
+    .where(current(orgId, runId, attempt))
+    .limit(1);
   return rows.length > 0;
 }
 
@@ -106,9 +148,15 @@ export type RunFinish = {
 /**
  * Result, status, timings and usage rows in ONE transaction, applied only
  * while this attempt still owns the run. Returns false when it did not.
+ * After the commit the finish is announced (waiters, webhooks).
  */
-export async function finishRun(orgId: string, runId: string, attempt: number, finish: RunFinish): Promise<boolean> {
-  return db.transaction(async (tx) => {
+export async function finishRun(
+  orgId: string,
+  runId: string,
+  attempt: number,
+  finish: RunFinish,
+): Promise<boolean> {
+  const done = await db.transaction(async (tx) => {
     const finishedAt = new Date();
     const [result] = await tx
       .update(runs)
@@ -126,26 +174,44 @@ export async function finishRun(orgId: string, runId: string, attempt: number, f
     await recordRunUsage(tx, orgId, runId, periodOf(finishedAt), finish.usage);
     return true;
   });
+  if (done) await announceRunFinished(orgId, runId, finish.status);
+  return done;
 }
 
-/** Meters the compute a canceled run consumed (once; nothing if the run is not canceled). */
-export async function recordCanceledRunUsage(orgId: string, runId: string, simulationSeconds: number): Promise<void> {
-  await db.transaction(async (tx) => {
+/**
+ * Meters the compute a canceled run consumed (once). Returns false, metering
+ * nothing, when the run is not canceled — another attempt owns it now.
+ */
+export async function recordCanceledRunUsage(
+  orgId: string,
+  runId: string,
+  simulationSeconds: number,
+): Promise<boolean> {
+  return db.transaction(async (tx) => {
     const [run] = await tx
       .select({ status: runs.status, finishedAt: runs.finishedAt })
       .from(runs)
       .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)))
       .for("update");
-    if (run?.status !== "canceled") return;
-    await recordRunUsage(tx, orgId, runId, periodOf(run.finishedAt ?? new Date()), { simulationSeconds });
+    if (run?.status !== "canceled") return false;
+    await recordRunUsage(tx, orgId, runId, periodOf(run.finishedAt ?? new Date()), {
+      simulationSeconds,
+    });
+    return true;
   });
 }
 
 /** Fails a run that has not finished (malformed row, retries exhausted). False if it already had. */
-export async function failUnfinishedRun(orgId: string, runId: string, problem: StoredProblem): Promise<boolean> {
+export async function failUnfinishedRun(
+  orgId: string,
+  runId: string,
+  problem: StoredProblem,
+): Promise<boolean> {
   const [result] = await db
     .update(runs)
     .set({ status: "failed", error: problem, finishedAt: new Date(), phase: "failed" })
-    .where(and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])));
+    .where(
+      and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])),
+    );
   return result.affectedRows > 0;
 }

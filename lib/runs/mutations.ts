@@ -7,11 +7,16 @@ import "server-only";
 import { and, eq, inArray } from "drizzle-orm";
 import { db } from "@/db";
 import { runs, type NewRun, type Run } from "@/db/schema";
+import { announceRunFinished } from "./run-events";
 
 /** MariaDB's duplicate-key error (ER_DUP_ENTRY). */
 export function isDuplicateKey(error: unknown): boolean {
   for (let e: unknown = error; e; e = (e as { cause?: unknown }).cause) {
-    if ((e as { errno?: number }).errno === 1062 || (e as { code?: string }).code === "ER_DUP_ENTRY") return true;
+    if (
+      (e as { errno?: number }).errno === 1062 ||
+      (e as { code?: string }).code === "ER_DUP_ENTRY"
+    )
+      return true;
   }
   return false;
 }
@@ -53,17 +58,24 @@ export async function insertRun(orgId: string, values: RunInsert): Promise<Run |
 
 /** Removes a run that never reached the queue (its row must not linger as a queued orphan). */
 export async function deleteUnqueuedRun(orgId: string, runId: string): Promise<void> {
-  await db.delete(runs).where(and(eq(runs.orgId, orgId), eq(runs.id, runId), eq(runs.status, "queued")));
+  await db
+    .delete(runs)
+    .where(and(eq(runs.orgId, orgId), eq(runs.id, runId), eq(runs.status, "queued")));
 }
 
 /**
- * Cancels a queued or running run. Returns true when this call changed it; a
- * running run's worker sees the status within a fraction of a second and stops.
+ * Cancels a queued or running run. Returns true when this call changed it (and
+ * announces it); a running run's worker sees the status within a fraction of a
+ * second and stops.
  */
 export async function cancelRun(orgId: string, runId: string): Promise<boolean> {
   const [result] = await db
     .update(runs)
     .set({ status: "canceled", finishedAt: new Date(), phase: "canceled" })
-    .where(and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])));
-  return result.affectedRows > 0;
+    .where(
+      and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])),
+    );
+  if (result.affectedRows === 0) return false;
+  await announceRunFinished(orgId, runId, "canceled");
+  return true;
 }

@@ -3,6 +3,7 @@
  * the engine's own errors (400, with its message and field issues), the plan's
  * time limit, unreadable stored requests and exhausted infrastructure retries.
  */
+import { formatFieldPath } from "@/lib/api/problem";
 import type { EngineError } from "@/lib/quantum/errors";
 import type { StoredProblem } from "@/db/schema";
 
@@ -21,7 +22,7 @@ const ENGINE_TITLES: Record<string, string> = {
 /** The engine's error as a 400 problem: its message, and each issue with dotted path and line/column. */
 export function engineProblem(error: Pick<EngineError, "code" | "message" | "issues">): StoredProblem {
   const errors = error.issues.map((issue) => ({
-    path: issue.path.map(String).join(".") || "(root)",
+    path: formatFieldPath(issue.path),
     message: issue.message,
     ...(issue.line !== undefined ? { line: issue.line } : {}),
     ...(issue.column !== undefined ? { column: issue.column } : {}),

@@ -7,8 +7,19 @@
  * optional `name`.
  */
 import { z } from "zod";
-import { estimateRequestSchema, estimateResultSchema, previewResultSchema, type EstimateRequest } from "@/lib/quantum/schemas";
-import { cursorParamSchema, limitParamSchema, pageSchema, problemSchema, timestampSchema } from "@/lib/openapi/common-schemas";
+import {
+  estimateRequestSchema,
+  estimateResultSchema,
+  previewResultSchema,
+  type EstimateRequest,
+} from "@/lib/quantum/schemas";
+import {
+  cursorParamSchema,
+  limitParamSchema,
+  pageSchema,
+  problemSchema,
+  timestampSchema,
+} from "@/lib/openapi/common-schemas";
 import { nameSchema } from "@/lib/validation/names";
 import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES } from "./constants";
 
@@ -62,7 +73,9 @@ const runBase = {
   method: runMethodSchema,
   qubits: z.int(),
   shots: z.int().describe("Planned total shots (0 = exact only)"),
-  seed: z.int().describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
+  seed: z
+    .int()
+    .describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
   createdBy: runCreatorSchema,
   queuedAt: timestampSchema,
   startedAt: timestampSchema.nullable(),
@@ -100,14 +113,39 @@ export type RunSummaryView = z.infer<typeof runSummarySchema>;
 export const runListQuerySchema = z.strictObject({
   status: runStatusSchema.optional().describe("Only runs in this status"),
   method: runMethodSchema.optional().describe("Only runs of this simulation method"),
-  q: z.string().trim().min(1).max(120).optional().describe("Only runs whose name contains this text (case-insensitive)"),
-  createdBy: z.string().min(1).max(36).optional().describe("Only runs submitted by this user id (or API key id)"),
+  q: z
+    .string()
+    .trim()
+    .min(1)
+    .max(120)
+    .optional()
+    .describe("Only runs whose name contains this text (case-insensitive)"),
+  createdBy: z
+    .string()
+    .min(1)
+    .max(36)
+    .optional()
+    .describe("Only runs submitted by this user id (or API key id)"),
   from: z.iso.date().optional().describe("Only runs queued on or after this day (YYYY-MM-DD, UTC)"),
   to: z.iso.date().optional().describe("Only runs queued on or before this day (YYYY-MM-DD, UTC)"),
   cursor: cursorParamSchema.optional(),
   limit: limitParamSchema,
 });
 export type RunListQuery = z.infer<typeof runListQuerySchema>;
+
+/** `GET /api/v1/runs/:id?wait=N`: hold the answer up to N seconds until the run is terminal. */
+export const runGetQuerySchema = z.strictObject({
+  wait: z.coerce
+    .number({ error: "a number of seconds, e.g. 20" })
+    .min(0, "at least 0 seconds")
+    .max(30, "at most 30 seconds")
+    .optional()
+    .describe(
+      "Seconds (0–30) to hold the answer until the run is succeeded, failed or canceled; it answers as soon as the run finishes, " +
+        "or with the run as it is when the time is up. Without it the run is answered at once.",
+    ),
+});
+export type RunGetQuery = z.infer<typeof runGetQuerySchema>;
 
 export const runPageSchema = pageSchema(runSummarySchema).describe("Runs, newest first");
 
@@ -125,7 +163,10 @@ export const quotaVerdictSchema = z
     shots: z.int().describe("Total shots the run would draw (all sweep points)"),
     refusals: z.array(quotaRefusalSchema),
   })
-  .meta({ id: "QuotaVerdict", description: "Whether the organisation's plan would accept this run now" });
+  .meta({
+    id: "QuotaVerdict",
+    description: "Whether the organisation's plan would accept this run now",
+  });
 export type QuotaVerdict = z.infer<typeof quotaVerdictSchema>;
 
 export const runPreviewSchema = previewResultSchema

@@ -87,6 +87,33 @@ export async function apiFetch<T>(orgId: string, path: string, init: ApiInit = {
   return (await res.json()) as T;
 }
 
+/** fetch → the answer's bytes and its `Content-Disposition` file name (exports), or throws ApiError. */
+export async function apiFetchFile(
+  orgId: string,
+  path: string,
+): Promise<{ bytes: ArrayBuffer; type: string; fileName: string | null }> {
+  const headers = new Headers();
+  if (orgId) headers.set("x-ketwise-org", orgId);
+  let res: Response;
+  try {
+    res = await fetch(path, { headers, credentials: "same-origin" });
+  } catch {
+    throw new ApiError({
+      status: 0,
+      title: "Network error",
+      detail: "Could not reach Ketwise. Check your connection and try again.",
+    });
+  }
+  if (!res.ok) throw await toApiError(res);
+  const fileName =
+    /filename="([^"]+)"/.exec(res.headers.get("content-disposition") ?? "")?.[1] ?? null;
+  return {
+    bytes: await res.arrayBuffer(),
+    type: res.headers.get("content-type") ?? "application/octet-stream",
+    fileName,
+  };
+}
+
 /** SWR fetcher for keys of the form [orgId, path]. */
 export function orgFetcher<T>([orgId, path]: readonly [string, string, ...unknown[]]): Promise<T> {
   return apiFetch<T>(orgId, path);

@@ -6,10 +6,9 @@
  */
 import "server-only";
 import { and, eq, sql } from "drizzle-orm";
-import type { Db } from "@/db";
+import type { Tx } from "@/db";
 import { usageEvents, usageTotals } from "@/db/schema";
 
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
 export type RunUsage = { runs?: number; shots?: number; simulationSeconds?: number };
 

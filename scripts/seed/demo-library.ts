@@ -1,13 +1,14 @@
 /**
  * The demo organisation's saved library: an invented scenario of Halcyon Materials Lab
- * (a Bell-type correlator, a two-level reduced model with invented coefficients, a small
- * transverse-field lattice with its ansatz), so the composer's library is never empty.
+ * (a Bell-type correlator, Ketwise's invented three-spin cluster with its ansatz, a small
+ * transverse-field lattice with its ansatz), so the new-run page's library is never empty.
  * Idempotent: items whose name already exists are left alone. Every item is checked by
  * the engine on the way in (library validate), like an item saved through the API.
  */
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { circuits, observables, users } from "@/db/schema";
+import { CLUSTER_ANSATZ, CLUSTER_TERMS } from "@/lib/examples/three-spin-cluster";
 import { createCircuit, createObservable } from "@/lib/library/mutations";
 import { circuitCreateSchema, observableCreateSchema } from "@/lib/library/schemas";
 import { circuitQubits, observableQubits } from "@/lib/library/validate";
@@ -22,12 +23,11 @@ export const DEMO_CIRCUITS = [
     source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nh q[0];\ncx q[0], q[1];\n',
   },
   {
-    name: "Two-level ansatz (θ)",
-    description: "One-parameter ansatz for the reduced two-level model: a single excitation shared between two orbitals.",
-    tags: ["ansatz", "chemistry"],
+    name: "Three-spin ansatz (θ)",
+    description: "One-parameter ansatz for the three-spin cluster: cos(θ/2)|000⟩ + sin(θ/2)|111⟩, qubit 0 first.",
+    tags: ["ansatz", "cluster"],
     format: "qasm3",
-    source:
-      'OPENQASM 3.0;\ninclude "stdgates.inc";\nqubit[2] q;\ninput angle theta;\n\nx q[0];\nry(theta) q[1];\ncx q[1], q[0];\n',
+    source: CLUSTER_ANSATZ,
   },
   {
     name: "Four-site lattice layer (a, b)",
@@ -55,11 +55,11 @@ export const DEMO_OBSERVABLES = [
     terms: "Z0 Z1 + X0 X1",
   },
   {
-    name: "Reduced two-level model",
-    description: "A two-qubit model Hamiltonian in hartree with invented coefficients, for trying the ansatz and the sweep.",
-    tags: ["chemistry", "invented"],
+    name: "Three-spin cluster (invented)",
+    description: "A three-spin chain with Ising coupling, two fields and two three-body terms; every coefficient invented for Ketwise. Try it with the three-spin ansatz and a sweep of θ.",
+    tags: ["cluster", "invented"],
     format: "pauli",
-    terms: "-0.8127 + 0.1731 Z0 - 0.1731 Z1 + 0.0128 Z0 Z1 + 0.1804 X0 X1 + 0.1804 Y0 Y1",
+    terms: CLUSTER_TERMS,
   },
   {
     name: "Transverse-field chain, 4 sites",

@@ -25,7 +25,8 @@ import { startWorker, type WorkerProcess } from "../integration/runs/support/wor
 import { launchBrowser, screenshot } from "../support/browser";
 import { E2E_URL } from "../support/e2e-config";
 import { createUserWithOrg, TEST_PASSWORD } from "../support/factories";
-import { closedFormEnergy, parseCsv } from "./workspace-helpers";
+import { threeSpinEnergy } from "../support/three-spin-closed-form";
+import { parseCsv } from "./workspace-helpers";
 
 let browser: Browser;
 let page: Page;
@@ -68,7 +69,7 @@ async function download(buttonName: string) {
 }
 
 describe("run workspace", () => {
-  it("signs in and opens the composer", async () => {
+  it("signs in and opens the new-run page", async () => {
     await page.goto(`${E2E_URL}/sign-in?callbackUrl=%2Fapp%2Fruns%2Fnew`);
     await page.getByLabel("E-mail").fill(owner.user.email);
     await page.getByLabel("Password").fill(TEST_PASSWORD);
@@ -86,7 +87,7 @@ describe("run workspace", () => {
     expect(
       await page.getByRole("img", { name: /Circuit diagram: 2 qubits, 2 operations/ }).count(),
     ).toBe(1);
-    await screenshot(page, "workspace-composer");
+    await screenshot(page, "workspace-new-run");
   });
 
   it("marks an OpenQASM error at the parser's line, and clears it once fixed", async () => {
@@ -100,7 +101,7 @@ describe("run workspace", () => {
     await issues.getByText(/line 6/).waitFor();
     expect(await issues.textContent()).toMatch(/q\[5\]|index|out of range|range/i);
     await page.getByText("Needs a fix").waitFor();
-    await screenshot(page, "workspace-composer-error");
+    await screenshot(page, "workspace-new-run-error");
     for (let i = 0; i < bad.length; i++) await page.keyboard.press("Backspace");
     await page.getByText("Ready to run").waitFor();
     expect(await page.locator(".cm-lintRange-error").count()).toBe(0);
@@ -150,6 +151,8 @@ describe("run workspace", () => {
       "std_err",
       "setting",
       "setting_bases",
+      "ci95_low",
+      "ci95_high",
     ]);
     const byWord = new Map(rows.slice(1).map((r) => [r[0], r]));
     expect(Number(byWord.get("ZZ")![2])).toBeCloseTo(1, 12);
@@ -166,8 +169,8 @@ describe("run workspace", () => {
   it("runs a 1-D sweep and draws the landscape with its minimum marked", async () => {
     await page.goto(`${E2E_URL}/app/runs/new`);
     await page.getByRole("button", { name: "Start over" }).click();
-    await pickFromLibrary(0, "Two-level ansatz (θ)");
-    await pickFromLibrary(1, "Reduced two-level model");
+    await pickFromLibrary(0, "Three-spin ansatz (θ)");
+    await pickFromLibrary(1, "Three-spin cluster (invented)");
     await page.getByRole("button", { name: "Sweep", exact: true }).click();
     await page.getByLabel("From", { exact: true }).fill("0");
     await page.getByLabel("To", { exact: true }).fill("6.283185307179586");
@@ -176,18 +179,28 @@ describe("run workspace", () => {
     await page.getByLabel("Total shots").fill("2000");
     await page.getByLabel("Run name").fill("Ansatz sweep over theta");
     await page.getByText("Ready to run").waitFor();
-    await screenshot(page, "workspace-composer-sweep");
+    await screenshot(page, "workspace-new-run-sweep");
     await page.getByRole("button", { name: "Run", exact: true }).click();
     await page.waitForURL(/\/app\/runs\/[0-9a-f-]{36}$/);
     runIds.push(page.url().split("/").pop()!);
     await page.getByTestId("sweep-min").waitFor({ timeout: 60_000 });
 
-    // Every exact point against E(θ) = c0 − b − 2a cos θ + 2g sin θ (derived in workspace-helpers.ts).
+    // Every exact point against E(θ) = c0 + 2J + 3h cos θ + (k − m) sin θ (derived by hand in
+    // tests/support/three-spin-closed-form.ts).
     const csv = parseCsv((await download("Sweep (CSV)")).bytes.toString("utf8"));
-    expect(csv[0]).toEqual(["theta", "ideal", "exact", "sampled_mean", "std_err", "shots"]);
+    expect(csv[0]).toEqual([
+      "theta",
+      "ideal",
+      "exact",
+      "sampled_mean",
+      "std_err",
+      "shots",
+      "ci95_low",
+      "ci95_high",
+    ]);
     const points = csv.slice(1).map((r) => ({ theta: Number(r[0]), exact: Number(r[2]) }));
     expect(points).toHaveLength(25);
-    for (const p of points) expect(p.exact).toBeCloseTo(closedFormEnergy(p.theta), 10);
+    for (const p of points) expect(p.exact).toBeCloseTo(threeSpinEnergy(p.theta), 10);
     const best = points.reduce((a, b) => (b.exact < a.exact ? b : a));
     const minText = (await page.getByTestId("sweep-min").textContent()) ?? "";
     expect(minText).toContain(`theta = ${Number(best.theta.toPrecision(6))}`);
@@ -204,6 +217,14 @@ describe("run workspace", () => {
     await page.getByLabel("Profile name").fill("Bench A, light");
     await page.getByRole("button", { name: "Save", exact: true }).click();
     await page.getByText("Saved “Bench A, light”.").waitFor();
+    // The reload must find the noise card open: wait until the draft that says so is stored.
+    await page.waitForFunction(() =>
+      Object.keys(localStorage).some(
+        (k) =>
+          k.startsWith("ketwise:new-run-draft:") &&
+          (localStorage.getItem(k) ?? "").includes('"noiseEnabled":true'),
+      ),
+    );
     await page.reload();
     const saved = page.locator("optgroup[label='Saved in this organisation'] option", {
       hasText: "Bench A, light",

@@ -10,8 +10,11 @@
  * 3. for scale, the framework's ceiling: a GET of the cached OpenAPI document;
  * 4. small-run throughput with 1 and 2 worker processes (1 engine thread
  *    each): 300 runs queued while the queue is paused, then
- *    runs / (last finishedAt − first startedAt);
- * 5. light requests (GET /api/v1/usage, 10 connections, 20 s) alone and while
+ *    runs / (last finishedAt − first startedAt); and the engine alone on the
+ *    same requests in this process, so worker ÷ engine shows the worker's
+ *    own overhead;
+ * 5. POST /api/v1/runs at an offered 50 submissions/s (open loop);
+ * 6. light requests (GET /api/v1/usage, 10 connections, 20 s) alone and while
  *    one client loops the heaviest preview the caps allow (./bench-preview.ts).
  *    `npm run bench:api -- --preview-only` runs this phase alone.
  *
@@ -23,6 +26,7 @@ import autocannon from "autocannon";
 import { closeDb, db } from "@/db";
 import { organizations, runs, users } from "@/db/schema";
 import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
+import { estimate } from "@/lib/quantum";
 import { createApiKey, createOrganization } from "@/lib/orgs/mutations";
 import { smallRequest } from "../integration/runs/support/requests";
 import { startServer, startWorker, type Proc } from "./bench-processes";
@@ -48,8 +52,13 @@ const log = (m: string) => console.log(`[bench] ${m}`);
 
 async function setupOrg(): Promise<{ orgId: string; key: string }> {
   const userId = crypto.randomUUID();
-  await db.insert(users).values({ id: userId, name: "Bench", email: `bench-${userId}@bench.example` });
-  const { id: orgId } = await createOrganization({ name: `Bench ${new Date().toISOString()}`, ownerUserId: userId });
+  await db
+    .insert(users)
+    .values({ id: userId, name: "Bench", email: `bench-${userId}@bench.example` });
+  const { id: orgId } = await createOrganization({
+    name: `Bench ${new Date().toISOString()}`,
+    ownerUserId: userId,
+  });
   await db.update(organizations).set({ plan: "institute" }).where(eq(organizations.id, orgId));
   const { key } = await createApiKey(orgId, { name: "bench", role: "member", createdById: userId });
   return { orgId, key };
@@ -68,7 +77,12 @@ async function submit(key: string, name: string, seed: number): Promise<string> 
 async function waitTerminal(orgId: string, id: string) {
   for (;;) {
     const [row] = await db
-      .select({ status: runs.status, queuedAt: runs.queuedAt, startedAt: runs.startedAt, finishedAt: runs.finishedAt })
+      .select({
+        status: runs.status,
+        queuedAt: runs.queuedAt,
+        startedAt: runs.startedAt,
+        finishedAt: runs.finishedAt,
+      })
       .from(runs)
       .where(and(eq(runs.orgId, orgId), eq(runs.id, id)));
     if (row && ["succeeded", "failed", "canceled"].includes(row.status)) {
@@ -80,7 +94,8 @@ async function waitTerminal(orgId: string, id: string) {
 }
 
 async function latencyPhase(orgId: string, key: string) {
-  for (let i = 0; i < WARMUP_RUNS; i++) await waitTerminal(orgId, await submit(key, `warmup-${i}`, i));
+  for (let i = 0; i < WARMUP_RUNS; i++)
+    await waitTerminal(orgId, await submit(key, `warmup-${i}`, i));
   const total: number[] = [];
   const queue: number[] = [];
   for (let i = 0; i < LATENCY_RUNS; i++) {
@@ -113,10 +128,45 @@ async function postPhase(key: string) {
   };
 }
 
+/** POST /api/v1/runs at a fixed offered rate (open loop: autocannon paces the requests, 50 per second overall). */
+async function openLoopPhase(key: string, rate: number) {
+  const times: number[] = [];
+  const instance = autocannon({
+    url: `${BASE}/api/v1/runs`,
+    connections: 50,
+    overallRate: rate,
+    duration: 20,
+    method: "POST",
+    headers: { authorization: `Bearer ${key}`, "content-type": "application/json" },
+    body: JSON.stringify({ name: "open-loop", ...smallRequest(11) }),
+  });
+  instance.on("response", (_client, _status, _bytes, responseTime) => times.push(responseTime));
+  const result = await instance;
+  return {
+    rps: result.requests.average,
+    p50: Math.round(percentile(times, 50)),
+    p95: Math.round(percentile(times, 95)),
+    errors: result.non2xx + result.errors + result.timeouts,
+  };
+}
+
+/** The engine alone on the throughput phase's request, in this process: runs per second. */
+async function engineOnlyRate(): Promise<number> {
+  const requests = Array.from({ length: THROUGHPUT_RUNS }, (_, i) => smallRequest(i));
+  for (const r of requests.slice(0, 20)) await estimate(r);
+  const started = performance.now();
+  for (const r of requests) await estimate(r);
+  return THROUGHPUT_RUNS / ((performance.now() - started) / 1000);
+}
+
 /** The framework's own ceiling: GET /api/v1/openapi.json (a cached document, no database) at 50 connections. */
 async function ceilingPhase() {
   const times: number[] = [];
-  const instance = autocannon({ url: `${BASE}/api/v1/openapi.json`, connections: 50, duration: 10 });
+  const instance = autocannon({
+    url: `${BASE}/api/v1/openapi.json`,
+    connections: 50,
+    duration: 10,
+  });
   instance.on("response", (_client, _status, _bytes, responseTime) => times.push(responseTime));
   const result = await instance;
   return { rps: result.requests.average, p95: Math.round(percentile(times, 95)) };
@@ -135,15 +185,22 @@ async function drain(orgId: string) {
 async function throughputPhase(orgId: string, key: string, processes: number): Promise<number> {
   const queue = getRunsQueue();
   await queue.pause();
-  const workers = await Promise.all(Array.from({ length: processes }, () => startWorker(1, childEnv)));
+  const workers = await Promise.all(
+    Array.from({ length: processes }, () => startWorker(1, childEnv)),
+  );
   const prefix = `tput-${processes}-`;
   for (let i = 0; i < THROUGHPUT_RUNS; i += 10) {
-    await Promise.all(Array.from({ length: 10 }, (_, j) => submit(key, `${prefix}${i + j}`, i + j)));
+    await Promise.all(
+      Array.from({ length: 10 }, (_, j) => submit(key, `${prefix}${i + j}`, i + j)),
+    );
   }
   await queue.resume();
   const batch = and(eq(runs.orgId, orgId), like(runs.name, `${prefix}%`));
   for (;;) {
-    const [{ done }] = await db.select({ done: sql<number>`COUNT(*)` }).from(runs).where(and(batch, eq(runs.status, "succeeded")));
+    const [{ done }] = await db
+      .select({ done: sql<number>`COUNT(*)` })
+      .from(runs)
+      .where(and(batch, eq(runs.status, "succeeded")));
     if (Number(done) >= THROUGHPUT_RUNS) break;
     await sleep(50);
   }
@@ -197,44 +254,93 @@ async function main(): Promise<void> {
 
     log(`latency: ${WARMUP_RUNS} warm-up + ${LATENCY_RUNS} runs, one at a time`);
     const latency = await latencyPhase(orgId, key);
-    log(`  median ${latency.median} ms, p95 ${latency.p95} ms (queue wait median ${latency.queueMedian} ms)`);
+    log(
+      `  median ${latency.median} ms, p95 ${latency.p95} ms (queue wait median ${latency.queueMedian} ms)`,
+    );
 
     log("POST /api/v1/runs: 50 connections, 20 s");
     const post = await postPhase(key);
-    log(`  ${post.requests} requests (${post.rps.toFixed(0)}/s), p50 ${post.p50} ms, p95 ${post.p95} ms, p99 ${post.p99} ms, errors ${post.errors}`);
+    log(
+      `  ${post.requests} requests (${post.rps.toFixed(0)}/s), p50 ${post.p50} ms, p95 ${post.p95} ms, p99 ${post.p99} ms, errors ${post.errors}`,
+    );
+    log("POST /api/v1/runs: open loop, 50 submissions/s for 20 s");
+    const open = await openLoopPhase(key, 50);
+    log(
+      `  ${open.rps.toFixed(0)}/s, p50 ${open.p50} ms, p95 ${open.p95} ms, errors ${open.errors}`,
+    );
     await worker.stop();
     procs.pop();
     await drain(orgId);
     const ceiling = await ceilingPhase();
-    log(`  framework ceiling: GET /api/v1/openapi.json ${ceiling.rps.toFixed(0)}/s, p95 ${ceiling.p95} ms`);
+    log(
+      `  framework ceiling: GET /api/v1/openapi.json ${ceiling.rps.toFixed(0)}/s, p95 ${ceiling.p95} ms`,
+    );
 
-    log(`throughput: ${THROUGHPUT_RUNS} small runs, 1 then 2 worker processes (1 engine thread each)`);
+    log(
+      `throughput: ${THROUGHPUT_RUNS} small runs, 1 then 2 worker processes (1 engine thread each)`,
+    );
     const one = await throughputPhase(orgId, key, 1);
     await drain(orgId);
     const two = await throughputPhase(orgId, key, 2);
-    log(`  1 worker ${one.toFixed(1)} runs/s, 2 workers ${two.toFixed(1)} runs/s, ratio ${(two / one).toFixed(2)}`);
+    log(
+      `  1 worker ${one.toFixed(1)} runs/s, 2 workers ${two.toFixed(1)} runs/s, ratio ${(two / one).toFixed(2)}`,
+    );
+    const engineOnly = await engineOnlyRate();
+    log(`  engine alone on the same requests: ${engineOnly.toFixed(1)} runs/s`);
     await drain(orgId);
     const preview = await previewPhase(key);
 
     console.log(
       "\n" +
         table([
-          ["submit → succeeded, median (4 qubits, 1,000 shots; 200 runs)", `${latency.median} ms`, "< 150 ms"],
+          [
+            "submit → succeeded, median (4 qubits, 1,000 shots; 200 runs)",
+            `${latency.median} ms`,
+            "< 150 ms",
+          ],
           ["submit → succeeded, p95", `${latency.p95} ms`, "—"],
           ["POST /api/v1/runs, 50 connections × 20 s: p50", `${post.p50} ms`, "—"],
           ["POST /api/v1/runs: p95", `${post.p95} ms`, "< 100 ms"],
           ["POST /api/v1/runs: p99", `${post.p99} ms`, "—"],
-          ["POST /api/v1/runs: requests (per s), errors", `${post.requests} (${post.rps.toFixed(0)}/s), ${post.errors} errors`, "0 errors"],
-          ["for scale: GET /api/v1/openapi.json (no database), 50 connections", `${ceiling.rps.toFixed(0)}/s, p95 ${ceiling.p95} ms`, "—"],
+          [
+            "POST /api/v1/runs: requests (per s), errors",
+            `${post.requests} (${post.rps.toFixed(0)}/s), ${post.errors} errors`,
+            "0 errors",
+          ],
+          [
+            "for scale: GET /api/v1/openapi.json (no database), 50 connections",
+            `${ceiling.rps.toFixed(0)}/s, p95 ${ceiling.p95} ms`,
+            "—",
+          ],
+          [
+            "POST throughput ÷ cached GET throughput (same run)",
+            (post.rps / ceiling.rps).toFixed(2),
+            "≥ 0.5",
+          ],
+          ["POST /api/v1/runs, open loop 50/s × 20 s: p50", `${open.p50} ms`, "—"],
+          [
+            "POST /api/v1/runs, open loop 50/s: p95, errors",
+            `${open.p95} ms, ${open.errors} errors`,
+            "< 100 ms",
+          ],
           ["throughput, 1 worker process", `${one.toFixed(1)} runs/s`, "—"],
           ["throughput, 2 worker processes", `${two.toFixed(1)} runs/s`, "—"],
           ["throughput ratio 2 : 1", (two / one).toFixed(2), "≥ 1.6"],
+          ["engine alone, same small runs, in-process", `${engineOnly.toFixed(1)} runs/s`, "—"],
+          [
+            "worker runs/s ÷ engine-only runs/s (1 worker process)",
+            (one / engineOnly).toFixed(2),
+            "≥ 0.5",
+          ],
           ...preview,
         ]),
     );
   } finally {
     await Promise.all(procs.map((p) => p.stop()));
-    await db.delete(organizations).where(eq(organizations.id, orgId)).catch(() => {});
+    await db
+      .delete(organizations)
+      .where(eq(organizations.id, orgId))
+      .catch(() => {});
     await closeQueue();
     await closeDb();
   }

@@ -15,6 +15,7 @@ import { Skeleton } from "@/components/ui/skeleton";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import { Tabs } from "@/components/ui/tabs";
 import { operationExamples } from "./examples";
+import { PythonClientCard } from "./python-client-card";
 import { refName, schemaFields, type JsonSchema } from "./schema-fields";
 
 type Parameter = {
@@ -47,6 +48,10 @@ const METHOD_TONE: Record<string, string> = {
   post: "border-ok/30 bg-ok-soft text-ok",
   delete: "border-danger/30 bg-danger-soft text-danger",
 };
+
+/** Whether the 200 answer is a file (CSV, zip) rather than JSON. */
+const isFileAnswer = (op: Operation) =>
+  Object.keys(op.responses["200"]?.content ?? {}).some((type) => !type.includes("json"));
 
 const anchor = (method: string, path: string) =>
   `${method}-${path.replace(/[^a-z0-9]+/gi, "-")}`.replace(/-+$/, "");
@@ -139,6 +144,7 @@ function OperationCard({
     baseUrl,
     body: body ? (body.example ?? {}) : undefined,
     headers: idem ? { "Idempotency-Key": "my-retry-key-1" } : undefined,
+    download: isFileAnswer(op) ? path.split("/").pop() : undefined,
   });
   const params = (op.parameters ?? []).filter(
     (p) => p.in !== "header" || p.name.toLowerCase() === "idempotency-key",
@@ -277,8 +283,25 @@ function Conventions({ baseUrl }: { baseUrl: string }) {
             (create one under API keys; it is shown once).
           </li>
           <li>
-            Runs are asynchronous: POST answers 202 with the queued run; poll GET until its status
-            is succeeded, failed or canceled.
+            Runs are asynchronous: POST answers 202 with the queued run; then{" "}
+            <code className="font-mono text-[12px] text-ink">
+              GET /api/v1/runs/{"{id}"}?wait=30
+            </code>{" "}
+            holds the answer until the run is succeeded, failed or canceled (at most 30 s; ask again
+            if it is still running) — no polling loop needed.
+          </li>
+          <li>
+            Every answer carries{" "}
+            <code className="font-mono text-[12px] text-ink">
+              RateLimit-Limit, RateLimit-Remaining, RateLimit-Reset, RateLimit-Policy
+            </code>{" "}
+            (IETF draft-ietf-httpapi-ratelimit-headers-06); a 429 adds Retry-After. Pace yourself by
+            them.
+          </li>
+          <li>
+            A succeeded run’s files — terms.csv, counts.csv, points.csv, circuits.zip — are under{" "}
+            <code className="font-mono text-[12px] text-ink">/api/v1/runs/{"{id}"}/</code>, the same
+            bytes as the run page’s downloads.
           </li>
           <li>
             Send an <code className="font-mono text-[12px] text-ink">Idempotency-Key</code> header
@@ -362,10 +385,20 @@ export function ApiDocs() {
               openapi.json
             </a>
           </li>
+          <li>
+            <a
+              href="/clients/ketwise.py"
+              download
+              className="text-[12.5px] font-medium text-accent-ink underline"
+            >
+              ketwise.py (Python client)
+            </a>
+          </li>
         </ul>
       </nav>
       <div className="grid min-w-0 gap-5">
         <Conventions baseUrl={baseUrl} />
+        <PythonClientCard baseUrl={baseUrl} />
         {groups.map((g) => (
           <section key={g} className="grid gap-4" aria-labelledby={`group-${g}`}>
             <h2 id={`group-${g}`} className="text-[17px] font-semibold text-ink">

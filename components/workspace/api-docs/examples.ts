@@ -11,11 +11,20 @@ export type ExampleInput = {
   baseUrl: string;
   body?: unknown;
   headers?: Record<string, string>;
+  /** The success answer is a file (CSV, zip): the snippets save it under this name. */
+  download?: string;
 };
 
 const varName = (p: string) => `${p.replace(/[^A-Za-z0-9]/g, "_").toUpperCase()}`;
 
-export function operationExamples({ method, path, baseUrl, body, headers = {} }: ExampleInput) {
+export function operationExamples({
+  method,
+  path,
+  baseUrl,
+  body,
+  headers = {},
+  download,
+}: ExampleInput) {
   const M = method.toUpperCase();
   const base = baseUrl.replace(/\/+$/, "");
   const params = [...path.matchAll(/\{([^}]+)\}/g)].map((m) => m[1]);
@@ -33,7 +42,7 @@ export function operationExamples({ method, path, baseUrl, body, headers = {} }:
     ...params.map(
       (p) => `${varName(p === "id" ? "run_id" : p)}=...   # the id from an earlier answer`,
     ),
-    `curl -sS -X ${M} "${base}${shellPath}" \\`,
+    `curl -sS -X ${M} "${base}${shellPath}"${download ? ` -o ${download}` : ""} \\`,
     `  -H "Authorization: Bearer $KETWISE_API_KEY"${hasBody || extra.length ? " \\" : ""}`,
     ...extra.map(([k, v], i) => `  -H "${k}: ${v}"${hasBody || i < extra.length - 1 ? " \\" : ""}`),
     ...(hasBody
@@ -51,7 +60,12 @@ export function operationExamples({ method, path, baseUrl, body, headers = {} }:
     ...params.map((p) => `${p === "id" ? "run_id" : p} = "..."  # the id from an earlier answer`),
     ...(hasBody ? ["", `body = ${toPython(body)}`, ""] : [""]),
     `response = requests.request(${JSON.stringify(M)}, f"{BASE}${pyPath}", headers=headers${hasBody ? ", json=body" : ""}, timeout=30)`,
-    "print(response.status_code, response.json() if response.content else None)",
+    ...(download
+      ? [
+          "response.raise_for_status()",
+          `open(${JSON.stringify(download)}, "wb").write(response.content)`,
+        ]
+      : ["print(response.status_code, response.json() if response.content else None)"]),
     "",
   ].join("\n");
 
@@ -70,7 +84,12 @@ export function operationExamples({ method, path, baseUrl, body, headers = {} }:
     `  },`,
     ...(hasBody ? [`  body: JSON.stringify(body),`] : []),
     `});`,
-    `console.log(response.status, response.status === 204 ? null : await response.json());`,
+    ...(download
+      ? [
+          `if (!response.ok) throw new Error(JSON.stringify(await response.json()));`,
+          `await (await import("node:fs/promises")).writeFile(${JSON.stringify(download)}, new Uint8Array(await response.arrayBuffer()));`,
+        ]
+      : [`console.log(response.status, response.status === 204 ? null : await response.json());`]),
     "",
   ].join("\n");
 

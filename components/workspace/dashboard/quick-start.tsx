@@ -20,9 +20,7 @@ export function QuickStart({ pick, canRun }: { pick: QuickStartPick; canRun: boo
   const steps = [
     {
       n: 1,
-      title: pick
-        ? `Open “${pick.circuitName}” with “${pick.observableName}”`
-        : "Open the composer",
+      title: pick ? `Open “${pick.circuitName}” with “${pick.observableName}”` : "Start a new run",
       text: "The preview shows qubits, gates, measurement settings and what the run costs before anything runs.",
     },
     {

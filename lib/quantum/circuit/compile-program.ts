@@ -13,6 +13,7 @@ import { compileTimeInteger, constValue, LoopBudget, loopValues } from "./classi
 import {
   compileExpr,
   constantOf,
+  inputRef,
   isReservedName,
   type Compiled,
   type ExprContext,
@@ -263,13 +264,7 @@ class ProgramCompiler {
     this.checkNewName(name, pos, "input");
     const i = this.inputs.length;
     this.inputs.push({ name, type });
-    this.inputScope.set(name, {
-      evaluate: (x) => x[i],
-      constant: null,
-      text: name,
-      line: pos.line,
-      column: pos.column,
-    });
+    this.inputScope.set(name, inputRef(i, name, pos.line, pos.column));
   }
 
   private unknownGate(name: string, pos: Pos) {

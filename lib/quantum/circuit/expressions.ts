@@ -9,6 +9,12 @@
  * minus, and sin, cos, tan, arcsin, arccos, arctan, exp, log (natural), sqrt, floor,
  * ceiling, pow(a, b), mod(a, b). In OpenQASM 3 `^` is bitwise XOR, which has no
  * meaning on real angles, so it is rejected.
+ *
+ * Every closure comes with its gradient (reverse-mode chain rule over the expression
+ * tree), so gate-angle derivatives d(angle)/d(input) are exact for every occurrence of
+ * an input, in affine and non-linear expressions alike. floor, ceiling and the
+ * integer-part jumps of mod are piecewise constant: their derivative is taken as 0
+ * (the one-sided value away from the jumps).
  */
 import type { Expr } from "./ast";
 import { plural, semanticError, unsupported3 } from "./circuit-errors";
@@ -17,6 +23,11 @@ import type { QasmFormat } from "./parse-source";
 export interface Compiled {
   /** Value for the bound inputs (indexed like ParsedProgram.inputs). */
   evaluate: (inputs: Float64Array) => number;
+  /**
+   * Adds scale · ∂(value)/∂(input j) to out[j] for every input j (out indexed like the
+   * inputs). A constant expression adds nothing.
+   */
+  grad: (inputs: Float64Array, out: Float64Array, scale: number) => void;
   /** The value when the expression does not depend on any input, else null. */
   constant: number | null;
   /** Source text of the expression and where it starts (for error messages). */
@@ -56,11 +67,86 @@ export function isReservedName(format: QasmFormat, name: string): boolean {
   return name in CONSTANTS[format] || name in FUNCTIONS[format];
 }
 
+/** Gradient of a constant: nothing to add. */
+export const NO_GRADIENT: Compiled["grad"] = () => {};
+
 export function constantOf(value: number, text: string, line: number, column: number): Compiled {
-  return { evaluate: () => value, constant: value, text, line, column };
+  return { evaluate: () => value, grad: NO_GRADIENT, constant: value, text, line, column };
 }
 
-const BINARY: Record<string, (a: number, b: number) => number> = {
+/** The compiled reference to input number `index` (its gradient is the unit vector). */
+export function inputRef(index: number, text: string, line: number, column: number): Compiled {
+  return {
+    evaluate: (x) => x[index],
+    grad: (_x, out, scale) => {
+      out[index] += scale;
+    },
+    constant: null,
+    text,
+    line,
+    column,
+  };
+}
+
+type Grad = Compiled["grad"];
+type Eval = Compiled["evaluate"];
+
+/** ∂/∂a and ∂/∂b of the binary operators at (a, b). */
+function binaryGrad(op: string, fa: Eval, fb: Eval, ga: Grad, gb: Grad): Grad {
+  switch (op) {
+    case "+":
+      return (x, out, s) => {
+        ga(x, out, s);
+        gb(x, out, s);
+      };
+    case "-":
+      return (x, out, s) => {
+        ga(x, out, s);
+        gb(x, out, -s);
+      };
+    case "*":
+      return (x, out, s) => {
+        ga(x, out, s * fb(x));
+        gb(x, out, s * fa(x));
+      };
+    case "/":
+      return (x, out, s) => {
+        const b = fb(x);
+        ga(x, out, s / b);
+        gb(x, out, (-s * fa(x)) / (b * b));
+      };
+    default:
+      return powGrad(fa, fb, ga, gb);
+  }
+}
+
+/** d(a^b) = b·a^(b−1) da + a^b·ln(a) db (the second term only where b varies). */
+function powGrad(fa: Eval, fb: Eval, ga: Grad, gb: Grad): Grad {
+  return (x, out, s) => {
+    const a = fa(x);
+    const b = fb(x);
+    ga(x, out, s * (b === 0 ? 0 : b * Math.pow(a, b - 1)));
+    if (gb !== NO_GRADIENT) gb(x, out, s * Math.pow(a, b) * Math.log(a));
+  };
+}
+
+/** Derivatives of the one-argument functions at a. */
+const DERIVATIVES: Record<string, (a: number) => number> = {
+  sin: Math.cos,
+  cos: (a) => -Math.sin(a),
+  tan: (a) => 1 / (Math.cos(a) * Math.cos(a)),
+  arcsin: (a) => 1 / Math.sqrt(1 - a * a),
+  arccos: (a) => -1 / Math.sqrt(1 - a * a),
+  arctan: (a) => 1 / (1 + a * a),
+  exp: Math.exp,
+  ln: (a) => 1 / a,
+  log: (a) => 1 / a,
+  sqrt: (a) => 0.5 / Math.sqrt(a),
+  floor: () => 0,
+  ceiling: () => 0,
+};
+
+export const BINARY: Record<string, (a: number, b: number) => number> = {
   "+": (a, b) => a + b,
   "-": (a, b) => a - b,
   "*": (a, b) => a * b,
@@ -71,13 +157,13 @@ const BINARY: Record<string, (a: number, b: number) => number> = {
 
 export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
   const text = ctx.source.slice(e.pos.start, e.pos.end);
-  const finish = (evaluate: (x: Float64Array) => number, constant: number | null): Compiled => {
+  const finish = (evaluate: (x: Float64Array) => number, constant: number | null, grad: Grad = NO_GRADIENT): Compiled => {
     if (constant !== null && !Number.isFinite(constant)) {
       throw semanticError(`expression '${text}' does not evaluate to a finite number (${constant})${ctx.where ?? ""}`, e.pos);
     }
     return constant !== null
       ? constantOf(constant, text, e.pos.line, e.pos.column)
-      : { evaluate, constant: null, text, line: e.pos.line, column: e.pos.column };
+      : { evaluate, grad, constant: null, text, line: e.pos.line, column: e.pos.column };
   };
   switch (e.kind) {
     case "number":
@@ -95,7 +181,8 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
     case "negate": {
       const a = compileExpr(e.arg, ctx);
       const f = a.evaluate;
-      return finish((x) => -f(x), a.constant === null ? null : -a.constant);
+      const g = a.grad;
+      return finish((x) => -f(x), a.constant === null ? null : -a.constant, (x, out, sc) => g(x, out, -sc));
     }
     case "binary": {
       if (e.op === "**" && ctx.format === "qasm2") {
@@ -110,7 +197,7 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
       const fa = a.evaluate;
       const fb = b.evaluate;
       const constant = a.constant !== null && b.constant !== null ? op(a.constant, b.constant) : null;
-      return finish((x) => op(fa(x), fb(x)), constant);
+      return finish((x) => op(fa(x), fb(x)), constant, binaryGrad(e.op, fa, fb, a.grad, b.grad));
     }
     case "call": {
       const fn = FUNCTIONS[ctx.format][e.fn];
@@ -126,11 +213,23 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
       const constant = allConst ? fn(...args.map((a) => a.constant as number)) : null;
       if (args.length === 1) {
         const f0 = args[0].evaluate;
-        return finish((x) => fn(f0(x)), constant);
+        const g0 = args[0].grad;
+        const d = DERIVATIVES[e.fn];
+        return finish((x) => fn(f0(x)), constant, (x, out, sc) => g0(x, out, sc * d(f0(x))));
       }
       const f0 = args[0].evaluate;
       const f1 = args[1].evaluate;
-      return finish((x) => fn(f0(x), f1(x)), constant);
+      const g0 = args[0].grad;
+      const g1 = args[1].grad;
+      // pow(a, b) = a ** b; mod(a, b) = a − b·floor(a/b): ∂/∂a = 1, ∂/∂b = −floor(a/b).
+      const grad: Grad =
+        e.fn === "pow"
+          ? powGrad(f0, f1, g0, g1)
+          : (x, out, sc) => {
+              g0(x, out, sc);
+              g1(x, out, -sc * Math.floor(f0(x) / f1(x)));
+            };
+      return finish((x) => fn(f0(x), f1(x)), constant, grad);
     }
   }
 }

@@ -8,7 +8,13 @@
 import type { Expr, Ident, GateBodyStmt, Modifier, Operand, Pos } from "./ast";
 import { circuitError, plural, semanticError } from "./circuit-errors";
 import { modifyGate } from "./modified-gates";
-import { compileExpr, isReservedName, type Compiled, type ExprContext } from "./expressions";
+import {
+  compileExpr,
+  isReservedName,
+  NO_GRADIENT,
+  type Compiled,
+  type ExprContext,
+} from "./expressions";
 import {
   QASM2_BUILTINS,
   QASM3_BUILTINS,
@@ -142,7 +148,14 @@ export interface Expanded {
 }
 
 /** Stands for a gate parameter while a definition is checked (never evaluated). */
-const PLACEHOLDER: Compiled = { evaluate: () => NaN, constant: null, text: "", line: 1, column: 1 };
+const PLACEHOLDER: Compiled = {
+  evaluate: () => NaN,
+  grad: NO_GRADIENT,
+  constant: null,
+  text: "",
+  line: 1,
+  column: 1,
+};
 
 export function entryArity(e: GateEntry): { params: number; qubits: number } {
   return e.kind === "primitive"

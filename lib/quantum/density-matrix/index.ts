@@ -2,3 +2,4 @@
 export { createZeroDensity, diagonal, trace, densityFromState } from "./state";
 export { applyUnitaryDM, conjugateMatrix } from "./kernels";
 export { simulateDensityMatrix, type DensityOptions } from "./simulate";
+export { applyNoisyGate, type GateNoise } from "./noisy-gate";

@@ -24,8 +24,10 @@ function withConjugate1q(u: Float64Array): Float64Array {
     for (let b = 0; b < 2; b++)
       for (let c = 0; c < 2; c++)
         for (let e = 0; e < 2; e++) {
-          const ur = u[2 * (a * 2 + c)], ui = u[2 * (a * 2 + c) + 1];
-          const vr = u[2 * (b * 2 + e)], vi = -u[2 * (b * 2 + e) + 1];
+          const ur = u[2 * (a * 2 + c)],
+            ui = u[2 * (a * 2 + c) + 1];
+          const vr = u[2 * (b * 2 + e)],
+            vi = -u[2 * (b * 2 + e) + 1];
           const idx = 2 * ((a * 2 + b) * 4 + (c * 2 + e));
           out[idx] = ur * vr - ui * vi;
           out[idx + 1] = ur * vi + ui * vr;
@@ -34,13 +36,22 @@ function withConjugate1q(u: Float64Array): Float64Array {
 }
 
 /** ρ ← U ρ U† without argument checks (callers validated the circuit). */
-export function applyUnitaryDMUnchecked(rho: DensityMatrix, qubits: readonly number[], matrix: Float64Array): void {
+export function applyUnitaryDMUnchecked(
+  rho: DensityMatrix,
+  qubits: readonly number[],
+  matrix: Float64Array,
+): void {
   const n = rho.n;
   if (qubits.length === 1) {
     applyToAmplitudes(rho.re, rho.im, [qubits[0] + n, qubits[0]], withConjugate1q(matrix));
     return;
   }
-  applyToAmplitudes(rho.re, rho.im, qubits.map((q) => q + n), matrix);
+  applyToAmplitudes(
+    rho.re,
+    rho.im,
+    qubits.map((q) => q + n),
+    matrix,
+  );
   applyToAmplitudes(rho.re, rho.im, qubits, conjugateMatrix(matrix));
 }
 

@@ -2,30 +2,40 @@
  * Density-matrix simulation with the noise model described in DEVELOPERS.md ("Noise model").
  *
  * Starting from ρ = |0…0⟩⟨0…0|, each top-level op in order:
- * - gate on k qubits: its parts (fused, fusion.ts) as ρ → UρU†; then, on its k qubits,
+ * - gate on k qubits: its parts as ρ → UρU†; then, on its k qubits,
  *   (1) depolarizing of their 2^k-dim space with p = depolarizing1q (k = 1) or
  *   depolarizing2q (k ≥ 2), (2) amplitude damping γ and (3) phase damping λ on each qubit
  *   (formulas and sources in noise/channels.ts). `id` is a gate and gets the noise.
+ *   Rates may be overridden per gate name and idle qubits may get noise too: the
+ *   parameters of every application are resolved by NoisePlan (noise/gate-noise.ts).
  * - barrier: nothing. Final measurement (nothing acts on that qubit afterwards): ignored —
  *   the expectation is taken before it. Mid-circuit measurement: non-selective projective
  *   Z measurement (dephasing). reset: ρ → |0⟩⟨0| ⊗ Tr_q ρ.
- * Without state noise, gates are fused across ops (between measurements/resets).
+ * With state noise, a gate on ≤ 2 qubits (its parts multiplied into one matrix) and its noise
+ * are ONE pass over ρ (noisy-gate.ts); wider gates take the fused unitary passes and then the
+ * channel kernels. Without state noise, gates are fused across ops (between measurements/resets).
+ * The noise parameters are handed to the kernels per gate application (NoisePlan).
  */
 import type { Circuit, DensityMatrix, GateApplication, NoiseModel } from "../types";
 import { checkCircuit } from "../statevector/circuit-check";
 import { GateFuser, fuseGates } from "../statevector/fusion";
 import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
 import { RunControl, type RunOptions } from "../statevector/run-control";
-import { dampQubit, depolarize, measureNonSelective, noiseAfter1q, resetQubit } from "../noise/channels";
+import { measureNonSelective, resetQubit } from "../noise/channels";
+import { applyIdleNoise, applyOpNoise, NoisePlan, type OpNoise } from "../noise/gate-noise";
 import { hasStateNoise, validateNoiseModel } from "../noise/validate";
+import { embedMatrix, multiplyMatrices } from "../statevector/matrix-ops";
 import { applyUnitaryDMUnchecked } from "./kernels";
+import { applyNoisyGate } from "./noisy-gate";
 import { createZeroDensity } from "./state";
 
 export type DensityOptions = RunOptions & MemoryLimits;
 
 type Step =
   | { kind: "unitary"; gate: GateApplication }
-  | { kind: "noise"; qubits: number[] }
+  | { kind: "noise"; noise: OpNoise }
+  /** A gate on ≤ 2 qubits and its noise in one pass (noisy-gate.ts); matrix on `qubits`, null = identity. */
+  | { kind: "noisy-gate"; qubits: readonly number[]; matrix: Float64Array | null; noise: OpNoise }
   | { kind: "measure"; qubit: number }
   | { kind: "reset"; qubit: number };
 
@@ -47,8 +57,22 @@ function finalMeasurements(circuit: Circuit): boolean[] {
   return final;
 }
 
+/** The product of an op's parts (later parts on the left) on the op's own operands; null when none. */
+function opMatrix(
+  qubits: readonly number[],
+  parts: readonly GateApplication[],
+): Float64Array | null {
+  const d = 1 << qubits.length;
+  let m: Float64Array | null = null;
+  for (const part of parts) {
+    const u = embedMatrix(part.matrix, part.qubits, qubits);
+    m = m ? multiplyMatrices(u, m, d) : u;
+  }
+  return m;
+}
+
 /** The step list: unitaries (fused), noise after each gate op, measurements and resets. */
-export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
+export function densitySteps(circuit: Circuit, noisy: boolean, plan: NoisePlan = new NoisePlan(undefined, circuit.numQubits)): Step[] {
   const steps: Step[] = [];
   const final = finalMeasurements(circuit);
   let fuser = new GateFuser();
@@ -58,9 +82,16 @@ export function densitySteps(circuit: Circuit, noisy: boolean): Step[] {
   };
   circuit.ops.forEach((op, i) => {
     if (op.kind === "gate") {
-      if (noisy) {
+      if (noisy && op.qubits.length <= 2) {
+        steps.push({
+          kind: "noisy-gate",
+          qubits: op.qubits,
+          matrix: opMatrix(op.qubits, op.parts),
+          noise: plan.after(op),
+        });
+      } else if (noisy) {
         for (const gate of fuseGates(op.parts)) steps.push({ kind: "unitary", gate });
-        steps.push({ kind: "noise", qubits: op.qubits });
+        steps.push({ kind: "noise", noise: plan.after(op) });
       } else {
         for (const part of op.parts) fuser.add(part);
       }
@@ -81,28 +112,22 @@ export function simulateDensityMatrix(
   noise: NoiseModel | undefined,
   opts: DensityOptions = {},
 ): DensityMatrix {
-  validateNoiseModel(noise);
+  validateNoiseModel(noise, circuit.numQubits);
   assertDensityMatrixFits(circuit.numQubits, opts);
   checkCircuit(circuit);
   const noisy = hasStateNoise(noise);
-  const p1 = noise?.depolarizing1q ?? 0;
-  const p2 = noise?.depolarizing2q ?? 0;
-  const gamma = noise?.amplitudeDamping ?? 0;
-  const lambda = noise?.phaseDamping ?? 0;
-  const steps = densitySteps(circuit, noisy);
+  const steps = densitySteps(circuit, noisy, new NoisePlan(noise, circuit.numQubits));
   const control = new RunControl(opts, steps.length, "simulate");
   const rho = createZeroDensity(circuit.numQubits);
   for (let i = 0; i < steps.length; i++) {
     const step = steps[i];
     if (step.kind === "unitary") {
       applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
+    } else if (step.kind === "noisy-gate") {
+      applyNoisyGate(rho, step.qubits, step.matrix, step.noise.gate);
+      if (step.noise.idle) applyIdleNoise(rho, step.noise.idle);
     } else if (step.kind === "noise") {
-      if (step.qubits.length === 1) {
-        noiseAfter1q(rho, step.qubits[0], p1, gamma, lambda);
-      } else {
-        depolarize(rho, step.qubits, p2);
-        for (const q of step.qubits) dampQubit(rho, q, gamma, lambda);
-      }
+      applyOpNoise(rho, step.noise);
     } else if (step.kind === "measure") {
       measureNonSelective(rho, step.qubit);
     } else {

@@ -9,6 +9,7 @@
  * `sweep.points` lists every point. The seed is the request's or a fresh one, returned.
  */
 import { parseProgram } from "../circuit";
+import { validateNoiseModel } from "../noise/validate";
 import { EngineError } from "../errors";
 import { SPECTRUM_STEP_BUDGET, lanczosExtremes, lanczosStepCost } from "../observable/lanczos";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
@@ -21,7 +22,8 @@ import { evaluatePoint, type PointResult } from "./evaluate-point";
 import { MAX_DENSITY_MATRIX_QUBITS, MAX_SPECTRUM_QUBITS, MAX_STATEVECTOR_QUBITS } from "./limits";
 import { prepareObservable } from "./prepare-observable";
 import { Progress } from "./progress";
-import { pointSeed, sweepGrid } from "./sweep-grid";
+import { assertDifferentiable } from "../gradient";
+import { parameterPoints, pointSeed, type SweepGrid } from "./sweep-grid";
 import { validateRequest, type NormalisedRequest } from "./validate-request";
 
 export interface EstimateOptions {
@@ -50,8 +52,10 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
+  validateNoiseModel(req.noise, n); // per-qubit readout keys must name qubits of this circuit
   checkQubitLimit(n, req.method);
-  const grid = sweepGrid(req.parameters, req.sweep, program.inputs);
+  const grid = parameterPoints(req.parameters, req.sweep, req.points, program.inputs);
+  if (req.gradient) assertDifferentiable(program);
   const circuits = grid.points.length === 1 ? [program.bind(grid.points[0])] : null;
   const obs = prepareObservable(req.raw.observable, n);
   const seed = req.raw.seed ?? chooseSeed();
@@ -64,7 +68,8 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   for (let k = 0; k < grid.points.length; k++) {
     const circuit = circuits ? circuits[0] : program.bind(grid.points[k]);
     const span = work.span(k / grid.points.length, (k + 1) / grid.points.length, "simulate");
-    const r = await evaluatePoint(circuit, obs, req, pointSeed(seed, k), span);
+    const differentiate = req.gradient ? { program, params: grid.points[k] } : null;
+    const r = await evaluatePoint(circuit, obs, req, pointSeed(seed, k), span, differentiate);
     // Later sweep points keep only their summary (a 10,000-point grid must stay small).
     results.push(k === 0 ? r : { ...r, termValues: null, sampling: r.sampling && { ...r.sampling, terms: [], groups: [] } });
   }
@@ -96,7 +101,7 @@ function assemble(
   obs: PreparedObservable,
   n: number,
   seed: number,
-  grid: ReturnType<typeof sweepGrid>,
+  grid: SweepGrid,
   results: PointResult[],
   spectrum: { min: number; max: number } | undefined,
   timings: EstimateResult["timings"],
@@ -137,14 +142,20 @@ function assemble(
   if (s?.plan) result.shotPlan = s.plan;
   const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
   if (decomposition) result.pauliDecomposition = decomposition;
-  if (grid.names.length > 0) {
+  if (main.gradient) {
+    result.gradient = main.gradient;
+    result.gradientShots = main.gradientShots;
+  }
+  if (grid.kind !== "single") {
     result.sweep = {
+      kind: grid.kind,
       parameters: grid.names,
       points: results.map((r, k) => ({
         params: grid.points[k],
         ideal: r.ideal,
         exact: r.exact,
         sampled: r.sampling ? { mean: r.sampling.sampled.mean, stdErr: r.sampling.sampled.stdErr, ci95: r.sampling.sampled.ci95, shots: r.sampling.sampled.shots } : null,
+        ...(r.gradient ? { gradient: r.gradient, gradientShots: r.gradientShots } : {}),
       })),
     };
   }

@@ -7,12 +7,15 @@
  *   ideal = exact without state noise, else a noiseless statevector run (or a noiseless
  *   density-matrix run when the circuit measures mid-way or resets).
  * Sampling draws from the state of the chosen method (readout error included).
+ * With `gradient`, the derivatives with respect to the inputs come last (gradient/).
  */
 import { simulateDensityMatrix } from "../density-matrix/simulate";
 import { hasStateNoise } from "../noise/validate";
 import { matrixExpectationOnDensity, matrixExpectationOnState } from "../observable/matrix-expectation";
 import { pauliExpectationsOnDensity, pauliExpectationsOnState, weightedTotal } from "../observable/pauli-expectation";
 import { sampleObservable, type PreparedObservable, type PreparedState, type SamplingOutcome } from "../sampling/sample-observable";
+import type { ParsedProgram } from "../circuit";
+import { gradientAtPoint, type GradientResult } from "../gradient";
 import { simulateStatevector } from "../statevector/simulate";
 import type { Circuit } from "../types";
 import type { Progress } from "./progress";
@@ -24,6 +27,9 @@ export interface PointResult {
   /** Per-term exact ⟨P_i⟩ under the noise model (Pauli observables). */
   termValues: Float64Array | null;
   sampling: SamplingOutcome | null;
+  gradient: GradientResult | null;
+  /** Shots of the parameter-shifted circuits. */
+  gradientShots: number;
   simulateMs: number;
   sampleMs: number;
 }
@@ -43,6 +49,7 @@ export async function evaluatePoint(
   req: NormalisedRequest,
   seed: number,
   progress: Progress,
+  differentiate: { program: ParsedProgram; params: Record<string, number> } | null = null,
 ): Promise<PointResult> {
   const t0 = performance.now();
   const sim = progress.span(0, 0.5, "simulate");
@@ -70,20 +77,42 @@ export async function evaluatePoint(
   const wantShots = req.shots > 0 || req.targetPrecision !== null;
   let sampling: SamplingOutcome | null = null;
   const t1 = performance.now();
+  const samplingOptions = {
+    shots: req.targetPrecision !== null ? null : req.shots,
+    targetPrecision: req.targetPrecision,
+    split: req.split,
+    readout: req.readout,
+    mitigate: req.mitigate,
+  };
   if (wantShots) {
-    const smp = progress.span(0.5, 1, "sample");
+    const smp = progress.span(0.5, differentiate ? 0.6 : 1, "sample");
     smp.report(0);
-    sampling = await sampleObservable(state, obs, {
-      shots: req.targetPrecision !== null ? null : req.shots,
-      targetPrecision: req.targetPrecision,
-      split: req.split,
-      readout: req.readout,
-      mitigate: req.mitigate,
+    sampling = await sampleObservable(state, obs, { ...samplingOptions, seed, tick: (f) => smp.tick(f) });
+  }
+  let gradient: GradientResult | null = null;
+  let gradientShots = 0;
+  if (differentiate) {
+    const grd = progress.span(wantShots ? 0.6 : 0.5, 1, "gradient");
+    grd.report(0);
+    const g = await gradientAtPoint({
+      program: differentiate.program,
+      params: differentiate.params,
+      circuit,
+      obs,
+      method: req.method,
+      noise: req.noise,
+      state,
+      sampling: wantShots ? samplingOptions : null,
       seed,
-      tick: (f) => smp.tick(f),
+      signal: progress.signal,
+      tick: (f) => grd.tick(f),
     });
+    gradient = g.gradient;
+    gradientShots = g.shots;
   }
   return {
+    gradient,
+    gradientShots,
     ideal: ideal ?? exact.value,
     exact: exact.value,
     termValues: exact.terms,

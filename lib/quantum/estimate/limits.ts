@@ -9,8 +9,12 @@ export const MAX_SHOTS = 100_000_000;
 export const MAX_SEED = 0xffffffff;
 /** Largest parameter-sweep grid (product of the value-list lengths). */
 export const MAX_SWEEP_POINTS = 10_000;
+/** Largest explicit list of parameter bindings (`points`). */
+export const MAX_POINTS = 10_000;
 /** Largest circuit source / Pauli text (characters). */
 export const MAX_SOURCE_CHARS = 1_000_000;
+/** Entries of a JSON term-list observable ({ format: "terms" }). */
+export const MAX_OBSERVABLE_TERMS = 100_000;
 /** Matrix observables: at most 8 qubits (256 × 256). */
 export const MAX_MATRIX_QUBITS = 8;
 /** Qubit ceilings of the methods (the kernels enforce the same numbers). */

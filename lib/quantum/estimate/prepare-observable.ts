@@ -8,6 +8,7 @@ import { groupQubitWise, type MeasurementSetting } from "../observable/grouping"
 import { hermitianEigen } from "../observable/hermitian-eigen";
 import { parseMatrixObservable, type HermitianMatrix } from "../observable/matrix-observable";
 import { parsePauliSum } from "../observable/pauli-parse";
+import { parsePauliTerms } from "../observable/pauli-terms";
 import { highestQubit, padPauliSum } from "../observable/pauli-word";
 import type { PreparedObservable } from "../sampling/sample-observable";
 import type { EstimateRequest } from "../schemas";
@@ -18,7 +19,31 @@ export type ObservableShape = { kind: "pauli"; sum: PauliSum; settings: Measurem
 /** Parsed, checked observable without the (costly) eigendecomposition — for previews. */
 export function parseObservableForCircuit(input: EstimateRequest["observable"], n: number): ObservableShape {
   if (input.format === "matrix") return { kind: "matrix", matrix: parseMatrixObservable(input, n) };
+  if (input.format === "terms") return termsForCircuit(input.terms, n);
   return pauliForCircuit(input.terms, n);
+}
+
+/** A JSON term list over the circuit's n qubits; problems point at observable.terms[i].pauli. */
+function termsForCircuit(terms: unknown, n: number): ObservableShape {
+  const parsed = parsePauliTerms(terms);
+  const plural = n === 1 ? "" : "s";
+  const fail = (entry: number, message: string): never => {
+    throw new EngineError("observable_invalid", `observable.terms[${entry}].pauli: ${message}`, [
+      { path: ["observable", "terms", entry, "pauli"], message: `observable.terms[${entry}].pauli: ${message}` },
+    ]);
+  };
+  if (parsed.denseLength !== null && parsed.denseLength !== n) {
+    fail(parsed.denseEntry ?? 0, `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`);
+  }
+  if (parsed.numQubits > n) {
+    let worst = 0;
+    parsed.terms.forEach((t, i) => {
+      if (highestQubit(t) > highestQubit(parsed.terms[worst])) worst = i;
+    });
+    fail(parsed.entries[worst], `observable acts on qubit ${highestQubit(parsed.terms[worst])} but the circuit has ${n} qubit${plural}`);
+  }
+  const sum = padPauliSum(parsed, n);
+  return { kind: "pauli", sum, settings: groupQubitWise(sum) };
 }
 
 /** The observable ready for estimation (matrix observables get their eigendecomposition). */

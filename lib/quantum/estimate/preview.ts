@@ -7,6 +7,7 @@
  * as `estimate` are thrown for the same bad input.
  */
 import { circuitStats, parseProgram } from "../circuit";
+import { validateNoiseModel } from "../noise/validate";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { allocateShots, planShots } from "../planning/shot-plan";
 import { gershgorinBound } from "../sampling/sample-observable";
@@ -16,16 +17,21 @@ import { EngineError } from "../errors";
 import { checkQubitLimit } from "./estimate";
 import { MAX_SHOTS } from "./limits";
 import { parseObservableForCircuit } from "./prepare-observable";
-import { sweepGrid } from "./sweep-grid";
+import { assertDifferentiable, plannedShiftedCircuits } from "../gradient";
+import { compiledOf } from "../circuit/program";
+import { parameterPoints } from "./sweep-grid";
 import { validateRequest } from "./validate-request";
 
 export function previewRequest(request: unknown): PreviewResult {
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
+  validateNoiseModel(req.noise, n); // per-qubit readout keys must name qubits of this circuit
   checkQubitLimit(n, req.method);
-  const grid = sweepGrid(req.parameters, req.sweep, program.inputs);
+  const grid = parameterPoints(req.parameters, req.sweep, req.points, program.inputs);
   const circuit = program.bind(grid.points[0]);
+  if (grid.kind === "points") bindEveryPoint(program, grid.points);
+  if (req.gradient) assertDifferentiable(program);
   if (req.method === "statevector") assertNoMidCircuitMeasurement(circuit);
   const stats = circuitStats(circuit);
   const obs = parseObservableForCircuit(req.raw.observable, n);
@@ -58,6 +64,17 @@ export function previewRequest(request: unknown): PreviewResult {
     }
   }
   if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0) notes.push("The observable is a multiple of the identity: no measurement is needed.");
+  let gradient: PreviewResult["gradient"] = null;
+  if (req.gradient) {
+    const sampled = shots > 0 || req.targetPrecision !== null;
+    const shiftedCircuits = sampled ? plannedShiftedCircuits(program, grid.points[0]) : 0;
+    gradient = { inputs: program.inputs.map((i) => i.name), shiftedCircuits, shotsPerPoint: shiftedCircuits * shots };
+    if (sampled && shiftedCircuits > 0) {
+      notes.push(
+        `The sampled gradient runs ${shiftedCircuits} parameter-shifted circuit${shiftedCircuits === 1 ? "" : "s"} per point with ${shots.toLocaleString("en-US")} shots each (parameter-shift rules); their shots are counted and billed.`,
+      );
+    }
+  }
   const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
   return {
     qubits: n,
@@ -71,11 +88,33 @@ export function previewRequest(request: unknown): PreviewResult {
     stateBytes: req.method === "statevector" ? 16 * 2 ** n : 16 * 4 ** n,
     sweepPoints: grid.points.length,
     shots,
-    totalShots: shots * grid.points.length,
+    gradient,
+    totalShots: (shots + (gradient?.shotsPerPoint ?? 0)) * grid.points.length,
     shotPlan,
     shotsPerSetting: perSetting,
     ...(decomposition ? { pauliDecomposition: decomposition } : {}),
     varianceSource: "worst_case",
     notes,
   };
+}
+
+/** Binding work budget of the submission check (points × input-dependent gates). */
+const BIND_CHECK_BUDGET = 20_000_000;
+
+/**
+ * Binds every listed point, so an angle that is not finite at some point (e.g. log of a
+ * negative input) is refused at submission with that point's path, not mid-run.
+ */
+function bindEveryPoint(program: ReturnType<typeof parseProgram>, points: Record<string, number>[]): void {
+  const slots = Math.max(1, compiledOf(program).slots.length);
+  if (slots * points.length > BIND_CHECK_BUDGET) return;
+  points.forEach((p, k) => {
+    try {
+      program.bind(p);
+    } catch (e) {
+      if (!(e instanceof EngineError)) throw e;
+      const message = `points[${k}]: ${e.message}`;
+      throw new EngineError(e.code, message, [{ path: ["points", k], message }, ...e.issues]);
+    }
+  });
 }

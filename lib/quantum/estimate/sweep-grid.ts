@@ -1,5 +1,5 @@
 /**
- * Parameter sweeps: the grid is the Cartesian product of the listed values, the first
+ * Parameter points of a run. A sweep's grid is the Cartesian product of the listed values, the first
  * named parameter varying slowest (row-major); each point is `parameters` overridden by
  * the point's values. Point k samples with seed pointSeed(seed, k): the run's seed for
  * k = 0, else the murmur3 32-bit finaliser of seed + k·0x9E3779B9 (reproducible).
@@ -7,12 +7,57 @@
 import { EngineError } from "../errors";
 
 export interface SweepGrid {
+  /** "single" (one point from `parameters`), "grid" (`sweep`) or "points" (`points`). */
+  kind: "single" | "grid" | "points";
   names: string[];
   points: Record<string, number>[];
 }
 
+/** The run's parameter points: the sweep grid, the explicit list, or the single point. */
+export function parameterPoints(
+  parameters: Record<string, number>,
+  sweep: Record<string, number[]> | null,
+  list: Record<string, number>[] | null,
+  inputs: readonly { name: string }[],
+): SweepGrid {
+  return list ? pointList(parameters, list, inputs) : sweepGrid(parameters, sweep, inputs);
+}
+
+/**
+ * An explicit list of bindings: point i is `parameters` overridden by `points[i]`. Every
+ * point must name only declared inputs and, with `parameters`, give all of them a finite
+ * value — checked here for every point, so a bad point is refused at submission with its
+ * path (e.g. points.3.theta). `names` lists the inputs the points set, in declaration order.
+ */
+export function pointList(parameters: Record<string, number>, list: Record<string, number>[], inputs: readonly { name: string }[]): SweepGrid {
+  const declared = inputs.map((i) => i.name);
+  const set = new Set<string>();
+  const points = list.map((point, k) => {
+    for (const [name, value] of Object.entries(point)) {
+      if (!declared.includes(name)) {
+        const list = declared.length ? `the circuit declares: ${declared.join(", ")}` : "the circuit declares no inputs";
+        const message = `points[${k}] sets '${name}', which is not an input of the circuit (${list})`;
+        throw new EngineError("invalid_request", message, [{ path: ["points", k, name], message }]);
+      }
+      if (typeof value !== "number" || !Number.isFinite(value)) {
+        const message = `points[${k}].${name} must be a finite number, got ${String(value)}`;
+        throw new EngineError("invalid_request", message, [{ path: ["points", k, name], message }]);
+      }
+      set.add(name);
+    }
+    for (const name of declared) {
+      if (!Object.hasOwn(point, name) && !Object.hasOwn(parameters, name)) {
+        const message = `points[${k}] has no value for input '${name}' (give it in the point or in parameters)`;
+        throw new EngineError("invalid_request", message, [{ path: ["points", k, name], message }]);
+      }
+    }
+    return { ...parameters, ...point };
+  });
+  return { kind: "points", names: declared.filter((n) => set.has(n)), points };
+}
+
 export function sweepGrid(parameters: Record<string, number>, sweep: Record<string, number[]> | null, inputs: readonly { name: string }[]): SweepGrid {
-  if (!sweep) return { names: [], points: [{ ...parameters }] };
+  if (!sweep) return { kind: "single", names: [], points: [{ ...parameters }] };
   const declared = inputs.map((i) => i.name);
   const names = Object.keys(sweep);
   for (const name of names) {
@@ -34,7 +79,7 @@ export function sweepGrid(parameters: Record<string, number>, sweep: Record<stri
     }
     points.push(p);
   }
-  return { names, points };
+  return { kind: "grid", names, points };
 }
 
 export function pointSeed(seed: number, k: number): number {

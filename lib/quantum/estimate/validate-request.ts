@@ -4,7 +4,8 @@
  * with the density-matrix method. Defaults are applied here (statevector, 0 shots).
  */
 import { EngineError, type EngineIssue } from "../errors";
-import { hasStateNoise } from "../noise/validate";
+import { stateNoiseField } from "../noise/validate";
+import type { Readout } from "../sampling/readout";
 import { estimateRequestSchema, type EstimateRequest } from "../schemas";
 import type { NoiseModel } from "../types";
 
@@ -15,10 +16,12 @@ export interface NormalisedRequest {
   targetPrecision: number | null;
   split: "optimal" | "even";
   noise: NoiseModel | undefined;
-  readout: { e0: number; e1: number };
+  readout: Readout;
   mitigate: boolean;
   parameters: Record<string, number>;
   sweep: Record<string, number[]> | null;
+  points: Record<string, number>[] | null;
+  gradient: boolean;
 }
 
 export function validateRequest(request: unknown): NormalisedRequest {
@@ -36,10 +39,10 @@ export function validateRequest(request: unknown): NormalisedRequest {
   }
   const raw = parsed.data;
   const method = raw.method ?? "statevector";
-  if (method === "statevector" && hasStateNoise(raw.noise)) {
-    const field = (["depolarizing1q", "depolarizing2q", "amplitudeDamping", "phaseDamping"] as const).find((f) => (raw.noise?.[f] ?? 0) > 0)!;
-    const message = `noise.${field} acts on the state and needs method "density_matrix" (the statevector method supports readout error only)`;
-    throw new EngineError("unsupported", message, [{ path: ["noise", field], message }]);
+  const stateField = stateNoiseField(raw.noise);
+  if (method === "statevector" && stateField !== null) {
+    const message = `${stateField.join(".")} acts on the state and needs method "density_matrix" (the statevector method supports readout error only)`;
+    throw new EngineError("unsupported", message, [{ path: stateField, message }]);
   }
   return {
     raw,
@@ -48,9 +51,22 @@ export function validateRequest(request: unknown): NormalisedRequest {
     targetPrecision: raw.targetPrecision ?? null,
     split: raw.shotSplit ?? "optimal",
     noise: raw.noise,
-    readout: { e0: raw.noise?.readout?.p1Given0 ?? 0, e1: raw.noise?.readout?.p0Given1 ?? 0 },
+    readout: readoutOf(raw.noise?.readout),
     mitigate: raw.mitigateReadout ?? false,
     parameters: raw.parameters ?? {},
     sweep: raw.sweep && Object.keys(raw.sweep).length > 0 ? raw.sweep : null,
+    points: raw.points ?? null,
+    gradient: raw.gradient ?? false,
   };
+}
+
+/** Readout rates: the defaults and, for qubits listed in `qubits`, their own (unset fields fall back). */
+function readoutOf(r: NonNullable<EstimateRequest["noise"]>["readout"]): Readout {
+  const e0 = r?.p1Given0 ?? 0;
+  const e1 = r?.p0Given1 ?? 0;
+  const entries = Object.entries(r?.qubits ?? {});
+  if (entries.length === 0) return { e0, e1 };
+  const qubits: ({ e0: number; e1: number } | undefined)[] = [];
+  for (const [key, x] of entries) qubits[Number(key)] = { e0: x.p1Given0 ?? e0, e1: x.p0Given1 ?? e1 };
+  return { e0, e1, qubits };
 }

@@ -10,29 +10,89 @@
  *   ρ_{b',b} = conj(ρ_{b,b'}) gives 2 Σ s_b Re ρ_{b,b'} (k even) or 2 Σ s_b Im ρ_{b,b'} (k odd).
  * - Diagonal terms (x = 0) come from the probabilities p_b: ⟨Z_z⟩ = Σ_b p_b (−1)^{|b&z|},
  *   all of them from one pass over p (few terms) or one Walsh–Hadamard transform (many).
- * Each off-diagonal term costs one pass over the amplitudes (pairs visited once when
- * possible) or over the band ρ_{b,b⊕x} of ρ. Results are per term, in the order of `sum.terms`.
+ * On a statevector every flip mask x costs one pass over the amplitudes, shared by all terms
+ * with that mask (pauli-mask-pass.ts); on ρ each off-diagonal term reads its band ρ_{b,b⊕x}
+ * (2^n entries of 4^n). Results are per term, in the order of `sum.terms`.
  */
 import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { POPCOUNT16 } from "./bits";
+import { LOW_BITS, type MaskTerm, SignTables, maskPassOnState, yCount } from "./pauli-mask-pass";
 import { walshHadamardInPlace } from "./walsh-hadamard";
 
-/** Per-term ⟨P_i⟩ on a normalised statevector. */
-export function pauliExpectationsOnState(state: StateVector, sum: PauliSum): Float64Array {
+/**
+ * Per-term ⟨P_i⟩ on a normalised statevector: terms grouped by flip mask x, one pass over
+ * the state per mask (pauli-mask-pass.ts); a mask shared by many terms (and the diagonal
+ * group when large) goes through Walsh–Hadamard transforms instead (maskByTransform).
+ * `lowBits` sets the block split (tests exercise small values).
+ */
+export function pauliExpectationsOnState(
+  state: StateVector,
+  sum: PauliSum,
+  lowBits = LOW_BITS,
+): Float64Array {
   const out = new Float64Array(sum.terms.length);
-  const diag: number[] = [];
-  const bits = Math.min(state.n, LOW_BITS);
-  const signs = new SignTables(bits);
-  sum.terms.forEach((t, i) => {
-    if (t.xMask === 0) diag.push(i);
-    else out[i] = offDiagonalOnState(state.re, state.im, t.xMask, t.zMask, signs, bits);
-  });
-  if (diag.length > 0) {
-    const p = new Float64Array(state.re.length);
-    for (let b = 0; b < p.length; b++) p[b] = state.re[b] * state.re[b] + state.im[b] * state.im[b];
-    fillDiagonal(p, sum, diag, out);
+  const n = state.n;
+  const signs = new SignTables(Math.min(n, lowBits));
+  for (const [x, terms] of groupByMask(sum)) {
+    if (terms.length > transformThreshold(n)) maskByTransform(state.re, state.im, x, terms, out);
+    else maskPassOnState(state.re, state.im, x, terms, signs, out);
   }
   return out;
+}
+
+/** Terms by flip mask x (insertion order), with their Y count. */
+export function groupByMask(sum: PauliSum): Map<number, MaskTerm[]> {
+  const groups = new Map<number, MaskTerm[]>();
+  sum.terms.forEach((t, index) => {
+    let g = groups.get(t.xMask);
+    if (!g) groups.set(t.xMask, (g = []));
+    g.push({ index, z: t.zMask, k: yCount(t.xMask, t.zMask) });
+  });
+  return groups;
+}
+
+/**
+ * Above this many terms per mask, two Walsh–Hadamard transforms (≈ 2n passes of adds) beat
+ * the per-term block accumulation (≈ ½ pass each); measured break-even ≈ 3n, rounded.
+ */
+const transformThreshold = (n: number): number => Math.max(8, 3 * n);
+
+/**
+ * All terms of mask x from transforms: g(b) = Re f(b) (and Im f(b)) on the half b with bit h
+ * clear, zero elsewhere; WHT(g)[z] = Σ_b s_z(b) g(b) is the half-sum A of every z at once.
+ */
+function maskByTransform(
+  re: Float64Array,
+  im: Float64Array,
+  x: number,
+  terms: readonly MaskTerm[],
+  out: Float64Array,
+): void {
+  const d = re.length;
+  if (x === 0) {
+    const w = new Float64Array(d);
+    for (let b = 0; b < d; b++) w[b] = re[b] * re[b] + im[b] * im[b];
+    walshHadamardInPlace(w);
+    for (const t of terms) out[t.index] = w[t.z];
+    return;
+  }
+  const h = 31 - Math.clz32(x);
+  const needRe = terms.some((t) => (t.k & 1) === 0);
+  const needIm = terms.some((t) => (t.k & 1) === 1);
+  const wr = needRe ? new Float64Array(d) : null;
+  const wi = needIm ? new Float64Array(d) : null;
+  for (let b = 0; b < d; b++) {
+    if ((b >>> h) & 1) continue;
+    const c = b ^ x;
+    if (wr) wr[b] = re[c] * re[b] + im[c] * im[b];
+    if (wi) wi[b] = re[c] * im[b] - im[c] * re[b];
+  }
+  if (wr) walshHadamardInPlace(wr);
+  if (wi) walshHadamardInPlace(wi);
+  for (const t of terms) {
+    const a = (t.k & 1) === 0 ? (wr as Float64Array)[t.z] : (wi as Float64Array)[t.z];
+    out[t.index] = t.k === 0 || t.k === 3 ? 2 * a : -2 * a;
+  }
 }
 
 /** Per-term Tr(ρ P_i) on a density matrix of unit trace. */
@@ -63,7 +123,12 @@ export function weightedTotal(sum: PauliSum, values: ArrayLike<number>): number 
  * ⟨Z_z⟩ for the listed diagonal terms from probabilities p. Few terms (≤ n): one pass
  * over p accumulating every term; more: one Walsh–Hadamard transform of a copy of p.
  */
-export function fillDiagonal(p: Float64Array, sum: PauliSum, diag: number[], out: Float64Array): void {
+export function fillDiagonal(
+  p: Float64Array,
+  sum: PauliSum,
+  diag: number[],
+  out: Float64Array,
+): void {
   const n = Math.round(Math.log2(p.length));
   if (diag.length > Math.max(n, 1)) {
     const w = p.slice();
@@ -84,116 +149,8 @@ export function fillDiagonal(p: Float64Array, sum: PauliSum, diag: number[], out
   diag.forEach((i, t) => (out[i] = acc[t]));
 }
 
-/** Low index bits handled through a ±1 sign table (2^LOW_BITS entries per z pattern). */
-const LOW_BITS = 10;
-
-/** Sign tables s[lo] = (−1)^{|lo & zl|}, cached per low z pattern for one call. */
-class SignTables {
-  private readonly cache = new Map<number, Float64Array>();
-  constructor(private readonly bits: number) {}
-  get(zl: number): Float64Array {
-    let t = this.cache.get(zl);
-    if (!t) {
-      t = new Float64Array(1 << this.bits);
-      for (let lo = 0; lo < t.length; lo++) {
-        const m = lo & zl;
-        t[lo] = (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -1 : 1;
-      }
-      this.cache.set(zl, t);
-    }
-    return t;
-  }
-}
-
-/**
- * Off-diagonal ⟨P⟩ on a statevector. Indices split as b = hi·2^L + lo (L = min(n, 10)):
- * s_b = s_hi · s_lo with s_lo from a table, so the inner loop is branch-free and reads the
- * amplitudes in runs. When x has a bit in the high part, only the hi with that bit clear are
- * visited (each pair b, b ⊕ x once, doubled); otherwise the full sum Σ_b is taken.
- * Re S and Im S with S = Σ_b s_b conj(ψ_{b⊕x}) ψ_b give ⟨P⟩ = Re(i^k S).
- */
-function offDiagonalOnState(re: Float64Array, im: Float64Array, x: number, z: number, signs: SignTables, bits: number): number {
-  const k = (POPCOUNT16[(x & z) & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
-  const lowSize = 1 << bits;
-  const lowMask = lowSize - 1;
-  const xl = x & lowMask;
-  const xh = x >>> bits;
-  const zh = z >>> bits;
-  const sl = signs.get(z & lowMask);
-  const hiCount = re.length >>> bits;
-  const wantRe = (k & 1) === 0;
-  const hb = xh === 0 ? -1 : 31 - Math.clz32(xh);
-  let acc = 0;
-  for (let hi = 0; hi < hiCount; hi++) {
-    if (hb >= 0 && (hi >>> hb) & 1) continue;
-    const bOff = hi << bits;
-    const cOff = (hi ^ xh) << bits;
-    const part = wantRe ? realRun(re, im, sl, bOff, cOff, xl, lowSize) : imagRun(re, im, sl, bOff, cOff, xl, lowSize);
-    const m = hi & zh;
-    acc += (POPCOUNT16[m & 0xffff] + POPCOUNT16[m >>> 16]) & 1 ? -part : part;
-  }
-  if (hb >= 0) acc *= 2; // pairs visited once
-  // ⟨P⟩ = Re(i^k S): k=0 → Re S, 1 → −Im S, 2 → −Re S, 3 → Im S
-  return k === 0 || k === 3 ? acc : -acc;
-}
-
-/**
- * Σ_lo s_lo · Re(conj(ψ_c) ψ_b) over one run (b = bOff + lo, c = cOff + (lo ⊕ xl)), with
- * four independent accumulators so the additions do not wait on each other.
- */
-function realRun(re: Float64Array, im: Float64Array, sl: Float64Array, bOff: number, cOff: number, xl: number, size: number): number {
-  let p0 = 0;
-  let p1 = 0;
-  let p2 = 0;
-  let p3 = 0;
-  let lo = 0;
-  for (; lo + 3 < size; lo += 4) {
-    const b = bOff + lo;
-    let c = cOff + (lo ^ xl);
-    p0 += sl[lo] * (re[c] * re[b] + im[c] * im[b]);
-    c = cOff + ((lo + 1) ^ xl);
-    p1 += sl[lo + 1] * (re[c] * re[b + 1] + im[c] * im[b + 1]);
-    c = cOff + ((lo + 2) ^ xl);
-    p2 += sl[lo + 2] * (re[c] * re[b + 2] + im[c] * im[b + 2]);
-    c = cOff + ((lo + 3) ^ xl);
-    p3 += sl[lo + 3] * (re[c] * re[b + 3] + im[c] * im[b + 3]);
-  }
-  for (; lo < size; lo++) {
-    const b = bOff + lo;
-    const c = cOff + (lo ^ xl);
-    p0 += sl[lo] * (re[c] * re[b] + im[c] * im[b]);
-  }
-  return p0 + p1 + p2 + p3;
-}
-
-/** The same for Im(conj(ψ_c) ψ_b) = re_c·im_b − im_c·re_b. */
-function imagRun(re: Float64Array, im: Float64Array, sl: Float64Array, bOff: number, cOff: number, xl: number, size: number): number {
-  let p0 = 0;
-  let p1 = 0;
-  let p2 = 0;
-  let p3 = 0;
-  let lo = 0;
-  for (; lo + 3 < size; lo += 4) {
-    const b = bOff + lo;
-    let c = cOff + (lo ^ xl);
-    p0 += sl[lo] * (re[c] * im[b] - im[c] * re[b]);
-    c = cOff + ((lo + 1) ^ xl);
-    p1 += sl[lo + 1] * (re[c] * im[b + 1] - im[c] * re[b + 1]);
-    c = cOff + ((lo + 2) ^ xl);
-    p2 += sl[lo + 2] * (re[c] * im[b + 2] - im[c] * re[b + 2]);
-    c = cOff + ((lo + 3) ^ xl);
-    p3 += sl[lo + 3] * (re[c] * im[b + 3] - im[c] * re[b + 3]);
-  }
-  for (; lo < size; lo++) {
-    const b = bOff + lo;
-    const c = cOff + (lo ^ xl);
-    p0 += sl[lo] * (re[c] * im[b] - im[c] * re[b]);
-  }
-  return p0 + p1 + p2 + p3;
-}
-
 function offDiagonalOnDensity(rho: DensityMatrix, d: number, x: number, z: number): number {
-  const k = (POPCOUNT16[(x & z) & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
+  const k = (POPCOUNT16[x & z & 0xffff] + POPCOUNT16[(x & z) >>> 16]) & 3;
   const h = 31 - Math.clz32(x);
   const low = (1 << h) - 1;
   const half = d >>> 1;

@@ -3,7 +3,8 @@
  * P_t|b⟩ = i^k (−1)^{|b&z|} |b ⊕ x⟩ (see pauli-expectation.ts), so terms sharing an
  * x-mask act as one "diagonal then flip": (Hv)_{b⊕x} += D_x(b) v_b with
  * D_x(b) = Σ_{t: x_t = x} c_t i^{k_t} (−1)^{|b & z_t|}. D_x is tabulated once per x
- * while a memory budget allows (the x = 0 table is real), otherwise evaluated per term.
+ * while a memory budget allows (the x = 0 table is real), otherwise built block by block
+ * during the pass from per-term sign tables: either way one pass over v per flip mask.
  */
 import type { PauliSum } from "../types";
 import { POPCOUNT16 } from "./bits";
@@ -31,6 +32,8 @@ export class PauliOperator {
   private readonly bits: number;
   private readonly slo: Float64Array;
   private readonly shi: Float64Array;
+  /** Low sign tables per term of an untabulated group (built on first use). */
+  private readonly lowTables = new Map<FlipGroup, Float64Array[]>();
 
   constructor(sum: PauliSum, tableBytes = PAULI_OPERATOR_TABLE_BYTES) {
     this.dim = 2 ** sum.numQubits;
@@ -40,7 +43,8 @@ export class PauliOperator {
     const byX = new Map<number, FlipGroup>();
     for (const t of sum.terms) {
       if (t.coefficient === 0) continue;
-      const k = (POPCOUNT16[(t.xMask & t.zMask) & 0xffff] + POPCOUNT16[(t.xMask & t.zMask) >>> 16]) & 3;
+      const k =
+        (POPCOUNT16[t.xMask & t.zMask & 0xffff] + POPCOUNT16[(t.xMask & t.zMask) >>> 16]) & 3;
       let g = byX.get(t.xMask);
       if (!g) byX.set(t.xMask, (g = { x: t.xMask, re: null, im: null, terms: [] }));
       g.terms.push({ c: t.coefficient, z: t.zMask, k });
@@ -126,7 +130,58 @@ export class PauliOperator {
         }
         continue;
       }
-      for (const t of g.terms) this.applyTerm(t, x, vRe, vIm, outRe, outIm);
+      if (g.terms.length === 1) this.applyTerm(g.terms[0], x, vRe, vIm, outRe, outIm);
+      else this.applyGroupBlocked(g, vRe, vIm, outRe, outIm);
+    }
+  }
+
+  /**
+   * One pass for all terms of a flip group without a stored table: per block of 2^bits low
+   * indices (b = hi·2^bits + lo), D_x on the block is Σ_t c_t i^k s_t(hi) s_t(lo) built from
+   * the per-term low sign tables (cache-resident), then out_{b⊕x} += D_x(b) v_b.
+   */
+  private applyGroupBlocked(
+    g: FlipGroup,
+    vRe: Float64Array,
+    vIm: Float64Array,
+    outRe: Float64Array,
+    outIm: Float64Array,
+  ): void {
+    const bits = this.bits;
+    const size = 1 << bits;
+    const mask = size - 1;
+    const x = g.x;
+    let lows = this.lowTables.get(g);
+    if (!lows) {
+      lows = g.terms.map((t) => {
+        const tab = new Float64Array(size);
+        for (let lo = 0; lo < size; lo++) tab[lo] = sign(lo, t.z & mask);
+        return tab;
+      });
+      this.lowTables.set(g, lows);
+    }
+    const dRe = new Float64Array(size);
+    const dIm = new Float64Array(size);
+    const hiCount = this.dim >>> bits;
+    for (let hi = 0; hi < hiCount; hi++) {
+      dRe.fill(0);
+      dIm.fill(0);
+      for (let t = 0; t < g.terms.length; t++) {
+        const term = g.terms[t];
+        const s = sign(hi, term.z >>> bits) * term.c;
+        const tab = lows[t];
+        // i^k: k=0 → (1,0), 1 → (0,1), 2 → (−1,0), 3 → (0,−1)
+        const target = (term.k & 1) === 0 ? dRe : dIm;
+        const f = term.k >= 2 ? -s : s;
+        for (let lo = 0; lo < size; lo++) target[lo] += f * tab[lo];
+      }
+      const off = hi << bits;
+      for (let lo = 0; lo < size; lo++) {
+        const b = off + lo;
+        const c = b ^ x;
+        outRe[c] += dRe[lo] * vRe[b] - dIm[lo] * vIm[b];
+        outIm[c] += dRe[lo] * vIm[b] + dIm[lo] * vRe[b];
+      }
     }
   }
 }

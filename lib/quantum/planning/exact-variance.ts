@@ -13,6 +13,11 @@ import type { SettingModel } from "../sampling/setting-model";
 import type { PauliSum } from "../types";
 
 export function varianceFromLaw(p: Float64Array, value: (b: number) => number): number {
+  return momentsFromLaw(p, value).variance;
+}
+
+/** Exact single-shot mean and variance of a setting from its outcome law. */
+export function momentsFromLaw(p: Float64Array, value: (b: number) => number): { mean: number; variance: number } {
   let m1 = 0;
   let m2 = 0;
   for (let b = 0; b < p.length; b++) {
@@ -22,13 +27,18 @@ export function varianceFromLaw(p: Float64Array, value: (b: number) => number): 
     m1 += pb * v;
     m2 += pb * v * v;
   }
-  return Math.max(0, m2 - m1 * m1);
+  return { mean: m1, variance: Math.max(0, m2 - m1 * m1) };
 }
 
 export function pauliSettingVariance(p: Float64Array, sum: PauliSum, termIndices: number[], model: SettingModel): number {
+  return pauliSettingMoments(p, sum, termIndices, model).variance;
+}
+
+/** Exact single-shot mean and variance of a Pauli setting (the cheaper evaluation, module doc). */
+export function pauliSettingMoments(p: Float64Array, sum: PauliSum, termIndices: number[], model: SettingModel): { mean: number; variance: number } {
   const k = termIndices.length;
   const n = Math.round(Math.log2(p.length));
-  if (k <= n + 1 || k * k > p.length * k) return varianceFromLaw(p, (b) => model.value(b));
+  if (k <= n + 1 || k * k > p.length * k) return momentsFromLaw(p, (b) => model.value(b));
   const w = p.slice();
   walshHadamardInPlace(w);
   const c = termIndices.map((i) => sum.terms[i].coefficient);
@@ -39,5 +49,5 @@ export function pauliSettingVariance(p: Float64Array, sum: PauliSum, termIndices
     m1 += c[i] * w[s[i]];
     for (let j = 0; j < k; j++) m2 += c[i] * c[j] * w[s[i] ^ s[j]];
   }
-  return Math.max(0, m2 - m1 * m1);
+  return { mean: m1, variance: Math.max(0, m2 - m1 * m1) };
 }

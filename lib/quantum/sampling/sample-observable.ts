@@ -3,7 +3,7 @@
  *
  * Per measurement setting (a qubit-wise commuting Pauli group, or the eigenbasis of a
  * matrix observable): the outcome law is computed on a rotated COPY of the statevector
- * (or as the diagonal of UρU†, density-diagonal.ts) with readout error folded in (readout.ts); shots are split over settings ∝ √Var_g (exact
+ * (or as the diagonal of UρU†, density-diagonal.ts) with readout error folded in (readout.ts); shots are split over settings to minimise the reported (posterior) variance (posterior-allocation.ts; ≈ ∝ √Var_g, exact
  * single-shot variances, "optimal") or evenly, or chosen by a target standard error
  * (shot-plan.ts); each setting draws from its own jumped PRNG stream (rng.ts); the
  * statistics (statistics.ts, interval.ts) give the estimate, posterior standard error, 95 % interval, per-term
@@ -15,7 +15,8 @@ import { indexToBitstring } from "../observable/bits";
 import type { MeasurementSetting } from "../observable/grouping";
 import type { HermitianEigen } from "../observable/hermitian-eigen";
 import type { HermitianMatrix } from "../observable/matrix-observable";
-import { pauliSettingVariance, varianceFromLaw } from "../planning/exact-variance";
+import { momentsFromLaw, pauliSettingMoments } from "../planning/exact-variance";
+import { posteriorPlan, posteriorWeights, type SettingLoad } from "../planning/posterior-allocation";
 import { allocateShots, planShots, type ShotPlan } from "../planning/shot-plan";
 import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { rotateStateCopy, stateProbabilities } from "./basis-rotation";
@@ -104,7 +105,8 @@ function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: Samp
     const bound = gershgorinBound(obs.matrix);
     const law = (): Float64Array => {
       const p = prepared.kind === "statevector" ? eigenbasisLawOfState(prepared.state, obs.eigen) : eigenbasisLawOfDensity(prepared.rho, obs.eigen);
-      convolveReadout(p, opts.readout);
+      const n = Math.round(Math.log2(p.length));
+      convolveReadout(p, opts.readout, (b) => n - 1 - b);
       return p;
     };
     return [{ bases: "eigenbasis", termIndices: [], model, stdDevBound: bound, law }];
@@ -141,6 +143,7 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
   const cache = dim * 8 * g <= LAW_CACHE_BYTES ? new Map<number, Float64Array>() : null;
   const needVariance = opts.targetPrecision !== null || opts.split === "optimal";
   const variances: number[] | null = needVariance ? [] : null;
+  const loads: SettingLoad[] = [];
   const step = async (f: number): Promise<void> => {
     await opts.tick?.(f);
   };
@@ -149,16 +152,18 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
       const spec = specs[k];
       const p = spec.law();
       cache?.set(k, p);
-      variances.push(
-        obs.kind === "pauli" ? pauliSettingVariance(p, obs.sum, spec.termIndices, spec.model) : varianceFromLaw(p, (b) => spec.model.value(b)),
-      );
+      const m = obs.kind === "pauli" ? pauliSettingMoments(p, obs.sum, spec.termIndices, spec.model) : momentsFromLaw(p, (b) => spec.model.value(b));
+      variances.push(m.variance);
+      const [lo, hi] = spec.model.range;
+      loads.push({ variance: m.variance, pseudo: (lo - m.mean) ** 2 + (hi - m.mean) ** 2 });
       await step((0.2 * (k + 1)) / g);
     }
   }
   let plan: ShotPlan | null = null;
   let perSetting: number[];
   if (opts.targetPrecision !== null) {
-    plan = planShots({ targetPrecision: opts.targetPrecision, stdDevBounds: specs.map((s) => s.stdDevBound), stdDevs: variances!.map(Math.sqrt) });
+    // worst case as before; state-aware for the reported (posterior) standard error
+    plan = { ...planShots({ targetPrecision: opts.targetPrecision, stdDevBounds: specs.map((s) => s.stdDevBound) }), stateAware: posteriorPlan(opts.targetPrecision, loads) };
     perSetting = plan.stateAware!.perSetting;
     const total = plan.stateAware!.totalShots;
     if (total > MAX_SHOTS) {
@@ -167,7 +172,7 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
   } else {
     const total = opts.shots ?? 0;
     if (total < g) shotsError(`at least one shot per measurement setting is needed: ${g} settings need shots ≥ ${g}`, "shots");
-    perSetting = allocateShots(total, variances && opts.split === "optimal" ? variances.map(Math.sqrt) : specs.map(() => 1));
+    perSetting = allocateShots(total, variances && opts.split === "optimal" ? posteriorWeights(total, loads) : specs.map(() => 1));
   }
   const totalShots = perSetting.reduce((a, b) => a + b, 0);
   const prefixes = planCheckpoints(perSetting);
@@ -227,8 +232,8 @@ function termSamples(sum: PauliSum, specs: Spec[], samples: SettingSample[], mit
       const e = estimateLinearCombination([{ shots: s.shots, sum: s.termSums[j], sumSq: s.shots, lo: -1, hi: 1 }], { range: PAULI_RANGE });
       const entry: TermSample = { sampledMean: e.mean, stdErr: e.stdErr, ci95: e.ci95 };
       if (mitigate && s.termMitSums && s.termMitSumSq) {
-        const bound = spec.model.termMitigatedBound[j];
-        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo: -bound, hi: bound }], { range: PAULI_RANGE });
+        const [lo, hi] = spec.model.termMitigatedRange[j];
+        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo, hi }], { range: PAULI_RANGE });
         entry.mitigatedMean = m.mean;
         entry.mitigatedStdErr = m.stdErr;
         entry.mitigatedCi95 = m.ci95;

@@ -15,10 +15,17 @@ import { GateFuser } from "./fusion";
 import { assertStatevectorFits, type MemoryLimits } from "./memory";
 import { RunControl, type RunOptions } from "./run-control";
 import { createZeroState } from "./state";
+import { engineThreads, threadsFor } from "../parallel/config";
+import { ParallelState } from "../parallel/kernel-pool";
 
 export interface StatevectorOptions extends RunOptions, MemoryLimits {
   /** Fuse gates into ≤ 2-qubit blocks (default true). */
   fuse?: boolean;
+  /**
+   * Engine threads (default: engineThreads(), i.e. KETWISE_ENGINE_THREADS or the cores);
+   * 1 = the single-thread path. States below PARALLEL_MIN_QUBITS always use one thread.
+   */
+  threads?: number;
 }
 
 function unsupported(circuit: Circuit, what: string, qubit: number, line: number): never {
@@ -34,7 +41,8 @@ export function assertNoMidCircuitMeasurement(circuit: Circuit): void {
     if (op.kind === "reset") unsupported(circuit, "a reset", op.qubit, op.line);
     if (op.kind === "measure") {
       const earlier = measured.get(op.qubit);
-      if (earlier !== undefined) unsupported(circuit, "a mid-circuit measurement", op.qubit, earlier);
+      if (earlier !== undefined)
+        unsupported(circuit, "a mid-circuit measurement", op.qubit, earlier);
       measured.set(op.qubit, op.line);
     } else if (op.kind === "gate") {
       for (const q of op.qubits) {
@@ -44,9 +52,16 @@ export function assertNoMidCircuitMeasurement(circuit: Circuit): void {
     }
   }
   if (circuit.hasMidCircuitMeasurement || circuit.hasReset) {
-    throw new EngineError("unsupported", "mid-circuit measurement and reset need the density-matrix method", [
-      { path: ["method"], message: "use the density-matrix method for mid-circuit measurement or reset" },
-    ]);
+    throw new EngineError(
+      "unsupported",
+      "mid-circuit measurement and reset need the density-matrix method",
+      [
+        {
+          path: ["method"],
+          message: "use the density-matrix method for mid-circuit measurement or reset",
+        },
+      ],
+    );
   }
 }
 
@@ -66,7 +81,23 @@ export function simulateStatevector(circuit: Circuit, opts: StatevectorOptions =
   assertNoMidCircuitMeasurement(circuit);
   const gates = circuitGates(circuit, opts.fuse ?? true);
   const control = new RunControl(opts, gates.length, "simulate");
-  const state = createZeroState(circuit.numQubits);
+  const n = circuit.numQubits;
+  const threads = threadsFor(n, opts.threads ?? engineThreads());
+  if (threads > 1) {
+    const shared = new ParallelState(n, threads);
+    shared.re[0] = 1;
+    try {
+      for (let i = 0; i < gates.length; i++) {
+        shared.apply(gates[i].qubits, gates[i].matrix);
+        control.tick(i + 1);
+      }
+    } finally {
+      shared.detach();
+    }
+    control.finish();
+    return { n, re: shared.re, im: shared.im };
+  }
+  const state = createZeroState(n);
   for (let i = 0; i < gates.length; i++) {
     applyToAmplitudes(state.re, state.im, gates[i].qubits, gates[i].matrix);
     control.tick(i + 1);

@@ -7,7 +7,7 @@
 import { simulateDensityMatrix } from "@/lib/quantum/density-matrix/simulate";
 import type { Circuit, CircuitOp } from "@/lib/quantum/types";
 import { CX, ry } from "../ansatz";
-import { type BenchRow, fmtMs, timeMs } from "../bench-kit";
+import { type BenchRow, fmtClocks, fmtMs, paired, ratioResult } from "../bench-kit";
 
 const N = 10;
 const GATES = 100;
@@ -18,27 +18,56 @@ function noisyCircuit(): Circuit {
     const q = (g >> 1) % N;
     if (g % 2 === 0) {
       const m = ry(0.3 + 0.1 * g);
-      ops.push({ kind: "gate", name: "ry", qubits: [q], params: [], parts: [{ name: "ry", qubits: [q], matrix: m }], line: g + 1 });
+      ops.push({
+        kind: "gate",
+        name: "ry",
+        qubits: [q],
+        params: [],
+        parts: [{ name: "ry", qubits: [q], matrix: m }],
+        line: g + 1,
+      });
     } else {
       const t = (q + 1) % N;
-      ops.push({ kind: "gate", name: "cx", qubits: [q, t], params: [], parts: [{ name: "cx", qubits: [q, t], matrix: CX }], line: g + 1 });
+      ops.push({
+        kind: "gate",
+        name: "cx",
+        qubits: [q, t],
+        params: [],
+        parts: [{ name: "cx", qubits: [q, t], matrix: CX }],
+        line: g + 1,
+      });
     }
   }
-  return { numQubits: N, numClbits: 0, ops, qubitLabels: [], hasMidCircuitMeasurement: false, hasReset: false };
+  return {
+    numQubits: N,
+    numClbits: 0,
+    ops,
+    qubitLabels: [],
+    hasMidCircuitMeasurement: false,
+    hasReset: false,
+  };
 }
 
 export const densityRow: BenchRow = (ctx) => {
   const circuit = noisyCircuit();
-  const noise = { depolarizing1q: 0.001, depolarizing2q: 0.01, amplitudeDamping: 0.002, phaseDamping: 0.003 };
-  const ms = timeMs(() => simulateDensityMatrix(circuit, noise), 3, 1);
-  const base = ctx.copyMs(2 * N);
-  const perGate = ms / (GATES * base);
+  const noise = {
+    depolarizing1q: 0.001,
+    depolarizing2q: 0.01,
+    amplitudeDamping: 0.002,
+    phaseDamping: 0.003,
+  };
+  const p = paired(() => simulateDensityMatrix(circuit, noise), ctx.copy(2 * N));
+  const per = {
+    ...p,
+    ratio: { median: p.ratio.median / GATES, min: p.ratio.min / GATES, max: p.ratio.max / GATES },
+  };
   return [
-    {
-      row: `density matrix n=${N}, ${GATES} noisy gates (passes per noisy gate)`,
-      measured: `${fmtMs(ms)} vs ${GATES} × ${fmtMs(base)}`,
-      value: perGate,
-      target: "",
-    },
+    ratioResult(
+      per,
+      `density matrix n=${N}, ${GATES} noisy gates (passes per noisy gate)`,
+      `${fmtClocks(p.row)} vs ${GATES} × ${fmtMs(p.base.cpu.median)}`,
+      "≤ 3",
+      (r) => r <= 3,
+    ),
   ];
 };

@@ -12,8 +12,13 @@ const MiB = 2 ** 20;
 
 export const memoryRow: BenchRow = () => {
   const child = fileURLToPath(new URL("../peak-memory-child.ts", import.meta.url));
-  const out = execFileSync(process.execPath, ["--import", "tsx", child, String(N)], { encoding: "utf8" });
-  const { peakKiB, startPeakKiB } = JSON.parse(out.trim().split("\n").pop() ?? "{}") as { peakKiB: number; startPeakKiB: number };
+  const out = execFileSync(process.execPath, ["--import", "tsx", child, String(N)], {
+    encoding: "utf8",
+  });
+  const { peakKiB, startPeakKiB } = JSON.parse(out.trim().split("\n").pop() ?? "{}") as {
+    peakKiB: number;
+    startPeakKiB: number;
+  };
   const peak = peakKiB * 1024;
   const limit = 1.5 * statevectorBytes(N) + 200e6;
   return [

@@ -19,8 +19,11 @@ function findPython(): string {
   if (canImportNumpy("/usr/bin/python3")) return "/usr/bin/python3";
   console.error("numpy not found: installing python3-numpy with apt-get …");
   spawnSync("apt-get", ["update"], { stdio: "ignore" });
-  const r = spawnSync("apt-get", ["install", "-y", "--no-install-recommends", "python3-numpy"], { stdio: "ignore" });
-  if (r.status !== 0 || !canImportNumpy("/usr/bin/python3")) throw new Error("could not install python3-numpy");
+  const r = spawnSync("apt-get", ["install", "-y", "--no-install-recommends", "python3-numpy"], {
+    stdio: "ignore",
+  });
+  if (r.status !== 0 || !canImportNumpy("/usr/bin/python3"))
+    throw new Error("could not install python3-numpy");
   return "/usr/bin/python3";
 }
 
@@ -39,10 +42,15 @@ export const numpyRow: BenchRow = (ctx) => {
   if (ketwiseMs === undefined || !state) throw new Error("numpyRow needs ansatzRow to run first");
   const python = findPython();
   const script = fileURLToPath(new URL("../ansatz_numpy.py", import.meta.url));
-  const out = JSON.parse(execFileSync(python, [script, String(ANSATZ_N), String(ANSATZ_LAYERS)], { encoding: "utf8" })) as NumpyOut;
+  const out = JSON.parse(
+    execFileSync(python, [script, String(ANSATZ_N), String(ANSATZ_LAYERS)], { encoding: "utf8" }),
+  ) as NumpyOut;
   let diff = out.agree;
   out.probe.forEach((idx, j) => {
-    diff = Math.max(diff, Math.hypot(state.re[idx] - out.amplitudes[j][0], state.im[idx] - out.amplitudes[j][1]));
+    diff = Math.max(
+      diff,
+      Math.hypot(state.re[idx] - out.amplitudes[j][0], state.im[idx] - out.amplitudes[j][1]),
+    );
   });
   const numpyMs = Math.min(out.einsumMs, out.slicedMs);
   const ratio = ketwiseMs / numpyMs;

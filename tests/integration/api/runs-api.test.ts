@@ -73,6 +73,24 @@ describe("request validation", () => {
     expect(res.body.errors[0].path).toMatch(/^observable\.real/);
   });
 
+  it("accepts a JSON term-list observable and points its errors at observable.terms[i].pauli", async () => {
+    const terms = [
+      { coefficient: 0.5, pauli: "Z0 Z1" },
+      { coefficient: -1, pauli: "XX" },
+    ];
+    const ok = await api("POST", "/api/v1/runs/preview", { key: keyB, body: bellRequest({ observable: { format: "terms", terms } }) });
+    expect(ok.status, JSON.stringify(ok.body)).toBe(200);
+    expect(ok.body.observable.settings).toBe(2);
+    const res = await post(bellRequest({ observable: { format: "terms", terms: [terms[0], { coefficient: 1, pauli: "X0 X0" }] } }));
+    expect(res.status).toBe(400);
+    expect(res.body.type).toBe("/problems/engine/observable-invalid");
+    expect(res.body.errors[0].path).toBe("observable.terms[1].pauli");
+    expect(res.body.errors[0].message).toContain("qubit 0 appears twice in one Pauli word");
+    const shape = await post(bellRequest({ observable: { format: "terms", terms: [{ coefficient: "x", pauli: "Z0" }] } }));
+    expect(shape.status).toBe(422);
+    expect(shape.body.errors.map((e: { path: string }) => e.path)).toContain("observable.terms[0].coefficient");
+  });
+
   it("answers malformed JSON 400, a non-JSON body 415 and a body over 4 MiB 413", async () => {
     const bad = await api("POST", "/api/v1/runs", { key: keyA, rawBody: "{ not json", headers: { "content-type": "application/json" } });
     expect(bad.status).toBe(400);
@@ -207,7 +225,13 @@ describe("library", () => {
     });
     expect(bad.status).toBe(400);
     expect(bad.body.type).toBe("/problems/engine/not-hermitian");
+    const listed = await api("POST", "/api/v1/observables", {
+      key: keyB,
+      body: { name: "from-terms", format: "terms", terms: [{ coefficient: 0.5, pauli: "Z0 Z3" }, { coefficient: -1, pauli: "X1" }] },
+    });
+    expect(listed.status).toBe(201);
+    expect(listed.body).toMatchObject({ qubits: 4, format: "pauli", terms: "0.5 Z0 Z3 - 1 X1" });
     const list = await api("GET", "/api/v1/observables", { key: keyB });
-    expect(list.body.data.map((o: { name: string }) => o.name)).toEqual(["sigma-y", "zz"]);
+    expect(list.body.data.map((o: { name: string }) => o.name)).toEqual(["from-terms", "sigma-y", "zz"]);
   });
 });

@@ -7,10 +7,13 @@
  * the e-mail to the submitter after a run longer than a minute.
  */
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { closeDb } from "@/db";
+import { eq, sql } from "drizzle-orm";
+import { closeDb, db } from "@/db";
+import { runs } from "@/db/schema";
 import { estimate } from "@/lib/quantum";
 import { closeQueue, enqueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
+import type { EngineRunner } from "@/lib/runs/engine-runner";
 import { executeRun } from "@/lib/runs/execute-run";
 import { NOTIFY_AFTER_MS, notifyIfLong } from "@/lib/runs/notify";
 import { getRunsQueue } from "@/lib/queue/enqueue";
@@ -39,20 +42,33 @@ afterAll(async () => {
 });
 
 const withoutTimings = (result: Record<string, unknown>) => ({ ...result, timings: undefined });
-const metrics = (rows: { metric: string; quantity: number }[]) => Object.fromEntries(rows.map((u) => [u.metric, u.quantity]));
+const metrics = (rows: { metric: string; quantity: number }[]) =>
+  Object.fromEntries(rows.map((u) => [u.metric, u.quantity]));
 
 describe("submit → poll → result", () => {
   it("answers 202 with Location, and the run finishes with the result estimate() gives", async () => {
-    const res = await api("POST", "/api/v1/runs", { key, body: { name: "Bell CHSH", ...bellRequest() } });
+    const res = await api("POST", "/api/v1/runs", {
+      key,
+      body: { name: "Bell CHSH", ...bellRequest() },
+    });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     expect(res.headers.get("location")).toBe(`/api/v1/runs/${res.body.id}`);
-    expect(res.body).toMatchObject({ name: "Bell CHSH", status: "queued", qubits: 2, shots: 1000, seed: 11, method: "statevector" });
+    expect(res.body).toMatchObject({
+      name: "Bell CHSH",
+      status: "queued",
+      qubits: 2,
+      shots: 1000,
+      seed: 11,
+      method: "statevector",
+    });
 
     const run = await pollRun(key, res.body.id);
     expect(run.status, JSON.stringify(run.error)).toBe("succeeded");
     expect(run.progress).toBe(1);
     const direct = await estimate(bellRequest());
-    expect(withoutTimings(run.result)).toEqual(withoutTimings(direct as unknown as Record<string, unknown>));
+    expect(withoutTimings(run.result)).toEqual(
+      withoutTimings(direct as unknown as Record<string, unknown>),
+    );
     // Tsirelson's bound: √2(ZZ + XX) on the Bell state is 2√2 (Cirel'son 1980).
     expect(run.result.exact.value).toBeCloseTo(2 * Math.SQRT2, 12);
     expect(Date.parse(run.startedAt)).toBeGreaterThanOrEqual(Date.parse(run.queuedAt));
@@ -67,7 +83,10 @@ describe("submit → poll → result", () => {
   });
 
   it("chooses and stores a seed when none is given, and the result uses it", async () => {
-    const res = await api("POST", "/api/v1/runs", { key, body: { ...bellRequest(), seed: undefined } });
+    const res = await api("POST", "/api/v1/runs", {
+      key,
+      body: { ...bellRequest(), seed: undefined },
+    });
     expect(res.status).toBe(202);
     expect(Number.isInteger(res.body.seed)).toBe(true);
     const run = await pollRun(key, res.body.id);
@@ -95,27 +114,27 @@ describe("Idempotency-Key", () => {
 });
 
 describe("concurrency slots and cancellation", () => {
-  it("runs one at a time on Sandbox, cancels a queued run at once and a running one within a second", async () => {
+  it("runs one at a time on Sandbox, cancels a queued run at once and stops a running one", async () => {
     const long = await api("POST", "/api/v1/runs", { key, body: longRunRequest(400) });
     expect(long.status, JSON.stringify(long.body)).toBe(202);
-    await pollRun(key, long.body.id, { until: (r) => r.status === "running" && r.progress > 0, timeoutMs: 60_000 });
+    await pollRun(key, long.body.id, {
+      until: (r) => r.status === "running" && r.progress > 0,
+      timeoutMs: 60_000,
+    });
 
     // Sandbox allows 1 concurrent run: the second waits queued although a thread is free.
     const second = await api("POST", "/api/v1/runs", { key, body: smallRequest(3) });
-    await new Promise((r) => setTimeout(r, 1500));
+    await worker.waitForOutput(`run ${second.body.id}: waiting for a slot`);
     expect((await api("GET", `/api/v1/runs/${second.body.id}`, { key })).body.status).toBe("queued");
     const canceledQueued = await api("POST", `/api/v1/runs/${second.body.id}/cancel`, { key });
     expect(canceledQueued.status).toBe(200);
     expect(canceledQueued.body.status).toBe("canceled");
 
-    const canceledAt = Date.now();
     const canceled = await api("POST", `/api/v1/runs/${long.body.id}/cancel`, { key });
     expect(canceled.status).toBe(200);
     expect(canceled.body.status).toBe("canceled");
-    while (!worker.output().includes(`run ${long.body.id}: canceled`)) {
-      expect(Date.now() - canceledAt, "the worker stops a canceled run within a second").toBeLessThan(1000);
-      await new Promise((r) => setTimeout(r, 20));
-    }
+    // The worker stops the engine thread (a 400-layer run would take far longer to finish).
+    await worker.waitForOutput(`run ${long.body.id}: canceled`);
     // The slot and the engine thread are free again: a new run finishes.
     const third = await api("POST", "/api/v1/runs", { key, body: smallRequest(4) });
     expect((await pollRun(key, third.body.id, { timeoutMs: 60_000 })).status).toBe("succeeded");
@@ -124,7 +143,9 @@ describe("concurrency slots and cancellation", () => {
     expect(after.body.status).toBe("canceled");
     expect(after.body.result).toBeNull();
     // A canceled run meters only the engine time it used; never a run or shots.
-    expect(Object.keys(metrics(await usageOf(owner.orgId, long.body.id)))).toEqual(["simulation_seconds"]);
+    expect(Object.keys(metrics(await usageOf(owner.orgId, long.body.id)))).toEqual([
+      "simulation_seconds",
+    ]);
     expect(await usageOf(owner.orgId, second.body.id)).toHaveLength(0);
     // Canceling again is a no-op; a finished run cannot be canceled.
     expect((await api("POST", `/api/v1/runs/${long.body.id}/cancel`, { key })).status).toBe(200);
@@ -145,7 +166,12 @@ describe("faults found only in the worker", () => {
   });
 
   it("fails with the engine's problem (line and column) when the engine rejects the stored request", async () => {
-    const request = bellRequest({ circuit: { format: "qasm2", source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nfoo q[0];\n' } });
+    const request = bellRequest({
+      circuit: {
+        format: "qasm2",
+        source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nfoo q[0];\n',
+      },
+    });
     const runId = await insertRawRun(owner.orgId, request);
     await enqueue("run.execute", { orgId: owner.orgId, runId }, { jobId: runId });
     const run = await pollRun(key, runId);
@@ -156,9 +182,43 @@ describe("faults found only in the worker", () => {
     expect(Object.keys(metrics(await usageOf(owner.orgId, runId)))).toEqual(["simulation_seconds"]);
   });
 
+  it("stops an attempt another worker took over, reports it superseded and meters nothing", async () => {
+    const runId = await insertRawRun(owner.orgId, longRunRequest(400), {
+      method: "density_matrix",
+      qubits: 8,
+    });
+    const engine: EngineRunner = {
+      run: (request, options) => {
+        // Another worker claims the run (as after a lost job lock) while this attempt computes.
+        void db
+          .update(runs)
+          .set({ attempts: sql`${runs.attempts} + 1` })
+          .where(eq(runs.id, runId))
+          .execute();
+        return inProcessEngine.run(request, options);
+      },
+    };
+    const outcome = await executeRun({ orgId: owner.orgId, runId }, engine, () => {});
+    expect(outcome.kind).toBe("superseded");
+    const row = await runRow(owner.orgId, runId);
+    expect(row.status).toBe("running");
+    expect(row.attempts).toBe(2);
+    expect(await usageOf(owner.orgId, runId)).toEqual([]);
+    // Nobody runs attempt 2 here: free the organisation's run slot for the next test.
+    await db
+      .update(runs)
+      .set({ status: "canceled", finishedAt: new Date() })
+      .where(eq(runs.id, runId));
+  });
+
   it("stops a run at its time limit with a clear problem", async () => {
-    const runId = await insertRawRun(owner.orgId, longRunRequest(40), { method: "density_matrix", qubits: 8 });
-    const outcome = await executeRun({ orgId: owner.orgId, runId }, inProcessEngine, () => {}, { timeLimitMs: 300 });
+    const runId = await insertRawRun(owner.orgId, longRunRequest(40), {
+      method: "density_matrix",
+      qubits: 8,
+    });
+    const outcome = await executeRun({ orgId: owner.orgId, runId }, inProcessEngine, () => {}, {
+      timeLimitMs: 300,
+    });
     expect(outcome.kind).toBe("failed");
     const row = await runRow(owner.orgId, runId);
     expect(row.status).toBe("failed");
@@ -170,7 +230,10 @@ describe("faults found only in the worker", () => {
 
 describe("finished-run e-mail", () => {
   it("mails the submitter (the key's creator) about a run that took over a minute, and only then", async () => {
-    const res = await api("POST", "/api/v1/runs", { key, body: { name: "long study", ...bellRequest() } });
+    const res = await api("POST", "/api/v1/runs", {
+      key,
+      body: { name: "long study", ...bellRequest() },
+    });
     const run = await pollRun(key, res.body.id);
     expect(run.status).toBe("succeeded");
     await notifyIfLong(owner.orgId, run.id, NOTIFY_AFTER_MS - 1, () => {});

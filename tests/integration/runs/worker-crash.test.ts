@@ -7,7 +7,7 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
 import { estimate } from "@/lib/quantum";
-import { closeQueue } from "@/lib/queue/enqueue";
+import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestApiKey, createUserWithOrg } from "../../support/factories";
 import { api, pollRun } from "./support/api";
@@ -59,8 +59,9 @@ describe("a worker killed mid-run", () => {
     expect({ ...run.result, timings: undefined }).toEqual({ ...direct, timings: undefined });
     expect(usage.find((u) => u.metric === "shots")?.quantity).toBe(direct.sweep!.points.reduce((a, p) => a + (p.sampled?.shots ?? 0), 0));
 
-    // Nothing runs it a third time.
-    await new Promise((r) => setTimeout(r, 2000));
+    // Nothing runs it a third time: the queue has the job as completed, which it never re-runs.
+    await survivor.waitForOutput(`run ${id}: succeeded`);
+    await expect.poll(() => getRunsQueue().getJobState(id), { timeout: 30_000 }).toBe("completed");
     expect(survivor.output()).not.toContain(`run ${id}: attempt 3`);
     expect(await usageOf(owner.orgId, id)).toHaveLength(3);
   });

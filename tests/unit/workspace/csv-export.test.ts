@@ -62,7 +62,15 @@ describe("csvField — RFC 4180 §2 quoting rules", () => {
 const result: ExportResult = {
   terms: [
     { pauli: "ZZ", coefficient: 1, exact: 1, sampledMean: 1, stdErr: 0, group: 0 },
-    { pauli: "XX", coefficient: 0.5, exact: 1, sampledMean: 0.98, stdErr: 0.0063, group: 1 },
+    {
+      pauli: "XX",
+      coefficient: 0.5,
+      exact: 1,
+      sampledMean: 0.98,
+      stdErr: 0.0063,
+      ci95: [0.967, 0.992],
+      group: 1,
+    },
     { pauli: "II", coefficient: -0.25, exact: 1, group: null },
   ],
   groups: [
@@ -82,9 +90,11 @@ describe("run CSV exports", () => {
       "std_err",
       "setting",
       "setting_bases",
+      "ci95_low",
+      "ci95_high",
     ]);
-    expect(rows[2]).toEqual(["XX", "0.5", "1", "0.98", "0.0063", "1", "XX"]);
-    expect(rows[3]).toEqual(["II", "-0.25", "1", "", "", "", ""]);
+    expect(rows[2]).toEqual(["XX", "0.5", "1", "0.98", "0.0063", "1", "XX", "0.967", "0.992"]);
+    expect(rows[3]).toEqual(["II", "-0.25", "1", "", "", "", "", "", ""]);
     expect(rows).toHaveLength(4);
   });
   it("writes counts per setting, bitstrings in reading order, and the totals match the shots", () => {

@@ -54,6 +54,21 @@ describe("agreementVerdict", () => {
     expect(agreementVerdict({ mean: 1, stdErr: 0 }, 1).kind).toBe("exact");
     expect(agreementVerdict({ mean: 1, stdErr: 0 }, 0.9).kind).toBe("suspicious");
   });
+  it("with an interval: z uses the half-width on the exact value's side; deterministic shots are never falsely suspicious", () => {
+    // 100 shots all +1 on an eigenstate (⟨Z⟩ = 1): interval [0.942, 1], stdErr 0.0193
+    const eigen = agreementVerdict({ mean: 1, stdErr: 0.0193, ci95: [0.942, 1] }, 1);
+    expect(eigen.kind).toBe("consistent");
+    expect(eigen.z).toBe(0);
+    expect(eigen.p).toBeCloseTo(1, 6);
+    // exact 0.97 (a 1.5 % flip rate the 100 shots missed): inside the interval, |z| < 1.96
+    const near = agreementVerdict({ mean: 1, stdErr: 0.0193, ci95: [0.942, 1] }, 0.97);
+    expect(near.kind).toBe("consistent");
+    expect(near.z).toBeCloseTo((0.03 / 0.058) * Z95, 9);
+    // far below the interval: suspicious
+    expect(agreementVerdict({ mean: 1, stdErr: 0.0193, ci95: [0.942, 1] }, 0.8).kind).toBe(
+      "suspicious",
+    );
+  });
   it("is unavailable without a sample", () => {
     expect(agreementVerdict(null, 1).kind).toBe("unavailable");
   });

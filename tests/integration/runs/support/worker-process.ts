@@ -9,6 +9,8 @@ import { spawn, type ChildProcess } from "node:child_process";
 export type WorkerProcess = {
   child: ChildProcess;
   output: () => string;
+  /** Resolves when the worker has printed `text` (checked on every chunk it writes). */
+  waitForOutput: (text: string, timeoutMs?: number) => Promise<void>;
   kill: () => Promise<void>;
   stop: () => Promise<void>;
 };
@@ -24,8 +26,13 @@ export async function startWorker(options: { concurrency?: number; env?: Record<
     stdio: ["ignore", "pipe", "pipe"],
   });
   let out = "";
-  child.stdout!.on("data", (d: Buffer) => (out += d.toString()));
-  child.stderr!.on("data", (d: Buffer) => (out += d.toString()));
+  const listeners = new Set<() => void>();
+  const append = (d: Buffer) => {
+    out += d.toString();
+    for (const l of listeners) l();
+  };
+  child.stdout!.on("data", append);
+  child.stderr!.on("data", append);
   const deadline = Date.now() + 90_000;
   while (!out.includes("ready:")) {
     if (child.exitCode !== null) throw new Error(`worker exited during start:\n${out}`);
@@ -35,9 +42,26 @@ export async function startWorker(options: { concurrency?: number; env?: Record<
     }
     await new Promise((r) => setTimeout(r, 50));
   }
+  const waitForOutput = (text: string, timeoutMs = 60_000) =>
+    new Promise<void>((resolve, reject) => {
+      const check = () => {
+        if (!out.includes(text)) return;
+        clearTimeout(guard);
+        listeners.delete(check);
+        resolve();
+      };
+      // A hang guard, not a timing assertion: it turns a missing line into a readable failure.
+      const guard = setTimeout(() => {
+        listeners.delete(check);
+        reject(new Error(`worker never printed "${text}":\n${out}`));
+      }, timeoutMs);
+      listeners.add(check);
+      check();
+    });
   return {
     child,
     output: () => out,
+    waitForOutput,
     kill: async () => {
       child.kill("SIGKILL");
       await exited(child);

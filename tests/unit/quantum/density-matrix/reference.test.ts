@@ -54,20 +54,29 @@ function krausOn(rho: Matrix, q: number, n: number, ks: Float64Array[]): Matrix 
 
 function referenceDensity(circuit: Circuit, noise: NoiseModel): Matrix {
   const n = circuit.numQubits;
-  const g = noise.amplitudeDamping ?? 0;
-  const l = noise.phaseDamping ?? 0;
   let rho = zeroDensity(n);
+  const damp = (q: number, g: number, l: number) => {
+    rho = krausOn(rho, q, n, [f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - g), 0), f64(0, 0, Math.sqrt(g), 0, 0, 0, 0, 0)]);
+    rho = krausOn(rho, q, n, [f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - l), 0), f64(0, 0, 0, 0, 0, 0, Math.sqrt(l), 0)]);
+  };
   circuit.ops.forEach((op, i) => {
     if (op.kind === "gate") {
       for (const part of op.parts) {
         const f = fullOperator(part.matrix, part.qubits, n);
         rho = math.multiply(math.multiply(f, rho), dagger(f)) as Matrix;
       }
-      const p = op.qubits.length === 1 ? (noise.depolarizing1q ?? 0) : (noise.depolarizing2q ?? 0);
+      // Per-gate overrides replace the model's rates field by field (README "Noise model").
+      const o = noise.gates?.[op.name] ?? {};
+      const p = o.depolarizing ?? (op.qubits.length === 1 ? (noise.depolarizing1q ?? 0) : (noise.depolarizing2q ?? 0));
       rho = depolarizingRef(rho, op.qubits, p, n);
-      for (const q of op.qubits) {
-        rho = krausOn(rho, q, n, [f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - g), 0), f64(0, 0, Math.sqrt(g), 0, 0, 0, 0, 0)]);
-        rho = krausOn(rho, q, n, [f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - l), 0), f64(0, 0, 0, 0, 0, 0, Math.sqrt(l), 0)]);
+      for (const q of op.qubits) damp(q, o.amplitudeDamping ?? noise.amplitudeDamping ?? 0, o.phaseDamping ?? noise.phaseDamping ?? 0);
+      // Idle noise: every other qubit, 1-qubit depolarizing then damping.
+      if (noise.idle) {
+        for (let q = 0; q < n; q++) {
+          if (op.qubits.includes(q)) continue;
+          rho = depolarizingRef(rho, [q], noise.idle.depolarizing ?? 0, n);
+          damp(q, noise.idle.amplitudeDamping ?? 0, noise.idle.phaseDamping ?? 0);
+        }
       }
     } else if (op.kind === "measure") {
       const later = circuit.ops.slice(i + 1).some((o) =>
@@ -98,4 +107,50 @@ describe("density matrix vs mathjs Kraus reference (independent library, N&C ch.
       expect({ seed, ok: densityDistance(rho.re, rho.im, ref, n) < TOL }).toEqual({ seed, ok: true });
     }
   }, 60_000);
+});
+
+describe("per-gate overrides and idle noise vs the same reference", () => {
+  it("matches on 40 seeded random circuits with overrides on some gate names and idle noise on other qubits", () => {
+    for (let i = 0; i < 40; i++) {
+      const seed = 9100 + i;
+      const rng = makeRng(seed);
+      const n = 2 + (i % 3);
+      const circuit = randomCircuit(rng, n, rng.int(2, 6), false);
+      const rate = (): number => (rng.float() < 0.3 ? 0 : 0.5 * rng.float());
+      const names = [...new Set(circuit.ops.flatMap((op) => (op.kind === "gate" ? [op.name] : [])))];
+      const gates: NonNullable<NoiseModel["gates"]> = {};
+      for (const name of names) {
+        if (rng.float() < 0.5) continue;
+        gates[name] = rng.float() < 0.5 ? { depolarizing: rate() } : { amplitudeDamping: rate(), phaseDamping: rate() };
+      }
+      const noise: NoiseModel = {
+        depolarizing1q: rate(),
+        depolarizing2q: rate(),
+        amplitudeDamping: rate(),
+        gates,
+        ...(i % 2 === 0 ? { idle: { depolarizing: rate(), amplitudeDamping: rate(), phaseDamping: rate() } } : {}),
+      };
+      const rho = simulateDensityMatrix(circuit, noise);
+      const ref = referenceDensity(circuit, noise);
+      expect({ seed, ok: densityDistance(rho.re, rho.im, ref, n) < TOL }).toEqual({ seed, ok: true });
+    }
+  }, 60_000);
+
+  it("idle amplitude damping decays an untouched excited qubit as (1−γ)^m (N&C §8.3.5: p1 → (1−γ)p1)", () => {
+    const circuit = randomCircuit(makeRng(1), 2, 0, false);
+    const x = f64(0, 0, 1, 0, 1, 0, 0, 0);
+    const h = f64(Math.SQRT1_2, 0, Math.SQRT1_2, 0, Math.SQRT1_2, 0, -Math.SQRT1_2, 0);
+    circuit.ops = [
+      { kind: "gate", name: "x", qubits: [1], params: [], parts: [{ name: "x", qubits: [1], matrix: x }], line: 1 },
+      ...[2, 3, 4].map((line) => ({ kind: "gate" as const, name: "h", qubits: [0], params: [], parts: [{ name: "h", qubits: [0], matrix: h }], line })),
+    ];
+    const gamma = 0.1;
+    const rho = simulateDensityMatrix(circuit, { idle: { amplitudeDamping: gamma } });
+    // P(qubit 1 = 1): index bit 1 set (entries 2 and 3 on the diagonal, d = 4).
+    const p1 = rho.re[2 * 4 + 2] + rho.re[3 * 4 + 3];
+    expect(p1).toBeCloseTo((1 - gamma) ** 3, 12);
+    // Without the idle field nothing decays (idle noise is off by default).
+    const quiet = simulateDensityMatrix(circuit, { depolarizing1q: 0 });
+    expect(quiet.re[2 * 4 + 2] + quiet.re[3 * 4 + 3]).toBeCloseTo(1, 12);
+  });
 });

@@ -5,11 +5,17 @@
  *   (Bayes–Laplace; common textbook result);
  * - the Dirichlet covariance Cov(w_k, w_l) = (ᾱ_k δ_kl − ᾱ_k ᾱ_l)/(α₀ + 1) (S. Kotz, N. Balakrishnan
  *   & N. L. Johnson, Continuous Multivariate Distributions, 2000, ch. 49);
- * - the Welch–Satterthwaite degrees of freedom (Satterthwaite 1946; Welch 1947).
+ * - MOVER square-and-add limits for sums (R. G. Newcombe 1998; G. Y. Zou & A. Donner 2008);
+ * - the t quantile series of M. Abramowitz & I. A. Stegun 26.7.5 against jstat.
  */
 import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
-import { estimateLinearCombination, settingPosterior } from "@/lib/quantum/sampling/interval";
+import {
+  estimateLinearCombination,
+  intervalZ,
+  settingPosterior,
+  tQuantile95,
+} from "@/lib/quantum/sampling/interval";
 import {
   incompleteBeta,
   studentQuantileTwoSided,
@@ -31,6 +37,9 @@ describe("Student's t and the incomplete beta function (jstat)", () => {
     }
     expect(studentQuantileTwoSided(0.05, 1e9)).toBeCloseTo(1.959964, 6); // Φ⁻¹(0.975), common practice
     expect(studentQuantileTwoSided(0.05, 0)).toBe(Number.POSITIVE_INFINITY);
+    for (const df of [200, 1001, 50_000])
+      expect(tQuantile95(df)).toBeCloseTo(jStat.studentt.inv(0.975, df), 6);
+    expect(tQuantile95(12)).toBe(studentQuantileTwoSided(0.05, 12));
   });
 
   it("two-sided p-values and I_x(a, b)", () => {
@@ -106,10 +115,9 @@ describe("estimateLinearCombination", () => {
     // 100 identical shots cannot exclude ⟨Z⟩ = 0.97 (a flip rate of 1.5 %)
     expect(e.ci95[0]).toBeLessThan(0.97);
     expect(e.ci95[0]).toBeGreaterThan(0.9);
-    expect(e.df).toBe(101);
   });
 
-  it("adds independent settings: weights scale means by w and variances by w²; Welch–Satterthwaite ν", () => {
+  it("adds independent settings by square-and-add (MOVER): weights scale means by w, variances by w², and swap limits for w < 0", () => {
     const a = { shots: 40, sum: 12, sumSq: 40, lo: -1, hi: 1 };
     const b = { shots: 90, sum: -30, sumSq: 90, lo: -1, hi: 1 };
     const pa = settingPosterior(a);
@@ -121,16 +129,38 @@ describe("estimateLinearCombination", () => {
       ],
       { offset: 3 },
     );
-    expect(e.mean).toBeCloseTo(3 + 0.5 * (12 / 40) - 2 * (-30 / 90), 14);
-    const va = 0.25 * pa.variance;
-    const vb = 4 * pb.variance;
-    expect(e.stdErr).toBeCloseTo(Math.sqrt(va + vb), 14);
-    const nu = (va + vb) ** 2 / (va ** 2 / 41 + vb ** 2 / 91);
-    expect(e.df).toBeCloseTo(nu, 9);
-    const centre = 3 + 0.5 * pa.mean - 2 * pb.mean;
-    const half = jStat.studentt.inv(0.975, nu) * e.stdErr;
-    expect(e.ci95[0]).toBeCloseTo(Math.min(centre - half, e.mean), 7);
-    expect(e.ci95[1]).toBeCloseTo(Math.max(centre + half, e.mean), 7);
+    const xa = 12 / 40;
+    const xb = -30 / 90;
+    expect(e.mean).toBeCloseTo(3 + 0.5 * xa - 2 * xb, 14);
+    expect(e.stdErr).toBeCloseTo(Math.sqrt(0.25 * pa.variance + 4 * pb.variance), 14);
+    const limits = (p: { mean: number; variance: number }, n: number): [number, number] => {
+      const h = jStat.studentt.inv(0.975, n + 1) * Math.sqrt(p.variance);
+      return [p.mean - h, p.mean + h];
+    };
+    const [la, ua] = limits(pa, 40);
+    const [lb, ub] = limits(pb, 90);
+    // w = −2 turns setting b's upper limit into the sum's lower one
+    expect(e.ci95[0]).toBeCloseTo(e.mean - Math.hypot(0.5 * (xa - la), 2 * (ub - xb)), 6);
+    expect(e.ci95[1]).toBeCloseTo(e.mean + Math.hypot(0.5 * (ua - xa), 2 * (xb - lb)), 6);
+    // one setting: the interval is the setting's own t interval around its posterior mean
+    const one = estimateLinearCombination([a]);
+    expect(one.ci95[0]).toBeCloseTo(la, 6);
+    expect(one.ci95[1]).toBeCloseTo(ua, 6);
+  });
+
+  it("many deterministic settings: the interval still contains the exact sum (no accumulated pull to the middle)", () => {
+    const settings = Array.from({ length: 12 }, () => ({
+      shots: 50,
+      sum: 50,
+      sumSq: 50,
+      lo: -1,
+      hi: 1,
+    }));
+    const e = estimateLinearCombination(settings, { range: [-12, 12] });
+    expect(e.mean).toBe(12);
+    expect(e.ci95[1]).toBe(12);
+    expect(e.ci95[0]).toBeLessThan(12);
+    expect(e.stdErr).toBeGreaterThan(0);
   });
 
   it("large N: close to the plug-in normal interval mean ± 1.96·√(s²/N) (common practice)", () => {
@@ -149,10 +179,19 @@ describe("estimateLinearCombination", () => {
       mean: 2.5,
       stdErr: 0,
       ci95: [2.5, 2.5],
-      df: Number.POSITIVE_INFINITY,
     });
     expect(() =>
       estimateLinearCombination([{ shots: 0, sum: 0, sumSq: 0, lo: -1, hi: 1 }]),
     ).toThrow(RangeError);
+  });
+});
+
+describe("intervalZ (the verdict's distance)", () => {
+  it("|z| ≤ 1.96 exactly inside the interval, using the half-width on the reference's side", () => {
+    const e = { mean: 1, stdErr: 0.02, ci95: [0.94, 1] as [number, number] };
+    expect(intervalZ(e, 0.94)).toBeCloseTo(1.959963984540054, 12);
+    expect(intervalZ(e, 1)).toBe(0);
+    expect(intervalZ(e, 1.01)).toBeCloseTo(0.01 / -0.02, 12); // zero-width side: falls back to stdErr
+    expect(intervalZ({ mean: 2, stdErr: 0, ci95: [2, 2] }, 2.1)).toBeNull();
   });
 });

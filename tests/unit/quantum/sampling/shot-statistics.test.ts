@@ -122,11 +122,11 @@ describe("shot split, seeds, convergence", () => {
     expect(c.sampled.mean).not.toBe(a.sampled.mean);
   });
 
-  it("optimal split follows √Var_g; even split is even; totals are exact", async () => {
+  it("optimal split is close to √Var_g with many shots (the posterior split adds the pseudo-shot term D/N², posterior-allocation.ts); even split is even; totals are exact", async () => {
     const opt = await sampleObservable({ kind: "statevector", state }, obs, options({ shots: 10_000 }));
     const sd = opt.groups.map((g) => Math.sqrt(g.variance!));
     const tot = sd.reduce((a, b) => a + b, 0);
-    opt.groups.forEach((g, k) => expect(Math.abs(g.shots - (1 + (10_000 - opt.groups.length) * sd[k] / tot))).toBeLessThanOrEqual(1));
+    opt.groups.forEach((g, k) => expect(Math.abs(g.shots - (1 + (10_000 - opt.groups.length) * sd[k] / tot))).toBeLessThanOrEqual(20));
     expect(opt.groups.reduce((a, g) => a + g.shots, 0)).toBe(10_000);
     const even = await sampleObservable({ kind: "statevector", state }, obs, options({ shots: 10_001, split: "even" }));
     const counts = even.groups.map((g) => g.shots);

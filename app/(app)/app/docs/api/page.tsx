@@ -1,6 +1,7 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/shell/page-header";
 import { ApiDocs } from "@/components/workspace/api-docs/api-docs";
+import { GateTable } from "@/components/workspace/api-docs/gate-table";
 
 export const metadata: Metadata = { title: "API reference" };
 
@@ -13,6 +14,9 @@ export default function ApiDocsPage() {
         crumbs={[{ label: "Developers" }, { label: "API reference" }]}
       />
       <ApiDocs />
+      <div className="mt-6">
+        <GateTable />
+      </div>
     </>
   );
 }

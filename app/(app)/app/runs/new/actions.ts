@@ -1,6 +1,6 @@
 "use server";
 /**
- * Server actions of the composer. `circuitOutlineAction` parses the circuit with the
+ * Server actions of the new-run page. `circuitOutlineAction` parses the circuit with the
  * engine (cheap: no simulation) and returns what the diagram and the parameter fields
  * need, so the parser never ships to the browser. Validation messages for the user come
  * from the preview endpoint; this action only reports its first problem briefly.

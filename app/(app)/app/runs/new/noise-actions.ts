@@ -1,6 +1,6 @@
 "use server";
 /**
- * Noise profiles of the current organisation for the composer: list (any role), save
+ * Noise profiles of the current organisation for the new-run page: list (any role), save
  * and delete (members and above). Inputs are checked with the engine's noise schema.
  */
 import { requireCurrentOrg } from "@/lib/auth/guards";

@@ -1,0 +1,64 @@
+/**
+ * The measurement circuits of a succeeded run as a zip: one OpenQASM 2.0 file per
+ * Pauli measurement setting (the run's circuit, then the basis rotations and the
+ * measurements) and a README. For a sweep or a list of points the circuits are
+ * those of the first point, which the run page's main figures describe.
+ *
+ * The archive's file times are the run's finish time, so the same run always
+ * zips to the same bytes (the run page and `GET /api/v1/runs/:id/circuits.zip`
+ * both serve this function's output).
+ */
+import { measurementCircuitQasm, parseProgram } from "@/lib/quantum/circuit";
+import type { EstimateRequest, EstimateResult } from "@/lib/quantum/schemas";
+import { zipTextFiles, type TextFile } from "./zip";
+
+/** The run's input bindings at its first point: `parameters`, then the first sweep value / first `points` entry. */
+export function firstPointParams(request: EstimateRequest): Record<string, number> {
+  const params: Record<string, number> = { ...(request.parameters ?? {}) };
+  for (const [name, values] of Object.entries(request.sweep ?? {})) params[name] = values[0];
+  const points = (request as { points?: Record<string, number>[] }).points;
+  if (points?.length) Object.assign(params, points[0]);
+  return params;
+}
+
+/** One file per Pauli setting; an empty list when the observable is measured in its eigenbasis. */
+export function measurementCircuitFiles(
+  request: EstimateRequest,
+  result: EstimateResult,
+): TextFile[] {
+  const settings = result.groups
+    .map((g, index) => ({ bases: g.bases, index }))
+    .filter((g) => /^[IXYZ]+$/.test(g.bases));
+  if (!settings.length) return [];
+  const program = parseProgram(request.circuit.format, request.circuit.source);
+  const params = firstPointParams(request);
+  const width = String(settings.length - 1).length;
+  return settings.map((g) => ({
+    name: `setting-${String(g.index).padStart(width, "0")}-${g.bases}.qasm`,
+    text: measurementCircuitQasm(program, params, g.bases),
+  }));
+}
+
+export function circuitsReadme(run: { id: string; name: string }): TextFile {
+  return {
+    name: "README.txt",
+    text:
+      `Measurement circuits of Ketwise run ${run.id} (${run.name}).\n` +
+      `One OpenQASM 2.0 file per measurement setting; the file name carries the setting's bases, qubit 0 first.\n` +
+      `Each circuit prepares the run's state, rotates every measured qubit into its basis (X: h; Y: sdg then h) and measures it.\n`,
+  };
+}
+
+/** The zip bytes; null when there are no Pauli settings to export. */
+export function measurementCircuitsZip(
+  run: { id: string; name: string; finishedAt: Date | null },
+  request: EstimateRequest,
+  result: EstimateResult,
+): Uint8Array | null {
+  const files = measurementCircuitFiles(request, result);
+  if (!files.length) return null;
+  return zipTextFiles(
+    [circuitsReadme(run), ...files],
+    run.finishedAt ?? new Date(Date.UTC(1980, 0, 2)),
+  );
+}

@@ -1,0 +1,164 @@
+/**
+ * Engine threads: a pool of kernel helper threads (worker_threads) that share a statevector
+ * through SharedArrayBuffers and apply gates to it together with the calling thread.
+ *
+ * Split: with T = 2^s threads, thread i owns the contiguous slice i of the amplitudes (index
+ * bits n−s … n−1 equal to i). A gate whose qubits all lie below n − s acts inside every
+ * slice, so each thread applies it to its own slice with the ordinary kernels (no copies,
+ * the same arithmetic per amplitude as one thread: results are bit-identical for any T).
+ * A gate on one of the top s qubits is applied by the calling thread alone (for a ladder
+ * circuit that is about s/n of the gates). Synchronisation is one Atomics notify/wait pair
+ * per gate. Helpers are started once per process (lazily), kept idle between runs, and
+ * `unref`'d so they never keep a process alive; terminating the engine thread that owns
+ * them terminates them too (the worker's way to cancel a run).
+ *
+ * Pure computation: the helpers load their own module and touch only shared memory.
+ */
+import { Worker } from "node:worker_threads";
+import { applyToAmplitudes } from "../statevector/dispatch";
+import {
+  type AttachMessage,
+  CMD_DETACH,
+  CMD_GATE,
+  CONTROL_INTS,
+  DONE,
+  K,
+  KIND,
+  MATRIX_DOUBLES,
+  MAX_K,
+  Q0,
+  READY,
+  SEQ,
+} from "./protocol";
+
+// Resolved lazily from a variable base: bundlers of the web app (which imports the engine for
+// parse-only previews) must not treat the helper files as assets of their bundles.
+const HERE = import.meta.url;
+const bootUrl = (): URL => new URL("./helper-boot.mjs", HERE);
+const entryUrl = (): string => new URL("./kernel-helper.ts", HERE).href;
+/** Longest wait for helpers to start or attach before the run falls back to one thread. */
+const ATTACH_TIMEOUT_MS = 20_000;
+
+let helpers: Worker[] = [];
+let broken = false;
+
+function ensureHelpers(count: number): boolean {
+  if (broken) return false;
+  while (helpers.length < count) {
+    const w = new Worker(bootUrl(), { workerData: { entry: entryUrl() } });
+    w.unref();
+    w.on("error", () => {
+      broken = true;
+    });
+    helpers.push(w);
+  }
+  return true;
+}
+
+/** Helper threads started in this thread, and whether any failed (then runs stay on one thread). */
+export function kernelPoolStatus(): { helpers: number; broken: boolean } {
+  return { helpers: helpers.length, broken };
+}
+
+/** Terminates the helper threads (tests and shutdown; the next parallel run starts new ones). */
+export async function closeKernelPool(): Promise<void> {
+  const all = helpers;
+  helpers = [];
+  broken = false;
+  await Promise.all(all.map((w) => w.terminate()));
+}
+
+/** A statevector's amplitudes in shared memory, with the helpers attached to it. */
+export class ParallelState {
+  readonly re: Float64Array;
+  readonly im: Float64Array;
+  private readonly ctrl: Int32Array;
+  private readonly mat: Float64Array;
+  private readonly splitBit: number;
+  private readonly parts: number;
+  private attached = false;
+
+  /** 2^n amplitudes split over `threads` (a power of two ≥ 2) threads. */
+  constructor(
+    readonly n: number,
+    threads: number,
+  ) {
+    this.parts = threads;
+    this.splitBit = n - Math.log2(threads);
+    const bytes = 8 * 2 ** n;
+    const reBuf = new SharedArrayBuffer(bytes);
+    const imBuf = new SharedArrayBuffer(bytes);
+    this.re = new Float64Array(reBuf);
+    this.im = new Float64Array(imBuf);
+    const control = new SharedArrayBuffer(4 * CONTROL_INTS);
+    const matrix = new SharedArrayBuffer(8 * MATRIX_DOUBLES);
+    this.ctrl = new Int32Array(control);
+    this.mat = new Float64Array(matrix);
+    if (!ensureHelpers(threads - 1)) return;
+    for (let i = 1; i < threads; i++) {
+      const m: AttachMessage = {
+        type: "attach",
+        re: reBuf,
+        im: imBuf,
+        control,
+        matrix,
+        index: i,
+        parts: threads,
+      };
+      helpers[i - 1].postMessage(m);
+    }
+    const deadline = performance.now() + ATTACH_TIMEOUT_MS;
+    for (;;) {
+      const ready = Atomics.load(this.ctrl, READY);
+      if (ready >= threads - 1) break;
+      const left = deadline - performance.now();
+      if (left <= 0 || broken) return; // helpers unavailable: stay on one thread
+      Atomics.wait(this.ctrl, READY, ready, Math.min(left, 100));
+    }
+    this.attached = true;
+  }
+
+  /** True when the helpers are attached (otherwise every gate runs on the calling thread). */
+  get parallel(): boolean {
+    return this.attached;
+  }
+
+  /** ψ ← (U on `qubits`) ψ: shared by all threads when the gate lies below the split bits. */
+  apply(qubits: readonly number[], matrix: Float64Array): void {
+    const k = qubits.length;
+    if (!this.attached || k > MAX_K || qubits.some((q) => q >= this.splitBit)) {
+      applyToAmplitudes(this.re, this.im, qubits, matrix);
+      return;
+    }
+    const ctrl = this.ctrl;
+    this.mat.set(matrix);
+    ctrl[K] = k;
+    for (let j = 0; j < k; j++) ctrl[Q0 + j] = qubits[j];
+    this.command(CMD_GATE, () => {
+      const len = this.re.length / this.parts;
+      applyToAmplitudes(this.re.subarray(0, len), this.im.subarray(0, len), qubits, matrix);
+    });
+  }
+
+  /** Releases the helpers (they return to idle); the arrays stay valid. */
+  detach(): void {
+    if (!this.attached) return;
+    this.command(CMD_DETACH, () => {});
+    this.attached = false;
+  }
+
+  private command(kind: number, own: () => void): void {
+    const ctrl = this.ctrl;
+    Atomics.store(ctrl, DONE, 0);
+    Atomics.store(ctrl, KIND, kind);
+    Atomics.add(ctrl, SEQ, 1);
+    Atomics.notify(ctrl, SEQ);
+    own();
+    const want = this.parts - 1;
+    for (;;) {
+      const done = Atomics.load(ctrl, DONE);
+      if (done >= want) return;
+      Atomics.wait(ctrl, DONE, done, 1000);
+    }
+  }
+}

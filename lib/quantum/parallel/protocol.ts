@@ -1,0 +1,32 @@
+/**
+ * Shared-memory protocol between the engine thread (coordinator) and its kernel helpers.
+ * One Int32Array control block per pool, one Float64Array for the gate matrix:
+ * - SEQ: bumped by the coordinator for every command; helpers wait on it (Atomics.wait).
+ * - DONE: helpers add 1 when their share of the command is finished; the coordinator waits.
+ * - READY: helpers add 1 once attached to a state.
+ * - KIND, K, Q0…: the command (apply a gate on k ≤ MAX_K qubits, or detach).
+ */
+export const SEQ = 0;
+export const DONE = 1;
+export const READY = 2;
+export const KIND = 3;
+export const K = 4;
+export const Q0 = 5;
+export const MAX_K = 2;
+export const CONTROL_INTS = Q0 + MAX_K;
+/** Interleaved 2^k × 2^k matrix, k ≤ MAX_K. */
+export const MATRIX_DOUBLES = 2 * 4 ** MAX_K;
+
+export const CMD_GATE = 1;
+export const CMD_DETACH = 2;
+
+/** Message that attaches a helper to a state: its share is chunk `index` of `parts`. */
+export interface AttachMessage {
+  type: "attach";
+  re: SharedArrayBuffer;
+  im: SharedArrayBuffer;
+  control: SharedArrayBuffer;
+  matrix: SharedArrayBuffer;
+  index: number;
+  parts: number;
+}
