@@ -10,6 +10,7 @@
  */
 import { existsSync } from "node:fs";
 import { z } from "zod";
+import { parseNetworks } from "@/lib/webhooks/address-guard";
 
 const port = z.coerce.number().int().min(1).max(65_535);
 const flag = z
@@ -70,7 +71,16 @@ export const envSchema = z.object({
   /** Queued + running runs an organisation may hold before submissions answer 429. */
   RUNS_MAX_UNFINISHED: z.coerce.number().int().min(1).default(100),
   /** Networks (CIDR list) webhook deliveries may reach although private or loopback (tests, on-premises receivers). */
-  WEBHOOK_ALLOWED_NETWORKS: z.string().default(""),
+  WEBHOOK_ALLOWED_NETWORKS: z
+    .string()
+    .default("")
+    .superRefine((value, ctx) => {
+      try {
+        parseNetworks(value);
+      } catch (error) {
+        ctx.addIssue({ code: "custom", message: (error as Error).message });
+      }
+    }),
   /** HTTP attempts per webhook delivery (exponential backoff between them). */
   WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
   /** Delay before the first webhook retry in ms; doubled on each further retry. */

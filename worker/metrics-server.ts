@@ -2,11 +2,13 @@
  * The worker's own small HTTP server (WORKER_METRICS_PORT; off when unset):
  * `GET /health` answers 200 while the worker takes jobs (503 once it is
  * shutting down) — the container health check — and `GET /metrics` serves its
- * Prometheus metrics behind `Authorization: Bearer $METRICS_TOKEN`.
+ * Prometheus metrics behind `Authorization: Bearer $METRICS_TOKEN`. A port that
+ * cannot be bound is logged; the worker keeps taking jobs (its health check fails).
  */
 import { createServer, type Server } from "node:http";
 import { metricsTokenMatches } from "@/lib/observability/metrics-token";
 import { metrics } from "@/lib/observability/metrics";
+import { log } from "./log";
 
 export function startMetricsServer(
   port: number,
@@ -48,6 +50,10 @@ export function startMetricsServer(
       res.end();
     });
   });
+  // Without a listener a taken port would end the worker with an uncaught EADDRINUSE.
+  server.on("error", (error) =>
+    log(`metrics server on ${host}:${port} is not serving (/health, /metrics)`, error),
+  );
   server.listen(port, host);
   return server;
 }

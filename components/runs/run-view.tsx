@@ -23,7 +23,7 @@ import { AgreementPanel } from "./agreement-panel";
 import { PauliDecompositionList } from "./pauli-decomposition-list";
 import { ReproduceCard } from "./reproduce-card";
 import { RunDownloads } from "./run-downloads";
-import { METHOD_LABEL, formatDuration, formatWhen } from "./run-meta";
+import { METHOD_LABEL, formatDuration, formatWhen, shotsText } from "./run-meta";
 import { RunFailure, RunProgress } from "./run-status-card";
 import { SpectrumCard } from "./spectrum-card";
 import { GradientCard } from "./gradient-card";
@@ -34,7 +34,7 @@ function Facts({ run }: { run: Run }) {
   const items: [string, React.ReactNode][] = [
     ["Method", METHOD_LABEL[run.method] ?? run.method],
     ["Qubits", run.qubits],
-    ["Shots", run.shots ? run.shots.toLocaleString("en-US") : "exact only"],
+    ["Shots", shotsText(run).long],
     [
       "Seed",
       <span key="s" className="figures">

@@ -18,7 +18,7 @@ import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context"
 import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunStatus } from "@/lib/swr/types";
-import { METHOD_LABEL, formatAgo } from "./run-meta";
+import { METHOD_LABEL, formatAgo, shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
 
@@ -261,7 +261,9 @@ export function RunsList() {
                   {METHOD_LABEL[r.method]}
                 </TD>
                 <TD numeric>{r.qubits}</TD>
-                <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
+                <TD numeric title={shotsText(r).long}>
+                  {shotsText(r).short}
+                </TD>
                 <TD numeric>
                   <RunValueCell run={r} />
                 </TD>

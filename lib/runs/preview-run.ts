@@ -12,6 +12,7 @@ import { quotaVerdict } from "@/lib/usage/quotas";
 import { assertPreviewCaps, assertSourceCaps } from "./preview-caps";
 import { previewPool } from "./preview-pool";
 import { engineProblem } from "./problems";
+import type { ShotPlanSource } from "./constants";
 import type { QuotaVerdict } from "./schemas";
 
 /**
@@ -32,12 +33,18 @@ export async function previewOrThrow(request: EstimateRequest): Promise<PreviewR
 }
 
 /**
- * Total shots a run will draw over all sweep points. With `targetPrecision`
- * the preview plans from worst-case variance bounds, so this reserves at least
- * what the run will use; usage meters the shots actually drawn.
+ * Total shots a run will draw over all sweep points. With `targetPrecision` the
+ * preview plans from the state's exact variances when it could simulate the state
+ * within its work budget (then exactly what the run draws), else from worst-case
+ * bounds (at least what the run draws); usage meters the shots actually drawn.
  */
 export function plannedShots(preview: PreviewResult): number {
   return preview.totalShots;
+}
+
+/** Where the planned shots come from (stored with the run as `shotsPlan`). */
+export function shotPlanSource(preview: PreviewResult): ShotPlanSource {
+  return preview.shotPlan === null ? "fixed" : preview.varianceSource;
 }
 
 export async function previewRun(
