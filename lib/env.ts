@@ -96,8 +96,11 @@ export const envSchema = z.object({
     (v) => (v === "" ? undefined : v),
     z.string().min(16, "must be at least 16 characters").optional(),
   ),
-  /** Port of the worker's /health + /metrics server; unset = no server. */
-  WORKER_METRICS_PORT: z.preprocess((v) => (v === "" ? undefined : v), port.optional()),
+  /** Port of the worker's /health + /metrics server; unset = no server, 0 = any free port (logged). */
+  WORKER_METRICS_PORT: z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.coerce.number().int().min(0).max(65_535).optional(),
+  ),
   /** Address the worker's /health + /metrics server binds (default 127.0.0.1). */
   WORKER_METRICS_HOST: z.string().default("127.0.0.1"),
   /** Log threshold of the JSON logs (pino). */
