@@ -8,13 +8,16 @@
 import { createServer, type Server } from "node:http";
 import { metricsTokenMatches } from "@/lib/observability/metrics-token";
 import { metrics } from "@/lib/observability/metrics";
-import { log } from "./log";
 
-export function startMetricsServer(
+/**
+ * Starts the server and resolves once it listens (port 0 = any free port; the
+ * bound address is returned). A port already taken rejects with a clear error.
+ */
+export async function startMetricsServer(
   port: number,
   host: string,
   state: { busyRatio: () => number; stopping: () => boolean },
-): Server {
+): Promise<{ server: Server; port: number }> {
   const server = createServer((req, res) => {
     void (async () => {
       const path = (req.url ?? "/").split("?")[0];
@@ -50,10 +53,16 @@ export function startMetricsServer(
       res.end();
     });
   });
-  // Without a listener a taken port would end the worker with an uncaught EADDRINUSE.
-  server.on("error", (error) =>
-    log(`metrics server on ${host}:${port} is not serving (/health, /metrics)`, error),
-  );
-  server.listen(port, host);
-  return server;
+  await new Promise<void>((resolve, reject) => {
+    server.once("error", (error: NodeJS.ErrnoException) =>
+      reject(
+        new Error(
+          `the metrics server cannot listen on ${host}:${port}: ${error.code ?? error.message}`,
+        ),
+      ),
+    );
+    server.listen(port, host, () => resolve());
+  });
+  const address = server.address();
+  return { server, port: typeof address === "object" && address ? address.port : port };
 }
