@@ -27,7 +27,9 @@ import { closeDb, db } from "@/db";
 import { organizations, runs, users } from "@/db/schema";
 import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { estimate } from "@/lib/quantum";
-import { createApiKey, createOrganization } from "@/lib/orgs/mutations";
+import { createKey } from "@/lib/api-keys/mutations";
+import { authorizeMember } from "@/lib/auth/guards";
+import { createOrganization } from "@/lib/orgs/mutations";
 import { smallRequest } from "../integration/runs/support/requests";
 import { startServer, startWorker, type Proc } from "./bench-processes";
 import { previewIsolationPhase } from "./bench-preview";
@@ -60,7 +62,8 @@ async function setupOrg(): Promise<{ orgId: string; key: string }> {
     ownerUserId: userId,
   });
   await db.update(organizations).set({ plan: "institute" }).where(eq(organizations.id, orgId));
-  const { key } = await createApiKey(orgId, { name: "bench", role: "member", createdById: userId });
+  const access = await authorizeMember(userId, orgId, "owner");
+  const { key } = await createKey(access, { name: "bench", role: "member", scope: "personal" });
   return { orgId, key };
 }
 
