@@ -1,9 +1,4 @@
-/** Small formatting helpers of the run screens (durations, times, method names). */
-
-export const METHOD_LABEL: Record<string, string> = {
-  statevector: "Statevector",
-  density_matrix: "Density matrix",
-};
+/** Small formatting helpers of the run screens (durations, times). */
 
 /** "850 ms", "4.2 s", "3 min 05 s". */
 export function formatDuration(ms: number | null | undefined): string {

@@ -10,6 +10,7 @@ import { Checkbox } from "@/components/ui/checkbox";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
+import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import type { ComposerValues } from "./composer-model";
 import { Segmented } from "./segmented";
 
@@ -36,12 +37,12 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
                 options={[
                   {
                     value: "statevector",
-                    label: "Statevector",
+                    label: RUN_METHOD_LABELS.statevector,
                     hint: "Pure state, fastest; no gate noise",
                   },
                   {
                     value: "density_matrix",
-                    label: "Density matrix",
+                    label: RUN_METHOD_LABELS.density_matrix,
                     hint: "Mixed state; needed for gate noise",
                   },
                 ]}

@@ -1,25 +1,35 @@
 /**
- * The cheap, synchronous part of a submission: the engine's preview (parse,
- * qubits, gate counts, settings, shot plan — no simulation) and the quota
- * verdict for the organisation's plan. Engine errors become 400 problems.
+ * The cheap part of a submission: the engine's preview (parse, qubits, gate
+ * counts, settings, shot plan — no simulation), run on a preview thread with
+ * caps and a time budget, and the quota verdict for the organisation's plan.
+ * Engine errors become 400 problems; caps and the budget 422.
  */
 import "server-only";
 import { ProblemError } from "@/lib/api/problem";
-import { previewRequest } from "@/lib/quantum";
 import { isEngineError } from "@/lib/quantum/errors";
 import type { EstimateRequest, PreviewResult } from "@/lib/quantum/schemas";
 import { quotaVerdict } from "@/lib/usage/quotas";
+import { assertPreviewCaps, assertSourceCaps } from "./preview-caps";
+import { previewPool } from "./preview-pool";
 import { engineProblem } from "./problems";
 import type { ShotPlanSource } from "./constants";
 import type { QuotaVerdict } from "./schemas";
 
+/**
+ * The engine's preview, computed off the event loop (lib/runs/preview-pool.ts)
+ * within the caps (lib/runs/preview-caps.ts) and the time budget.
+ */
 export async function previewOrThrow(request: EstimateRequest): Promise<PreviewResult> {
+  assertSourceCaps(request);
+  let preview: PreviewResult;
   try {
-    return await previewRequest(request);
+    preview = await previewPool().run(request);
   } catch (error) {
     if (isEngineError(error)) throw new ProblemError(engineProblem(error));
     throw error;
   }
+  assertPreviewCaps(preview);
+  return preview;
 }
 
 /**

@@ -1,32 +1,34 @@
 /**
- * The worker's metrics server on a port that is already taken: the failure is
- * logged and the process goes on (no uncaught EADDRINUSE).
+ * The worker's metrics server: a port that is already taken stops start-up
+ * with an error naming the address (never an uncaught EADDRINUSE later), and
+ * port 0 takes any free port and reports it.
  */
 import { createServer, type Server } from "node:http";
-import { afterAll, describe, expect, it, vi } from "vitest";
-
-const logged = vi.hoisted(() => {
-  let resolve: (line: string) => void = () => {};
-  const first = new Promise<string>((r) => (resolve = r));
-  return { first, log: (message: string) => resolve(message) };
-});
-vi.mock("@/worker/log", () => ({ log: logged.log }));
-
-const { startMetricsServer } = await import("@/worker/metrics-server");
+import { afterAll, describe, expect, it } from "vitest";
+import { startMetricsServer } from "@/worker/metrics-server";
 
 const servers: Server[] = [];
 afterAll(() => servers.forEach((s) => s.close()));
+const state = { busyRatio: () => 0, stopping: () => false };
 
 describe("worker metrics server", () => {
-  it("logs a port it cannot bind instead of ending the worker", async () => {
+  it("refuses a port it cannot bind, naming the address", async () => {
     const taken = createServer();
     servers.push(taken);
     await new Promise<void>((resolve) => taken.listen(0, "127.0.0.1", resolve));
     const address = taken.address();
     const port = typeof address === "object" && address ? address.port : 0;
-    servers.push(
-      startMetricsServer(port, "127.0.0.1", { busyRatio: () => 0, stopping: () => false }),
+    await expect(startMetricsServer(port, "127.0.0.1", state)).rejects.toThrow(
+      new RegExp(`cannot listen on 127\\.0\\.0\\.1:${port}: EADDRINUSE`),
     );
-    expect(await logged.first).toMatch(new RegExp(`127\\.0\\.0\\.1:${port} is not serving`));
+  });
+
+  it("takes any free port for port 0 and answers /health there", async () => {
+    const { server, port } = await startMetricsServer(0, "127.0.0.1", state);
+    servers.push(server);
+    expect(port).toBeGreaterThan(0);
+    const res = await fetch(`http://127.0.0.1:${port}/health`);
+    expect(res.status).toBe(200);
+    expect(await res.json()).toEqual({ status: "ok" });
   });
 });
