@@ -14,7 +14,9 @@
  *
  * Pure computation: the helpers load their own module and touch only shared memory.
  */
-import { Worker } from "node:worker_threads";
+import { join } from "node:path";
+import { pathToFileURL } from "node:url";
+import type { Worker } from "node:worker_threads";
 import { applyToAmplitudes } from "../statevector/dispatch";
 import {
   type AttachMessage,
@@ -31,11 +33,14 @@ import {
   SEQ,
 } from "./protocol";
 
-// Resolved lazily from a variable base: bundlers of the web app (which imports the engine for
-// parse-only previews) must not treat the helper files as assets of their bundles.
-const HERE = import.meta.url;
-const bootUrl = (): URL => new URL("./helper-boot.mjs", HERE);
-const entryUrl = (): string => new URL("./kernel-helper.ts", HERE).href;
+// Paths from the working directory (the repository root for the worker, the tests and the
+// benches), and the Worker class fetched at run time: the web app's bundler imports the engine
+// for previews and must see neither `new Worker(…)` nor a `new URL(…, import.meta.url)` it
+// would try to bundle (the boot file loads tsx). The web app never starts kernel helpers.
+const PARALLEL_DIR = ["lib", "quantum", "parallel"];
+const bootPath = (): string => join(process.cwd(), ...PARALLEL_DIR, "helper-boot.mjs");
+const entryUrl = (): string => pathToFileURL(join(process.cwd(), ...PARALLEL_DIR, "kernel-helper.ts")).href;
+const workerClass = (): typeof Worker => process.getBuiltinModule("node:worker_threads").Worker;
 /** Longest wait for helpers to start or attach before the run falls back to one thread. */
 const ATTACH_TIMEOUT_MS = 20_000;
 
@@ -45,7 +50,7 @@ let broken = false;
 function ensureHelpers(count: number): boolean {
   if (broken) return false;
   while (helpers.length < count) {
-    const w = new Worker(bootUrl(), { workerData: { entry: entryUrl() } });
+    const w = new (workerClass())(bootPath(), { workerData: { entry: entryUrl() } });
     w.unref();
     w.on("error", () => {
       broken = true;
