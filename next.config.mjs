@@ -8,6 +8,10 @@ const nextConfig = {
   // included), by `npm test` / `npm run typecheck` — not again by every build.
   // The build's own tsconfig keeps Next's edits out of tsconfig.json.
   typescript: { tsconfigPath: "tsconfig.build.json", ignoreBuildErrors: true },
+  // Pages and API answers get their security headers from proxy.ts; build assets skip the proxy.
+  async headers() {
+    return [{ source: "/_next/static/:path*", headers: [{ key: "X-Content-Type-Options", value: "nosniff" }] }];
+  },
 };
 
 export default nextConfig;

@@ -32,7 +32,7 @@ export default defineConfig({
           name: "e2e",
           include: ["tests/e2e/**/*.test.ts"],
           environment: "node",
-          setupFiles: ["tests/support/test-env.ts"],
+          setupFiles: ["tests/support/test-env.ts", "tests/support/e2e-csp.ts"],
           globalSetup: ["tests/support/e2e-global-setup.ts"],
           testTimeout: 180_000,
           hookTimeout: 180_000,

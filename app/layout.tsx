@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from "next";
+import { headers } from "next/headers";
 import type { ReactNode } from "react";
 import { themeInitScript } from "@/components/shell/theme";
 import { fontVariables } from "./fonts/fonts";
@@ -19,12 +20,14 @@ export const viewport: Viewport = {
 };
 
 /** Root layout: fonts, global tokens, the theme choice; route groups add their own chrome. */
-export default function RootLayout({ children }: { children: ReactNode }) {
+export default async function RootLayout({ children }: { children: ReactNode }) {
+  // The per-request CSP nonce from proxy.ts (reading it also keeps every page dynamic, as nonces need).
+  const nonce = (await headers()).get("x-nonce") ?? undefined;
   return (
     <html lang="en" className={fontVariables} suppressHydrationWarning>
       <head>
         {/* Applies a stored light/dark choice before first paint (see components/shell/theme.ts). */}
-        <script dangerouslySetInnerHTML={{ __html: themeInitScript }} />
+        <script nonce={nonce} dangerouslySetInnerHTML={{ __html: themeInitScript }} />
       </head>
       <body className="min-h-dvh">{children}</body>
     </html>

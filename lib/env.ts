@@ -10,6 +10,7 @@
  */
 import { existsSync } from "node:fs";
 import { z } from "zod";
+import { parseNetworks } from "@/lib/webhooks/address-guard";
 
 const port = z.coerce.number().int().min(1).max(65_535);
 const flag = z
@@ -56,10 +57,30 @@ export const envSchema = z.object({
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(300),
   /** Run submissions per minute per person (all their keys and their session together). */
   RUN_SUBMIT_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(60),
+  /**
+   * Reverse proxies in front of the app that append to X-Forwarded-For (0 = none, a bare
+   * server: the header is never trusted and limits by address are skipped).
+   */
+  TRUSTED_PROXY_HOPS: z.coerce.number().int().min(0).max(10).default(0),
+  /** Threads of the web process that check previews and submissions (0 = one less than the CPUs, 1 to 2). */
+  PREVIEW_THREADS: z.coerce.number().int().min(0).max(16).default(0),
+  /** Time budget of one preview check in milliseconds; past it the check stops with 422. */
+  PREVIEW_BUDGET_MS: z.coerce.number().int().min(100).max(60_000).default(10_000),
+  /** Build output folder of the web app (the production preview threads are bundled into it). */
+  NEXT_DIST_DIR: z.string().default(".next"),
   /** Queued + running runs an organisation may hold before submissions answer 429. */
   RUNS_MAX_UNFINISHED: z.coerce.number().int().min(1).default(100),
   /** Networks (CIDR list) webhook deliveries may reach although private or loopback (tests, on-premises receivers). */
-  WEBHOOK_ALLOWED_NETWORKS: z.string().default(""),
+  WEBHOOK_ALLOWED_NETWORKS: z
+    .string()
+    .default("")
+    .superRefine((value, ctx) => {
+      try {
+        parseNetworks(value);
+      } catch (error) {
+        ctx.addIssue({ code: "custom", message: (error as Error).message });
+      }
+    }),
   /** HTTP attempts per webhook delivery (exponential backoff between them). */
   WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(20).default(8),
   /** Delay before the first webhook retry in ms; doubled on each further retry. */
@@ -75,8 +96,11 @@ export const envSchema = z.object({
     (v) => (v === "" ? undefined : v),
     z.string().min(16, "must be at least 16 characters").optional(),
   ),
-  /** Port of the worker's /health + /metrics server; unset = no server. */
-  WORKER_METRICS_PORT: z.preprocess((v) => (v === "" ? undefined : v), port.optional()),
+  /** Port of the worker's /health + /metrics server; unset = no server, 0 = any free port (logged). */
+  WORKER_METRICS_PORT: z.preprocess(
+    (v) => (v === "" ? undefined : v),
+    z.coerce.number().int().min(0).max(65_535).optional(),
+  ),
   /** Address the worker's /health + /metrics server binds (default 127.0.0.1). */
   WORKER_METRICS_HOST: z.string().default("127.0.0.1"),
   /** Log threshold of the JSON logs (pino). */

@@ -28,6 +28,7 @@ import {
 } from "@/lib/queue/jobs";
 import { engineThreads } from "@/lib/quantum/parallel/config";
 import { EnginePool } from "./engine-pool";
+import { failDeliveryAfterRetries } from "@/lib/webhooks/deliveries";
 import { failRunAfterRetries } from "./give-up";
 import { rootLogger } from "@/lib/observability/logger";
 import { log } from "./log";
@@ -45,7 +46,9 @@ async function main(): Promise<void> {
   // Runs × engine threads ≤ cores: each run's engine splits its state over
   // cores ÷ WORKER_CONCURRENCY threads unless KETWISE_ENGINE_THREADS says otherwise
   // (engine threads read it from their copy of the environment).
-  process.env.KETWISE_ENGINE_THREADS = String(env.KETWISE_ENGINE_THREADS ?? engineThreads(concurrency));
+  process.env.KETWISE_ENGINE_THREADS = String(
+    env.KETWISE_ENGINE_THREADS ?? engineThreads(concurrency),
+  );
   const started = performance.now();
   const pool = new EnginePool(concurrency);
   await pool.start();
@@ -68,20 +71,27 @@ async function main(): Promise<void> {
     if (!job) return;
     log(`job ${job.id} (${job.name}) attempt ${job.attemptsMade} failed`, error);
     void failRunAfterRetries(job, error);
+    void failDeliveryAfterRetries(job).catch((e: unknown) =>
+      log(`webhook delivery job ${job.id}: could not be marked failed`, e),
+    );
   });
   await worker.waitUntilReady();
   const sweeper = startSweeper();
   const overage = startOverageScheduler();
   let stopping = false;
-  const metricsServer =
+  const metrics =
     env.WORKER_METRICS_PORT === undefined
       ? null
-      : startMetricsServer(env.WORKER_METRICS_PORT, env.WORKER_METRICS_HOST, {
+      : await startMetricsServer(env.WORKER_METRICS_PORT, env.WORKER_METRICS_HOST, {
           busyRatio: () => pool.busyRatio(),
           stopping: () => stopping,
         });
+  const metricsServer = metrics?.server ?? null;
+  const serving = metrics
+    ? `, /health and /metrics on ${env.WORKER_METRICS_HOST}:${metrics.port}`
+    : "";
   log(
-    `ready: ${concurrency} engine thread(s), queue "${queuePrefix()}:${RUNS_QUEUE}" (${Math.round(performance.now() - started)} ms)`,
+    `ready: ${concurrency} engine thread(s), queue "${queuePrefix()}:${RUNS_QUEUE}"${serving} (${Math.round(performance.now() - started)} ms)`,
   );
 
   const shutdown = async (signal: string) => {

@@ -16,14 +16,18 @@ export type AgreementFigureProps = {
 };
 
 /**
- * A domain a little wider than the given values and ticks at a round step (1, 2 or 5
- * times a power of ten) that give three to six labels.
+ * A domain wider than the given values by `pad` of their span on each side (room for
+ * the lane labels beside the intervals) and ticks at a round step (1, 2 or 5 times a
+ * power of ten) that give three to six labels.
  */
-export function agreementAxis(values: number[]): { domain: [number, number]; ticks: number[] } {
+export function agreementAxis(
+  values: number[],
+  pad = 0.12,
+): { domain: [number, number]; ticks: number[] } {
   const lo = Math.min(...values);
   const hi = Math.max(...values);
   const span = hi - lo || Math.abs(hi) || 1;
-  const domain: [number, number] = [lo - 0.12 * span, hi + 0.12 * span];
+  const domain: [number, number] = [lo - pad * span, hi + pad * span];
   const raw = (domain[1] - domain[0]) / 5;
   const power = 10 ** Math.floor(Math.log10(raw));
   const step = ([1, 2, 5, 10].find((m) => m * power >= raw) ?? 10) * power;

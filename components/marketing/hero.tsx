@@ -14,14 +14,17 @@ const example = {
 const zScore = (example.sampled.mean - example.exact) / example.sampled.stdErr;
 /** Half-width of the shaded band around the exact value. */
 const TOLERANCE = 0.02;
-const axis = agreementAxis([
-  example.exact - TOLERANCE,
-  example.exact + TOLERANCE,
-  example.sampled.mean - 1.96 * example.sampled.stdErr,
-  example.sampled.mean + 1.96 * example.sampled.stdErr,
-  example.noisy.mean - 1.96 * example.noisy.stdErr,
-  example.noisy.mean + 1.96 * example.noisy.stdErr,
-]);
+const axis = agreementAxis(
+  [
+    example.exact - TOLERANCE,
+    example.exact + TOLERANCE,
+    example.sampled.mean - 1.96 * example.sampled.stdErr,
+    example.sampled.mean + 1.96 * example.sampled.stdErr,
+    example.noisy.mean - 1.96 * example.noisy.stdErr,
+    example.noisy.mean + 1.96 * example.noisy.stdErr,
+  ],
+  0.32,
+);
 const count = (n: number) => n.toLocaleString("en-US").replace(/,/g, "\u202f");
 
 function Row({

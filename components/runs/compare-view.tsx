@@ -22,7 +22,8 @@ import { Value } from "@/components/ui/value";
 import { useRuns } from "@/lib/swr/use-runs";
 import { useRunsById } from "@/lib/swr/use-runs-by-id";
 import type { Run } from "@/lib/swr/types";
-import { METHOD_LABEL, formatAgo } from "./run-meta";
+import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
+import { formatAgo } from "./run-meta";
 import { agreementVerdict, pickComparison } from "./verdict";
 
 export const MAX_COMPARE = 6;
@@ -248,7 +249,7 @@ export function CompareView() {
                       {!res ? <StatusBadge status={r.status} /> : null}
                     </TD>
                     <TD className="text-[12.5px] text-ink-2">
-                      {METHOD_LABEL[r.method]} · {noiseSummary(r)}
+                      {RUN_METHOD_LABELS[r.method]} · {noiseSummary(r)}
                     </TD>
                     <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
                     <TD numeric>

@@ -1,9 +1,4 @@
-/** Small formatting helpers of the run screens (durations, times, method names). */
-
-export const METHOD_LABEL: Record<string, string> = {
-  statevector: "Statevector",
-  density_matrix: "Density matrix",
-};
+/** Small formatting helpers of the run screens (durations, times). */
 
 /** "850 ms", "4.2 s", "3 min 05 s". */
 export function formatDuration(ms: number | null | undefined): string {
@@ -27,4 +22,35 @@ export function formatAgo(iso: string, now = Date.now()): string {
   if (d < 3_600_000) return `${Math.round(d / 60_000)} min ago`;
   if (d < 86_400_000) return `${Math.round(d / 3_600_000)} h ago`;
   return formatWhen(iso);
+}
+
+const count = (n: number) => n.toLocaleString("en-US");
+
+/**
+ * Planned and drawn shots of a run, in words. `shots` is planned (what the quota check
+ * reserved), `shotsDrawn` what the engine drew (billed); they differ when a
+ * targetPrecision run was planned from worst-case bounds (the run then plans from the
+ * state's variances and draws fewer).
+ */
+export function shotsText(run: {
+  shots: number;
+  shotsDrawn: number | null;
+  shotsPlan: "fixed" | "state_aware" | "worst_case" | null;
+}): { short: string; long: string } {
+  const { shots, shotsDrawn: drawn, shotsPlan: plan } = run;
+  if (!shots && !drawn) return { short: "exact", long: "exact only" };
+  if (drawn !== null && drawn !== shots) {
+    return {
+      short: `${count(drawn)} of ${count(shots)}`,
+      long: `${count(drawn)} drawn · ${count(shots)} planned${plan === "worst_case" ? " (worst-case bound)" : ""}`,
+    };
+  }
+  if (drawn === null && plan === "worst_case") {
+    return {
+      short: `≤ ${count(shots)}`,
+      long: `≤ ${count(shots)} planned (worst-case bound; the run plans from the state's variances)`,
+    };
+  }
+  const how = plan === "state_aware" ? " (planned from the state's variances)" : "";
+  return { short: count(shots), long: `${count(shots)}${drawn === null ? how : " drawn"}` };
 }

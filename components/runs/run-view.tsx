@@ -19,11 +19,12 @@ import { canWrite, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { cancelRun } from "@/lib/swr/run-mutations";
 import type { Run } from "@/lib/swr/types";
 import { useRun } from "@/lib/swr/use-run";
+import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import { AgreementPanel } from "./agreement-panel";
 import { PauliDecompositionList } from "./pauli-decomposition-list";
 import { ReproduceCard } from "./reproduce-card";
 import { RunDownloads } from "./run-downloads";
-import { METHOD_LABEL, formatDuration, formatWhen } from "./run-meta";
+import { formatDuration, formatWhen, shotsText } from "./run-meta";
 import { RunFailure, RunProgress } from "./run-status-card";
 import { SpectrumCard } from "./spectrum-card";
 import { GradientCard } from "./gradient-card";
@@ -32,9 +33,9 @@ import { TermsTable } from "./terms-table";
 
 function Facts({ run }: { run: Run }) {
   const items: [string, React.ReactNode][] = [
-    ["Method", METHOD_LABEL[run.method] ?? run.method],
+    ["Method", RUN_METHOD_LABELS[run.method]],
     ["Qubits", run.qubits],
-    ["Shots", run.shots ? run.shots.toLocaleString("en-US") : "exact only"],
+    ["Shots", shotsText(run).long],
     [
       "Seed",
       <span key="s" className="figures">

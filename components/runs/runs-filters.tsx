@@ -11,7 +11,12 @@ import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
 import { IconSearch } from "@/components/workspace/icons";
 import type { WorkspaceMember } from "@/lib/swr/org-context";
-import { RUN_STATUSES } from "@/lib/swr/types";
+import {
+  RUN_METHOD_LABELS,
+  RUN_METHODS,
+  RUN_STATUS_LABELS,
+  RUN_STATUSES,
+} from "@/lib/runs/constants";
 
 export type RunFilters = {
   q: string;
@@ -32,14 +37,6 @@ export const EMPTY_FILTERS: RunFilters = {
 };
 
 const SEARCH_PAUSE_MS = 300;
-
-const STATUS_LABEL: Record<string, string> = {
-  queued: "Queued",
-  running: "Running",
-  succeeded: "Succeeded",
-  failed: "Failed",
-  canceled: "Canceled",
-};
 
 export function RunsFilters({
   value,
@@ -86,14 +83,17 @@ export function RunsFilters({
         <option value="">Any status</option>
         {RUN_STATUSES.map((s) => (
           <option key={s} value={s}>
-            {STATUS_LABEL[s]}
+            {RUN_STATUS_LABELS[s]}
           </option>
         ))}
       </Select>
       <Select aria-label="Method" value={value.method} onChange={set("method")}>
         <option value="">Any method</option>
-        <option value="statevector">Statevector</option>
-        <option value="density_matrix">Density matrix</option>
+        {RUN_METHODS.map((m) => (
+          <option key={m} value={m}>
+            {RUN_METHOD_LABELS[m]}
+          </option>
+        ))}
       </Select>
       <Select aria-label="Submitted by" value={value.createdBy} onChange={set("createdBy")}>
         <option value="">Anyone</option>

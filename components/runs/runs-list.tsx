@@ -18,7 +18,8 @@ import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context"
 import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunStatus } from "@/lib/swr/types";
-import { METHOD_LABEL, formatAgo } from "./run-meta";
+import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
+import { formatAgo, shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
 
@@ -258,10 +259,12 @@ export function RunsList() {
                   <StatusBadge status={r.status} />
                 </TD>
                 <TD className="text-[12.5px] whitespace-nowrap text-ink-2">
-                  {METHOD_LABEL[r.method]}
+                  {RUN_METHOD_LABELS[r.method]}
                 </TD>
                 <TD numeric>{r.qubits}</TD>
-                <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
+                <TD numeric title={shotsText(r).long}>
+                  {shotsText(r).short}
+                </TD>
                 <TD numeric>
                   <RunValueCell run={r} />
                 </TD>

@@ -1,4 +1,5 @@
 import type { HTMLAttributes } from "react";
+import { RUN_STATUS_LABELS, type RunStatus } from "@/lib/runs/constants";
 import { cn } from "./cn";
 
 export type BadgeTone = "neutral" | "accent" | "info" | "ok" | "warn" | "danger";
@@ -28,15 +29,12 @@ export function Badge({ tone = "neutral", className, ...rest }: BadgeProps) {
   );
 }
 
-export const runStatuses = ["queued", "running", "succeeded", "failed", "canceled"] as const;
-export type RunStatus = (typeof runStatuses)[number];
-
-const statusLook: Record<RunStatus, { tone: BadgeTone; label: string; dot: string }> = {
-  queued: { tone: "neutral", label: "Queued", dot: "bg-ink-3" },
-  running: { tone: "info", label: "Running", dot: "bg-info animate-pulse" },
-  succeeded: { tone: "ok", label: "Succeeded", dot: "bg-ok" },
-  failed: { tone: "danger", label: "Failed", dot: "bg-danger" },
-  canceled: { tone: "neutral", label: "Canceled", dot: "bg-transparent border border-ink-3" },
+const statusLook: Record<RunStatus, { tone: BadgeTone; dot: string }> = {
+  queued: { tone: "neutral", dot: "bg-ink-3" },
+  running: { tone: "info", dot: "bg-info animate-pulse" },
+  succeeded: { tone: "ok", dot: "bg-ok" },
+  failed: { tone: "danger", dot: "bg-danger" },
+  canceled: { tone: "neutral", dot: "bg-transparent border border-ink-3" },
 };
 
 /** Run status with a coloured dot; the text carries the meaning, colour only repeats it. */
@@ -45,7 +43,7 @@ export function StatusBadge({ status, className }: { status: RunStatus; classNam
   return (
     <Badge tone={look.tone} className={cn(status === "canceled" && "text-ink-3", className)}>
       <span aria-hidden className={cn("size-1.5 rounded-full", look.dot)} />
-      {look.label}
+      {RUN_STATUS_LABELS[status]}
     </Badge>
   );
 }

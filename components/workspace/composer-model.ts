@@ -8,6 +8,12 @@
  * right field; `formPath` maps the few that differ.
  */
 import { pauliTermsToText } from "@/lib/quantum/observable/pauli-terms-text";
+import {
+  advancedNoiseFromRequest,
+  advancedNoiseToRequest,
+  EMPTY_ADVANCED_NOISE,
+  type AdvancedNoiseValues,
+} from "./noise-advanced-model";
 import type { EstimateRequest } from "@/lib/quantum/schemas";
 
 export type Budget = "exact" | "shots" | "precision";
@@ -32,7 +38,7 @@ export type ComposerValues = {
     amplitudeDamping: string;
     phaseDamping: string;
     readout: { p1Given0: string; p0Given1: string };
-  };
+  } & AdvancedNoiseValues;
   parameters: Record<string, string>;
   sweepAxes: SweepAxis[];
   /** Explicit bindings as JSON, `[{"theta": 0.1}, …]` (blank: none); exclusive with sweepAxes. */
@@ -66,6 +72,7 @@ export const DEFAULT_VALUES: ComposerValues = {
     amplitudeDamping: "",
     phaseDamping: "",
     readout: { p1Given0: "", p0Given1: "" },
+    ...EMPTY_ADVANCED_NOISE,
   },
   parameters: {},
   sweepAxes: [],
@@ -196,6 +203,7 @@ export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Bu
       if (p10 !== undefined && p10 !== 0) noise.readout.p1Given0 = p10;
       if (p01 !== undefined && p01 !== 0) noise.readout.p0Given1 = p01;
     }
+    advancedNoiseToRequest(n, noise, num, issues);
     if (Object.keys(noise).length) request.noise = noise;
   }
 
@@ -254,7 +262,12 @@ export function formPath(requestPath: string, sweptNames: readonly string[] = []
     return "observable.matrixText";
   if (requestPath === "observable" || requestPath.startsWith("observable.format"))
     return "observable.terms";
-  if (requestPath === "points" || requestPath.startsWith("points.")) return "pointsText";
+  if (
+    requestPath === "points" ||
+    requestPath.startsWith("points.") ||
+    requestPath.startsWith("points[")
+  )
+    return "pointsText";
   if (requestPath === "gradient") return "gradient";
   if (requestPath.startsWith("sweep")) {
     const name = requestPath.split(".")[1];
@@ -266,6 +279,9 @@ export function formPath(requestPath: string, sweptNames: readonly string[] = []
     const i = sweptNames.indexOf(m[1]);
     return i >= 0 ? `sweepAxes.${i}.name` : `parameters.${m[1]}`;
   }
+  if (requestPath.startsWith("noise.readout.qubits")) return "noise.perQubit";
+  if (requestPath.startsWith("noise.gates")) return "noise.gates";
+  if (requestPath.startsWith("noise.idle.")) return requestPath.split(".").slice(0, 3).join(".");
   if (requestPath.startsWith("noise.readout.")) return requestPath.split(".").slice(0, 3).join(".");
   if (requestPath.startsWith("noise.")) return requestPath.split(".").slice(0, 2).join(".");
   if (requestPath === "(root)" || requestPath === "") return "root";
@@ -325,6 +341,7 @@ export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
       amplitudeDamping: str(noise?.amplitudeDamping),
       phaseDamping: str(noise?.phaseDamping),
       readout: { p1Given0: str(noise?.readout?.p1Given0), p0Given1: str(noise?.readout?.p0Given1) },
+      ...advancedNoiseFromRequest(noise),
     },
     parameters: Object.fromEntries(
       Object.entries(req.parameters ?? {}).map(([k, v]) => [k, String(v)]),

@@ -10,6 +10,7 @@ import { Checkbox } from "@/components/ui/checkbox";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
+import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import type { ComposerValues } from "./composer-model";
 import { Segmented } from "./segmented";
 
@@ -36,12 +37,12 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
                 options={[
                   {
                     value: "statevector",
-                    label: "Statevector",
+                    label: RUN_METHOD_LABELS.statevector,
                     hint: "Pure state, fastest; no gate noise",
                   },
                   {
                     value: "density_matrix",
-                    label: "Density matrix",
+                    label: RUN_METHOD_LABELS.density_matrix,
                     hint: "Mixed state; needed for gate noise",
                   },
                 ]}
@@ -125,14 +126,21 @@ export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
               control={control}
               name="mitigateReadout"
               render={({ field }) => (
-                <Checkbox
-                  className="sm:col-span-3"
-                  label="Mitigate readout error"
-                  description="Also report the value corrected by inverting the readout error of the noise model."
-                  checked={field.value}
-                  disabled={readOnly}
-                  onChange={(ev) => field.onChange(ev.target.checked)}
-                />
+                <div className="grid gap-1 sm:col-span-3">
+                  <Checkbox
+                    label="Mitigate readout error"
+                    description="Also report the value corrected by inverting the readout error of the noise model (needs p1Given0 + p0Given1 < 1)."
+                    checked={field.value}
+                    disabled={readOnly}
+                    aria-invalid={!!e.mitigateReadout}
+                    onChange={(ev) => field.onChange(ev.target.checked)}
+                  />
+                  {e.mitigateReadout?.message ? (
+                    <p role="alert" className="pl-6.5 text-[13px] leading-5 text-danger">
+                      {e.mitigateReadout.message}
+                    </p>
+                  ) : null}
+                </div>
               )}
             />
           </div>

@@ -12,6 +12,8 @@ import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
 import type { ComposerValues } from "./composer-model";
+import { NoiseAdvanced } from "./noise-advanced";
+import { advancedStateNoise, EMPTY_ADVANCED_NOISE } from "./noise-advanced-model";
 import {
   BUILT_IN_PROFILES,
   NOISE_FIELDS,
@@ -51,16 +53,22 @@ export function NoiseCard({
   const method = watch("method");
   const noise = watch("noise");
   const errors = formState.errors.noise;
-  const gateNoise = NOISE_FIELDS.some(
-    (f) => f.gate && Number(noise[f.key as "depolarizing1q"]) > 0,
-  );
+  const gateNoise =
+    NOISE_FIELDS.some((f) => f.gate && Number(noise[f.key as "depolarizing1q"]) > 0) ||
+    advancedStateNoise(noise);
   const all = [...BUILT_IN_PROFILES, ...profiles];
 
   const apply = (id: string) => {
     const p = all.find((x) => x.id === id);
     if (!p) return;
     for (const f of NOISE_FIELDS) setValue(path(f.key), p.values[f.key], { shouldDirty: true });
-    const hasGate = NOISE_FIELDS.some((f) => f.gate && Number(p.values[f.key]) > 0);
+    const advanced = p.advanced ?? EMPTY_ADVANCED_NOISE;
+    setValue("noise.perQubit", advanced.perQubit, { shouldDirty: true });
+    setValue("noise.gates", advanced.gates, { shouldDirty: true });
+    setValue("noise.idle", advanced.idle, { shouldDirty: true });
+    const hasGate =
+      NOISE_FIELDS.some((f) => f.gate && Number(p.values[f.key]) > 0) ||
+      advancedStateNoise(advanced);
     if (hasGate) setValue("method", "density_matrix", { shouldDirty: true });
   };
 
@@ -143,6 +151,7 @@ export function NoiseCard({
                 );
               })}
             </div>
+            <NoiseAdvanced readOnly={readOnly} />
             {gateNoise && method === "statevector" ? (
               <Alert
                 tone="warning"

@@ -3,6 +3,8 @@
  * forms from Nielsen & Chuang ch. 8) and a few starting profiles. The profiles are
  * invented round numbers for trying things out, not data of any device.
  */
+import type { AdvancedNoiseValues } from "./noise-advanced-model";
+
 export type NoiseKey =
   | "depolarizing1q"
   | "depolarizing2q"
@@ -68,7 +70,18 @@ export type NoiseProfile = {
   id: string;
   name: string;
   values: NoiseProfileValues;
+  /** Per-qubit readout, per-gate overrides and idle noise (saved profiles; none when absent). */
+  advanced?: AdvancedNoiseValues;
   builtIn?: boolean;
+};
+
+/** Help for the per-qubit / per-gate part of the card (semantics: README "Noise model"). */
+export const ADVANCED_NOISE_HELP = {
+  perQubit:
+    "Readout rates of one qubit (0 = the first qubit declared); blank fields use the rates above. Sampled outcomes only.",
+  gates:
+    "After every call of this gate, as written in the circuit (cx, a user gate, ctrl @ x), these rates replace the ones above: depolarizing of all its qubits together, then damping on each. Blank keeps the rate above.",
+  idle: "Off unless set: after every gate, each qubit the gate does not touch gets the one-qubit depolarizing channel, then amplitude and phase damping, with these rates.",
 };
 
 export const BUILT_IN_PROFILES: NoiseProfile[] = [

@@ -19,6 +19,7 @@ import { useWorkspaceOrg } from "@/lib/swr/org-context";
 import { toRequest, type ComposerValues } from "./composer-model";
 import { IconSave } from "./icons";
 import type { NoiseProfile } from "./noise-help";
+import { advancedNoiseFromRequest } from "./noise-advanced-model";
 
 const s = (x: number | undefined) => (typeof x === "number" ? String(x) : "");
 
@@ -36,6 +37,7 @@ export function toPickerProfile(p: NoiseProfileView): NoiseProfile {
       p1Given0: s(n.readout?.p1Given0),
       p0Given1: s(n.readout?.p0Given1),
     },
+    advanced: advancedNoiseFromRequest(n),
   };
 }
 

@@ -69,6 +69,7 @@ function fieldLabel(path: string): string {
   if (path === "shots") return "Total shots";
   if (path === "targetPrecision") return "Target standard error";
   if (path === "seed") return "Seed";
+  if (path === "mitigateReadout") return "Readout mitigation";
   if (path === "observable.matrixText") return "Observable matrix";
   if (path.startsWith("parameters.")) return `Parameter ${path.slice(11)}`;
   if (path.startsWith("sweepAxes.")) return `Sweep ${path.split(".")[2] ?? ""}`.trim();
@@ -209,13 +210,24 @@ export function PreviewPanel({
                   <span className="text-ink">exact only</span>
                 </div>
               ) : null}
-              {preview.shotPlan ? (
+              {preview.shotPlan && preview.varianceSource === "state_aware" ? (
+                <p className="text-xs leading-5 text-ink-3">
+                  For a standard error of {preview.shotPlan.targetPrecision}: planned from the
+                  state’s exact variances — the shots the run will draw (any state could need up to{" "}
+                  <span className="figures">
+                    {fmt.format(preview.shotPlan.worstCase.totalShots)}
+                  </span>
+                  ).
+                </p>
+              ) : preview.shotPlan ? (
                 <p className="text-xs leading-5 text-ink-3">
                   For a standard error of {preview.shotPlan.targetPrecision}: at most{" "}
                   <span className="figures">
                     {fmt.format(preview.shotPlan.worstCase.totalShots)}
                   </span>{" "}
-                  shots for any state; the run plans from the state’s own variances, usually fewer.
+                  shots for any state (the state is too large to simulate for the plan); the run
+                  plans from the state’s own variances, usually fewer, and is billed for the shots
+                  it draws.
                 </p>
               ) : null}
               <div className="mt-1 flex justify-between gap-3 border-t border-line pt-1.5">

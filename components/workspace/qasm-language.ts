@@ -29,6 +29,11 @@ const KEYWORDS = new Set([
   "while",
   "in",
   "else",
+  // OpenQASM 3 gate modifiers (ctrl @, negctrl @, inv @, pow(k) @).
+  "ctrl",
+  "negctrl",
+  "inv",
+  "pow",
 ]);
 const TYPES = new Set(["float", "angle", "int", "uint", "bool", "complex", "duration", "stretch"]);
 const CONSTANTS = new Set(["pi", "π", "tau", "τ", "euler", "ℇ", "true", "false"]);

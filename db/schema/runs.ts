@@ -29,9 +29,9 @@ import { apiKeys } from "./api-keys";
 import { users } from "./auth";
 import { jsonText } from "./json-text";
 import { organizations } from "./orgs";
-import { RUN_METHODS, RUN_STATUSES, SHOT_PLAN_SOURCES } from "../../lib/runs/constants";
+import { RUN_METHODS, RUN_STATUSES, SHOT_PLAN_SOURCES } from "./run-enums";
 
-export { RUN_METHODS, RUN_STATUSES, TERMINAL_RUN_STATUSES, type RunMethod, type RunStatus } from "../../lib/runs/constants";
+export { RUN_METHODS, RUN_STATUSES, type RunMethod, type RunStatus } from "./run-enums";
 
 /** RFC 9457 problem as stored on a failed run. */
 export type StoredProblem = {

@@ -1,8 +1,8 @@
 /**
- * API keys made on the API-keys page. The full key (`kw_<prefix>_<secret>`,
- * lib/orgs/api-key-format.ts) is returned once; only the prefix and SHA-256
- * of the key are stored. Creation and revocation are audited in the same
- * transaction.
+ * The one module that writes API keys (the API-keys page, the demo seed, tests and
+ * benches all create and revoke through it). The full key (`kw_<prefix>_<secret>`,
+ * lib/orgs/api-key-format.ts) is returned once; only the prefix and SHA-256 of the key
+ * are stored. Creation and revocation are audited in the same transaction.
  */
 import "server-only";
 import { and, eq, isNull } from "drizzle-orm";
@@ -15,6 +15,7 @@ import { recordAuditEvent } from "@/lib/orgs/mutations";
 import { ROLE_LABELS, roleAtLeast } from "@/lib/orgs/roles";
 import type { CreateApiKeyInput } from "./schemas";
 
+/** A key acting for `access` (at most its role; organisation keys need an admin). */
 export async function createKey(access: OrgAccess, input: CreateApiKeyInput) {
   if (!roleAtLeast(access.role, input.role)) {
     throw forbidden(`A key cannot have more rights than you: you are ${ROLE_LABELS[access.role]}, the key asks for ${ROLE_LABELS[input.role]}.`);
@@ -52,4 +53,12 @@ export async function revokeKey(access: OrgAccess, keyId: string) {
     );
     return { key, changed: true };
   });
+}
+
+/** Marks a key as used now (best effort, at most once a minute per key is enough). */
+export async function touchApiKey(orgId: string, keyId: string): Promise<void> {
+  await db
+    .update(apiKeys)
+    .set({ lastUsedAt: new Date() })
+    .where(and(eq(apiKeys.orgId, orgId), eq(apiKeys.id, keyId)));
 }

@@ -104,12 +104,17 @@ export function formatFieldPath(path: readonly PropertyKey[]): string {
   return out || "(root)";
 }
 
-/** Field errors from a zod failure; `path` as formatFieldPath writes it. */
+/**
+ * Field errors from a zod failure — the one converter, for API answers and form state
+ * alike. `path` as formatFieldPath writes it; an unknown key gets an entry of its own
+ * at its own path, so the client can point at it.
+ */
 export function zodFieldErrors(error: ZodError): ProblemFieldError[] {
-  return error.issues.map((issue) => ({
-    path: formatFieldPath(issue.path),
-    message: issue.message,
-  }));
+  return error.issues.flatMap((issue) =>
+    issue.code === "unrecognized_keys"
+      ? issue.keys.map((key) => ({ path: formatFieldPath([...issue.path, key]), message: "unknown field" }))
+      : [{ path: formatFieldPath(issue.path), message: issue.message }],
+  );
 }
 
 /** Serialises a problem as a Response with the right status, media type and headers. */

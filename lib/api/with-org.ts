@@ -18,10 +18,10 @@
  */
 import "server-only";
 import { getSessionUserFromRequest } from "@/lib/auth/session";
-import { ORG_COOKIE, authorizeMember, pickCurrentOrg } from "@/lib/auth/guards";
+import { ORG_COOKIE, accessFrom, pickCurrentOrg } from "@/lib/auth/guards";
 import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
 import { keyStanding } from "@/lib/api-keys/effective-role";
-import { touchApiKey } from "@/lib/orgs/mutations";
+import { touchApiKey } from "@/lib/api-keys/mutations";
 import {
   findActiveApiKeyByHash,
   listMembershipsForUser,
@@ -33,7 +33,6 @@ import { consume, type Budget, type RateLimitState } from "@/lib/rate-limit";
 import { applyRateLimitHeaders } from "@/lib/rate-limit/headers";
 import {
   forbidden,
-  notFound,
   problemResponse,
   sessionExpired,
   toProblem,
@@ -109,8 +108,8 @@ async function fromSession(req: Request, min: Role): Promise<Omit<OrgContext, "p
   const picked = wanted
     ? memberships.find((m) => m.org.id === wanted || m.org.slug === wanted)
     : pickCurrentOrg(memberships, readCookie(req, ORG_COOKIE));
-  if (!picked) throw notFound("No such organisation, or you are not a member of it.");
-  const access = await authorizeMember(user.id, picked.org.id, min);
+  // The membership just read is the one checked: no second lookup.
+  const access = accessFrom(user.id, picked, min);
   return { org: access.org, role: access.role, actor: { kind: "user", userId: user.id } };
 }
 

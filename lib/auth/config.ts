@@ -18,9 +18,10 @@ import { env } from "@/lib/env";
 import { magicLinkMail } from "@/lib/mail/templates";
 import { sendMail, smtpServerOptions } from "@/lib/mail/transport";
 import { createOrganization } from "@/lib/orgs/mutations";
-import { clientIp, consumeSignIn, resetSignInEmail } from "@/lib/rate-limit";
+import { clientIp, consumeSignInIp } from "@/lib/rate-limit";
 import { RateLimitedSignIn } from "./errors";
 import { safeCallbackPath } from "./redirects";
+import { assertSignInAllowed, clearSignInFailures, recordSignInFailure, signInSource } from "./sign-in-throttle";
 import { endServerSession, isServerSessionLive, startServerSession } from "./server-sessions";
 import { verifyPassword } from "./password";
 import { findUserByEmail } from "./queries";
@@ -33,21 +34,31 @@ const EXPECTED_AUTH_ERRORS = new Set(["CredentialsSignin", "Verification", "JWTS
 export const SESSION_MAX_AGE_SECONDS = 7 * 24 * 60 * 60;
 export const MAGIC_LINK_MAX_AGE_SECONDS = 15 * 60;
 
-/** Credentials check: rate limit (IP + e-mail), then bcrypt; null for any mismatch. Exported for tests. */
+/**
+ * Credentials check: the per-IP budget, then the account's progressive delay
+ * for this source (browser / IP), then bcrypt; null for any mismatch. A
+ * failure slows only its own source; a success clears it. Exported for tests.
+ */
 export async function authorizeWithPassword(raw: Partial<Record<string, unknown>>, request: Request) {
   const parsed = signInSchema.safeParse(raw);
   if (!parsed.success) return null;
   const { email, password } = parsed.data;
+  const ip = clientIp(request.headers);
+  const source = signInSource(request.headers, email, ip);
   try {
-    await consumeSignIn(email, clientIp(request.headers));
+    await consumeSignInIp(ip);
+    await assertSignInAllowed(email, source);
   } catch (error) {
     if (isProblemError(error)) throw new RateLimitedSignIn(error.problem.detail, error.problem.retryAfter ?? 900);
     throw error;
   }
   const user = await findUserByEmail(email);
   // Always run bcrypt, so an unknown e-mail takes as long as a wrong password.
-  if (!(await verifyPassword(password, user?.passwordHash))) return null;
-  await resetSignInEmail(email);
+  if (!(await verifyPassword(password, user?.passwordHash))) {
+    await recordSignInFailure(email, source);
+    return null;
+  }
+  await clearSignInFailures(email, source);
   return { id: user!.id, email: user!.email, name: user!.name };
 }
 

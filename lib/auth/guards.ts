@@ -26,7 +26,11 @@ export const ORG_COOKIE = "kw_org";
 
 /** DB check behind every guard: membership of `userId` in `orgId` with at least `min`. */
 export async function authorizeMember(userId: string, orgId: string, min: Role = "viewer"): Promise<OrgAccess> {
-  const membership = await getMembership(orgId, userId);
+  return accessFrom(userId, await getMembership(orgId, userId), min);
+}
+
+/** The same check on a membership already read (404 when there is none, 403 when too weak). */
+export function accessFrom(userId: string, membership: MembershipWithOrg | null | undefined, min: Role): OrgAccess {
   if (!membership) throw notFound("No such organisation, or you are not a member of it.");
   if (!roleAtLeast(membership.role, min)) {
     throw forbidden(

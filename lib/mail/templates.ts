@@ -4,6 +4,7 @@
  * function returns `{ subject, text, html }` for `sendMail`.
  */
 export { magicLinkMail } from "./templates/magic-link";
+export { accountExistsMail } from "./templates/account-exists";
 export { invitationMail, type InvitationMailData } from "./templates/invitation";
 export { invoiceAvailableMail, paymentFailedMail, type InvoiceMailData, type PaymentFailedMailData } from "./templates/billing";
 export { runFinishedMailFrom, type RunFinishedMailData } from "./templates/run-finished";

@@ -7,16 +7,14 @@
  */
 import "server-only";
 import { and, eq, isNotNull, sql } from "drizzle-orm";
-import { getDb, type Db } from "@/db";
-import { dataMigrations, observables, runs } from "@/db/schema";
+import { getDb, type Db, type Tx } from "@/db";
+import { dataMigrations, observables, runs, usageEvents } from "@/db/schema";
 import {
   legacyMatrixToWritten,
   migrateRunRequest,
   migrateRunResult,
   type StoredMatrix,
 } from "./matrix-order";
-
-type Tx = Parameters<Parameters<Db["transaction"]>[0]>[0];
 
 /** Restricts a step to one organisation's rows (tests); the migrator passes none. */
 export type MigrationScope = { orgId?: string };
@@ -68,8 +66,22 @@ export const matrixQubitOrder: DataMigration = {
   },
 };
 
+/** Succeeded runs from before `shots_drawn` existed get it from their metered shots (the billed figure). */
+export const backfillShotsDrawn: DataMigration = {
+  name: "2026-12-runs-shots-drawn-from-usage",
+  async apply(tx, scope = {}) {
+    const [res] = await tx.execute(sql`
+      UPDATE ${runs} SET shots_drawn = COALESCE(
+        (SELECT ROUND(${usageEvents.quantity}) FROM ${usageEvents}
+          WHERE ${usageEvents.runId} = ${runs.id} AND ${usageEvents.metric} = 'shots' LIMIT 1), 0)
+      WHERE ${runs.status} = 'succeeded' AND ${runs.shotsDrawn} IS NULL
+      ${scope.orgId ? sql`AND ${runs.orgId} = ${scope.orgId}` : sql``}`);
+    return (res as unknown as { affectedRows: number }).affectedRows;
+  },
+};
+
 /** Every data migration, oldest first. Never reorder or rename an applied step. */
-export const DATA_MIGRATIONS: readonly DataMigration[] = [matrixQubitOrder];
+export const DATA_MIGRATIONS: readonly DataMigration[] = [matrixQubitOrder, backfillShotsDrawn];
 
 /** Runs one step in a transaction without recording it (tests, with a scope). */
 export async function applyStepUnrecorded(

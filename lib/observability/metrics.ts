@@ -78,7 +78,22 @@ export function sizeClass(qubits: number): string {
 
 const UUID = /[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}/gi;
 
-/** A route label from a path: ids replaced by `:id` (bounded cardinality). */
+/** Static names that sit where an API v1 resource id would (`/api/v1/runs/preview`). */
+const STATIC_V1_ITEMS = new Set(["preview"]);
+
+/**
+ * A route label from a path: ids replaced by `:id` (bounded cardinality). Under
+ * `/api/v1/<collection>/` the next segment is always the id, whatever the client
+ * sent (`/api/v1/runs/not-a-uuid` is labelled like a real id), so made-up ids
+ * cannot grow the number of label values.
+ */
 export function routeLabel(pathname: string): string {
-  return pathname.replace(UUID, ":id").replace(/\/\d+(?=\/|$)/g, "/:n");
+  const segments = pathname.split("/");
+  if (segments[1] === "api" && segments[2] === "v1" && segments.length > 4) {
+    if (!STATIC_V1_ITEMS.has(segments[4])) segments[4] = ":id";
+  }
+  return segments
+    .join("/")
+    .replace(UUID, ":id")
+    .replace(/\/\d+(?=\/|$)/g, "/:n");
 }

@@ -6,18 +6,7 @@
  * is named in its own issue).
  */
 import type { z } from "zod";
-import { badRequest, formatFieldPath, ProblemError, validationFailed, type ProblemFieldError } from "@/lib/api/problem";
-
-/** Field errors from a zod failure; unknown keys get one entry each, at their own path. */
-export function schemaErrors(error: z.ZodError): ProblemFieldError[] {
-  return error.issues.flatMap((issue) => {
-    const base = issue.path;
-    if (issue.code === "unrecognized_keys") {
-      return issue.keys.map((key) => ({ path: formatFieldPath([...base, key]), message: "unknown field" }));
-    }
-    return [{ path: formatFieldPath(base), message: issue.message }];
-  });
-}
+import { badRequest, ProblemError, validationFailed, zodFieldErrors } from "@/lib/api/problem";
 
 const tooLarge = (max: number) =>
   new ProblemError({
@@ -77,13 +66,13 @@ export async function readJsonBody<S extends z.ZodType>(req: Request, schema: S,
     throw badRequest(`The body is not valid JSON (${error instanceof Error ? error.message : "parse error"}).`);
   }
   const parsed = schema.safeParse(value);
-  if (!parsed.success) throw validationFailed("The request body does not match the schema.", schemaErrors(parsed.error));
+  if (!parsed.success) throw validationFailed("The request body does not match the schema.", zodFieldErrors(parsed.error));
   return parsed.data;
 }
 
 export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.output<S> {
   const params = Object.fromEntries(new URL(req.url).searchParams);
   const parsed = schema.safeParse(params);
-  if (!parsed.success) throw badRequest("The query string is not valid.", schemaErrors(parsed.error));
+  if (!parsed.success) throw badRequest("The query string is not valid.", zodFieldErrors(parsed.error));
   return parsed.data;
 }

@@ -1,14 +1,13 @@
 /**
- * Writes for organisations, memberships, API keys and the audit trail.
+ * Writes for organisations, memberships and the audit trail (API keys: lib/api-keys).
  * Callers check the actor's role first (lib/auth/guards.ts); these functions
  * only keep the data consistent and scoped by organisation id.
  */
 import "server-only";
-import { and, eq, isNull } from "drizzle-orm";
+import { eq } from "drizzle-orm";
 import { db, type Executor } from "@/db";
-import { apiKeys, auditEvents, memberships, organizations } from "@/db/schema";
+import { auditEvents, memberships, organizations } from "@/db/schema";
 import { orgNameSchema } from "@/lib/validation/names";
-import { generateApiKey } from "./api-key-format";
 import type { Role } from "./roles";
 
 
@@ -76,41 +75,4 @@ export async function upsertMembership(orgId: string, userId: string, role: Role
     .insert(memberships)
     .values({ orgId, userId, role })
     .onDuplicateKeyUpdate({ set: { role } });
-}
-
-/** Creates an API key; the full key is returned once and never stored. */
-export async function createApiKey(
-  orgId: string,
-  input: { name: string; role: Role; createdById: string | null },
-): Promise<{ id: string; key: string; prefix: string }> {
-  const { key, prefix, hash } = generateApiKey();
-  const id = crypto.randomUUID();
-  await db.transaction(async (tx) => {
-    await tx.insert(apiKeys).values({ id, orgId, name: input.name, prefix, hash, role: input.role, createdById: input.createdById });
-    await recordAuditEvent(
-      orgId,
-      { action: "api_key.created", actorUserId: input.createdById, targetType: "api_key", targetId: id, metadata: { prefix, role: input.role } },
-      tx,
-    );
-  });
-  return { id, key, prefix };
-}
-
-/** Revokes a key of this organisation; false when no such active key exists here. */
-export async function revokeApiKey(orgId: string, keyId: string, actorUserId: string | null): Promise<boolean> {
-  const [result] = await db
-    .update(apiKeys)
-    .set({ revokedAt: new Date() })
-    .where(and(eq(apiKeys.orgId, orgId), eq(apiKeys.id, keyId), isNull(apiKeys.revokedAt)));
-  if (result.affectedRows === 0) return false;
-  await recordAuditEvent(orgId, { action: "api_key.revoked", actorUserId, targetType: "api_key", targetId: keyId });
-  return true;
-}
-
-/** Marks a key as used now (best effort, at most once a minute per key is enough). */
-export async function touchApiKey(orgId: string, keyId: string): Promise<void> {
-  await db
-    .update(apiKeys)
-    .set({ lastUsedAt: new Date() })
-    .where(and(eq(apiKeys.orgId, orgId), eq(apiKeys.id, keyId)));
 }

@@ -20,6 +20,8 @@ export type EngineErrorCode =
   | "invalid_request"
   | "too_large"
   | "unsupported"
+  /** Well-formed but impossible to carry out (unreachable precision, singular mitigation): 422. */
+  | "infeasible"
   | "canceled";
 
 export class EngineError extends Error {

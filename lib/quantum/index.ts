@@ -4,6 +4,7 @@
  */
 export { estimate, type EstimateOptions } from "./estimate/estimate";
 export { previewRequest } from "./estimate/preview";
+export { DEFAULT_PREVIEW_WORK_BUDGET, type PreviewOptions } from "./estimate/preview-plan";
 export * from "./estimate/limits";
 export {
   estimateRequestSchema,
@@ -24,7 +25,13 @@ export {
 export { EngineError, isEngineError, type EngineErrorCode, type EngineIssue } from "./errors";
 
 // Circuits: parsing, statistics, OpenQASM 2.0 export of measurement / Hadamard-test circuits.
-export { parseProgram, circuitStats, measurementCircuitQasm, hadamardTestQasm, CIRCUIT_LIMITS } from "./circuit";
+export {
+  parseProgram,
+  circuitStats,
+  measurementCircuitQasm,
+  hadamardTestQasm,
+  CIRCUIT_LIMITS,
+} from "./circuit";
 export type { ParsedProgram, CircuitStats, ProgramInput, QasmFormat } from "./circuit";
 
 // Observables.
@@ -32,10 +39,20 @@ export { parsePauliSum, type ParsedPauliSum, type TermOrigin } from "./observabl
 export { parsePauliTerms, pauliTermsToText, type ParsedPauliTerms, type PauliTermInput } from "./observable/pauli-terms";
 export { padPauliSum, sparseLabel, masksToWord } from "./observable/pauli-word";
 export { groupQubitWise, type MeasurementSetting } from "./observable/grouping";
-export { parseMatrixObservable, type HermitianMatrix, type MatrixObservableInput } from "./observable/matrix-observable";
+export {
+  parseMatrixObservable,
+  type HermitianMatrix,
+  type MatrixObservableInput,
+} from "./observable/matrix-observable";
 export { lanczosExtremes, type LanczosOptions, type LanczosResult } from "./observable/lanczos";
 
 // Planning (no shots).
-export { planShots, planFromStdDevs, allocateShots, type ShotPlan, type SettingPlan } from "./planning/shot-plan";
+export {
+  planShots,
+  planFromStdDevs,
+  allocateShots,
+  type ShotPlan,
+  type SettingPlan,
+} from "./planning/shot-plan";
 
 export type { Circuit, NoiseModel, PauliSum, PauliTerm, ProgressFn } from "./types";

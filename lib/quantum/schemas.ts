@@ -8,7 +8,15 @@
  */
 import { INTERVAL_METHOD_SENTENCE } from "./sampling/interval";
 import { z } from "zod";
-import { MAX_MATRIX_QUBITS, MAX_OBSERVABLE_TERMS, MAX_POINTS, MAX_SEED, MAX_SHOTS, MAX_SOURCE_CHARS, MAX_SWEEP_POINTS } from "./estimate/limits";
+import {
+  MAX_MATRIX_QUBITS,
+  MAX_OBSERVABLE_TERMS,
+  MAX_POINTS,
+  MAX_SEED,
+  MAX_SHOTS,
+  MAX_SOURCE_CHARS,
+  MAX_SWEEP_POINTS,
+} from "./estimate/limits";
 
 /** Rows and columns of a matrix observable (its eigendecomposition stays within seconds). */
 const MAX_MATRIX_DIM = 2 ** MAX_MATRIX_QUBITS;
@@ -17,17 +25,33 @@ const probability = z.number().min(0).max(1);
 
 const matrixPart = (name: string) =>
   z
-    .array(z.array(z.number()).max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`))
+    .array(
+      z
+        .array(z.number())
+        .max(
+          MAX_MATRIX_DIM,
+          `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`,
+        ),
+    )
     .min(1)
-    .max(MAX_MATRIX_DIM, `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`)
+    .max(
+      MAX_MATRIX_DIM,
+      `matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${MAX_MATRIX_DIM}×${MAX_MATRIX_DIM})`,
+    )
     .describe(
       `${name} part of the matrix, row-major, of A0 ⊗ A1 ⊗ … with qubit 0 the leftmost Kronecker factor: row/column index i = Σ_k b_k·2^(n−1−k) (qubit 0 is the most significant bit; kron(Z, I) is Z on qubit 0, like the dense word "ZI")`,
     );
 
 export const circuitInputSchema = z
   .strictObject({
-    format: z.enum(["qasm2", "qasm3"]).describe('"qasm2" (OpenQASM 2.0) or "qasm3" (the OpenQASM 3 subset with inputs)'),
-    source: z.string().min(1, "the circuit source is empty").max(MAX_SOURCE_CHARS).describe("Program text"),
+    format: z
+      .enum(["qasm2", "qasm3"])
+      .describe('"qasm2" (OpenQASM 2.0) or "qasm3" (the OpenQASM 3 subset with inputs)'),
+    source: z
+      .string()
+      .min(1, "the circuit source is empty")
+      .max(MAX_SOURCE_CHARS)
+      .describe("Program text"),
   })
   .describe("The circuit that prepares the state");
 
@@ -48,7 +72,9 @@ export const matrixObservableSchema = z
     real: matrixPart("Real"),
     imag: matrixPart("Imaginary").optional(),
   })
-  .describe("Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)");
+  .describe(
+    "Observable as a Hermitian 2^n × 2^n matrix (checked to a relative tolerance of 1e-10)",
+  );
 
 export const termsObservableSchema = z
   .strictObject({
@@ -61,16 +87,24 @@ export const termsObservableSchema = z
             .string()
             .min(1, "the Pauli word is empty")
             .max(MAX_SOURCE_CHARS)
-            .describe('One Pauli word, sparse ("X0 Z3") or dense ("XIZY", one letter per qubit); qubit 0 first'),
+            .describe(
+              'One Pauli word, sparse ("X0 Z3") or dense ("XIZY", one letter per qubit); qubit 0 first',
+            ),
         }),
       )
       .min(1, "the observable has no terms")
       .max(MAX_OBSERVABLE_TERMS, `at most ${MAX_OBSERVABLE_TERMS} terms`)
-      .describe("Σ coefficient·word; equal words are summed. Words follow the rules of Pauli-sum text, and errors point at terms[i].pauli"),
+      .describe(
+        "Σ coefficient·word; equal words are summed. Words follow the rules of Pauli-sum text, and errors point at terms[i].pauli",
+      ),
   })
   .describe("Observable as a JSON list of weighted Pauli words (for generated Hamiltonians)");
 
-export const observableInputSchema = z.discriminatedUnion("format", [pauliObservableSchema, matrixObservableSchema, termsObservableSchema]);
+export const observableInputSchema = z.discriminatedUnion("format", [
+  pauliObservableSchema,
+  matrixObservableSchema,
+  termsObservableSchema,
+]);
 
 const readoutRates = {
   p1Given0: probability.optional().describe("Probability of reading 1 when the qubit is 0"),
@@ -80,9 +114,15 @@ const readoutRates = {
 const gateChannels = z.strictObject({
   depolarizing: probability
     .optional()
-    .describe("Depolarizing probability of the whole gate's 2^k-dimensional space (replaces depolarizing1q / depolarizing2q)"),
-  amplitudeDamping: probability.optional().describe("Amplitude damping γ on each qubit (replaces amplitudeDamping)"),
-  phaseDamping: probability.optional().describe("Phase damping λ on each qubit (replaces phaseDamping)"),
+    .describe(
+      "Depolarizing probability of the whole gate's 2^k-dimensional space (replaces depolarizing1q / depolarizing2q)",
+    ),
+  amplitudeDamping: probability
+    .optional()
+    .describe("Amplitude damping γ on each qubit (replaces amplitudeDamping)"),
+  phaseDamping: probability
+    .optional()
+    .describe("Phase damping λ on each qubit (replaces phaseDamping)"),
 });
 
 /** Qubit index as a record key: "0", "1", … (at most 6 digits; checked against the circuit). */
@@ -92,9 +132,15 @@ const gateKey = z.string().min(1).max(120);
 
 export const noiseModelSchema = z
   .strictObject({
-    depolarizing1q: probability.optional().describe("Depolarizing probability after each 1-qubit gate"),
-    depolarizing2q: probability.optional().describe("Depolarizing probability after each gate on 2 or more qubits"),
-    amplitudeDamping: probability.optional().describe("Amplitude damping γ on each qubit a gate touches"),
+    depolarizing1q: probability
+      .optional()
+      .describe("Depolarizing probability after each 1-qubit gate"),
+    depolarizing2q: probability
+      .optional()
+      .describe("Depolarizing probability after each gate on 2 or more qubits"),
+    amplitudeDamping: probability
+      .optional()
+      .describe("Amplitude damping γ on each qubit a gate touches"),
     phaseDamping: probability.optional().describe("Phase damping λ on each qubit a gate touches"),
     readout: z
       .strictObject({
@@ -102,10 +148,14 @@ export const noiseModelSchema = z
         qubits: z
           .record(qubitKey, z.strictObject(readoutRates))
           .optional()
-          .describe('Per-qubit readout rates keyed by qubit index ("0" = qubit 0); unset fields use the two rates above'),
+          .describe(
+            'Per-qubit readout rates keyed by qubit index ("0" = qubit 0); unset fields use the two rates above',
+          ),
       })
       .optional()
-      .describe("Readout error on sampled outcomes (never in `exact`); the same for every qubit unless `qubits` says otherwise"),
+      .describe(
+        "Readout error on sampled outcomes (never in `exact`); the same for every qubit unless `qubits` says otherwise",
+      ),
     gates: z
       .record(gateKey, gateChannels)
       .optional()
@@ -126,14 +176,40 @@ export const estimateRequestSchema = z
   .strictObject({
     circuit: circuitInputSchema,
     observable: observableInputSchema,
-    method: z.enum(["statevector", "density_matrix"]).optional().describe('Simulation method (default "statevector")'),
-    shots: z.int().min(0).max(MAX_SHOTS).optional().describe("Total shots over all measurement settings; 0 = exact only (default 0)"),
-    seed: z.int().min(0).max(MAX_SEED).optional().describe("PRNG seed; chosen and returned when absent"),
-    parameters: z.record(z.string(), z.number()).optional().describe("Values of the circuit's OpenQASM 3 inputs"),
+    method: z
+      .enum(["statevector", "density_matrix"])
+      .optional()
+      .describe('Simulation method (default "statevector")'),
+    shots: z
+      .int()
+      .min(0)
+      .max(MAX_SHOTS)
+      .optional()
+      .describe("Total shots over all measurement settings; 0 = exact only (default 0)"),
+    seed: z
+      .int()
+      .min(0)
+      .max(MAX_SEED)
+      .optional()
+      .describe("PRNG seed; chosen and returned when absent"),
+    parameters: z
+      .record(z.string(), z.number())
+      .optional()
+      .describe("Values of the circuit's OpenQASM 3 inputs"),
     noise: noiseModelSchema.optional(),
-    mitigateReadout: z.boolean().optional().describe("Also report the readout-mitigated sampled value"),
-    targetPrecision: z.number().positive().optional().describe("Target standard error; chooses the number of shots"),
-    shotSplit: z.enum(["optimal", "even"]).optional().describe('Shot split over settings: ∝ √Var (default "optimal") or even'),
+    mitigateReadout: z
+      .boolean()
+      .optional()
+      .describe("Also report the readout-mitigated sampled value"),
+    targetPrecision: z
+      .number()
+      .positive()
+      .optional()
+      .describe("Target standard error; chooses the number of shots"),
+    shotSplit: z
+      .enum(["optimal", "even"])
+      .optional()
+      .describe('Shot split over settings: ∝ √Var (default "optimal") or even'),
     sweep: z
       .record(z.string(), z.array(z.number()).min(1).max(MAX_SWEEP_POINTS))
       .optional()
@@ -155,15 +231,27 @@ export const estimateRequestSchema = z
   })
   .superRefine((req, ctx) => {
     if (req.targetPrecision !== undefined && (req.shots ?? 0) > 0) {
-      ctx.addIssue({ code: "custom", path: ["targetPrecision"], message: "give either shots or targetPrecision, not both" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["targetPrecision"],
+        message: "give either shots or targetPrecision, not both",
+      });
     }
     if (req.sweep && req.points) {
-      ctx.addIssue({ code: "custom", path: ["points"], message: "give either sweep (a grid) or points (a list), not both" });
+      ctx.addIssue({
+        code: "custom",
+        path: ["points"],
+        message: "give either sweep (a grid) or points (a list), not both",
+      });
     }
     if (req.sweep) {
       const points = Object.values(req.sweep).reduce((a, v) => a * v.length, 1);
       if (points > MAX_SWEEP_POINTS) {
-        ctx.addIssue({ code: "custom", path: ["sweep"], message: `the sweep grid has ${points} points; at most ${MAX_SWEEP_POINTS}` });
+        ctx.addIssue({
+          code: "custom",
+          path: ["sweep"],
+          message: `the sweep grid has ${points} points; at most ${MAX_SWEEP_POINTS}`,
+        });
       }
     }
   })
@@ -177,7 +265,10 @@ const gradientSchema = z
     z.object({
       exact: z.number().describe("d/d(input) of the exact value (of the noisy Tr(ρA) under noise)"),
       sampled: z
-        .object({ mean: z.number(), stdErr: z.number().describe("Standard error of the shift-rule estimate") })
+        .object({
+          mean: z.number(),
+          stdErr: z.number().describe("Standard error of the shift-rule estimate"),
+        })
         .optional()
         .describe("Parameter-shift estimate from the shifted circuits' shots"),
     }),
@@ -186,29 +277,41 @@ const gradientSchema = z
 const interval = z.tuple([z.number(), z.number()]);
 
 const estimateSchema = z.object({
-  mean: z.number().describe("Sample mean: constant part plus the average of each setting's shot values"),
+  mean: z
+    .number()
+    .describe("Sample mean: constant part plus the average of each setting's shot values"),
   stdErr: z
     .number()
-    .describe("Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots"),
-  ci95: interval.describe("95 % interval: per setting posterior mean ± Student t quantile × posterior sd, settings combined by square-and-add (MOVER) around the mean, clipped to the possible values"),
+    .describe(
+      "Posterior standard deviation of the mean (Dirichlet posterior per setting with one pseudo-shot at each end of its value range); never 0 from finitely many shots",
+    ),
+  ci95: interval.describe(
+    "95 % interval: per setting posterior mean ± Student t quantile × posterior sd, settings combined by square-and-add (MOVER) around the mean, clipped to the possible values",
+  ),
 });
 
 export const convergencePointSchema = z.object({
   shots: z.int().describe("Shots used so far (a prefix of every setting)"),
   mean: z.number(),
   stdErr: z.number(),
-  ci95: interval.optional().describe("95 % interval at this prefix (same method as `sampled.ci95`)"),
+  ci95: interval
+    .optional()
+    .describe("95 % interval at this prefix (same method as `sampled.ci95`)"),
 });
 
 export const shotPlanSchema = z
   .object({
     targetPrecision: z.number(),
     settings: z.int(),
-    worstCase: z.object({ totalShots: z.number(), perSetting: z.array(z.number()) }).describe("(Σ|c_i|)²/ε², valid for any state"),
+    worstCase: z
+      .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
+      .describe("(Σ|c_i|)²/ε², valid for any state"),
     stateAware: z
       .object({ totalShots: z.number(), perSetting: z.array(z.number()) })
       .nullable()
-      .describe("Fewest shots whose expected posterior standard error (the reported stdErr) is at most ε, from the state's exact per-setting means and variances"),
+      .describe(
+        "Fewest shots whose expected posterior standard error (the reported stdErr) is at most ε, from the state's exact per-setting means and variances",
+      ),
   })
   .describe("Shots needed for a target standard error (McClean et al. 2016)");
 
@@ -233,16 +336,24 @@ export const estimateResultSchema = z
     method: z.enum(["statevector", "density_matrix"]),
     seed: z.int(),
     ideal: z.object({ value: z.number() }).describe("Noiseless exact ⟨ψ|A|ψ⟩"),
-    exact: z.object({ value: z.number() }).describe("Exact value under the noise model, Tr(ρA) (no readout error)"),
+    exact: z
+      .object({ value: z.number() })
+      .describe("Exact value under the noise model, Tr(ρA) (no readout error)"),
     sampled: estimateSchema
       .extend({
         shots: z.int(),
         settings: z.int(),
-        convergence: z.array(convergencePointSchema).describe("Running estimate at log-spaced shot counts"),
+        convergence: z
+          .array(convergencePointSchema)
+          .describe("Running estimate at log-spaced shot counts"),
       })
       .nullable()
-      .describe(`Estimate from shots (readout error included), or null without shots. ${INTERVAL_METHOD_SENTENCE}`),
-    mitigated: estimateSchema.optional().describe("Readout-mitigated sampled value (tensored inverse)"),
+      .describe(
+        `Estimate from shots (readout error included), or null without shots. ${INTERVAL_METHOD_SENTENCE}`,
+      ),
+    mitigated: estimateSchema
+      .optional()
+      .describe("Readout-mitigated sampled value (tensored inverse)"),
     terms: z.array(
       z.object({
         pauli: z.string().describe("Dense Pauli word, qubit 0 first"),
@@ -250,36 +361,64 @@ export const estimateResultSchema = z
         coefficient: z.number(),
         exact: z.number().describe("Exact ⟨P⟩ under the noise model"),
         sampledMean: z.number().optional(),
-        stdErr: z.number().optional().describe("Posterior standard deviation of the term's ⟨P⟩ (same method as `sampled.stdErr`)"),
+        stdErr: z
+          .number()
+          .optional()
+          .describe(
+            "Posterior standard deviation of the term's ⟨P⟩ (same method as `sampled.stdErr`)",
+          ),
         ci95: interval.optional().describe("95 % interval of ⟨P⟩"),
         mitigatedMean: z.number().optional(),
         mitigatedStdErr: z.number().optional(),
         mitigatedCi95: interval.optional(),
-        group: z.int().nullable().describe("Index of the measurement setting (null for the identity)"),
+        group: z
+          .int()
+          .nullable()
+          .describe("Index of the measurement setting (null for the identity)"),
       }),
     ),
     groups: z.array(
       z.object({
-        bases: z.string().describe('Basis per qubit, qubit 0 first (X, Y, Z, I = unmeasured), or "eigenbasis"'),
+        bases: z
+          .string()
+          .describe('Basis per qubit, qubit 0 first (X, Y, Z, I = unmeasured), or "eigenbasis"'),
         terms: z.array(z.int()),
         shots: z.int(),
         counts: z
           .record(z.string(), z.int())
           .optional()
-          .describe('Histogram keyed by bitstring, qubit 0 first; for "eigenbasis" the key is the outcome index k (the k-th eigenvalue, ascending) in n binary digits, most significant first'),
+          .describe(
+            'Histogram keyed by bitstring, qubit 0 first; for "eigenbasis" the key is the outcome index k (the k-th eigenvalue, ascending) in n binary digits, most significant first',
+          ),
         distinctOutcomes: z.int().optional(),
         variance: z.number().optional().describe("Exact single-shot variance of the setting"),
-        eigenvalues: z.array(z.number()).optional().describe("Matrix observables: eigenvalue of outcome index k (ascending; the count key of k is k in binary)"),
+        eigenvalues: z
+          .array(z.number())
+          .optional()
+          .describe(
+            "Matrix observables: eigenvalue of outcome index k (ascending; the count key of k is k in binary)",
+          ),
       }),
     ),
-    spectrum: z.object({ min: z.number(), max: z.number() }).optional().describe("Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)"),
+    spectrum: z
+      .object({ min: z.number(), max: z.number() })
+      .optional()
+      .describe(
+        "Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)",
+      ),
     shotPlan: shotPlanSchema.optional(),
     gradient: gradientSchema.optional(),
-    gradientShots: z.int().optional().describe("Shots of the parameter-shifted circuits (main point)"),
+    gradientShots: z
+      .int()
+      .optional()
+      .describe("Shots of the parameter-shifted circuits (main point)"),
     pauliDecomposition: pauliDecompositionSchema.optional(),
     sweep: z
       .object({
-        kind: z.enum(["grid", "points"]).optional().describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
+        kind: z
+          .enum(["grid", "points"])
+          .optional()
+          .describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
         parameters: z.array(z.string()),
         points: z.array(
           z.object({
@@ -288,12 +427,20 @@ export const estimateResultSchema = z
             exact: z.number(),
             sampled: estimateSchema.extend({ shots: z.int() }).nullable(),
             gradient: gradientSchema.optional(),
-            gradientShots: z.int().optional().describe("Shots of this point's parameter-shifted circuits"),
+            gradientShots: z
+              .int()
+              .optional()
+              .describe("Shots of this point's parameter-shifted circuits"),
           }),
         ),
       })
       .optional(),
-    timings: z.object({ parseMs: z.number(), simulateMs: z.number(), sampleMs: z.number(), spectrumMs: z.number() }),
+    timings: z.object({
+      parseMs: z.number(),
+      simulateMs: z.number(),
+      sampleMs: z.number(),
+      spectrumMs: z.number(),
+    }),
   })
   .describe("Result of an expectation-value run");
 
@@ -307,11 +454,21 @@ export const previewResultSchema = z
     totalGates: z.int(),
     twoQubitGates: z.int(),
     depth: z.int(),
-    observable: z.object({ format: z.enum(["pauli", "matrix"]), terms: z.int(), settings: z.int() }),
+    observable: z.object({
+      format: z.enum(["pauli", "matrix"]),
+      terms: z.int(),
+      settings: z.int(),
+    }),
     groups: z.array(z.object({ bases: z.string(), terms: z.array(z.int()) })),
-    stateBytes: z.number().describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
+    stateBytes: z
+      .number()
+      .describe("Memory of one simulated state (16·2^n B statevector, 16·4^n B density matrix)"),
     sweepPoints: z.int().describe("Parameter points of the run (grid points or listed points)"),
-    shots: z.int().describe("Shots per parameter point (planned from targetPrecision when given)"),
+    shots: z
+      .int()
+      .describe(
+        "Shots per parameter point (planned from targetPrecision when given; the largest over the points when their plans differ)",
+      ),
     gradient: z
       .object({
         inputs: z.array(z.string()),
@@ -320,13 +477,34 @@ export const previewResultSchema = z
       })
       .nullable()
       .describe("Gradient plan when `gradient` is true"),
-    totalShots: z.int().describe("Shots over all parameter points, the gradient's shifted circuits included"),
+    totalShots: z
+      .int()
+      .describe(
+        "Shots over all parameter points, the gradient's shifted circuits included: what the quota check reserves",
+      ),
     shotPlan: shotPlanSchema.nullable(),
     shotsPerSetting: z.array(z.int()).nullable(),
     pauliDecomposition: pauliDecompositionSchema.optional(),
-    varianceSource: z.enum(["worst_case"]).describe("Preview plans from worst-case bounds; runs use the state's variances"),
+    varianceSource: z
+      .enum(["state_aware", "worst_case"])
+      .describe(
+        'What the targetPrecision plan used: "state_aware" = the state\'s exact variances (the state was simulated within the preview\'s work budget; the run draws exactly these shots) or "worst_case" = variance bounds valid for any state (the run plans from the exact variances and usually draws fewer). Without targetPrecision: "worst_case" (only the per-setting split shown)',
+      ),
+    planWork: z
+      .object({
+        estimated: z
+          .number()
+          .describe("Amplitude updates a state-aware plan needs (simulating every point)"),
+        budget: z.number().describe("The preview's budget for it"),
+      })
+      .nullable()
+      .describe(
+        "With targetPrecision: the work a state-aware plan costs against the budget (which decided varianceSource)",
+      ),
     notes: z.array(z.string()),
   })
-  .describe("Cheap preview of a run: no simulation");
+  .describe(
+    "Preview of a run: parse, counts, settings and the shot plan (state-aware within a work budget)",
+  );
 
 export type PreviewResult = z.infer<typeof previewResultSchema>;

@@ -40,7 +40,8 @@ export function getRunsQueue(): Queue {
   return holder.queue;
 }
 
-function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
+/** `promise`, or a rejection naming Redis when it has not settled within `ms`. */
+export function withTimeout<T>(promise: Promise<T>, ms: number): Promise<T> {
   return new Promise<T>((resolve, reject) => {
     const timer = setTimeout(() => reject(new Error(`no answer from Redis within ${ms} ms`)), ms);
     promise.then(

@@ -1,9 +1,11 @@
 /**
  * Redis-backed rate limits (rate-limiter-flexible, fixed windows per key).
  *
- * Sign-in: at most 10 attempts per e-mail and 50 per IP address in 15 minutes;
- * a successful sign-in clears the e-mail's counter. Magic-link requests: 5 per
- * e-mail and 20 per IP per 15 minutes. API (withOrg): API_RATE_LIMIT_PER_MINUTE
+ * Sign-in: at most 50 attempts per client IP in 15 minutes (when the IP is
+ * known, see ./client-ip.ts); per account, failures slow down the source they
+ * come from (lib/auth/sign-in-throttle.ts) instead of locking the account.
+ * Magic-link requests: 5 per e-mail and 20 per IP per 15 minutes. Sign-ups:
+ * 3 per e-mail and 10 per IP per hour. API (withOrg): API_RATE_LIMIT_PER_MINUTE
  * requests per minute per key or user (route handlers may ask for another budget).
  * A limit answers `ProblemError` 429 with Retry-After in seconds; `consume`
  * returns the budget's state for the RateLimit-* answer fields (./headers.ts).
@@ -11,6 +13,8 @@
 import "server-only";
 import { RateLimiterMemory, RateLimiterRedis, RateLimiterRes } from "rate-limiter-flexible";
 import { tooManyRequests } from "@/lib/api/problem";
+import { env } from "@/lib/env";
+import { clientIpFrom } from "./client-ip";
 import type { RateLimitState } from "./headers";
 import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
@@ -20,8 +24,9 @@ export type { RateLimitState } from "./headers";
 export type Budget = { points: number; duration: number };
 
 export const BUDGETS = {
-  signInEmail: { points: 10, duration: 15 * 60 },
   signInIp: { points: 50, duration: 15 * 60 },
+  signUpEmail: { points: 3, duration: 60 * 60 },
+  signUpIp: { points: 10, duration: 60 * 60 },
   magicLinkEmail: { points: 5, duration: 15 * 60 },
   magicLinkIp: { points: 20, duration: 15 * 60 },
 } satisfies Record<string, Budget>;
@@ -90,25 +95,27 @@ export async function reset(name: string, budget: Budget, key: string): Promise<
   await limiter(name, budget).delete(key);
 }
 
-/** Both sign-in budgets; the e-mail is normalised (trimmed, lower case). */
-export async function consumeSignIn(email: string, ip: string): Promise<void> {
-  const message = "Too many sign-in attempts.";
-  await consume("signin-ip", BUDGETS.signInIp, ip, message);
-  await consume("signin-email", BUDGETS.signInEmail, email.trim().toLowerCase(), message);
+/** The per-IP sign-in budget (skipped when the client IP is unknown). */
+export async function consumeSignInIp(ip: string | null): Promise<void> {
+  if (ip) await consume("signin-ip", BUDGETS.signInIp, ip, "Too many sign-in attempts from your network.");
 }
 
-export async function resetSignInEmail(email: string): Promise<void> {
-  await reset("signin-email", BUDGETS.signInEmail, email.trim().toLowerCase());
-}
-
-export async function consumeMagicLink(email: string, ip: string): Promise<void> {
+export async function consumeMagicLink(email: string, ip: string | null): Promise<void> {
   const message = "Too many sign-in links requested.";
-  await consume("magic-ip", BUDGETS.magicLinkIp, ip, message);
+  if (ip) await consume("magic-ip", BUDGETS.magicLinkIp, ip, message);
   await consume("magic-email", BUDGETS.magicLinkEmail, email.trim().toLowerCase(), message);
 }
 
-/** The client IP from proxy headers (first X-Forwarded-For hop), or "unknown". */
-export function clientIp(headers: Headers): string {
-  const forwarded = headers.get("x-forwarded-for")?.split(",")[0]?.trim();
-  return forwarded || headers.get("x-real-ip") || "unknown";
+export async function consumeSignUp(email: string, ip: string | null): Promise<void> {
+  const message = "Too many sign-ups.";
+  if (ip) await consume("signup-ip", BUDGETS.signUpIp, ip, message);
+  await consume("signup-email", BUDGETS.signUpEmail, email.trim().toLowerCase(), message);
+}
+
+/**
+ * The client IP for limits: from TRUSTED_PROXY_HOPS reverse proxies' entries
+ * in X-Forwarded-For, never from what the client wrote; null when unknown.
+ */
+export function clientIp(headers: Headers): string | null {
+  return clientIpFrom(headers, env.TRUSTED_PROXY_HOPS);
 }

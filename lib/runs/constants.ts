@@ -1,30 +1,42 @@
 /**
- * Run vocabulary shared by the database schema, the zod schemas, the worker
- * and the UI. Dependency-free so client components may import it.
- *
- * Lifecycle: queued → running → succeeded | failed | canceled; a queued run
- * may also be canceled (or failed, when it can never start).
+ * Run vocabulary shared by the zod schemas, the worker and the UI: the stored values
+ * (defined beside the table, db/schema/run-enums.ts) and the one set of labels the
+ * pages show for them. Dependency-free so client components may import it.
  */
-export const RUN_STATUSES = ["queued", "running", "succeeded", "failed", "canceled"] as const;
-export type RunStatus = (typeof RUN_STATUSES)[number];
+import type { RunMethod, RunStatus } from "@/db/schema/run-enums";
 
-export const TERMINAL_RUN_STATUSES = ["succeeded", "failed", "canceled"] as const satisfies readonly RunStatus[];
+export {
+  RUN_METHODS,
+  RUN_NAME_MAX,
+  RUN_STATUSES,
+  SHOT_PLAN_SOURCES,
+  type RunMethod,
+  type RunStatus,
+  type ShotPlanSource,
+} from "@/db/schema/run-enums";
+
+export const TERMINAL_RUN_STATUSES = [
+  "succeeded",
+  "failed",
+  "canceled",
+] as const satisfies readonly RunStatus[];
 export type TerminalRunStatus = (typeof TERMINAL_RUN_STATUSES)[number];
 
 export function isTerminalStatus(status: RunStatus): status is TerminalRunStatus {
   return (TERMINAL_RUN_STATUSES as readonly string[]).includes(status);
 }
 
-export const RUN_METHODS = ["statevector", "density_matrix"] as const;
-export type RunMethod = (typeof RUN_METHODS)[number];
+/** How the pages name each status (badges, filters, messages). */
+export const RUN_STATUS_LABELS: Record<RunStatus, string> = {
+  queued: "Queued",
+  running: "Running",
+  succeeded: "Succeeded",
+  failed: "Failed",
+  canceled: "Canceled",
+};
 
-/** Longest run name; the API, the form and the column agree on it. */
-export const RUN_NAME_MAX = 120;
-
-/**
- * Where a run's planned shots come from: the request's `shots` ("fixed"), or the shot
- * plan for `targetPrecision` from the state's exact variances ("state_aware", the preview
- * simulated the state within its budget) or from worst-case bounds ("worst_case").
- */
-export const SHOT_PLAN_SOURCES = ["fixed", "state_aware", "worst_case"] as const;
-export type ShotPlanSource = (typeof SHOT_PLAN_SOURCES)[number];
+/** How the pages name each simulation method (form, lists, run page, quota messages). */
+export const RUN_METHOD_LABELS: Record<RunMethod, string> = {
+  statevector: "Statevector",
+  density_matrix: "Density matrix",
+};

@@ -123,6 +123,7 @@ export async function executeRun(
       simulateMs: result.timings.simulateMs,
       sampleMs: result.timings.sampleMs,
     },
+    shotsDrawn: shotsDrawn(result),
     usage: { runs: 1, shots: shotsDrawn(result), simulationSeconds: seconds },
   });
   if (!done) {

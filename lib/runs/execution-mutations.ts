@@ -142,6 +142,8 @@ export type RunFinish = {
   result?: Record<string, unknown>;
   error?: StoredProblem;
   timings?: { parseMs: number; simulateMs: number; sampleMs: number };
+  /** Shots the engine drew (succeeded runs): shown beside the planned shots, and billed. */
+  shotsDrawn?: number;
   usage: RunUsage;
 };
 
@@ -167,6 +169,7 @@ export async function finishRun(
         result: finish.result ?? null,
         error: finish.error ?? null,
         finishedAt,
+        ...(finish.shotsDrawn !== undefined ? { shotsDrawn: finish.shotsDrawn } : {}),
         ...(finish.timings ?? {}),
       })
       .where(current(orgId, runId, attempt));
@@ -201,7 +204,7 @@ export async function recordCanceledRunUsage(
   });
 }
 
-/** Fails a run that has not finished (malformed row, retries exhausted). False if it already had. */
+/** Fails a run that has not finished (malformed row, retries exhausted) and announces it. False if it already had. */
 export async function failUnfinishedRun(
   orgId: string,
   runId: string,
@@ -213,5 +216,7 @@ export async function failUnfinishedRun(
     .where(
       and(eq(runs.orgId, orgId), eq(runs.id, runId), inArray(runs.status, ["queued", "running"])),
     );
-  return result.affectedRows > 0;
+  if (result.affectedRows === 0) return false;
+  await announceRunFinished(orgId, runId, "failed");
+  return true;
 }

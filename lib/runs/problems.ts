@@ -16,11 +16,18 @@ const ENGINE_TITLES: Record<string, string> = {
   invalid_request: "Invalid request",
   too_large: "Too large to simulate",
   unsupported: "Not supported",
+  infeasible: "Request cannot be carried out",
   canceled: "Canceled",
 };
 
-/** The engine's error as a 400 problem: its message, and each issue with dotted path and line/column. */
-export function engineProblem(error: Pick<EngineError, "code" | "message" | "issues">): StoredProblem {
+/**
+ * The engine's error as a problem: its message, and each issue with dotted path and
+ * line/column. 400, except 422 for a well-formed request that cannot be carried out
+ * (`infeasible`: a precision no plan reaches, singular readout mitigation).
+ */
+export function engineProblem(
+  error: Pick<EngineError, "code" | "message" | "issues">,
+): StoredProblem {
   const errors = error.issues.map((issue) => ({
     path: formatFieldPath(issue.path),
     message: issue.message,
@@ -30,7 +37,7 @@ export function engineProblem(error: Pick<EngineError, "code" | "message" | "iss
   return {
     type: `/problems/engine/${error.code.replace(/_/g, "-")}`,
     title: ENGINE_TITLES[error.code] ?? "Invalid request",
-    status: 400,
+    status: error.code === "infeasible" ? 422 : 400,
     detail: error.message,
     ...(errors.length > 0 ? { errors } : {}),
   };

@@ -11,7 +11,8 @@ import { decodeCursor, paginate } from "./cursor";
 import type { RunListQuery } from "./schemas";
 import type { RunStatus } from "./constants";
 
-const isUuid = (value: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
+const isUuid = (value: string) =>
+  /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
 
 export async function findRun(orgId: string, runId: string): Promise<Run | null> {
   if (!isUuid(runId)) return null;
@@ -49,6 +50,8 @@ const summaryColumns = {
   method: runs.method,
   qubits: runs.qubits,
   shots: runs.shots,
+  shotsPlan: runs.shotsPlan,
+  shotsDrawn: runs.shotsDrawn,
   seed: runs.seed,
   status: runs.status,
   progress: runs.progress,
@@ -88,12 +91,18 @@ export async function listRuns(orgId: string, query: RunListQuery) {
   if (query.status) conditions.push(eq(runs.status, query.status as RunStatus));
   if (query.method) conditions.push(eq(runs.method, query.method));
   if (query.q) conditions.push(like(runs.name, containing(query.q)));
-  if (query.createdBy) conditions.push(or(eq(runs.createdByUserId, query.createdBy), eq(runs.createdByApiKeyId, query.createdBy)));
+  if (query.createdBy)
+    conditions.push(
+      or(eq(runs.createdByUserId, query.createdBy), eq(runs.createdByApiKeyId, query.createdBy)),
+    );
   if (query.from) conditions.push(gte(runs.queuedAt, dayStart(query.from)));
-  if (query.to) conditions.push(lt(runs.queuedAt, new Date(dayStart(query.to).getTime() + 86_400_000)));
+  if (query.to)
+    conditions.push(lt(runs.queuedAt, new Date(dayStart(query.to).getTime() + 86_400_000)));
   if (query.cursor) {
     const after = decodeCursor(query.cursor);
-    conditions.push(or(lt(runs.queuedAt, after.time), and(eq(runs.queuedAt, after.time), lt(runs.id, after.id))));
+    conditions.push(
+      or(lt(runs.queuedAt, after.time), and(eq(runs.queuedAt, after.time), lt(runs.id, after.id))),
+    );
   }
   const rows = await selectSummaries(and(...conditions), query.limit + 1);
   return paginate(rows, query.limit, (row) => ({ time: row.queuedAt, id: row.id }));

@@ -15,7 +15,7 @@
  */
 import "server-only";
 import { queuePrefix } from "@/lib/queue/connection";
-import { enqueue } from "@/lib/queue/enqueue";
+import { enqueue, withTimeout } from "@/lib/queue/enqueue";
 import { getRedis } from "@/lib/rate-limit/redis";
 import type { TerminalRunStatus } from "./constants";
 
@@ -29,22 +29,11 @@ export async function announceRunFinished(
   status: TerminalRunStatus,
 ): Promise<void> {
   const results = await Promise.allSettled([
-    withTimeout(getRedis().publish(runFinishedChannel(), runId)),
+    withTimeout(getRedis().publish(runFinishedChannel(), runId), 2_000),
     enqueue("webhook.fanout", { orgId, runId, status }, { jobId: `hooks-${runId}` }),
   ]);
   for (const r of results) {
     if (r.status === "rejected")
       console.error(`[ketwise] run ${runId} ${status}: could not announce it`, r.reason);
   }
-}
-
-/** A Redis call that gives up after 2 s (the caller has already written the run). */
-function withTimeout<T>(promise: Promise<T>, ms = 2_000): Promise<T> {
-  return new Promise<T>((resolve, reject) => {
-    const timer = setTimeout(() => reject(new Error(`no answer from Redis within ${ms} ms`)), ms);
-    promise.then(
-      (value) => (clearTimeout(timer), resolve(value)),
-      (error: unknown) => (clearTimeout(timer), reject(error)),
-    );
-  });
 }

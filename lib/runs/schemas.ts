@@ -21,7 +21,7 @@ import {
   timestampSchema,
 } from "@/lib/openapi/common-schemas";
 import { nameSchema } from "@/lib/validation/names";
-import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES } from "./constants";
+import { RUN_METHODS, RUN_NAME_MAX, RUN_STATUSES, SHOT_PLAN_SOURCES } from "./constants";
 
 export const runNameSchema = nameSchema({
   max: RUN_NAME_MAX,
@@ -72,7 +72,23 @@ const runBase = {
   phase: z.string().nullable().describe("What the engine is doing now"),
   method: runMethodSchema,
   qubits: z.int(),
-  shots: z.int().describe("Planned total shots (0 = exact only)"),
+  shots: z
+    .int()
+    .describe(
+      "Planned total shots over all sweep points (0 = exact only); the quota check reserved these",
+    ),
+  shotsPlan: z
+    .enum(SHOT_PLAN_SOURCES)
+    .nullable()
+    .describe(
+      'Where `shots` comes from: "fixed" (the request\'s shots), "state_aware" (targetPrecision planned from the state\'s exact variances at submission: what the run draws) or "worst_case" (targetPrecision planned from variance bounds: the run usually draws fewer); null for runs submitted before this was recorded',
+    ),
+  shotsDrawn: z
+    .int()
+    .nullable()
+    .describe(
+      "Shots the engine drew, once succeeded (billed; may differ from `shots` when planned from worst-case bounds)",
+    ),
   seed: z
     .int()
     .describe("Seed of every sampled figure (the request's, or one chosen at submission)"),
@@ -171,4 +187,4 @@ export type QuotaVerdict = z.infer<typeof quotaVerdictSchema>;
 
 export const runPreviewSchema = previewResultSchema
   .extend({ quota: quotaVerdictSchema })
-  .describe("Cheap preview of a run (no simulation) with the quota verdict");
+  .describe("Preview of a run (state-aware shot plan within a work budget) with the quota verdict");

@@ -14,6 +14,8 @@ type Common = Pick<
   | "method"
   | "qubits"
   | "shots"
+  | "shotsPlan"
+  | "shotsDrawn"
   | "seed"
   | "createdByUserId"
   | "createdByApiKeyId"
@@ -27,7 +29,8 @@ type Common = Pick<
 >;
 
 const iso = (d: Date | null) => (d ? d.toISOString() : null);
-const diff = (a: Date | null, b: Date | null) => (a && b ? Math.max(0, b.getTime() - a.getTime()) : null);
+const diff = (a: Date | null, b: Date | null) =>
+  a && b ? Math.max(0, b.getTime() - a.getTime()) : null;
 
 function common(row: Common) {
   return {
@@ -39,6 +42,8 @@ function common(row: Common) {
     method: row.method,
     qubits: row.qubits,
     shots: row.shots,
+    shotsPlan: row.shotsPlan,
+    shotsDrawn: row.shotsDrawn,
     seed: row.seed,
     createdBy: row.createdByApiKeyId
       ? { type: "api_key" as const, id: row.createdByApiKeyId }

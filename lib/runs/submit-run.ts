@@ -20,7 +20,7 @@ import { consume } from "@/lib/rate-limit";
 import { assertAllowed, quotaVerdict } from "@/lib/usage/quotas";
 import { runSubmitBudget } from "./limits";
 import { deleteUnqueuedRun, insertRun } from "./mutations";
-import { plannedShots, previewOrThrow } from "./preview-run";
+import { plannedShots, previewOrThrow, shotPlanSource } from "./preview-run";
 import { findRunByIdempotencyKey } from "./queries";
 import { requestHash } from "./request-hash";
 import { engineRequestOf, type RunCreateInput } from "./schemas";
@@ -67,7 +67,9 @@ export async function submitRun(
 
   const preview = await previewOrThrow(request);
   const shots = plannedShots(preview);
-  assertAllowed(await quotaVerdict(org.id, org.plan, { method: preview.method, qubits: preview.qubits, shots }));
+  assertAllowed(
+    await quotaVerdict(org.id, org.plan, { method: preview.method, qubits: preview.qubits, shots }),
+  );
 
   const id = randomUUID();
   const run = await insertRun(org.id, {
@@ -77,6 +79,7 @@ export async function submitRun(
     method: preview.method,
     qubits: preview.qubits,
     shots,
+    shotsPlan: shotPlanSource(preview),
     seed: request.seed ?? randomInt(0, MAX_SEED + 1),
     idempotencyKey,
     requestHash: hash,
@@ -100,7 +103,8 @@ export async function submitRun(
       type: "/problems/queue-unavailable",
       title: "Service unavailable",
       status: 503,
-      detail: "Runs cannot be queued right now (the job queue is unreachable). Nothing was created; try again shortly.",
+      detail:
+        "Runs cannot be queued right now (the job queue is unreachable). Nothing was created; try again shortly.",
       retryAfter: 5,
     });
   }

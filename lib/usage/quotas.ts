@@ -15,6 +15,7 @@ import "server-only";
 import { getPlan, isPaidPlan, plans, type Plan } from "@/lib/billing/plans";
 import { ProblemError } from "@/lib/api/problem";
 import { env } from "@/lib/env";
+import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import type { QuotaVerdict } from "@/lib/runs/schemas";
 import { currentPeriod } from "./period";
 import { getQuotaFigures, type UnfinishedRuns, type UsageTotals } from "./queries";
@@ -22,7 +23,6 @@ import { getQuotaFigures, type UnfinishedRuns, type UsageTotals } from "./querie
 export type RunDemand = { method: "statevector" | "density_matrix"; qubits: number; shots: number };
 
 const fmt = (n: number) => new Intl.NumberFormat("en-US", { maximumFractionDigits: 1 }).format(n);
-const METHOD_LABEL = { statevector: "statevector", density_matrix: "density-matrix" } as const;
 
 function upgradeHint(plan: Plan, ok: (p: Plan) => boolean): string {
   const better = plans.find((p) => p.seatPriceCents > plan.seatPriceCents && ok(p));
@@ -47,7 +47,7 @@ export function evaluateQuota(
       limit: "max_qubits",
       status: 402,
       detail:
-        `The ${plan.name} plan runs ${METHOD_LABEL[demand.method]} circuits of up to ${maxQubits} qubits; this one has ${demand.qubits}.` +
+        `The ${plan.name} plan runs ${RUN_METHOD_LABELS[demand.method].toLowerCase()} circuits of up to ${maxQubits} qubits; this one has ${demand.qubits}.` +
         upgradeHint(plan, (p) => p.limits[key] >= demand.qubits),
     });
   }

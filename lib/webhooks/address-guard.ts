@@ -6,9 +6,10 @@
  * link-local (RFC 3927; 169.254.169.254 is the usual instance-metadata address),
  * documentation, benchmarking, multicast and reserved; for IPv6 the unspecified and
  * loopback addresses, unique-local (RFC 4193, e.g. fd00:ec2::254 metadata),
- * link-local, site-local, multicast, documentation and discard-only, and IPv4
- * addresses embedded as IPv4-mapped (::ffff:0:0/96) or NAT64 (64:ff9b::/96) are judged
- * as the IPv4 address they carry. `allowed` (WEBHOOK_ALLOWED_NETWORKS) lets chosen
+ * link-local, site-local, multicast, documentation, discard-only and local-use NAT64
+ * (64:ff9b:1::/48, RFC 8215), and IPv4 addresses embedded as IPv4-mapped
+ * (::ffff:0:0/96), IPv4-compatible (::/96, RFC 4291 §2.5.5.1), NAT64 (64:ff9b::/96)
+ * or 6to4 (2002::/16, RFC 3056) are judged as the IPv4 address they carry. `allowed` (WEBHOOK_ALLOWED_NETWORKS) lets chosen
  * networks through anyway.
  */
 import { BlockList, isIP } from "node:net";
@@ -36,6 +37,7 @@ const BLOCKED_V6 = [
   "100::/64",
   "2001::/23",
   "2001:db8::/32",
+  "64:ff9b:1::/48",
   "fc00::/7",
   "fe80::/10",
   "fec0::/10",
@@ -94,13 +96,15 @@ function ipv6Groups(address: string): number[] {
   return [...left, ...fill, ...right];
 }
 
-/** The IPv4 address inside an IPv4-mapped or NAT64 IPv6 address, else null. */
+/** The IPv4 address inside an IPv4-mapped, IPv4-compatible, NAT64 or 6to4 IPv6 address, else null. */
 export function embeddedIpv4(address: string): string | null {
   const g = ipv6Groups(address);
-  const mapped = g.slice(0, 5).every((x) => x === 0) && g[5] === 0xffff;
+  const dotted = (hi: number, lo: number) => [hi >> 8, hi & 255, lo >> 8, lo & 255].join(".");
+  if (g[0] === 0x2002) return dotted(g[1], g[2]);
+  const mapped = g.slice(0, 5).every((x) => x === 0) && (g[5] === 0xffff || g[5] === 0);
   const nat64 = g[0] === 0x64 && g[1] === 0xff9b && g.slice(2, 6).every((x) => x === 0);
   if (!mapped && !nat64) return null;
-  return [g[6] >> 8, g[6] & 255, g[7] >> 8, g[7] & 255].join(".");
+  return dotted(g[6], g[7]);
 }
 
 /** Why `address` may not be reached, or null when it may. */

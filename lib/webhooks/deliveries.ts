@@ -18,7 +18,11 @@ import { db } from "@/db";
 import { webhookAttempts, webhookDeliveries, webhookEndpoints, type Run } from "@/db/schema";
 import { env } from "@/lib/env";
 import { enqueue } from "@/lib/queue/enqueue";
-import type { WebhookDeliverJob, WebhookFanoutJob } from "@/lib/queue/jobs";
+import {
+  webhookDeliverSchema,
+  type WebhookDeliverJob,
+  type WebhookFanoutJob,
+} from "@/lib/queue/jobs";
 import { findRun } from "@/lib/runs/queries";
 import { allowedNetworks } from "./mutations";
 import { checkDestination, DestinationRefused, postToDestination } from "./outbound";
@@ -215,4 +219,36 @@ export async function deliverWebhook(
   throw new DeliveryAttemptFailed(
     `delivery ${delivery.id} attempt ${attempt}: ${outcome.error ?? `answered ${outcome.status}`}`,
   );
+}
+
+/**
+ * The worker's `failed` hook: a `webhook.deliver` job that failed its LAST attempt
+ * did so with an internal error (database or Redis down — HTTP answers are recorded
+ * by deliverWebhook and never fail the last attempt), so its delivery would stay
+ * `pending` forever. It is marked failed. True when this call changed it.
+ */
+export async function failDeliveryAfterRetries(job: {
+  name: string;
+  data: unknown;
+  attemptsMade: number;
+  opts: { attempts?: number };
+}): Promise<boolean> {
+  if (job.name !== "webhook.deliver" || job.attemptsMade < (job.opts.attempts ?? 1)) return false;
+  const payload = webhookDeliverSchema.safeParse(job.data);
+  if (!payload.success) return false;
+  const [result] = await db
+    .update(webhookDeliveries)
+    .set({
+      status: "failed",
+      lastError: "given up after an internal error on our side",
+      lastAttemptAt: new Date(),
+    })
+    .where(
+      and(
+        eq(webhookDeliveries.orgId, payload.data.orgId),
+        eq(webhookDeliveries.id, payload.data.deliveryId),
+        eq(webhookDeliveries.status, "pending"),
+      ),
+    );
+  return result.affectedRows > 0;
 }

@@ -5,7 +5,7 @@
  */
 import "server-only";
 import { and, eq } from "drizzle-orm";
-import { db } from "@/db";
+import { db, type Tx } from "@/db";
 import { webhookEndpoints, type WebhookEndpoint } from "@/db/schema";
 import { notFound, validationFailed } from "@/lib/api/problem";
 import type { OrgAccess } from "@/lib/auth/guards";
@@ -76,11 +76,7 @@ export async function createEndpoint(
   return { id, secret };
 }
 
-async function lockedEndpoint(
-  tx: Parameters<Parameters<typeof db.transaction>[0]>[0],
-  orgId: string,
-  endpointId: string,
-): Promise<WebhookEndpoint> {
+async function lockedEndpoint(tx: Tx, orgId: string, endpointId: string): Promise<WebhookEndpoint> {
   const [row] = await tx
     .select()
     .from(webhookEndpoints)

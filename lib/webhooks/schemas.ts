@@ -3,6 +3,7 @@
  * shared by the form and its server action.
  */
 import { z } from "zod";
+import { isCleanName, NAME_CHARACTERS_MESSAGE } from "@/lib/validation/names";
 
 export const createWebhookSchema = z.object({
   url: z
@@ -18,6 +19,7 @@ export const createWebhookSchema = z.object({
     .string()
     .trim()
     .max(120, "Use at most 120 characters.")
+    .refine(isCleanName, NAME_CHARACTERS_MESSAGE)
     .optional()
     .transform((v) => v || null),
 });

@@ -6,9 +6,10 @@
  * Local set-up only — the seed runs only with DEMO_SEED on.
  */
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
+import { createKey } from "@/lib/api-keys/mutations";
+import { authorizeMember } from "@/lib/auth/guards";
 import { findUserByEmail } from "@/lib/auth/queries";
 import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
-import { createApiKey } from "@/lib/orgs/mutations";
 import { findActiveApiKeyByHash } from "@/lib/orgs/queries";
 import { DEMO_USERS } from "./demo-data";
 
@@ -22,7 +23,9 @@ export async function ensureDemoApiKey(orgId: string): Promise<{ key: string; cr
   }
   const member = DEMO_USERS.find((u) => u.role === "member");
   const user = member ? await findUserByEmail(member.email) : null;
-  const { key } = await createApiKey(orgId, { name: "Demo key (README example)", role: "member", createdById: user?.id ?? null });
+  if (!user) throw new Error(`the demo member ${member?.email} is missing; seed the demo users first`);
+  const access = await authorizeMember(user.id, orgId, "member");
+  const { key } = await createKey(access, { name: "Demo key (README example)", role: "member", scope: "personal" });
   mkdirSync(".data", { recursive: true });
   writeFileSync(DEMO_API_KEY_FILE, `${key}\n`, { mode: 0o600 });
   return { key, created: true };

@@ -1,5 +1,5 @@
 /**
- * Browser: sign up (with the bad inputs first), the signed-in shell, sign out
+ * Browser: sign up (with the bad inputs first; the account's sign-in link comes by e-mail), the signed-in shell, sign out
  * from the user menu, sign in with a password (wrong one first), and an
  * expired session. Screenshots land in tests/artifacts/.
  */
@@ -10,6 +10,7 @@ import { closeRedis } from "@/lib/rate-limit/redis";
 import { launchBrowser, screenshot } from "../support/browser";
 import { E2E_URL } from "../support/e2e-config";
 import { createTestUser, uniqueEmail } from "../support/factories";
+import { linkIn, waitForMail } from "../support/maildev";
 
 let browser: Browser;
 let page: Page;
@@ -51,28 +52,43 @@ describe("sign up, sign out, sign in", () => {
     await screenshot(page, "sign-up-errors");
   });
 
-  it("creates the account and opens the new personal organisation", async () => {
+  it("creates the account, e-mails a sign-in link, and the link opens the new personal organisation", async () => {
+    const since = new Date();
     await page.goto(`${E2E_URL}/sign-up`);
     await fillSignUp(page, { name: "Grace Hopper", email, password });
+    await page.waitForURL(/\/check-email\?.*for=sign-up/);
+    const mail = await waitForMail(email, since, 20_000, /sign-in link/);
+    await page.goto(linkIn(mail, `${E2E_URL}/api/auth/callback/nodemailer?`));
     await page.waitForURL(/\/app\?welcome=1$/);
     await page.getByRole("heading", { level: 1, name: "Grace Hopper's organisation" }).waitFor();
     await page.getByText("Welcome to Ketwise").waitFor();
     await screenshot(page, "dashboard-after-sign-up");
   });
 
-  it("signs out from the user menu", async () => {
+  it("signs out from the user menu, and a copy of the session cookie stops working", async () => {
+    const copied = (await page.context().cookies()).filter((c) => c.name.startsWith("authjs.session-token"));
+    expect(copied.length).toBeGreaterThan(0);
     await page.getByRole("button", { name: /^Account:/ }).click();
-    await page.getByRole("menuitem", { name: "Sign out" }).click();
+    await page.getByRole("menuitem", { name: "Sign out", exact: true }).click();
     await page.waitForURL(/\/sign-in\?signedOut=1$/);
     await page.getByText("You have signed out.").waitFor();
     await page.goto(`${E2E_URL}/app`);
     await page.waitForURL(/\/sign-in\?callbackUrl=%2Fapp$/);
+    const thief = await browser.newContext();
+    await thief.addCookies(copied);
+    const p = await thief.newPage();
+    await p.goto(`${E2E_URL}/app`);
+    await p.waitForURL(/\/sign-in\?/);
+    await thief.close();
   });
 
-  it("refuses a taken e-mail on sign-up", async () => {
+  it("answers a taken e-mail like a new one, and tells the owner by e-mail", async () => {
+    const since = new Date();
     await page.goto(`${E2E_URL}/sign-up`);
     await fillSignUp(page, { name: "Someone Else", email: email.toUpperCase(), password: "another fine password" });
-    await page.getByText("An account with this e-mail already exists. Sign in instead.").first().waitFor();
+    await page.waitForURL(/\/check-email\?.*for=sign-up/);
+    await page.getByText("if the address already has an account, it tells you how to sign in").waitFor();
+    await waitForMail(email, since, 20_000, /already have a Ketwise account/);
   });
 
   it("gives one generic message for a wrong password and for an unknown e-mail", async () => {
@@ -99,6 +115,23 @@ describe("sign up, sign out, sign in", () => {
     await page.waitForURL(/\/app$/);
     await page.getByRole("heading", { level: 1, name: "Grace Hopper's organisation" }).waitFor();
     await page.getByText("You are Owner here").waitFor();
+  });
+
+  it("sign out everywhere ends the sessions of other browsers too", async () => {
+    const other = await browser.newContext();
+    const p = await other.newPage();
+    await p.goto(`${E2E_URL}/sign-in`);
+    await p.getByLabel("E-mail").fill(email);
+    await p.getByLabel("Password").fill(password);
+    await p.getByRole("button", { name: "Sign in" }).click();
+    await p.waitForURL(/\/app$/);
+    await page.getByRole("button", { name: /^Account:/ }).click();
+    await page.getByRole("menuitem", { name: "Sign out everywhere" }).click();
+    await page.waitForURL(/\/sign-in\?signedOut=everywhere$/);
+    await page.getByText("You have signed out on every browser and device.").waitFor();
+    await p.goto(`${E2E_URL}/app`);
+    await p.waitForURL(/\/sign-in\?/);
+    await other.close();
   });
 
   it("sends an expired session back to sign-in with a clear message", async () => {

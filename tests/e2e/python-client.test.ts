@@ -114,6 +114,7 @@ const CASES: Case[] = [
       circuit: { format: "qasm3", source: ANSATZ },
       observable: { format: "pauli", terms: "Z0 Z1 + 0.5 X1" },
       parameters: { a: 0.3, b: -1.1 },
+      gradient: true,
     },
   },
   {

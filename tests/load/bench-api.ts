@@ -13,7 +13,10 @@
  *    runs / (last finishedAt − first startedAt); and the engine alone on the
  *    same requests in this process, so worker ÷ engine shows the worker's
  *    own overhead;
- * 5. POST /api/v1/runs at an offered 50 submissions/s (open loop).
+ * 5. POST /api/v1/runs at an offered 50 submissions/s (open loop);
+ * 6. light requests (GET /api/v1/usage, 10 connections, 20 s) alone and while
+ *    one client loops the heaviest preview the caps allow (./bench-preview.ts).
+ *    `npm run bench:api -- --preview-only` runs this phase alone.
  *
  * The bench organisation is on the Institute plan; the bench server raises
  * the API's rate limits and backlog cap (they would refuse a load test).
@@ -24,9 +27,12 @@ import { closeDb, db } from "@/db";
 import { organizations, runs, users } from "@/db/schema";
 import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { estimate } from "@/lib/quantum";
-import { createApiKey, createOrganization } from "@/lib/orgs/mutations";
+import { createKey } from "@/lib/api-keys/mutations";
+import { authorizeMember } from "@/lib/auth/guards";
+import { createOrganization } from "@/lib/orgs/mutations";
 import { smallRequest } from "../integration/runs/support/requests";
 import { startServer, startWorker, type Proc } from "./bench-processes";
+import { previewIsolationPhase } from "./bench-preview";
 import { median, percentile, table } from "./bench-stats";
 
 const PORT = Number(process.env.BENCH_PORT ?? 3310);
@@ -56,7 +62,8 @@ async function setupOrg(): Promise<{ orgId: string; key: string }> {
     ownerUserId: userId,
   });
   await db.update(organizations).set({ plan: "institute" }).where(eq(organizations.id, orgId));
-  const { key } = await createApiKey(orgId, { name: "bench", role: "member", createdById: userId });
+  const access = await authorizeMember(userId, orgId, "owner");
+  const { key } = await createKey(access, { name: "bench", role: "member", scope: "personal" });
   return { orgId, key };
 }
 
@@ -209,9 +216,39 @@ async function throughputPhase(orgId: string, key: string, processes: number): P
   return THROUGHPUT_RUNS / seconds;
 }
 
+async function previewOnly(key: string, procs: Proc[]): Promise<void> {
+  log(`starting next start on ${PORT}`);
+  procs.push(await startServer(PORT, childEnv));
+  const p = await previewPhase(key);
+  console.log("\n" + table(p));
+}
+
+async function previewPhase(key: string): Promise<[string, string, string][]> {
+  log("light requests alone, then while one client loops the heaviest allowed preview (20 s each)");
+  const r = await previewIsolationPhase(BASE, key);
+  log(`  alone p95 ${r.baseline.p95} ms; with heavy previews p95 ${r.loaded.p95} ms; heavy: ${r.heavy.count} (${r.heavy.statuses}), median ${Math.round(r.heavy.medianMs)} ms`);
+  return [
+    ["GET /api/v1/usage, 10 connections, alone: p95", `${r.baseline.p95} ms (${r.baseline.requests} requests, ${r.baseline.errors} errors)`, "—"],
+    ["… while one client loops the heaviest allowed preview: p95", `${r.loaded.p95} ms (${r.loaded.requests} requests, ${r.loaded.errors} errors)`, "< 100 ms"],
+    ["… ratio loaded : alone (p95)", (r.loaded.p95 / r.baseline.p95).toFixed(2), "—"],
+    [`heaviest allowed preview (${(r.bodyBytes / 1024).toFixed(0)} KiB body): answers, median`, `${r.heavy.statuses}; ${Math.round(r.heavy.medianMs)} ms`, "—"],
+  ];
+}
+
 async function main(): Promise<void> {
   const { orgId, key } = await setupOrg();
   const procs: Proc[] = [];
+  if (process.argv.includes("--preview-only")) {
+    try {
+      await previewOnly(key, procs);
+    } finally {
+      await Promise.all(procs.map((p) => p.stop()));
+      await db.delete(organizations).where(eq(organizations.id, orgId)).catch(() => {});
+      await closeQueue();
+      await closeDb();
+    }
+    return;
+  }
   try {
     log(`starting next start on ${PORT} and one worker`);
     procs.push(await startServer(PORT, childEnv));
@@ -253,6 +290,8 @@ async function main(): Promise<void> {
     );
     const engineOnly = await engineOnlyRate();
     log(`  engine alone on the same requests: ${engineOnly.toFixed(1)} runs/s`);
+    await drain(orgId);
+    const preview = await previewPhase(key);
 
     console.log(
       "\n" +
@@ -296,6 +335,7 @@ async function main(): Promise<void> {
             (one / engineOnly).toFixed(2),
             "≥ 0.5",
           ],
+          ...preview,
         ]),
     );
   } finally {

@@ -11,10 +11,13 @@
 import { encode } from "next-auth/jwt";
 import { db } from "@/db";
 import { and, asc, eq } from "drizzle-orm";
-import { apiKeys, memberships, users } from "@/db/schema";
+import { memberships, users } from "@/db/schema";
 import { hashPassword } from "@/lib/auth/password";
 import { startServerSession } from "@/lib/auth/server-sessions";
-import { createApiKey, createOrganization, upsertMembership } from "@/lib/orgs/mutations";
+import { createKey } from "@/lib/api-keys/mutations";
+import { KEY_ROLES } from "@/lib/api-keys/schemas";
+import { authorizeMember } from "@/lib/auth/guards";
+import { createOrganization, upsertMembership } from "@/lib/orgs/mutations";
 import type { Role } from "@/lib/orgs/roles";
 
 export const TEST_PASSWORD = "correct horse battery";
@@ -53,9 +56,10 @@ export async function addMember(orgId: string, userId: string, role: Role): Prom
  */
 export async function createTestApiKey(orgId: string, role: Role, createdById?: string, scope: "personal" | "organization" = "personal") {
   const creator = createdById ?? (await firstOwner(orgId));
-  const created = await createApiKey(orgId, { name: `test ${role} key`, role, createdById: creator });
-  if (scope === "organization") await db.update(apiKeys).set({ scope }).where(eq(apiKeys.id, created.id));
-  return created;
+  // Through the same module as the API-keys page: the key's role is at most its creator's.
+  const keyRole = KEY_ROLES.find((r) => r === role);
+  if (!keyRole) throw new Error(`an API key cannot have the ${role} role`);
+  return createKey(await authorizeMember(creator, orgId), { name: `test ${role} key`, role: keyRole, scope });
 }
 
 async function firstOwner(orgId: string): Promise<string> {

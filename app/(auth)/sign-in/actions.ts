@@ -7,6 +7,7 @@ import { z } from "zod";
 import { formAction } from "@/lib/api/action";
 import { signIn } from "@/lib/auth";
 import { RateLimitedSignIn, WRONG_CREDENTIALS_MESSAGE } from "@/lib/auth/errors";
+import { setDeviceCookie } from "@/lib/auth/device-cookie";
 import { safeCallbackPath } from "@/lib/auth/redirects";
 import { magicLinkSchema, signInSchema } from "@/lib/auth/schemas";
 import { clientIp, consumeMagicLink } from "@/lib/rate-limit";
@@ -22,6 +23,8 @@ export const signInWithPasswordAction = formAction(signInSchema.extend(callback)
     if (error instanceof AuthError) return { status: "error", message: WRONG_CREDENTIALS_MESSAGE, code: 401 };
     throw error;
   }
+  // This browser now counts as the account's own: other sources' failures never slow it down.
+  await setDeviceCookie(input.email);
   redirect(safeCallbackPath(input.callbackUrl));
 });
 

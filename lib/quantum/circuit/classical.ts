@@ -33,6 +33,16 @@ export function compileTimeInteger(e: Expr, ctx: ExprContext, what: string): num
   return v;
 }
 
+/**
+ * A register size: any whole number, however large (1e30 is whole), so the register
+ * check can say "too many qubits" rather than "not an integer".
+ */
+export function compileTimeSize(e: Expr, ctx: ExprContext, what: string): number {
+  const v = compileTimeValue(e, ctx, what);
+  if (!Number.isInteger(v)) throw semanticError(`${what} must be an integer, got ${v}`, e.pos);
+  return v;
+}
+
 /** The value of `const type name = value;`, checked against its type. */
 export function constValue(
   type: ClassicalType,

@@ -9,7 +9,13 @@
  */
 import type { Expr, GateCallStmt, Operand, Pos, ProgramAst, Stmt } from "./ast";
 import { circuitError, plural, semanticError, syntaxError, unsupported3 } from "./circuit-errors";
-import { compileTimeInteger, constValue, LoopBudget, loopValues } from "./classical";
+import {
+  compileTimeInteger,
+  compileTimeSize,
+  constValue,
+  LoopBudget,
+  loopValues,
+} from "./classical";
 import {
   compileExpr,
   constantOf,
@@ -131,7 +137,17 @@ class ProgramCompiler {
         const size =
           s.size === null
             ? null
-            : compileTimeInteger(s.size, this.topCtx, `the size of register '${s.name}'`);
+            : compileTimeSize(s.size, this.topCtx, `the size of register '${s.name}'`);
+        if (this.format === "qasm2" && s.size !== null && s.size.kind !== "number") {
+          // OpenQASM 2.0 sizes are integer literals; a huge one is still "too many" first
+          const limit = s.quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
+          if (size === null || size <= limit) {
+            throw syntaxError(
+              `the size of register '${s.name}' must be an integer literal in OpenQASM 2.0${size !== null && size >= 1 ? ` (write ${size})` : ""}`,
+              s.size.pos,
+            );
+          }
+        }
         return this.regs.declare(s.name, s.quantum, size, s.pos, s.size?.pos ?? null);
       }
       case "input":

@@ -125,14 +125,16 @@ class QasmParser extends ExpressionParser {
     const kw = this.OR([{ ALT: () => this.CONSUME(T.Qreg) }, { ALT: () => this.CONSUME(T.Creg) }]);
     const name = this.CONSUME(T.Identifier);
     this.CONSUME(T.LBracket);
-    const size = this.CONSUME(T.Integer);
+    // an expression, so that `qreg q[10^30]` can be answered with its real problem (too
+    // many qubits); the compiler accepts only integer literals in OpenQASM 2.0
+    const size = this.SUBRULE(this.expr);
     this.CONSUME(T.RBracket);
     this.CONSUME(T.Semicolon);
     return {
       kind: "register",
       quantum: kw.image === "qreg",
       name: name.image,
-      size: this.numberLiteral(size),
+      size,
       pos: posOf(name),
       keyword: kw.image,
     };

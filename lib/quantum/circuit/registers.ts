@@ -4,6 +4,7 @@
  * first (so `qreg a[2]; qreg b[1];` gives a[0]=0, a[1]=1, b[0]=2); the same for bits.
  */
 import type { Pos } from "./ast";
+import { MAX_DENSITY_MATRIX_QUBITS, MAX_STATEVECTOR_QUBITS } from "../estimate/limits";
 
 /** An operand with its index evaluated: `q` (index null) or `q[3]`. */
 export interface RegisterRef {
@@ -42,6 +43,16 @@ export class RegisterTable {
     return this.regs.has(name);
   }
 
+  /** e.g. qreg q[1000000000000000000000000000000]: far too many, not "fewer than one". */
+  private tooMany(name: string, quantum: boolean, size: number, pos: Pos): never {
+    const limit = quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
+    const ceiling = quantum
+      ? ` (simulation handles at most ${MAX_STATEVECTOR_QUBITS} qubits with the statevector method, ${MAX_DENSITY_MATRIX_QUBITS} with the density matrix)`
+      : "";
+    const message = `register '${name}' declares ${size.toLocaleString("en-US")} ${quantum ? "qubits" : "classical bits"}: too many; a circuit may declare at most ${limit}${ceiling}`;
+    throw circuitError("too_large", message, pos);
+  }
+
   declare(
     name: string,
     quantum: boolean,
@@ -49,29 +60,24 @@ export class RegisterTable {
     pos: Pos,
     sizePos: Pos | null,
   ): void {
-    const bound = quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
-    if (size !== null && size > bound) {
-      const what = quantum ? "qubits" : "classical bits";
-      throw circuitError(
-        "too_large",
-        `register '${name}' declares ${size} ${what}; at most ${bound} are accepted`,
-        sizePos ?? pos,
-      );
+    if (size !== null && size > (quantum ? LIMITS.maxQubits : LIMITS.maxClbits)) {
+      this.tooMany(name, quantum, size, sizePos ?? pos);
     }
     if (this.regs.has(name)) {
       throw semanticError(`register '${name}' is already declared`, pos);
     }
     const n = size ?? 1;
-    if (n < 1 || !Number.isSafeInteger(n)) {
+    if (!(n >= 1)) {
       throw semanticError(
         `register '${name}' must have at least 1 ${quantum ? "qubit" : "bit"}`,
         sizePos ?? pos,
       );
     }
-    const total = (quantum ? this.numQubits : this.numClbits) + n;
     const limit = quantum ? LIMITS.maxQubits : LIMITS.maxClbits;
+    const what = quantum ? "qubits" : "classical bits";
+    if (!Number.isSafeInteger(n)) this.tooMany(name, quantum, n, sizePos ?? pos);
+    const total = (quantum ? this.numQubits : this.numClbits) + n;
     if (total > limit) {
-      const what = quantum ? "qubits" : "classical bits";
       throw circuitError(
         "too_large",
         `the circuit declares ${total} ${what}; at most ${limit} are accepted`,

@@ -1,28 +1,31 @@
 /**
- * `previewRequest(request)` — the cheap, synchronous preview a request handler may
- * compute (POST /api/v1/runs/preview): validation, qubit count, gate counts and depth, the
- * measurement settings and a shot plan. No state is simulated: exact variances would
- * need the state, so the plan uses the worst-case bounds — Σ_{i∈g}|c_i| per Pauli
- * setting, the Gershgorin row-sum bound for a matrix — and says so. The same errors
- * as `estimate` are thrown for the same bad input.
+ * `previewRequest(request, { workBudget })` — the synchronous preview computed at
+ * submission (POST /api/v1/runs, POST /api/v1/runs/preview): validation, qubit count, gate
+ * counts and depth, the measurement settings and the shot plan. For `targetPrecision`
+ * the plan is state-aware when simulating every point fits `workBudget` amplitude
+ * updates (preview-plan.ts: then the planned shots are exactly what the run draws), and
+ * otherwise the worst-case bound — Σ_{i∈g}|c_i| per Pauli setting, the Gershgorin
+ * row-sum bound for a matrix; `varianceSource` says which. A precision no plan reaches
+ * within MAX_SHOTS is refused ("infeasible"). The same errors as `estimate` are thrown
+ * for the same bad input. Callers run it off the request thread (it may simulate).
  */
 import { circuitStats, parseProgram } from "../circuit";
 import { validateNoiseModel } from "../noise/validate";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
-import { allocateShots, planShots } from "../planning/shot-plan";
+import { allocateShots } from "../planning/shot-plan";
 import { gershgorinBound } from "../sampling/sample-observable";
 import type { PreviewResult } from "../schemas";
 import { assertNoMidCircuitMeasurement } from "../statevector/simulate";
 import { EngineError } from "../errors";
 import { checkQubitLimit } from "./estimate";
-import { MAX_SHOTS } from "./limits";
+import { planPreviewShots, type PreviewOptions } from "./preview-plan";
 import { parseObservableForCircuit } from "./prepare-observable";
 import { assertDifferentiable, plannedShiftedCircuits } from "../gradient";
 import { compiledOf } from "../circuit/program";
 import { parameterPoints } from "./sweep-grid";
 import { validateRequest } from "./validate-request";
 
-export function previewRequest(request: unknown): PreviewResult {
+export function previewRequest(request: unknown, options: PreviewOptions = {}): PreviewResult {
   const req = validateRequest(request);
   const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
@@ -36,23 +39,44 @@ export function previewRequest(request: unknown): PreviewResult {
   const stats = circuitStats(circuit);
   const obs = parseObservableForCircuit(req.raw.observable, n);
   const groups =
-    obs.kind === "pauli" ? obs.settings.map((g) => ({ bases: g.bases, terms: g.terms })) : [{ bases: "eigenbasis", terms: [] as number[] }];
+    obs.kind === "pauli"
+      ? obs.settings.map((g) => ({ bases: g.bases, terms: g.terms }))
+      : [{ bases: "eigenbasis", terms: [] as number[] }];
   const bounds =
     obs.kind === "pauli"
-      ? obs.settings.map((g) => g.terms.reduce((a, i) => a + Math.abs(obs.sum.terms[i].coefficient), 0))
+      ? obs.settings.map((g) =>
+          g.terms.reduce((a, i) => a + Math.abs(obs.sum.terms[i].coefficient), 0),
+        )
       : [gershgorinBound(obs.matrix)];
   const notes: string[] = [];
   let shotPlan: PreviewResult["shotPlan"] = null;
   let shots = req.shots;
   let perSetting: number[] | null = null;
+  let varianceSource: PreviewResult["varianceSource"] = "worst_case";
+  let totalShots = shots * grid.points.length;
+  let planWork: PreviewResult["planWork"] = null;
   if (req.targetPrecision !== null) {
-    shotPlan = planShots({ targetPrecision: req.targetPrecision, stdDevBounds: bounds, stdDevs: null });
-    shots = shotPlan.worstCase.totalShots;
-    perSetting = shotPlan.worstCase.perSetting;
-    notes.push(
-      "The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016); the run computes the state's exact variances and usually needs fewer shots.",
+    const circuits = (k: number) => (k === 0 ? circuit : program.bind(grid.points[k]));
+    const planned = planPreviewShots(
+      { ...req, targetPrecision: req.targetPrecision },
+      circuits,
+      grid.points.length,
+      obs,
+      bounds,
+      stats.totalGates,
+      options,
     );
-    if (shots > MAX_SHOTS) notes.push(`The worst-case plan exceeds the limit of ${MAX_SHOTS} shots; the state-aware plan of the run may still fit.`);
+    shotPlan = planned.plan;
+    varianceSource = planned.source;
+    planWork = planned.work;
+    shots = Math.max(...planned.pointShots);
+    totalShots = planned.pointShots.reduce((a, b) => a + b, 0);
+    perSetting = (planned.plan.stateAware ?? planned.plan.worstCase).perSetting;
+    notes.push(
+      planned.source === "state_aware"
+        ? "The shot plan uses the state's exact variances ((Σ_g √Var_g)²/ε², McClean et al. 2016): these are the shots the run will draw."
+        : `The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016): simulating the state for an exact plan would take about ${planned.work.estimated.toExponential(1)} amplitude updates, over the preview's budget of ${planned.work.budget.toExponential(1)}. The run plans from the state's exact variances and usually draws fewer shots; quota is reserved for the bound and billed for the shots drawn.`,
+    );
   } else if (shots > 0) {
     if (shots < groups.length) {
       const message = `at least one shot per measurement setting is needed: ${groups.length} settings need shots ≥ ${groups.length}`;
@@ -60,18 +84,27 @@ export function previewRequest(request: unknown): PreviewResult {
     }
     perSetting = allocateShots(shots, req.split === "even" ? bounds.map(() => 1) : bounds);
     if (req.split === "optimal" && groups.length > 1) {
-      notes.push("The per-setting split shown uses worst-case bounds; the run splits ∝ √Var_g from the state's exact variances.");
+      notes.push(
+        "The per-setting split shown uses worst-case bounds; the run splits ∝ √Var_g from the state's exact variances.",
+      );
     }
   }
-  if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0) notes.push("The observable is a multiple of the identity: no measurement is needed.");
+  if (obs.kind === "pauli" && obs.sum.terms.length === 1 && groups.length === 0)
+    notes.push("The observable is a multiple of the identity: no measurement is needed.");
   let gradient: PreviewResult["gradient"] = null;
   if (req.gradient) {
     const sampled = shots > 0 || req.targetPrecision !== null;
     const shiftedCircuits = sampled ? plannedShiftedCircuits(program, grid.points[0]) : 0;
-    gradient = { inputs: program.inputs.map((i) => i.name), shiftedCircuits, shotsPerPoint: shiftedCircuits * shots };
+    gradient = {
+      inputs: program.inputs.map((i) => i.name),
+      shiftedCircuits,
+      shotsPerPoint: shiftedCircuits * shots,
+    };
     if (sampled && shiftedCircuits > 0) {
       notes.push(
-        `The sampled gradient runs ${shiftedCircuits} parameter-shifted circuit${shiftedCircuits === 1 ? "" : "s"} per point with ${shots.toLocaleString("en-US")} shots each (parameter-shift rules); their shots are counted and billed.`,
+        req.targetPrecision !== null
+          ? `The sampled gradient runs ${shiftedCircuits} parameter-shifted circuit${shiftedCircuits === 1 ? "" : "s"} per point, each planning its own shots for the target from its own state (about ${shots.toLocaleString("en-US")} each are reserved); their shots are counted and billed.`
+          : `The sampled gradient runs ${shiftedCircuits} parameter-shifted circuit${shiftedCircuits === 1 ? "" : "s"} per point with ${shots.toLocaleString("en-US")} shots each (parameter-shift rules); their shots are counted and billed.`,
       );
     }
   }
@@ -83,17 +116,22 @@ export function previewRequest(request: unknown): PreviewResult {
     totalGates: stats.totalGates,
     twoQubitGates: stats.twoQubitGates,
     depth: stats.depth,
-    observable: { format: obs.kind, terms: obs.kind === "pauli" ? obs.sum.terms.length : 0, settings: groups.length },
+    observable: {
+      format: obs.kind,
+      terms: obs.kind === "pauli" ? obs.sum.terms.length : 0,
+      settings: groups.length,
+    },
     groups,
     stateBytes: req.method === "statevector" ? 16 * 2 ** n : 16 * 4 ** n,
     sweepPoints: grid.points.length,
     shots,
     gradient,
-    totalShots: (shots + (gradient?.shotsPerPoint ?? 0)) * grid.points.length,
+    totalShots: totalShots + (gradient?.shotsPerPoint ?? 0) * grid.points.length,
     shotPlan,
     shotsPerSetting: perSetting,
     ...(decomposition ? { pauliDecomposition: decomposition } : {}),
-    varianceSource: "worst_case",
+    varianceSource,
+    planWork,
     notes,
   };
 }
@@ -105,7 +143,10 @@ const BIND_CHECK_BUDGET = 20_000_000;
  * Binds every listed point, so an angle that is not finite at some point (e.g. log of a
  * negative input) is refused at submission with that point's path, not mid-run.
  */
-function bindEveryPoint(program: ReturnType<typeof parseProgram>, points: Record<string, number>[]): void {
+function bindEveryPoint(
+  program: ReturnType<typeof parseProgram>,
+  points: Record<string, number>[],
+): void {
   const slots = Math.max(1, compiledOf(program).slots.length);
   if (slots * points.length > BIND_CHECK_BUDGET) return;
   points.forEach((p, k) => {

@@ -12,13 +12,8 @@
  */
 import { applyUnitaryDMUnchecked } from "../density-matrix/kernels";
 import { createZeroDensity } from "../density-matrix/state";
-import {
-  dampQubit,
-  depolarize,
-  measureNonSelective,
-  noiseAfter1q,
-  resetQubit,
-} from "../noise/channels";
+import { measureNonSelective, resetQubit } from "../noise/channels";
+import { applyOpNoise, NoisePlan } from "../noise/gate-noise";
 import { hasStateNoise } from "../noise/validate";
 import { matrixExpectationOnDensity } from "../observable/matrix-expectation";
 import { pauliExpectationsOnDensity, weightedTotal } from "../observable/pauli-expectation";
@@ -76,23 +71,6 @@ function addSource(
   }
 }
 
-function applyNoise(
-  rho: DensityMatrix,
-  qubits: readonly number[],
-  noise: NoiseModel | undefined,
-): void {
-  const p1 = noise?.depolarizing1q ?? 0;
-  const p2 = noise?.depolarizing2q ?? 0;
-  const gamma = noise?.amplitudeDamping ?? 0;
-  const lambda = noise?.phaseDamping ?? 0;
-  if (qubits.length === 1) {
-    noiseAfter1q(rho, qubits[0], p1, gamma, lambda);
-  } else {
-    depolarize(rho, qubits, p2);
-    for (const q of qubits) dampQubit(rho, q, gamma, lambda);
-  }
-}
-
 function valueOf(rho: DensityMatrix, obs: PreparedObservable): number {
   if (obs.kind === "matrix") return matrixExpectationOnDensity(rho, obs.matrix);
   return weightedTotal(obs.sum, pauliExpectationsOnDensity(rho, obs.sum));
@@ -107,6 +85,8 @@ export function densityGradient(
 ): Float64Array {
   const grad = new Float64Array(tape.numInputs);
   const noisy = hasStateNoise(noise);
+  // The noise of every gate application as the simulator resolves it (per-gate overrides, idle noise).
+  const plan = new NoisePlan(noise, tape.numQubits);
   const control = new RunControl(opts, tape.numInputs * tape.ops.length, "gradient");
   const depends = new Set<number>();
   for (const op of tape.ops) {
@@ -136,8 +116,9 @@ export function densityGradient(
           applyUnitaryDMUnchecked(rho, part.qubits, part.matrix);
         }
         if (noisy) {
-          applyNoise(tau, op.qubits, noise);
-          applyNoise(rho, op.qubits, noise);
+          const after = plan.after(op);
+          applyOpNoise(tau, after);
+          applyOpNoise(rho, after);
         }
       } else if (op.kind === "measure") {
         if (!op.final) {

@@ -34,7 +34,8 @@ export interface TapePart {
 }
 
 export type TapeOp =
-  | { kind: "gate"; qubits: number[]; parts: TapePart[] }
+  /** `name` as written (noise overrides are keyed by it). */
+  | { kind: "gate"; name: string; qubits: number[]; parts: TapePart[] }
   /** `final`: nothing acts on the qubit afterwards (ignored, as by the simulators). */
   | { kind: "measure"; qubit: number; final: boolean }
   | { kind: "reset"; qubit: number };
@@ -82,7 +83,7 @@ export function buildTape(program: ParsedProgram, params: Record<string, number>
           partIndex: i,
         };
       });
-      ops.push({ kind: "gate", qubits: op.qubits, parts });
+      ops.push({ kind: "gate", name: op.name, qubits: op.qubits, parts });
     }
   });
   return {

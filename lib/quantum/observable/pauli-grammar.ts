@@ -35,7 +35,9 @@ class PauliSumGrammar extends EmbeddedActionsParser {
     this.MANY2(() => {
       const ops: IToken[] = [];
       this.AT_LEAST_ONE(() => {
-        ops.push(this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]));
+        ops.push(
+          this.OR2([{ ALT: () => this.CONSUME2(Plus) }, { ALT: () => this.CONSUME2(Minus) }]),
+        );
       });
       const t = this.SUBRULE2(this.term);
       terms.push({ ...t, ...splitSigns(ops) });
@@ -55,21 +57,24 @@ class PauliSumGrammar extends EmbeddedActionsParser {
             this.OPTION2(() => {
               star = this.CONSUME(Star);
             });
-            this.AT_LEAST_ONE2(() => {
-              words.push(this.CONSUME(Word));
-            });
+            this.SUBRULE(this.factors, { ARGS: [words] });
           });
         },
       },
-      {
-        ALT: () => {
-          this.AT_LEAST_ONE3(() => {
-            words.push(this.CONSUME2(Word));
-          });
-        },
-      },
+      { ALT: () => this.SUBRULE2(this.factors, { ARGS: [words] }) },
     ]);
     return { coefficient, star, words, extraSigns: [] };
+  });
+
+  /** word ([“*”] word)* — factors may be joined by "*" as in "0.5*Z0*Z1". */
+  private factors = this.RULE("factors", (words: IToken[]): void => {
+    const first = this.CONSUME(Word);
+    this.ACTION(() => words.push(first));
+    this.MANY(() => {
+      this.OPTION(() => this.CONSUME(Star));
+      const next = this.CONSUME2(Word);
+      this.ACTION(() => words.push(next));
+    });
   });
 }
 

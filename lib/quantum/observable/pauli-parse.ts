@@ -3,12 +3,20 @@
  * `EngineError` ("observable_syntax" for the shape, "observable_invalid" for
  * meaning) with path ["observable","terms"], a line, a column and a specific message.
  */
-import type { IRecognitionException, IToken } from "chevrotain";
+import { tokenMatcher, type IRecognitionException, type IToken } from "chevrotain";
 import { EngineError, type EngineIssue } from "../errors";
 import type { PauliSum, PauliTerm } from "../types";
 import { MAX_PAULI_QUBIT_INDEX } from "./bits";
 import { pauliSumGrammar, type RawTerm } from "./pauli-grammar";
-import { BadWord, ImagNumber, Minus, NonFinite, Star, pauliLexer } from "./pauli-lexer";
+import {
+  BadWord,
+  Coefficient,
+  ImagNumber,
+  Minus,
+  NonFinite,
+  Star,
+  pauliLexer,
+} from "./pauli-lexer";
 import { masksToWord, setLetter, type PauliLetter } from "./pauli-word";
 
 /** Where a (combined) term was first written (its coefficient or word; the sign is not included). */
@@ -50,13 +58,21 @@ interface AnalysedTerm {
 /** Parses Pauli-sum text. Terms with equal words are summed; exact zeros are dropped. */
 export function parsePauliSum(text: string): ParsedPauliSum {
   if (text.trim() === "") {
-    fail("observable_syntax", 'the observable is empty: write at least one term, e.g. "0.5 Z0 Z1 + 0.2 X0"', 1, 1);
+    fail(
+      "observable_syntax",
+      'the observable is empty: write at least one term, e.g. "0.5 Z0 Z1 + 0.2 X0"',
+      1,
+      1,
+    );
   }
   const lexed = pauliLexer.tokenize(text);
   if (lexed.errors.length > 0) {
     const e = lexed.errors[0];
     const ch = text.substr(e.offset, e.length).charAt(0);
-    const hint = ch === "(" || ch === ")" ? " (parentheses are not supported: write each term as a real coefficient times a Pauli word)" : "";
+    const hint =
+      ch === "(" || ch === ")"
+        ? " (parentheses are not supported: write each term as a real coefficient times a Pauli word)"
+        : "";
     fail("observable_syntax", `unexpected character "${ch}"${hint}`, e.line ?? 1, e.column ?? 1);
   }
   pauliSumGrammar.input = lexed.tokens;
@@ -68,15 +84,24 @@ export function parsePauliSum(text: string): ParsedPauliSum {
   const issues: EngineIssue[] = [];
   const analysed = raw.map((t, i) => analyseTerm(t, i, text, issues));
   if (issues.length === 0) checkDenseConsistency(analysed, issues);
-  if (issues.length > 0) throw new EngineError("observable_invalid", issues[0].message, issues.slice(0, MAX_ISSUES));
+  if (issues.length > 0)
+    throw new EngineError("observable_invalid", issues[0].message, issues.slice(0, MAX_ISSUES));
   return combine(analysed);
 }
 
-function fail(code: "observable_syntax" | "observable_invalid", message: string, line: number, column: number): never {
+function fail(
+  code: "observable_syntax" | "observable_invalid",
+  message: string,
+  line: number,
+  column: number,
+): never {
   throw new EngineError(code, message, [{ path: PATH, message, line, column }]);
 }
 
-function describeSyntaxError(err: IRecognitionException, tokens: IToken[]): { message: string; line: number; column: number } {
+function describeSyntaxError(
+  err: IRecognitionException,
+  tokens: IToken[],
+): { message: string; line: number; column: number } {
   const tok = err.token;
   const atEnd = tok.tokenType?.name === "EOF" || Number.isNaN(tok.startOffset);
   const last = tokens[tokens.length - 1];
@@ -84,13 +109,21 @@ function describeSyntaxError(err: IRecognitionException, tokens: IToken[]): { me
   const line = atEnd ? (last?.endLine ?? 1) : (tok.startLine ?? 1);
   const column = atEnd ? (last?.endColumn ?? 0) + 1 : (tok.startColumn ?? 1);
   const found = atEnd ? "the end of the text" : `"${tok.image}"`;
+  // A "*" followed by a number: a second coefficient after a word ("X0 * 2", "0.5*Z0*0.3*Z1").
+  const star = tok.tokenType === Star ? tok : prev?.tokenType === Star ? prev : null;
+  const afterStar = star ? tokens[tokens.indexOf(star) + 1] : undefined;
+  if (star && afterStar && tokenMatcher(afterStar, Coefficient)) {
+    const before = tokens[tokens.indexOf(star) - 1];
+    const message = `unexpected "${star.image} ${afterStar.image}" after "${before?.image}": a term has one coefficient; put the coefficient before the Pauli word, e.g. "0.5 * X0 * Z1"`;
+    return { message, line: star.startLine ?? 1, column: star.startColumn ?? 1 };
+  }
   let message: string;
   if (err.name === "NotAllInputParsedException") {
     message =
       tok.tokenType === Star
-        ? `unexpected "${tok.image}" after "${prev?.image}": put the coefficient before the Pauli word, e.g. "0.5 * X0"`
+        ? `expected a Pauli word after "${tok.image}", found ${afterStar ? `"${afterStar.image}"` : "the end of the text"}`
         : `missing "+" or "-" before "${tok.image}"`;
-  } else if (err.name === "EarlyExitException" && prev?.tokenType === Star) {
+  } else if (prev?.tokenType === Star) {
     message = `expected a Pauli word after "${prev.image}", found ${found}`;
   } else if (prev && (prev.tokenType.name === "Plus" || prev.tokenType === Minus)) {
     message = `expected a term after "${prev.image}", found ${found}`;
@@ -100,9 +133,15 @@ function describeSyntaxError(err: IRecognitionException, tokens: IToken[]): { me
   return { message, line, column };
 }
 
-function termText(t: RawTerm, text: string): { text: string; bare: string; line: number; column: number } {
-  const slice = (from: IToken, to: IToken) => text.slice(from.startOffset, (to.endOffset ?? to.startOffset) + 1).replace(/\s+/g, " ");
-  const toks = [t.innerSign, t.coefficient, t.star, ...t.words].filter((x): x is IToken => x !== undefined);
+function termText(
+  t: RawTerm,
+  text: string,
+): { text: string; bare: string; line: number; column: number } {
+  const slice = (from: IToken, to: IToken) =>
+    text.slice(from.startOffset, (to.endOffset ?? to.startOffset) + 1).replace(/\s+/g, " ");
+  const toks = [t.innerSign, t.coefficient, t.star, ...t.words].filter(
+    (x): x is IToken => x !== undefined,
+  );
   const first = toks[0];
   const lastTok = toks[toks.length - 1];
   const body = slice(first, lastTok);
@@ -129,19 +168,28 @@ function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssu
     // "X0 + -0.5 Z1": a sign may stand directly before a number, nothing more.
     const extra = t.extraSigns[0] ?? t.innerSign;
     if (t.extraSigns.length > 0 || !c || c.tokenType === NonFinite) {
-      issueAt(issues, extra, `two signs in a row before "${bare}"; write one "+" or "-" (a second sign may only stand directly before a number)`);
+      issueAt(
+        issues,
+        extra,
+        `two signs in a row before "${bare}"; write one "+" or "-" (a second sign may only stand directly before a number)`,
+      );
     } else if (t.innerSign.tokenType === Minus) {
       coefficient = -coefficient;
     }
   }
   if (c) {
     if (c.tokenType === ImagNumber) {
-      issueAt(issues, c, `${name} has a complex coefficient ${c.image}; a Pauli sum with non-real coefficients is not an observable`);
+      issueAt(
+        issues,
+        c,
+        `${name} has a complex coefficient ${c.image}; a Pauli sum with non-real coefficients is not an observable`,
+      );
     } else if (c.tokenType === NonFinite) {
       issueAt(issues, c, `${name}: the coefficient "${c.image}" is not a finite real number`);
     } else {
       const v = Number(c.image);
-      if (!Number.isFinite(v)) issueAt(issues, c, `${name}: the coefficient ${c.image} is not a finite number`);
+      if (!Number.isFinite(v))
+        issueAt(issues, c, `${name}: the coefficient ${c.image} is not a finite number`);
       coefficient *= v;
     }
   }
@@ -156,30 +204,59 @@ function analyseTerm(t: RawTerm, index: number, text: string, issues: EngineIssu
     }
     if (/\d/.test(w.image)) {
       if (!/^(?:[XYZI]\d+)+$/.test(w.image)) {
-        issueAt(issues, w, `${name}: the word "${w.image}" mixes dense letters and qubit numbers; write sparse factors ("X0 Z1") or one dense word ("XZ")`);
+        issueAt(
+          issues,
+          w,
+          `${name}: the word "${w.image}" mixes dense letters and qubit numbers; write sparse factors ("X0 Z1") or one dense word ("XZ")`,
+        );
         continue;
       }
       if (dense !== null) {
-        issueAt(issues, w, `${name} mixes a dense word ("${dense}") with sparse factors ("${w.image}")`);
+        issueAt(
+          issues,
+          w,
+          `${name} mixes a dense word ("${dense}") with sparse factors ("${w.image}")`,
+        );
         continue;
       }
       sparseTok = w;
       for (const m of w.image.matchAll(/([XYZI])(\d+)/g)) {
         const qubit = Number(m[2]);
         if (qubit > MAX_PAULI_QUBIT_INDEX) {
-          issueAt(issues, w, `${name}: qubit index ${m[2]} is too large (at most ${MAX_PAULI_QUBIT_INDEX})`);
+          issueAt(
+            issues,
+            w,
+            `${name}: qubit index ${m[2]} is too large (at most ${MAX_PAULI_QUBIT_INDEX})`,
+          );
         } else if (factors.some((f) => f.qubit === qubit)) {
-          issueAt(issues, w, `${name}: qubit ${qubit} appears twice in one Pauli word; write each qubit once per term`);
+          issueAt(
+            issues,
+            w,
+            `${name}: qubit ${qubit} appears twice in one Pauli word; write each qubit once per term`,
+          );
         } else {
-          factors.push({ letter: m[1] as PauliLetter, qubit, line: w.startLine ?? 1, column: (w.startColumn ?? 1) + (m.index ?? 0) });
+          factors.push({
+            letter: m[1] as PauliLetter,
+            qubit,
+            line: w.startLine ?? 1,
+            column: (w.startColumn ?? 1) + (m.index ?? 0),
+          });
         }
       }
     } else if (sparseTok !== null) {
-      issueAt(issues, w, `${name} mixes sparse factors ("${sparseTok.image}") with a dense word ("${w.image}")`);
+      issueAt(
+        issues,
+        w,
+        `${name} mixes sparse factors ("${sparseTok.image}") with a dense word ("${w.image}")`,
+      );
     } else if (dense !== null) {
       issueAt(issues, w, `missing "+" or "-" between "${dense}" and "${w.image}"`);
     } else if (w.image.length > MAX_PAULI_QUBIT_INDEX + 1) {
-      issueAt(issues, w, `${name}: the dense word has ${w.image.length} letters (at most ${MAX_PAULI_QUBIT_INDEX + 1})`);
+      issueAt(
+        issues,
+        w,
+        `${name}: the dense word has ${w.image.length} letters (at most ${MAX_PAULI_QUBIT_INDEX + 1})`,
+      );
     } else {
       dense = w.image;
       denseAt = { line: w.startLine ?? 1, column: w.startColumn ?? 1 };
@@ -245,15 +322,25 @@ function combine(analysed: AnalysedTerm[]): ParsedPauliSum {
     const key = `${masks.x},${masks.z}`;
     const hit = byKey.get(key);
     if (hit) hit.term.coefficient += a.coefficient;
-    else byKey.set(key, { term: { coefficient: a.coefficient, xMask: masks.x, zMask: masks.z, word: "" }, origin: a.origin });
+    else
+      byKey.set(key, {
+        term: { coefficient: a.coefficient, xMask: masks.x, zMask: masks.z, word: "" },
+        origin: a.origin,
+      });
   }
   const kept = [...byKey.values()].filter((e) => e.term.coefficient !== 0);
-  const entries = kept.length > 0 ? kept : [{ term: { coefficient: 0, xMask: 0, zMask: 0, word: "" }, origin: analysed[0].origin }];
+  const entries =
+    kept.length > 0
+      ? kept
+      : [{ term: { coefficient: 0, xMask: 0, zMask: 0, word: "" }, origin: analysed[0].origin }];
   return {
     numQubits,
     denseLength,
     denseAt,
-    terms: entries.map((e) => ({ ...e.term, word: masksToWord(e.term.xMask, e.term.zMask, numQubits) })),
+    terms: entries.map((e) => ({
+      ...e.term,
+      word: masksToWord(e.term.xMask, e.term.zMask, numQubits),
+    })),
     origins: entries.map((e) => e.origin),
   };
 }

@@ -16,8 +16,18 @@ import type { MeasurementSetting } from "../observable/grouping";
 import type { HermitianEigen } from "../observable/hermitian-eigen";
 import type { HermitianMatrix } from "../observable/matrix-observable";
 import { momentsFromLaw, pauliSettingMoments } from "../planning/exact-variance";
-import { posteriorPlan, posteriorWeights, type SettingLoad } from "../planning/posterior-allocation";
-import { allocateShots, planShots, type ShotPlan } from "../planning/shot-plan";
+import {
+  posteriorPlan,
+  posteriorWeights,
+  type SettingLoad,
+} from "../planning/posterior-allocation";
+import {
+  allocateShots,
+  planShots,
+  shotsNeededForLoads,
+  unreachablePrecision,
+  type ShotPlan,
+} from "../planning/shot-plan";
 import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { rotateStateCopy, stateProbabilities } from "./basis-rotation";
 import { rotatedDensityDiagonal } from "./density-diagonal";
@@ -27,9 +37,17 @@ import { convolveReadout, mitigationFactors, type Readout } from "./readout";
 import { StreamFactory } from "./rng";
 import { eigenbasisSettingModel, pauliSettingModel, type SettingModel } from "./setting-model";
 import { estimateLinearCombination } from "./interval";
-import { combineSettings, convergenceSeries, planCheckpoints, type ConvergencePoint, type Estimate, type SettingRanges } from "./statistics";
+import {
+  combineSettings,
+  convergenceSeries,
+  planCheckpoints,
+  type ConvergencePoint,
+  type Estimate,
+  type SettingRanges,
+} from "./statistics";
 
-export type PreparedState = { kind: "statevector"; state: StateVector } | { kind: "density_matrix"; rho: DensityMatrix };
+export type PreparedState =
+  { kind: "statevector"; state: StateVector } | { kind: "density_matrix"; rho: DensityMatrix };
 
 export type PreparedObservable =
   | { kind: "pauli"; sum: PauliSum; settings: MeasurementSetting[] }
@@ -81,7 +99,7 @@ export interface SamplingOutcome {
   plan: ShotPlan | null;
 }
 
-interface Spec {
+export interface Spec {
   bases: string;
   termIndices: number[];
   model: SettingModel;
@@ -98,13 +116,21 @@ function lawOf(prepared: PreparedState, bases: string, readout: Readout): Float6
   return p;
 }
 
-function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: SamplingOptions): Spec[] {
+/** One spec per measurement setting: its outcome law (lazy), value model and worst-case bound. */
+export function buildSpecs(
+  prepared: PreparedState,
+  obs: PreparedObservable,
+  opts: Pick<SamplingOptions, "readout" | "mitigate">,
+): Spec[] {
   const mitigation = opts.mitigate ? mitigationFactors(opts.readout) : null;
   if (obs.kind === "matrix") {
     const model = eigenbasisSettingModel(obs.eigen.values, mitigation);
     const bound = gershgorinBound(obs.matrix);
     const law = (): Float64Array => {
-      const p = prepared.kind === "statevector" ? eigenbasisLawOfState(prepared.state, obs.eigen) : eigenbasisLawOfDensity(prepared.rho, obs.eigen);
+      const p =
+        prepared.kind === "statevector"
+          ? eigenbasisLawOfState(prepared.state, obs.eigen)
+          : eigenbasisLawOfDensity(prepared.rho, obs.eigen);
       const n = Math.round(Math.log2(p.length));
       convolveReadout(p, opts.readout, (b) => n - 1 - b);
       return p;
@@ -120,6 +146,32 @@ function buildSpecs(prepared: PreparedState, obs: PreparedObservable, opts: Samp
   }));
 }
 
+/** Exact single-shot variance and pseudo-shot load of a setting from its outcome law (readout included). */
+export function settingLoad(spec: Spec, p: Float64Array, obs: PreparedObservable): SettingLoad {
+  const m =
+    obs.kind === "pauli"
+      ? pauliSettingMoments(p, obs.sum, spec.termIndices, spec.model)
+      : momentsFromLaw(p, (b) => spec.model.value(b));
+  const [lo, hi] = spec.model.range;
+  return { variance: m.variance, pseudo: (lo - m.mean) ** 2 + (hi - m.mean) ** 2 };
+}
+
+/**
+ * The plan for a target standard error: worst case from the bounds, state-aware for the
+ * reported (posterior) standard error from the loads; refused ("infeasible") beyond
+ * MAX_SHOTS. The preview (estimate/preview-plan.ts) plans with this same function.
+ */
+export function targetPlan(epsilon: number, specs: Spec[], loads: SettingLoad[]): ShotPlan {
+  const plan = {
+    ...planShots({ targetPrecision: epsilon, stdDevBounds: specs.map((s) => s.stdDevBound) }),
+    stateAware: posteriorPlan(epsilon, loads),
+  };
+  const total = plan.stateAware.totalShots;
+  if (!(total <= MAX_SHOTS))
+    throw unreachablePrecision(epsilon, shotsNeededForLoads(loads, epsilon, total), "state");
+  return plan;
+}
+
 /** ‖H‖ ≤ max_i Σ_j |H_ij| (Gershgorin), a bound on the single-shot standard deviation. */
 export function gershgorinBound(h: HermitianMatrix): number {
   let best = 0;
@@ -132,13 +184,22 @@ export function gershgorinBound(h: HermitianMatrix): number {
 }
 
 function shotsError(message: string, field: "shots" | "targetPrecision"): never {
-  throw new EngineError(field === "shots" ? "invalid_request" : "too_large", message, [{ path: [field], message }]);
+  throw new EngineError(field === "shots" ? "invalid_request" : "too_large", message, [
+    { path: [field], message },
+  ]);
 }
 
-export async function sampleObservable(prepared: PreparedState, obs: PreparedObservable, opts: SamplingOptions): Promise<SamplingOutcome> {
+export async function sampleObservable(
+  prepared: PreparedState,
+  obs: PreparedObservable,
+  opts: SamplingOptions,
+): Promise<SamplingOutcome> {
   const specs = buildSpecs(prepared, obs, opts);
   const g = specs.length;
-  const offset = obs.kind === "pauli" ? obs.sum.terms.reduce((a, t) => a + (t.xMask === 0 && t.zMask === 0 ? t.coefficient : 0), 0) : 0;
+  const offset =
+    obs.kind === "pauli"
+      ? obs.sum.terms.reduce((a, t) => a + (t.xMask === 0 && t.zMask === 0 ? t.coefficient : 0), 0)
+      : 0;
   const dim = obs.kind === "pauli" ? 2 ** obs.sum.numQubits : obs.eigen.dim;
   const cache = dim * 8 * g <= LAW_CACHE_BYTES ? new Map<number, Float64Array>() : null;
   const needVariance = opts.targetPrecision !== null || opts.split === "optimal";
@@ -152,10 +213,9 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
       const spec = specs[k];
       const p = spec.law();
       cache?.set(k, p);
-      const m = obs.kind === "pauli" ? pauliSettingMoments(p, obs.sum, spec.termIndices, spec.model) : momentsFromLaw(p, (b) => spec.model.value(b));
-      variances.push(m.variance);
-      const [lo, hi] = spec.model.range;
-      loads.push({ variance: m.variance, pseudo: (lo - m.mean) ** 2 + (hi - m.mean) ** 2 });
+      const load = settingLoad(spec, p, obs);
+      variances.push(load.variance);
+      loads.push(load);
       await step((0.2 * (k + 1)) / g);
     }
   }
@@ -163,16 +223,19 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
   let perSetting: number[];
   if (opts.targetPrecision !== null) {
     // worst case as before; state-aware for the reported (posterior) standard error
-    plan = { ...planShots({ targetPrecision: opts.targetPrecision, stdDevBounds: specs.map((s) => s.stdDevBound) }), stateAware: posteriorPlan(opts.targetPrecision, loads) };
+    plan = targetPlan(opts.targetPrecision, specs, loads);
     perSetting = plan.stateAware!.perSetting;
-    const total = plan.stateAware!.totalShots;
-    if (total > MAX_SHOTS) {
-      shotsError(`reaching a standard error of ${opts.targetPrecision} needs ${total} shots, more than the limit of ${MAX_SHOTS}; loosen targetPrecision`, "targetPrecision");
-    }
   } else {
     const total = opts.shots ?? 0;
-    if (total < g) shotsError(`at least one shot per measurement setting is needed: ${g} settings need shots ≥ ${g}`, "shots");
-    perSetting = allocateShots(total, variances && opts.split === "optimal" ? posteriorWeights(total, loads) : specs.map(() => 1));
+    if (total < g)
+      shotsError(
+        `at least one shot per measurement setting is needed: ${g} settings need shots ≥ ${g}`,
+        "shots",
+      );
+    perSetting = allocateShots(
+      total,
+      variances && opts.split === "optimal" ? posteriorWeights(total, loads) : specs.map(() => 1),
+    );
   }
   const totalShots = perSetting.reduce((a, b) => a + b, 0);
   const prefixes = planCheckpoints(perSetting);
@@ -196,12 +259,20 @@ export async function sampleObservable(prepared: PreparedState, obs: PreparedObs
     );
     done += perSetting[k];
   }
-  const ranges: SettingRanges[] = specs.map((s) => ({ raw: s.model.range, mitigated: s.model.mitigatedRange }));
+  const ranges: SettingRanges[] = specs.map((s) => ({
+    raw: s.model.range,
+    mitigated: s.model.mitigatedRange,
+  }));
   const physical = physicalRange(obs, offset);
   const raw = combineSettings(offset, samples, ranges, false, physical);
   const mitigated = opts.mitigate ? combineSettings(offset, samples, ranges, true, physical) : null;
   return {
-    sampled: { ...raw, shots: totalShots, settings: g, convergence: convergenceSeries(offset, samples, ranges, physical) },
+    sampled: {
+      ...raw,
+      shots: totalShots,
+      settings: g,
+      convergence: convergenceSeries(offset, samples, ranges, physical),
+    },
     mitigated,
     terms: obs.kind === "pauli" ? termSamples(obs.sum, specs, samples, opts.mitigate) : [],
     groups: specs.map((spec, k) => groupSample(spec, samples[k], dim, variances?.[k], obs)),
@@ -215,25 +286,44 @@ function physicalRange(obs: PreparedObservable, offset: number): [number, number
     const v = obs.eigen.values;
     return [v[0], v[v.length - 1]];
   }
-  const spread = obs.sum.terms.reduce((a, t) => a + (t.xMask === 0 && t.zMask === 0 ? 0 : Math.abs(t.coefficient)), 0);
+  const spread = obs.sum.terms.reduce(
+    (a, t) => a + (t.xMask === 0 && t.zMask === 0 ? 0 : Math.abs(t.coefficient)),
+    0,
+  );
   return [offset - spread, offset + spread];
 }
 
 const PAULI_RANGE: [number, number] = [-1, 1];
 
-function termSamples(sum: PauliSum, specs: Spec[], samples: SettingSample[], mitigate: boolean): TermSample[] {
+function termSamples(
+  sum: PauliSum,
+  specs: Spec[],
+  samples: SettingSample[],
+  mitigate: boolean,
+): TermSample[] {
   const exactOne: [number, number] = [1, 1];
-  const identity: TermSample = { sampledMean: 1, stdErr: 0, ci95: exactOne, ...(mitigate ? { mitigatedMean: 1, mitigatedStdErr: 0, mitigatedCi95: exactOne } : {}) };
+  const identity: TermSample = {
+    sampledMean: 1,
+    stdErr: 0,
+    ci95: exactOne,
+    ...(mitigate ? { mitigatedMean: 1, mitigatedStdErr: 0, mitigatedCi95: exactOne } : {}),
+  };
   const out: TermSample[] = sum.terms.map(() => identity);
   specs.forEach((spec, k) => {
     const s = samples[k];
     spec.termIndices.forEach((i, j) => {
       // ±1 outcomes (Σv² = N): the term's own Dirichlet posterior (interval.ts)
-      const e = estimateLinearCombination([{ shots: s.shots, sum: s.termSums[j], sumSq: s.shots, lo: -1, hi: 1 }], { range: PAULI_RANGE });
+      const e = estimateLinearCombination(
+        [{ shots: s.shots, sum: s.termSums[j], sumSq: s.shots, lo: -1, hi: 1 }],
+        { range: PAULI_RANGE },
+      );
       const entry: TermSample = { sampledMean: e.mean, stdErr: e.stdErr, ci95: e.ci95 };
       if (mitigate && s.termMitSums && s.termMitSumSq) {
         const [lo, hi] = spec.model.termMitigatedRange[j];
-        const m = estimateLinearCombination([{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo, hi }], { range: PAULI_RANGE });
+        const m = estimateLinearCombination(
+          [{ shots: s.shots, sum: s.termMitSums[j], sumSq: s.termMitSumSq[j], lo, hi }],
+          { range: PAULI_RANGE },
+        );
         entry.mitigatedMean = m.mean;
         entry.mitigatedStdErr = m.stdErr;
         entry.mitigatedCi95 = m.ci95;
@@ -244,15 +334,29 @@ function termSamples(sum: PauliSum, specs: Spec[], samples: SettingSample[], mit
   return out;
 }
 
-function groupSample(spec: Spec, s: SettingSample, dim: number, variance: number | undefined, obs: PreparedObservable): GroupSample {
+function groupSample(
+  spec: Spec,
+  s: SettingSample,
+  dim: number,
+  variance: number | undefined,
+  obs: PreparedObservable,
+): GroupSample {
   const n = Math.round(Math.log2(dim));
-  const group: GroupSample = { bases: spec.bases, terms: spec.termIndices, shots: s.shots, distinctOutcomes: s.outcomes.length };
+  const group: GroupSample = {
+    bases: spec.bases,
+    terms: spec.termIndices,
+    shots: s.shots,
+    distinctOutcomes: s.outcomes.length,
+  };
   if (s.outcomes.length <= MAX_COUNT_KEYS) {
     const counts: Record<string, number> = {};
     // Pauli settings: the measured bitstring, qubit 0 first. Eigenbasis: outcome k (the k-th
     // eigenvalue, ascending) written as n binary digits, most significant first — the same
     // reading as the matrix's row index (qubit 0 the leftmost digit).
-    const key = obs.kind === "matrix" ? (k: number) => k.toString(2).padStart(n, "0") : (k: number) => indexToBitstring(k, n);
+    const key =
+      obs.kind === "matrix"
+        ? (k: number) => k.toString(2).padStart(n, "0")
+        : (k: number) => indexToBitstring(k, n);
     for (let j = 0; j < s.outcomes.length; j++) counts[key(s.outcomes[j])] = s.counts[j];
     group.counts = counts;
   }

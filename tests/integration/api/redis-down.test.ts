@@ -11,6 +11,9 @@ import { runs } from "@/db/schema";
 import { GET as ready } from "@/app/api/ready/route";
 import { closeQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
+import { closePreviewPool } from "@/lib/runs/preview-pool";
+import { previewOrThrow } from "@/lib/runs/preview-run";
+import { engineRequestOf } from "@/lib/runs/schemas";
 import { activeWaiters, closeRunWaiters } from "@/lib/runs/run-waiter";
 import { createTestApiKey, createUserWithOrg } from "../../support/factories";
 import { api } from "../runs/support/api";
@@ -26,9 +29,12 @@ let key: string;
 beforeAll(async () => {
   org = await createUserWithOrg("redis-down");
   key = (await createTestApiKey(org.orgId, "member", org.user.id)).key;
+  // Start the preview threads first, so the time bound below measures Redis timeouts, not thread start-up.
+  await previewOrThrow(engineRequestOf(bellRequest() as never));
 });
 
 afterAll(async () => {
+  await closePreviewPool();
   await closeRunWaiters();
   await closeQueue();
   await closeRedis();
@@ -44,6 +50,8 @@ describe("Redis down", () => {
     expect(body.detail).toMatch(/^redis: /);
     expect(body.checks.database.ok).toBe(true);
     expect(body.checks.redis.ok).toBe(false);
+    // The public answer names the failing check, never the driver's message (hosts, ports).
+    expect(body.detail).not.toMatch(/127\.0\.0\.1|ECONN|:\d{2,5}\b/);
   });
 
   it("answers 503 on submit and leaves no run behind", async () => {

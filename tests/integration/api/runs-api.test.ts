@@ -91,6 +91,24 @@ describe("request validation", () => {
     expect(shape.body.errors.map((e: { path: string }) => e.path)).toContain("observable.terms[0].coefficient");
   });
 
+  it("refuses bad circuit statements and misplaced noise with their line/column or field", async () => {
+    const src3 = (body: string) => `OPENQASM 3.0;\ninclude "stdgates.inc";\nqubit[2] q;\n${body}\n`;
+    const pow = await post(bellRequest({ circuit: { format: "qasm3", source: src3("pow(0.5) @ x q[0];") } }));
+    expect(pow.status).toBe(400);
+    expect(pow.body.errors[0]).toMatchObject({ path: "circuit.source", line: 4, column: 5 });
+    expect(pow.body.errors[0].message).toContain("only integer powers of gates are supported");
+    const loop = await post(bellRequest({ circuit: { format: "qasm3", source: src3("for int i in [0:99999999] { x q[0]; }") } }));
+    expect(loop.status).toBe(400);
+    expect(loop.body.type).toBe("/problems/engine/too-large");
+    expect(loop.body.errors[0].message).toContain("at most 100000 are accepted");
+    const gateNoise = await post(bellRequest({ noise: { gates: { cx: { depolarizing: 0.1 } } } }));
+    expect(gateNoise.status).toBe(400);
+    expect(gateNoise.body.errors[0].path).toBe("noise.gates.cx.depolarizing");
+    const readout = await post(bellRequest({ noise: { readout: { qubits: { "7": { p1Given0: 0.1 } } } } }));
+    expect(readout.status).toBe(400);
+    expect(readout.body.errors[0].path).toBe("noise.readout.qubits.7");
+  });
+
   it("answers malformed JSON 400, a non-JSON body 415 and a body over 4 MiB 413", async () => {
     const bad = await api("POST", "/api/v1/runs", { key: keyA, rawBody: "{ not json", headers: { "content-type": "application/json" } });
     expect(bad.status).toBe(400);

@@ -8,7 +8,7 @@ import { closeDb } from "@/db";
 import { authorizeMember } from "@/lib/auth/guards";
 import { isProblemError } from "@/lib/api/problem";
 import { withOrg } from "@/lib/api/with-org";
-import { revokeApiKey } from "@/lib/orgs/mutations";
+import { revokeKey } from "@/lib/api-keys/mutations";
 import { listApiKeys } from "@/lib/orgs/queries";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestApiKey, createUserWithOrg, sessionCookie } from "../../support/factories";
@@ -65,7 +65,8 @@ describe("cross-organisation access", () => {
 
   it("data layer: revoking B's key through A's id changes nothing", async () => {
     const bKey = await createTestApiKey(b.orgId, "member");
-    expect(await revokeApiKey(a.orgId, bKey.id, a.user.id)).toBe(false);
+    const asA = await authorizeMember(a.user.id, a.orgId);
+    await expect(revokeKey(asA, bKey.id)).rejects.toMatchObject({ status: 404 });
     const keys = await listApiKeys(b.orgId);
     expect(keys.find((k) => k.id === bKey.id)?.revokedAt).toBeNull();
     expect((await listApiKeys(a.orgId)).some((k) => k.id === bKey.id)).toBe(false);

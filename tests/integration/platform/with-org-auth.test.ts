@@ -5,8 +5,9 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
 import { withOrg } from "@/lib/api/with-org";
+import { revokeKey } from "@/lib/api-keys/mutations";
+import { authorizeMember } from "@/lib/auth/guards";
 import { API_KEY_PATTERN } from "@/lib/orgs/api-key-format";
-import { revokeApiKey } from "@/lib/orgs/mutations";
 import { listApiKeys } from "@/lib/orgs/queries";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestApiKey, createUserWithOrg, sessionCookie } from "../../support/factories";
@@ -40,7 +41,7 @@ describe("withOrg authentication", () => {
     expect((await get({ authorization: `Bearer kw_abcdefgh_${"A".repeat(32)}` })).status).toBe(401);
     const created = await createTestApiKey(owner.orgId, "member", owner.user.id);
     expect((await get({ authorization: `Bearer ${created.key}` })).status).toBe(200);
-    await revokeApiKey(owner.orgId, created.id, owner.user.id);
+    await revokeKey(await authorizeMember(owner.user.id, owner.orgId), created.id);
     const revoked = await get({ authorization: `Bearer ${created.key}` });
     expect(revoked.status).toBe(401);
     expect((await revoked.json()).detail).toMatch(/revoked/);

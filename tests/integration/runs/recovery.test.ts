@@ -52,6 +52,8 @@ describe("final job failure", () => {
     expect(row.error?.detail).toContain(`after ${JOB_ATTEMPTS} attempts`);
     expect(row.error?.detail).toContain("the database was unreachable");
     expect(row.error?.detail).not.toContain("ECONNREFUSED");
+    // Announced like every terminal transition: the webhook fan-out job exists.
+    expect(await getRunsQueue().getJob(`hooks-${runId}`)).toBeDefined();
   });
 
   it("names a crashed engine and a stalled worker, and never touches a finished run", async () => {
@@ -64,6 +66,7 @@ describe("final job failure", () => {
     const done = await insertRawRun(owner.orgId, bellRequest(), { status: "succeeded" });
     await failRunAfterRetries(fakeJob(done, JOB_ATTEMPTS), new Error("late"));
     expect((await runRow(owner.orgId, done)).status).toBe("succeeded");
+    expect(await getRunsQueue().getJob(`hooks-${done}`)).toBeUndefined();
   });
 });
 
@@ -81,6 +84,7 @@ describe("sweeper", () => {
     const lostRow = await runRow(owner.orgId, lost);
     expect(lostRow.status).toBe("failed");
     expect(lostRow.error?.detail).toContain("its job was lost");
+    expect(await queue.getJob(`hooks-${lost}`)).toBeDefined();
   });
 });
 

@@ -4,7 +4,6 @@
  * engine seconds and run latency by method and size class, and a job's log
  * lines carry the request id of the API call that queued it.
  */
-import { createServer } from "node:net";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb } from "@/db";
 import { closeQueue } from "@/lib/queue/enqueue";
@@ -21,25 +20,17 @@ let key: string;
 let worker: WorkerProcess;
 let port: number;
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const server = createServer();
-    server.once("error", reject);
-    server.listen(0, "127.0.0.1", () => {
-      const address = server.address();
-      server.close(() => resolve(typeof address === "object" && address ? address.port : 0));
-    });
-  });
-}
-
 beforeAll(async () => {
   org = await createUserWithOrg("worker-ops");
   key = (await createTestApiKey(org.orgId, "member", org.user.id)).key;
-  port = await freePort();
   worker = await startWorker({
     concurrency: 1,
-    env: { WORKER_METRICS_PORT: String(port), METRICS_TOKEN: TOKEN },
+    env: { WORKER_METRICS_PORT: "0", METRICS_TOKEN: TOKEN },
   });
+  // Port 0: the worker takes any free port and names it in its ready line.
+  const bound = /\/metrics on 127\.0\.0\.1:(\d+)/.exec(worker.output());
+  if (!bound) throw new Error(`the worker did not name its metrics port:\n${worker.output()}`);
+  port = Number(bound[1]);
 });
 
 afterAll(async () => {

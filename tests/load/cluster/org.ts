@@ -2,7 +2,9 @@
 import { eq } from "drizzle-orm";
 import { db } from "@/db";
 import { organizations, users } from "@/db/schema";
-import { createApiKey, createOrganization } from "@/lib/orgs/mutations";
+import { createKey } from "@/lib/api-keys/mutations";
+import { authorizeMember } from "@/lib/auth/guards";
+import { createOrganization } from "@/lib/orgs/mutations";
 
 export async function setupBenchOrg(): Promise<{ orgId: string; apiKey: string }> {
   const userId = crypto.randomUUID();
@@ -11,10 +13,7 @@ export async function setupBenchOrg(): Promise<{ orgId: string; apiKey: string }
     .values({ id: userId, name: "Cluster check", email: `cluster-${userId}@cluster.example` });
   const { id: orgId } = await createOrganization({ name: "Cluster check", ownerUserId: userId });
   await db.update(organizations).set({ plan: "institute" }).where(eq(organizations.id, orgId));
-  const { key } = await createApiKey(orgId, {
-    name: "cluster",
-    role: "member",
-    createdById: userId,
-  });
+  const access = await authorizeMember(userId, orgId, "owner");
+  const { key } = await createKey(access, { name: "cluster", role: "member", scope: "personal" });
   return { orgId, apiKey: key };
 }

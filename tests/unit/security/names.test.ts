@@ -12,6 +12,7 @@ import { circuitCreateSchema, observableCreateSchema } from "@/lib/library/schem
 import { invitationMail, runFinishedMailFrom } from "@/lib/mail/templates";
 import { noiseProfileInputSchema } from "@/lib/noise-profiles/schemas";
 import { runCreateSchema } from "@/lib/runs/schemas";
+import { createWebhookSchema } from "@/lib/webhooks/schemas";
 import { NAME_CHARACTERS_MESSAGE, orgNameSchema, subjectSafeName } from "@/lib/validation/names";
 
 const BELL = {
@@ -60,6 +61,11 @@ const nameFields: {
       }),
   },
   { label: "organisation", parse: (name) => orgNameSchema.safeParse(name) },
+  {
+    label: "webhook description",
+    parse: (name) =>
+      createWebhookSchema.safeParse({ url: "https://example.com/hooks", description: name }),
+  },
 ];
 
 const bad = [

@@ -1,10 +1,12 @@
 /**
  * The webhook address guard. Expected verdicts come from the IANA IPv4 and IPv6
  * Special-Purpose Address Registries (RFC 6890; RFC 1918 private, RFC 6598 shared,
- * RFC 3927 link-local, RFC 4193 unique-local, RFC 4291 §2.5.5.2 IPv4-mapped, RFC 6052
- * NAT64 well-known prefix); the public examples are addresses outside every such range.
+ * RFC 3927 link-local, RFC 4193 unique-local, RFC 4291 §2.5.5.2 IPv4-mapped and
+ * §2.5.5.1 IPv4-compatible, RFC 6052 NAT64 well-known prefix, RFC 8215 local-use NAT64,
+ * RFC 3056 6to4); the public examples are addresses outside every such range.
  */
 import { describe, expect, it } from "vitest";
+import { envSchema } from "@/lib/env";
 import { embeddedIpv4, parseNetworks, refusalOf } from "@/lib/webhooks/address-guard";
 
 describe("refusalOf", () => {
@@ -34,6 +36,12 @@ describe("refusalOf", () => {
     "::ffff:7f00:1",
     "::ffff:169.254.169.254",
     "64:ff9b::a00:1",
+    // IPv4-compatible (RFC 4291 §2.5.5.1), 6to4 (RFC 3056) and local-use NAT64 (RFC 8215).
+    "::127.0.0.1",
+    "::a9fe:a9fe",
+    "2002:7f00:1::1",
+    "2002:a9fe:a9fe::",
+    "64:ff9b:1::a00:1",
   ])("refuses %s", (address) => {
     expect(refusalOf(address)).toMatch(/non-public/);
   });
@@ -46,6 +54,7 @@ describe("refusalOf", () => {
     "100.128.0.1",
     "2606:4700:4700::1111",
     "::ffff:8.8.8.8",
+    "2002:808:808::1",
   ])("lets public %s through", (address) => {
     expect(refusalOf(address)).toBeNull();
   });
@@ -69,6 +78,8 @@ describe("embeddedIpv4", () => {
     expect(embeddedIpv4("::ffff:10.1.2.3")).toBe("10.1.2.3");
     expect(embeddedIpv4("::ffff:a01:203")).toBe("10.1.2.3");
     expect(embeddedIpv4("64:ff9b::10.1.2.3")).toBe("10.1.2.3");
+    expect(embeddedIpv4("::10.1.2.3")).toBe("10.1.2.3");
+    expect(embeddedIpv4("2002:a01:203::9")).toBe("10.1.2.3");
     expect(embeddedIpv4("2001:db8::1")).toBeNull();
   });
 });
@@ -79,5 +90,18 @@ describe("parseNetworks", () => {
     expect(parseNetworks("10.0.0.0/8,192.168.1.7").check("192.168.1.7")).toBe(true);
     expect(() => parseNetworks("10.0.0.0/33")).toThrow(/10\.0\.0\.0\/33/);
     expect(() => parseNetworks("localhost")).toThrow(/localhost/);
+  });
+});
+
+describe("WEBHOOK_ALLOWED_NETWORKS", () => {
+  it("is checked with the environment, not at the first delivery", () => {
+    const base = { DATABASE_URL: "mysql://u:p@127.0.0.1:3306/k", AUTH_SECRET: "x".repeat(32) };
+    expect(envSchema.safeParse({ ...base, WEBHOOK_ALLOWED_NETWORKS: "10.0.0.0/8" }).success).toBe(
+      true,
+    );
+    const bad = envSchema.safeParse({ ...base, WEBHOOK_ALLOWED_NETWORKS: "10.0.0.0/8, intranet" });
+    expect(bad.success).toBe(false);
+    expect(bad.error?.issues[0].path).toEqual(["WEBHOOK_ALLOWED_NETWORKS"]);
+    expect(bad.error?.issues[0].message).toMatch(/intranet/);
   });
 });

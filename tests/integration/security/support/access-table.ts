@@ -83,6 +83,17 @@ export const ROUTE_TABLE: RouteRow[] = [
     method: "GET",
     access: { public: "the API description" },
   },
+  { file: "app/api/health/route.ts", method: "GET", access: { public: "liveness probe, no data" } },
+  {
+    file: "app/api/ready/route.ts",
+    method: "GET",
+    access: { public: "readiness probe, names failing dependencies only" },
+  },
+  {
+    file: "app/api/metrics/route.ts",
+    method: "GET",
+    access: { public: "operators; authenticated by METRICS_TOKEN, off when unset" },
+  },
   { file: "app/api/v1/usage/route.ts", method: "GET", access: { min: "viewer" } },
   { file: "app/api/v1/runs/route.ts", method: "GET", access: { min: "viewer" } },
   { file: "app/api/v1/runs/route.ts", method: "POST", access: { min: "member" }, body: RUN },
@@ -97,6 +108,30 @@ export const ROUTE_TABLE: RouteRow[] = [
     file: "app/api/v1/runs/[id]/cancel/route.ts",
     method: "POST",
     access: { min: "member" },
+    id: "run",
+  },
+  {
+    file: "app/api/v1/runs/[id]/terms.csv/route.ts",
+    method: "GET",
+    access: { min: "viewer" },
+    id: "run",
+  },
+  {
+    file: "app/api/v1/runs/[id]/counts.csv/route.ts",
+    method: "GET",
+    access: { min: "viewer" },
+    id: "run",
+  },
+  {
+    file: "app/api/v1/runs/[id]/points.csv/route.ts",
+    method: "GET",
+    access: { min: "viewer" },
+    id: "run",
+  },
+  {
+    file: "app/api/v1/runs/[id]/circuits.zip/route.ts",
+    method: "GET",
+    access: { min: "viewer" },
     id: "run",
   },
   { file: "app/api/v1/circuits/route.ts", method: "GET", access: { min: "viewer" } },
@@ -307,6 +342,24 @@ export const ACTION_TABLE: ActionRow[] = [
     access: ADMIN_ONLY,
     call: viaForm({}),
   },
+  {
+    file: "app/(app)/app/webhooks/actions.ts",
+    name: "createWebhookAction",
+    access: ADMIN_ONLY,
+    call: viaForm({ url: "not a url" }),
+  },
+  {
+    file: "app/(app)/app/webhooks/actions.ts",
+    name: "setWebhookEnabledAction",
+    access: ADMIN_ONLY,
+    call: viaForm({ endpointId: unknownId, enabled: "true" }),
+  },
+  {
+    file: "app/(app)/app/webhooks/actions.ts",
+    name: "deleteWebhookAction",
+    access: ADMIN_ONLY,
+    call: viaForm({ endpointId: unknownId }),
+  },
   // Composer and run page: the organisation is the current one (cookie) or the resource's.
   {
     file: "app/(app)/app/runs/new/actions.ts",
@@ -332,11 +385,5 @@ export const ACTION_TABLE: ActionRow[] = [
     access: { min: "member" },
     call: async (a, fx, orgId) =>
       (a as Fn)(orgId === fx.orgA ? await fx.fresh("profile") : fx.profileB),
-  },
-  {
-    file: "app/(app)/app/runs/[id]/actions.ts",
-    name: "measurementCircuitsAction",
-    access: { min: "viewer" },
-    call: (a, fx, orgId) => (a as Fn)(orgId === fx.orgA ? fx.runA : fx.runB),
   },
 ];

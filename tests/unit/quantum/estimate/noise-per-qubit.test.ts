@@ -161,3 +161,20 @@ describe("refusals name the field", () => {
     expect(override.exact.value).toBeCloseTo(old.exact.value, 14);
   });
 });
+
+describe("gradients see the same per-gate and idle noise", () => {
+  it("the exact gradient equals central differences of the noisy exact value (modified gates included)", async () => {
+    const source = `OPENQASM 3.0;\ninclude "stdgates.inc";\ninput float t;\nqubit[3] q;\nh q[0];\nctrl @ rx(2*t) q[0], q[1];\ninv @ ry(t) q[2];\ncx q[1], q[2];\n`;
+    const base = {
+      circuit: { format: "qasm3" as const, source },
+      observable: { format: "pauli" as const, terms: "Z1 + X0 Z2 + Y2" },
+      method: "density_matrix" as const,
+      noise: { depolarizing1q: 0.01, gates: { cx: { depolarizing: 0.2 } }, idle: { amplitudeDamping: 0.05 } },
+    };
+    const r = await estimate({ ...base, parameters: { t: 0.7 }, gradient: true });
+    const h = 1e-5;
+    const f = async (t: number) => (await estimate({ ...base, parameters: { t } })).exact.value;
+    const central = ((await f(0.7 + h)) - (await f(0.7 - h))) / (2 * h);
+    expect(r.gradient!.t.exact).toBeCloseTo(central, 7);
+  });
+});

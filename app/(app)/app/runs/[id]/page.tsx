@@ -1,5 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
+import { cache } from "react";
 import { PageHeader } from "@/components/shell/page-header";
 import { RunView } from "@/components/runs/run-view";
 import { WorkspaceFrame } from "@/components/workspace/workspace-frame";
@@ -9,11 +10,12 @@ import { toRunView } from "@/lib/runs/serialize";
 
 type Props = { params: Promise<{ id: string }> };
 
-async function loadRun(id: string) {
+/** One lookup per request, shared by the metadata and the page. */
+const loadRun = cache(async (id: string) => {
   const { current } = await getCurrentOrg();
   if (!current) return null;
   return findRun(current.org.id, id);
-}
+});
 
 export async function generateMetadata({ params }: Props): Promise<Metadata> {
   const row = await loadRun((await params).id);
