@@ -13,7 +13,7 @@ import { circuitError, semanticError } from "./circuit-errors";
 import { compileExpr, type ExprContext } from "./expressions";
 
 /** Most loop iterations (over all loops, nested ones counted in full) of one program. */
-export const MAX_LOOP_ITERATIONS = 100_000;
+export const MAX_LOOP_ITERATIONS = 10_000;
 
 /** A compile-time value; `what` names it in messages (e.g. "the size of register 'q'"). */
 export function compileTimeValue(e: Expr, ctx: ExprContext, what: string): number {

@@ -100,7 +100,7 @@ describe("request validation", () => {
     const loop = await post(bellRequest({ circuit: { format: "qasm3", source: src3("for int i in [0:99999999] { x q[0]; }") } }));
     expect(loop.status).toBe(400);
     expect(loop.body.type).toBe("/problems/engine/too-large");
-    expect(loop.body.errors[0].message).toContain("at most 100000 are accepted");
+    expect(loop.body.errors[0].message).toContain("at most 10000 are accepted");
     const gateNoise = await post(bellRequest({ noise: { gates: { cx: { depolarizing: 0.1 } } } }));
     expect(gateNoise.status).toBe(400);
     expect(gateNoise.body.errors[0].path).toBe("noise.gates.cx.depolarizing");

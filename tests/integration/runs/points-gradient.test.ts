@@ -60,13 +60,13 @@ describe("refused at submission", () => {
       body: request({ points: [{ theta: 1, phi: 2 }, { theta: 1 }] }),
     });
     expect(res.status).toBe(400);
-    expect(res.body.errors[0].path).toBe("points.1.phi");
+    expect(res.body.errors[0].path).toBe("points[1].phi");
     res = await api("POST", "/api/v1/runs", {
       key,
       body: request({ points: [{ theta: 1, phi: 2, psi: 0 }] }),
     });
     expect(res.status).toBe(400);
-    expect(res.body.errors[0].path).toBe("points.0.psi");
+    expect(res.body.errors[0].path).toBe("points[0].psi");
   });
 
   it("a non-numeric value, more than 10,000 points, or points with sweep answer 4xx naming the field", async () => {
@@ -80,7 +80,7 @@ describe("refused at submission", () => {
       }),
     });
     expect(res.status).toBe(422);
-    expect(res.body.errors.map((e: { path: string }) => e.path)).toContain("points.1.theta");
+    expect(res.body.errors.map((e: { path: string }) => e.path)).toContain("points[1].theta");
     res = await api("POST", "/api/v1/runs", {
       key,
       body: request({ points: Array.from({ length: 10_001 }, () => ({ theta: 0, phi: 0 })) }),

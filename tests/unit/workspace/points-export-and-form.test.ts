@@ -150,6 +150,7 @@ describe("composer: points and gradient", () => {
     );
     expect(issues[0].path).toBe("pointsText");
     expect(formPath("points.3.t")).toBe("pointsText");
+    expect(formPath("points[3].t")).toBe("pointsText");
     expect(formPath("gradient")).toBe("gradient");
   });
 });

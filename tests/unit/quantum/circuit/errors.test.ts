@@ -353,7 +353,7 @@ const CASES: Case[] = [
     "qasm3",
     H3 + "qubit[2] q;\nfor int i in [0:1000000000] { h q[0]; }\n",
     "too_large",
-    "the loops of this program run more than 100000 iterations in total (at most 100000 are accepted)",
+    "the loops of this program run more than 10000 iterations in total (at most 10000 are accepted)",
     4,
     14,
   ],
