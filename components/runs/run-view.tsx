@@ -70,9 +70,12 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
   const active = run.status === "queued" || run.status === "running";
   const stem = fileStem(run.name, run.id);
   const sweepNames = result?.sweep?.parameters ?? [];
-  const firstPoint = result?.sweep?.points[0];
-  const pointLabel = firstPoint
-    ? sweepNames.map((n) => `${n} = ${Number(firstPoint.params[n].toPrecision(4))}`).join(", ")
+  // the point the top-level figures describe: the lowest exact value (point 0 on older runs)
+  const topIndex = result?.sweep?.topLevel?.index ?? 0;
+  const topPoint = result?.sweep?.points[topIndex];
+  const pointLabel = topPoint
+    ? sweepNames.map((n) => `${n} = ${Number(topPoint.params[n].toPrecision(4))}`).join(", ") +
+      (result?.sweep?.topLevel ? " (lowest exact value)" : "")
     : null;
 
   const cancel = async () => {
@@ -138,7 +141,7 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
 
       {result ? (
         <>
-          {/* A sweep's landscape comes first; the panels below describe its first grid point. */}
+          {/* A sweep's landscape comes first; the panels below describe its lowest point (sweep.topLevel). */}
           {result.sweep && (result.sweep.points.length > 1 || result.sweep.kind === "points") ? (
             <SweepCard sweep={result.sweep} noisy={hasNoise} fileStem={stem} />
           ) : null}

@@ -9,7 +9,8 @@ export function formatCompact(n: number): string {
 
 /**
  * Usage against a quota (ARIA role "meter"). The bar turns amber from `warnAt` (default
- * 80 %) and red at or over the limit; over the limit the overflow is stated in text.
+ * 80 %) and when exactly full, red only over the limit, where the overflow is stated in
+ * text (exactly full is said as such: full is not over).
  * `limit` null or Infinity = unlimited.
  */
 export function Meter({
@@ -33,8 +34,22 @@ export function Meter({
 }) {
   const unlimited = limit === null || !Number.isFinite(limit) || limit <= 0;
   const ratio = unlimited ? 0 : used / (limit as number);
-  const state = unlimited ? "ok" : ratio >= 1 ? "over" : ratio >= warnAt ? "warn" : "ok";
-  const fill = state === "over" ? "bg-danger" : state === "warn" ? "bg-warn-fill" : "bg-accent";
+  // exactly at the limit is "full", not over: nothing beyond the included quota is used
+  const state = unlimited
+    ? "ok"
+    : used > (limit as number)
+      ? "over"
+      : used === limit
+        ? "full"
+        : ratio >= warnAt
+          ? "warn"
+          : "ok";
+  const fill =
+    state === "over"
+      ? "bg-danger"
+      : state === "warn" || state === "full"
+        ? "bg-warn-fill"
+        : "bg-accent";
   const u = unit ? ` ${unit}` : "";
   const valueText = unlimited
     ? `${format(used)}${u} used, no limit`
@@ -67,6 +82,11 @@ export function Meter({
         <p className="text-xs text-danger">
           Over the included quota by {format(used - (limit as number))}
           {u}.
+        </p>
+      ) : state === "full" ? (
+        <p className="text-xs text-ink-2">
+          All {format(limit as number)}
+          {u} included in use; the next one goes over the quota.
         </p>
       ) : hint ? (
         <p className="text-xs text-ink-3">{hint}</p>

@@ -2,7 +2,8 @@
  * The measurement circuits of a succeeded run as a zip: one OpenQASM 2.0 file per
  * Pauli measurement setting (the run's circuit, then the basis rotations and the
  * measurements) and a README. For a sweep or a list of points the circuits are
- * those of the first point, which the run page's main figures describe.
+ * those of the point the run page's main figures describe (`sweep.topLevel`: the
+ * lowest exact value; the first point on runs stored before that field).
  *
  * The archive's file times are the run's finish time, so the same run always
  * zips to the same bytes (the run page and `GET /api/v1/runs/:id/circuits.zip`
@@ -31,7 +32,9 @@ export function measurementCircuitFiles(
     .filter((g) => /^[IXYZ]+$/.test(g.bases));
   if (!settings.length) return [];
   const program = parseProgram(request.circuit.format, request.circuit.source);
-  const params = firstPointParams(request);
+  // the point the top-level figures describe (`sweep.topLevel`; point 0 on older runs)
+  const top = result.sweep?.topLevel ? result.sweep.points[result.sweep.topLevel.index] : undefined;
+  const params = top ? { ...(request.parameters ?? {}), ...top.params } : firstPointParams(request);
   const width = String(settings.length - 1).length;
   return settings.map((g) => ({
     name: `setting-${String(g.index).padStart(width, "0")}-${g.bases}.qasm`,

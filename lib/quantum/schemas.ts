@@ -134,10 +134,14 @@ export const noiseModelSchema = z
   .strictObject({
     depolarizing1q: probability
       .optional()
-      .describe("Depolarizing probability after each 1-qubit gate"),
+      .describe(
+        "Depolarizing probability p after each 1-qubit gate: ρ → (1−p)ρ + p·I/2 on its qubit (Nielsen & Chuang form), applied first",
+      ),
     depolarizing2q: probability
       .optional()
-      .describe("Depolarizing probability after each gate on 2 or more qubits"),
+      .describe(
+        "Depolarizing probability p after each gate on k ≥ 2 qubits, acting JOINTLY on their 2^k-dimensional space: ρ → (1−p)ρ + p·(I/2^k ⊗ Tr_those ρ), applied first",
+      ),
     amplitudeDamping: probability
       .optional()
       .describe("Amplitude damping γ on each qubit a gate touches"),
@@ -169,7 +173,7 @@ export const noiseModelSchema = z
       ),
   })
   .describe(
-    "Noise model (probabilities). After every gate as written (a user gate or ccx counts once): depolarizing of its qubits' space, then amplitude and phase damping on each of them; per-gate overrides and idle noise as described. Gate and idle noise need the density-matrix method; readout error works with both",
+    "Noise model (probabilities). Once after every gate as written at the top level (a user gate or ccx counts once; id is a gate; barrier, measure and reset are not): (1) depolarizing of its qubits' joint space, then (2) amplitude damping and (3) phase damping on each of them; untouched qubits get nothing unless `idle` is given; per-gate overrides as described. Readout error acts on sampled outcomes only (never `exact`), the same on every qubit unless `readout.qubits` says otherwise. Gate and idle noise need the density-matrix method; readout error works with both",
   );
 
 export const estimateRequestSchema = z
@@ -419,6 +423,17 @@ export const estimateResultSchema = z
           .enum(["grid", "points"])
           .optional()
           .describe('"grid" for a sweep, "points" for an explicit list (absent: grid)'),
+        topLevel: z
+          .object({
+            index: z.int().describe("Index into `points` of the point the top level describes"),
+            rule: z
+              .literal("lowest_exact")
+              .describe("The point with the lowest exact value (ties: the earliest)"),
+          })
+          .optional()
+          .describe(
+            "Which point the top-level ideal/exact/sampled/terms/groups/gradient describe: the point of lowest exact value, not silently point 0 (absent on runs stored before this field: there it was point 0)",
+          ),
         parameters: z.array(z.string()),
         points: z.array(
           z.object({

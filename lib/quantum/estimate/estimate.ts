@@ -45,7 +45,10 @@ export function checkQubitLimit(n: number, method: NormalisedRequest["method"]):
   }
 }
 
-export async function estimate(request: unknown, options: EstimateOptions = {}): Promise<EstimateResult> {
+export async function estimate(
+  request: unknown,
+  options: EstimateOptions = {},
+): Promise<EstimateResult> {
   const root = Progress.root(options.onProgress, options.signal);
   root.span(0, 0.02, "parse").report(0, true);
   const t0 = performance.now();
@@ -61,24 +64,36 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   const seed = req.raw.seed ?? chooseSeed();
   const parseMs = performance.now() - t0;
 
-  const wantSpectrum = obs.kind === "matrix" || (n <= MAX_SPECTRUM_QUBITS && lanczosStepCost(obs.sum) <= SPECTRUM_STEP_BUDGET);
+  const wantSpectrum =
+    obs.kind === "matrix" ||
+    (n <= MAX_SPECTRUM_QUBITS && lanczosStepCost(obs.sum) <= SPECTRUM_STEP_BUDGET);
   const spectrumShare = obs.kind === "pauli" && wantSpectrum ? 0.1 : 0;
   const work = root.span(0.02, 1 - spectrumShare);
   const results: PointResult[] = [];
+  // With several points the top level describes the point of lowest exact value (ties: the
+  // earliest), named in `sweep.topLevel`; only that point keeps its terms and histograms.
+  let best: { index: number; full: PointResult } | null = null;
   for (let k = 0; k < grid.points.length; k++) {
     const circuit = circuits ? circuits[0] : program.bind(grid.points[k]);
     const span = work.span(k / grid.points.length, (k + 1) / grid.points.length, "simulate");
     const differentiate = req.gradient ? { program, params: grid.points[k] } : null;
     const r = await evaluatePoint(circuit, obs, req, pointSeed(seed, k), span, differentiate);
-    // Later sweep points keep only their summary (a 10,000-point grid must stay small).
-    results.push(k === 0 ? r : { ...r, termValues: null, sampling: r.sampling && { ...r.sampling, terms: [], groups: [] } });
+    if (best === null || r.exact < best.full.exact) best = { index: k, full: r };
+    // Every point keeps only its summary (a 10,000-point grid must stay small).
+    results.push({
+      ...r,
+      termValues: null,
+      sampling: r.sampling && { ...r.sampling, terms: [], groups: [] },
+    });
   }
 
   const t1 = performance.now();
-  const spectrum = wantSpectrum ? await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum")) : undefined;
+  const spectrum = wantSpectrum
+    ? await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum"))
+    : undefined;
   const spectrumMs = performance.now() - t1;
   root.span(0, 1, "done").report(1, true);
-  return assemble(req, obs, n, seed, grid, results, spectrum, {
+  return assemble(req, obs, n, seed, grid, results, best!, spectrum, {
     parseMs,
     simulateMs: results.reduce((a, r) => a + r.simulateMs, 0),
     sampleMs: results.reduce((a, r) => a + r.sampleMs, 0),
@@ -86,7 +101,11 @@ export async function estimate(request: unknown, options: EstimateOptions = {}):
   });
 }
 
-async function spectrumOf(obs: PreparedObservable, n: number, progress: Progress): Promise<{ min: number; max: number } | undefined> {
+async function spectrumOf(
+  obs: PreparedObservable,
+  n: number,
+  progress: Progress,
+): Promise<{ min: number; max: number } | undefined> {
   if (obs.kind === "matrix") {
     const v = obs.eigen.values;
     return { min: v[0], max: v[v.length - 1] };
@@ -103,13 +122,15 @@ function assemble(
   seed: number,
   grid: SweepGrid,
   results: PointResult[],
+  best: { index: number; full: PointResult },
   spectrum: { min: number; max: number } | undefined,
   timings: EstimateResult["timings"],
 ): EstimateResult {
-  const main = results[0];
+  const main = best.full;
   const s = main.sampling;
   const groupOf = new Map<number, number>();
-  if (obs.kind === "pauli") obs.settings.forEach((g, k) => g.terms.forEach((i) => groupOf.set(i, k)));
+  if (obs.kind === "pauli")
+    obs.settings.forEach((g, k) => g.terms.forEach((i) => groupOf.set(i, k)));
   const terms: EstimateResult["terms"] =
     obs.kind === "pauli"
       ? obs.sum.terms.map((t, i) => ({
@@ -149,12 +170,20 @@ function assemble(
   if (grid.kind !== "single") {
     result.sweep = {
       kind: grid.kind,
+      topLevel: { index: best.index, rule: "lowest_exact" },
       parameters: grid.names,
       points: results.map((r, k) => ({
         params: grid.points[k],
         ideal: r.ideal,
         exact: r.exact,
-        sampled: r.sampling ? { mean: r.sampling.sampled.mean, stdErr: r.sampling.sampled.stdErr, ci95: r.sampling.sampled.ci95, shots: r.sampling.sampled.shots } : null,
+        sampled: r.sampling
+          ? {
+              mean: r.sampling.sampled.mean,
+              stdErr: r.sampling.sampled.stdErr,
+              ci95: r.sampling.sampled.ci95,
+              shots: r.sampling.sampled.shots,
+            }
+          : null,
         ...(r.gradient ? { gradient: r.gradient, gradientShots: r.gradientShots } : {}),
       })),
     };

@@ -22,7 +22,12 @@ async function rejects(p: Promise<unknown>): Promise<EngineError> {
 
 describe("textbook values through the whole engine", () => {
   it("Bell state: CHSH √2(ZZ + XX) = 2√2 (Tsirelson, Cirel'son 1980), spectrum ±2√2, result matches the schema", async () => {
-    const r = await estimate({ circuit: { format: "qasm2", source: BELL }, observable: { format: "pauli", terms: `${R2} ZZ + ${R2} XX` }, shots: 2000, seed: 7 });
+    const r = await estimate({
+      circuit: { format: "qasm2", source: BELL },
+      observable: { format: "pauli", terms: `${R2} ZZ + ${R2} XX` },
+      shots: 2000,
+      seed: 7,
+    });
     expect(r.ideal.value).toBeCloseTo(2 * R2, 12);
     expect(r.exact.value).toBeCloseTo(2 * R2, 12);
     expect(r.spectrum!.min).toBeCloseTo(-2 * R2, 9);
@@ -40,25 +45,46 @@ describe("textbook values through the whole engine", () => {
   });
 
   it("⟨YY⟩ = −1 on the Bell state (textbook value)", async () => {
-    const r = await estimate({ circuit: { format: "qasm2", source: BELL }, observable: { format: "pauli", terms: "Y0 Y1" } });
+    const r = await estimate({
+      circuit: { format: "qasm2", source: BELL },
+      observable: { format: "pauli", terms: "Y0 Y1" },
+    });
     expect(r.exact.value).toBeCloseTo(-1, 12);
   });
 
   it("qubit order: x on qubit 0 → ⟨Z0⟩ = −1, ⟨Z1⟩ = +1, counts key '10' (qubit 0 first)", async () => {
-    const r = await estimate({ circuit: { format: "qasm2", source: qasm2(2, "x q[0];") }, observable: { format: "pauli", terms: "ZI + 2 IZ" }, shots: 50, seed: 1 });
-    expect(r.terms.map((t) => [t.pauli, t.exact])).toEqual([["ZI", -1], ["IZ", 1]]);
+    const r = await estimate({
+      circuit: { format: "qasm2", source: qasm2(2, "x q[0];") },
+      observable: { format: "pauli", terms: "ZI + 2 IZ" },
+      shots: 50,
+      seed: 1,
+    });
+    expect(r.terms.map((t) => [t.pauli, t.exact])).toEqual([
+      ["ZI", -1],
+      ["IZ", 1],
+    ]);
     expect(r.groups[0].counts).toEqual({ "10": 50 });
     expect(r.exact.value).toBe(1);
   });
 
   it("one qubit: ⟨Z⟩ = p(0) − p(1) = cos θ after ry(θ) (Born rule)", async () => {
-    const r = await estimate({ circuit: { format: "qasm2", source: qasm2(1, "ry(0.9) q[0];") }, observable: { format: "pauli", terms: "Z0" } });
+    const r = await estimate({
+      circuit: { format: "qasm2", source: qasm2(1, "ry(0.9) q[0];") },
+      observable: { format: "pauli", terms: "Z0" },
+    });
     expect(r.exact.value).toBeCloseTo(Math.cos(0.9), 14);
   });
 });
 
 describe("seeds and shots", () => {
-  const req = { circuit: { format: "qasm2" as const, source: qasm2(2, "ry(1.1) q[0];\ncx q[0],q[1];\nrx(0.4) q[1];") }, observable: { format: "pauli" as const, terms: "Z0 Z1 + 0.5 X1 - 0.2 Y0" }, shots: 3000 };
+  const req = {
+    circuit: {
+      format: "qasm2" as const,
+      source: qasm2(2, "ry(1.1) q[0];\ncx q[0],q[1];\nrx(0.4) q[1];"),
+    },
+    observable: { format: "pauli" as const, terms: "Z0 Z1 + 0.5 X1 - 0.2 Y0" },
+    shots: 3000,
+  };
 
   it("a missing seed is chosen and returned; re-running with it reproduces every sampled figure", async () => {
     const a = await estimate(req);
@@ -71,7 +97,9 @@ describe("seeds and shots", () => {
   it("targetPrecision chooses the shots (state-aware plan ≤ worst case) and lands near the target", async () => {
     const r = await estimate({ ...req, shots: undefined, targetPrecision: 0.01, seed: 11 });
     expect(r.shotPlan!.stateAware!.totalShots).toBe(r.sampled!.shots);
-    expect(r.shotPlan!.stateAware!.totalShots).toBeLessThanOrEqual(r.shotPlan!.worstCase.totalShots);
+    expect(r.shotPlan!.stateAware!.totalShots).toBeLessThanOrEqual(
+      r.shotPlan!.worstCase.totalShots,
+    );
     // McClean et al. 2016: worst case (Σ|c_i|)²/ε² = 1.7²/1e-4 = 28,900 (rounded up per setting)
     expect(r.shotPlan!.worstCase.totalShots).toBeGreaterThanOrEqual(28_900);
     expect(r.shotPlan!.worstCase.totalShots).toBeLessThanOrEqual(28_900 + r.groups.length);
@@ -96,7 +124,10 @@ describe("seeds and shots", () => {
 
 describe("noise (density-matrix method)", () => {
   it("depolarizing: exact is biased toward 0, ideal is not; statevector rejects gate noise", async () => {
-    const base = { circuit: { format: "qasm2" as const, source: BELL }, observable: { format: "pauli" as const, terms: "ZZ" } };
+    const base = {
+      circuit: { format: "qasm2" as const, source: BELL },
+      observable: { format: "pauli" as const, terms: "ZZ" },
+    };
     const r = await estimate({ ...base, method: "density_matrix", noise: { depolarizing2q: 0.1 } });
     expect(r.ideal.value).toBeCloseTo(1, 12);
     // N&C depolarizing ρ → (1−p)ρ + p I/4 after cx: ⟨ZZ⟩ = 1 − p
@@ -124,8 +155,15 @@ describe("noise (density-matrix method)", () => {
   it("mid-circuit measurement needs the density-matrix method", async () => {
     const src = qasm2(2, "h q[0];\nmeasure q[0] -> c[0];\ncx q[0],q[1];", true);
     const obs = { format: "pauli" as const, terms: "Z0 Z1 + X0" };
-    expect((await rejects(estimate({ circuit: { format: "qasm2", source: src }, observable: obs }))).code).toBe("unsupported");
-    const r = await estimate({ circuit: { format: "qasm2", source: src }, observable: obs, method: "density_matrix" });
+    expect(
+      (await rejects(estimate({ circuit: { format: "qasm2", source: src }, observable: obs })))
+        .code,
+    ).toBe("unsupported");
+    const r = await estimate({
+      circuit: { format: "qasm2", source: src },
+      observable: obs,
+      method: "density_matrix",
+    });
     // measuring q0 then cx: ZZ stays 1 (perfect correlation), X0 coherence destroyed
     expect(r.exact.value).toBeCloseTo(1, 12);
   });
@@ -135,7 +173,17 @@ describe("matrix observables", () => {
   it("sampled in the eigenbasis; ideal from dense algebra", async () => {
     const r = await estimate({
       circuit: { format: "qasm2", source: qasm2(1, "h q[0];") },
-      observable: { format: "matrix", real: [[1, 0.5], [0.5, -1]], imag: [[0, 0], [0, 0]] },
+      observable: {
+        format: "matrix",
+        real: [
+          [1, 0.5],
+          [0.5, -1],
+        ],
+        imag: [
+          [0, 0],
+          [0, 0],
+        ],
+      },
       shots: 20_000,
       seed: 3,
     });
@@ -149,7 +197,16 @@ describe("matrix observables", () => {
 
   it("non-Hermitian matrix: the error names the entries", async () => {
     const e = await rejects(
-      estimate({ circuit: { format: "qasm2", source: qasm2(1, "h q[0];") }, observable: { format: "matrix", real: [[1, 2], [3, 1]] } }),
+      estimate({
+        circuit: { format: "qasm2", source: qasm2(1, "h q[0];") },
+        observable: {
+          format: "matrix",
+          real: [
+            [1, 2],
+            [3, 1],
+          ],
+        },
+      }),
     );
     expect(e.code).toBe("not_hermitian");
     expect(e.message).toMatch(/entry \(0,1\) = 2 but conjugate of entry \(1,0\) = 3; mismatch 1/);
@@ -177,14 +234,26 @@ describe("sweeps", () => {
     ]);
     for (const p of r.sweep!.points) {
       // ry(a) then rz(b): ⟨Z⟩ = cos a, ⟨X⟩ = sin a cos b
-      expect(p.ideal).toBeCloseTo(Math.cos(p.params.a) + Math.sin(p.params.a) * Math.cos(p.params.b), 12);
+      expect(p.ideal).toBeCloseTo(
+        Math.cos(p.params.a) + Math.sin(p.params.a) * Math.cos(p.params.b),
+        12,
+      );
       expect(p.sampled!.shots).toBe(200);
     }
-    expect(r.exact.value).toBeCloseTo(r.sweep!.points[0].exact, 14);
+    // the top level describes the point of lowest exact value (sweep.topLevel)
+    expect(r.exact.value).toBeCloseTo(r.sweep!.points[r.sweep!.topLevel!.index].exact, 14);
+    expect(r.exact.value).toBe(Math.min(...r.sweep!.points.map((p) => p.exact)));
   });
 
   it("sweeping a name that is not an input is rejected with its path", async () => {
-    const e = await rejects(estimate({ circuit: { format: "qasm3", source: q3 }, observable: { format: "pauli", terms: "Z0" }, parameters: { a: 1, b: 2 }, sweep: { c: [1] } }));
+    const e = await rejects(
+      estimate({
+        circuit: { format: "qasm3", source: q3 },
+        observable: { format: "pauli", terms: "Z0" },
+        parameters: { a: 1, b: 2 },
+        sweep: { c: [1] },
+      }),
+    );
     expect(e.code).toBe("invalid_request");
     expect(e.issues[0].path).toEqual(["sweep", "c"]);
   });
@@ -192,46 +261,86 @@ describe("sweeps", () => {
 
 describe("validation and limits", () => {
   it("zod issues become invalid_request with paths; unknown fields are rejected", async () => {
-    const e = await rejects(estimate({ circuit: { format: "qasm2", source: BELL }, observable: { format: "pauli", terms: "Z0" }, shots: 1.5, colour: "red" }));
+    const e = await rejects(
+      estimate({
+        circuit: { format: "qasm2", source: BELL },
+        observable: { format: "pauli", terms: "Z0" },
+        shots: 1.5,
+        colour: "red",
+      }),
+    );
     expect(e.code).toBe("invalid_request");
     expect(e.issues.map((i) => i.path)).toEqual(expect.arrayContaining([["shots"], ["colour"]]));
-    const f = await rejects(estimate({ circuit: { format: "qasm2", source: BELL }, observable: { format: "pauli", terms: "Z0" }, noise: { readout: { p1Given0: 1.5 } } }));
+    const f = await rejects(
+      estimate({
+        circuit: { format: "qasm2", source: BELL },
+        observable: { format: "pauli", terms: "Z0" },
+        noise: { readout: { p1Given0: 1.5 } },
+      }),
+    );
     expect(f.issues[0].path).toEqual(["noise", "readout", "p1Given0"]);
   });
 
   it("too many qubits for the method", async () => {
-    const e = await rejects(estimate({ circuit: { format: "qasm2", source: qasm2(13, "h q[0];") }, observable: { format: "pauli", terms: "Z0" }, method: "density_matrix" }));
+    const e = await rejects(
+      estimate({
+        circuit: { format: "qasm2", source: qasm2(13, "h q[0];") },
+        observable: { format: "pauli", terms: "Z0" },
+        method: "density_matrix",
+      }),
+    );
     expect(e.code).toBe("too_large");
-    expect(e.message).toBe("the circuit has 13 qubits; the density-matrix method handles at most 12");
-    const f = await rejects(estimate({ circuit: { format: "qasm2", source: qasm2(27, "h q[0];") }, observable: { format: "pauli", terms: "Z0" } }));
+    expect(e.message).toBe(
+      "the circuit has 13 qubits; the density-matrix method handles at most 12",
+    );
+    const f = await rejects(
+      estimate({
+        circuit: { format: "qasm2", source: qasm2(27, "h q[0];") },
+        observable: { format: "pauli", terms: "Z0" },
+      }),
+    );
     expect(f.code).toBe("too_large");
   });
 
   it("observable beyond the circuit names the qubit", async () => {
-    const e = await rejects(estimate({ circuit: { format: "qasm2", source: BELL }, observable: { format: "pauli", terms: "Z0 + X5" } }));
+    const e = await rejects(
+      estimate({
+        circuit: { format: "qasm2", source: BELL },
+        observable: { format: "pauli", terms: "Z0 + X5" },
+      }),
+    );
     expect(e.message).toBe("observable acts on qubit 5 but the circuit has 2 qubits");
     expect(e.issues[0]).toMatchObject({ path: ["observable", "terms"], line: 1, column: 6 });
   });
 });
 
 describe("progress and cancellation", () => {
-  const big = { circuit: { format: "qasm2" as const, source: qasm2(10, "h q;\ncx q[0],q[1];") }, observable: { format: "pauli" as const, terms: "Z0 Z1 + X0 X1 + Y2" } };
+  const big = {
+    circuit: { format: "qasm2" as const, source: qasm2(10, "h q;\ncx q[0],q[1];") },
+    observable: { format: "pauli" as const, terms: "Z0 Z1 + X0 X1 + Y2" },
+  };
 
   it("progress starts at 0 ('parse'), is non-decreasing, throttled, and ends at 1 ('done')", async () => {
     const seen: [number, string, number][] = [];
-    await estimate({ ...big, shots: 2_000_000, seed: 1 }, { onProgress: (f, p) => seen.push([f, p, performance.now()]) });
+    await estimate(
+      { ...big, shots: 2_000_000, seed: 1 },
+      { onProgress: (f, p) => seen.push([f, p, performance.now()]) },
+    );
     expect(seen[0].slice(0, 2)).toEqual([0, "parse"]);
     expect(seen[seen.length - 1].slice(0, 2)).toEqual([1, "done"]);
     for (let k = 1; k < seen.length; k++) expect(seen[k][0]).toBeGreaterThanOrEqual(seen[k - 1][0]);
     // intermediate reports are at least 100 ms apart
-    for (let k = 2; k < seen.length - 1; k++) expect(seen[k][2] - seen[k - 1][2]).toBeGreaterThanOrEqual(99);
+    for (let k = 2; k < seen.length - 1; k++)
+      expect(seen[k][2] - seen[k - 1][2]).toBeGreaterThanOrEqual(99);
     expect(seen.length).toBeGreaterThan(2);
   });
 
   it("an AbortSignal fired by a timer mid-run cancels it", async () => {
     const ctrl = new AbortController();
     setTimeout(() => ctrl.abort(), 30);
-    const e = await rejects(estimate({ ...big, shots: 50_000_000, seed: 1 }, { signal: ctrl.signal }));
+    const e = await rejects(
+      estimate({ ...big, shots: 50_000_000, seed: 1 }, { signal: ctrl.signal }),
+    );
     expect(e.code).toBe("canceled");
   });
 

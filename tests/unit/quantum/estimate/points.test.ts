@@ -60,7 +60,9 @@ describe("points", () => {
     }
     // Textbook value: ry(a) then CNOT gives ⟨Z0 Z1⟩ = 1 before rx on q1; rx(φ) makes ⟨Z0Z1⟩ = cos φ, ⟨X1⟩ = 0.
     expect(r.sweep!.points[1].exact).toBeCloseTo(Math.cos(0.5 * 2 + 0.1), 12);
-    expect(r.exact.value).toBeCloseTo(r.sweep!.points[0].exact, 14);
+    // the top level describes the point of lowest exact value (sweep.topLevel)
+    expect(r.exact.value).toBeCloseTo(r.sweep!.points[r.sweep!.topLevel!.index].exact, 14);
+    expect(r.exact.value).toBe(Math.min(...r.sweep!.points.map((p) => p.exact)));
   });
 
   it("merges each point over `parameters` and lists only the inputs the points set", async () => {

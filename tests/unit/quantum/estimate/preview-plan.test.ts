@@ -187,3 +187,24 @@ describe("ε² underflow", () => {
     expect(e.message).not.toMatch(/NaN|Infinity/);
   });
 });
+
+describe("sweep results name the point the top level describes", () => {
+  it("top level = the point of lowest exact value (ry(t) then ⟨Z⟩ = cos t, Born rule), named in sweep.topLevel", async () => {
+    const src =
+      'OPENQASM 3.0;\ninclude "stdgates.inc";\ninput float[64] t;\nqubit[1] q;\nry(t) q[0];\n';
+    const t = [0.3, 2.9, 1.2];
+    const r = await estimate({
+      circuit: { format: "qasm3", source: src },
+      observable: { format: "pauli", terms: "Z0" },
+      sweep: { t },
+      shots: 200,
+      seed: 1,
+    });
+    expect(r.sweep!.topLevel).toEqual({ index: 1, rule: "lowest_exact" });
+    expect(r.exact.value).toBeCloseTo(Math.cos(2.9), 12);
+    expect(r.exact.value).toBe(r.sweep!.points[1].exact);
+    expect(r.sampled!.mean).toBe(r.sweep!.points[1].sampled!.mean);
+    expect(r.terms[0].exact).toBeCloseTo(Math.cos(2.9), 12);
+    expect(r.groups[0].shots).toBe(200);
+  });
+});
