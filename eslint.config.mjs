@@ -4,7 +4,16 @@ import nextTs from "eslint-config-next/typescript";
 const config = [
   ...next,
   ...nextTs,
-  { ignores: [".next/**", ".next-*/**", ".data/**", "drizzle/**", "node_modules/**", "next-env.d.ts"] },
+  {
+    ignores: [
+      ".next/**",
+      ".next-*/**",
+      ".data/**",
+      "drizzle/**",
+      "node_modules/**",
+      "next-env.d.ts",
+    ],
+  },
 ];
 
 export default config;

@@ -42,8 +42,8 @@ export default function ErrorPage({ error, retry }: { error: unknown; retry: () 
         )
       }
     >
-      The request failed unexpectedly. Try again; if it fails a second time, quote the reference below so
-      the error can be found in the logs.
+      The request failed unexpectedly. Try again; if it fails a second time, quote the reference
+      below so the error can be found in the logs.
     </StatusPage>
   );
 }

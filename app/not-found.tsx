@@ -22,8 +22,9 @@ export default function NotFound() {
         </>
       }
     >
-      The page may have moved, or the run, circuit or key it showed belongs to a different organisation
-      from the one you have selected. Check the organisation switcher, or start again from the dashboard.
+      The page may have moved, or the run, circuit or key it showed belongs to a different
+      organisation from the one you have selected. Check the organisation switcher, or start again
+      from the dashboard.
     </StatusPage>
   );
 }

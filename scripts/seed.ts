@@ -13,11 +13,18 @@ async function main(): Promise<void> {
   const { orgId } = await seedDemo();
   await seedDemoLibrary(orgId);
   const width = Math.max(...DEMO_USERS.map((u) => u.email.length));
-  console.log(`[ketwise] demo organisation "${DEMO_ORG.name}" is ready. Sign in at ${env.AUTH_URL}/sign-in with:`);
-  for (const user of DEMO_USERS) console.log(`           ${user.email.padEnd(width)}  ${user.role.padEnd(6)}  password: ${DEMO_PASSWORD}`);
+  console.log(
+    `[ketwise] demo organisation "${DEMO_ORG.name}" is ready. Sign in at ${env.AUTH_URL}/sign-in with:`,
+  );
+  for (const user of DEMO_USERS)
+    console.log(
+      `           ${user.email.padEnd(width)}  ${user.role.padEnd(6)}  password: ${DEMO_PASSWORD}`,
+    );
   if (env.DEMO_SEED) {
     const { key, created } = await ensureDemoApiKey(orgId);
-    console.log(`[ketwise] demo API key (role member${created ? ", new" : ""}, also in ${DEMO_API_KEY_FILE}): ${key}`);
+    console.log(
+      `[ketwise] demo API key (role member${created ? ", new" : ""}, also in ${DEMO_API_KEY_FILE}): ${key}`,
+    );
   }
 }
 

@@ -48,7 +48,9 @@ export class EnginePool implements EngineRunner {
 
   /** Fraction of the pool's threads running a job now (metrics). */
   busyRatio(): number {
-    return this.slots.length === 0 ? 0 : this.slots.filter((s) => s.busy).length / this.slots.length;
+    return this.slots.length === 0
+      ? 0
+      : this.slots.filter((s) => s.busy).length / this.slots.length;
   }
 
   /** Starts every thread and waits until each has loaded the engine. */
@@ -65,7 +67,9 @@ export class EnginePool implements EngineRunner {
       await slot.ready;
     } catch (error) {
       this.release(this.replace(slot));
-      throw new EngineThreadError(`engine thread did not start: ${error instanceof Error ? error.message : String(error)}`);
+      throw new EngineThreadError(
+        `engine thread did not start: ${error instanceof Error ? error.message : String(error)}`,
+      );
     }
     return slot;
   }
@@ -87,7 +91,10 @@ export class EnginePool implements EngineRunner {
     return fresh;
   }
 
-  run(request: EstimateRequest, { onProgress, signal }: EngineRunOptions): Promise<EngineRunOutcome> {
+  run(
+    request: EstimateRequest,
+    { onProgress, signal }: EngineRunOptions,
+  ): Promise<EngineRunOutcome> {
     return this.acquire().then(
       (slot) =>
         new Promise<EngineRunOutcome>((resolve, reject) => {

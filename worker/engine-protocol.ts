@@ -8,5 +8,9 @@ export type ThreadReply =
   | { type: "ready" }
   | { type: "progress"; fraction: number; phase: string }
   | { type: "result"; result: EstimateResult; elapsedMs: number }
-  | { type: "engine-error"; error: { code: EngineErrorCode; message: string; issues: EngineIssue[] }; elapsedMs: number }
+  | {
+      type: "engine-error";
+      error: { code: EngineErrorCode; message: string; issues: EngineIssue[] };
+      elapsedMs: number;
+    }
   | { type: "crash"; message: string; elapsedMs: number };

@@ -32,9 +32,17 @@ port.on("message", async (message: ThreadRequest) => {
   } catch (error) {
     const elapsedMs = performance.now() - started;
     if (isEngineError(error)) {
-      reply({ type: "engine-error", error: { code: error.code, message: error.message, issues: error.issues }, elapsedMs });
+      reply({
+        type: "engine-error",
+        error: { code: error.code, message: error.message, issues: error.issues },
+        elapsedMs,
+      });
     } else {
-      reply({ type: "crash", message: error instanceof Error ? (error.stack ?? error.message) : String(error), elapsedMs });
+      reply({
+        type: "crash",
+        message: error instanceof Error ? (error.stack ?? error.message) : String(error),
+        elapsedMs,
+      });
     }
   }
 });

@@ -19,7 +19,8 @@ export function describeFault(error: Error): string {
   if (error instanceof EngineThreadError) return "the simulation engine stopped unexpectedly";
   for (let e: unknown = error; e; e = (e as { cause?: unknown }).cause) {
     const code = (e as { code?: string }).code ?? "";
-    if (/^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|PROTOCOL_CONNECTION_LOST|ER_)/.test(code)) return "the database was unreachable";
+    if (/^(ECONNREFUSED|ECONNRESET|ETIMEDOUT|PROTOCOL_CONNECTION_LOST|ER_)/.test(code))
+      return "the database was unreachable";
   }
   return "an internal error";
 }

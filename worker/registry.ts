@@ -33,7 +33,9 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
         if (outcome.kind === "busy") {
           // The plan's concurrent-run slots are full: wait without spending an attempt.
           if (!waiting.has(payload.runId))
-            log(`run ${payload.runId}: waiting for a slot (${outcome.running} of ${outcome.limit} running)`);
+            log(
+              `run ${payload.runId}: waiting for a slot (${outcome.running} of ${outcome.limit} running)`,
+            );
           waiting.add(payload.runId);
           await job.moveToDelayed(Date.now() + SLOT_RETRY_MS, token);
           throw new DelayedError();

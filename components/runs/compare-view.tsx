@@ -256,7 +256,19 @@ export function CompareView() {
                       {res ? <Value value={res.ideal.value} size="sm" tone="exact" /> : "—"}
                     </TD>
                     <TD numeric>
-                      {res ? <Value value={res.exact.value} size="sm" tone={r.request.noise && Object.keys(r.request.noise).length ? "noisy" : "exact"} /> : "—"}
+                      {res ? (
+                        <Value
+                          value={res.exact.value}
+                          size="sm"
+                          tone={
+                            r.request.noise && Object.keys(r.request.noise).length
+                              ? "noisy"
+                              : "exact"
+                          }
+                        />
+                      ) : (
+                        "—"
+                      )}
                     </TD>
                     <TD numeric>
                       {res?.sampled ? (

@@ -13,7 +13,13 @@ export type InputProps = Omit<InputHTMLAttributes<HTMLInputElement>, "size"> & {
 export function Input({ size = "md", mono, className, ...rest }: InputProps) {
   return (
     <input
-      className={cn(controlClasses, "read-only:bg-surface-2", controlSizes[size], mono && "figures text-[13px]", className)}
+      className={cn(
+        controlClasses,
+        "read-only:bg-surface-2",
+        controlSizes[size],
+        mono && "figures text-[13px]",
+        className,
+      )}
       {...rest}
     />
   );

@@ -148,8 +148,8 @@ export function ObservableCard({
         <IssueList id="observable-issues" issues={shownIssues} />
         {format === "matrix" ? (
           <p className="text-xs leading-5 text-ink-2">
-            Qubit 0 is the leftmost Kronecker factor: the matrix is A0 ⊗ A1 ⊗ …, row index
-            i = Σ bₖ·2^(n−1−k). So diag(1, 1, −1, −1) is Z on qubit 0 (the word ZI).
+            Qubit 0 is the leftmost Kronecker factor: the matrix is A0 ⊗ A1 ⊗ …, row index i = Σ
+            bₖ·2^(n−1−k). So diag(1, 1, −1, −1) is Z on qubit 0 (the word ZI).
           </p>
         ) : null}
         <p className="figures text-xs text-ink-2" aria-live="polite">

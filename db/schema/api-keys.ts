@@ -23,7 +23,9 @@ export const apiKeys = mysqlTable(
     orgId: varchar("org_id", { length: 36 })
       .notNull()
       .references(() => organizations.id, { onDelete: "cascade" }),
-    createdById: varchar("created_by_id", { length: 36 }).references(() => users.id, { onDelete: "set null" }),
+    createdById: varchar("created_by_id", { length: 36 }).references(() => users.id, {
+      onDelete: "set null",
+    }),
     name: varchar("name", { length: 80 }).notNull(),
     prefix: varchar("prefix", { length: 16 }).notNull().unique(),
     hash: varchar("hash", { length: 64 }).notNull().unique(),
@@ -31,7 +33,9 @@ export const apiKeys = mysqlTable(
     scope: mysqlEnum("scope", API_KEY_SCOPES).notNull().default("personal"),
     lastUsedAt: datetime("last_used_at", { mode: "date", fsp: 3 }),
     revokedAt: datetime("revoked_at", { mode: "date", fsp: 3 }),
-    createdAt: datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    createdAt: datetime("created_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [index("api_keys_org").on(t.orgId)],
 );

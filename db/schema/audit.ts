@@ -21,7 +21,9 @@ export const auditEvents = mysqlTable(
     targetId: varchar("target_id", { length: 64 }),
     metadata: json("metadata").$type<Record<string, unknown>>(),
     ip: varchar("ip", { length: 45 }),
-    createdAt: datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    createdAt: datetime("created_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [index("audit_events_org_time").on(t.orgId, t.createdAt)],
 );

@@ -4,14 +4,7 @@
  * Property names are the adapter's; column names are snake_case.
  * Ids are UUIDs generated in code (MariaDB rejects drizzle's `serial()` DDL).
  */
-import {
-  datetime,
-  int,
-  mysqlTable,
-  primaryKey,
-  timestamp,
-  varchar,
-} from "drizzle-orm/mysql-core";
+import { datetime, int, mysqlTable, primaryKey, timestamp, varchar } from "drizzle-orm/mysql-core";
 import { sql } from "drizzle-orm";
 
 export const users = mysqlTable("users", {
@@ -35,7 +28,9 @@ export const accounts = mysqlTable(
     userId: varchar("user_id", { length: 36 })
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
-    type: varchar("type", { length: 255 }).$type<"oauth" | "oidc" | "email" | "webauthn">().notNull(),
+    type: varchar("type", { length: 255 })
+      .$type<"oauth" | "oidc" | "email" | "webauthn">()
+      .notNull(),
     provider: varchar("provider", { length: 255 }).notNull(),
     providerAccountId: varchar("provider_account_id", { length: 255 }).notNull(),
     refresh_token: varchar("refresh_token", { length: 255 }),

@@ -11,7 +11,17 @@
  *   `status` is `pending` until the provider accepted the event, then `sent`.
  */
 import { sql } from "drizzle-orm";
-import { bigint, char, datetime, index, int, mysqlEnum, mysqlTable, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
+import {
+  bigint,
+  char,
+  datetime,
+  index,
+  int,
+  mysqlEnum,
+  mysqlTable,
+  uniqueIndex,
+  varchar,
+} from "drizzle-orm/mysql-core";
 import { organizations } from "./orgs";
 
 export const billingEvents = mysqlTable(
@@ -20,7 +30,9 @@ export const billingEvents = mysqlTable(
     id: varchar("id", { length: 255 }).primaryKey(),
     type: varchar("type", { length: 80 }).notNull(),
     orgId: varchar("org_id", { length: 36 }),
-    receivedAt: datetime("received_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    receivedAt: datetime("received_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
   },
   (t) => [index("billing_events_org").on(t.orgId, t.receivedAt)],
 );
@@ -43,7 +55,9 @@ export const overageReports = mysqlTable(
     status: mysqlEnum("status", ["pending", "sent"]).notNull().default("pending"),
     attempts: int("attempts").notNull().default(0),
     lastError: varchar("last_error", { length: 255 }),
-    createdAt: datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    createdAt: datetime("created_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
     sentAt: datetime("sent_at", { mode: "date", fsp: 3 }),
   },
   (t) => [uniqueIndex("overage_reports_org_period_metric").on(t.orgId, t.period, t.metric)],

@@ -4,7 +4,16 @@
  * organisation and kind; `tags` is a short list of lower-case labels.
  */
 import { sql } from "drizzle-orm";
-import { datetime, index, int, mediumtext, mysqlEnum, mysqlTable, uniqueIndex, varchar } from "drizzle-orm/mysql-core";
+import {
+  datetime,
+  index,
+  int,
+  mediumtext,
+  mysqlEnum,
+  mysqlTable,
+  uniqueIndex,
+  varchar,
+} from "drizzle-orm/mysql-core";
 import { users } from "./auth";
 import { jsonText } from "./json-text";
 import { organizations } from "./orgs";
@@ -15,7 +24,10 @@ export const OBSERVABLE_FORMATS = ["pauli", "matrix"] as const;
 /** Matrix observable entries, row-major; `imag` omitted for a real matrix. */
 export type StoredMatrix = { real: number[][]; imag?: number[][] };
 
-const createdAt = () => datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
+const createdAt = () =>
+  datetime("created_at", { mode: "date", fsp: 3 })
+    .notNull()
+    .default(sql`CURRENT_TIMESTAMP(3)`);
 const updatedAt = () =>
   datetime("updated_at", { mode: "date", fsp: 3 })
     .notNull()
@@ -25,7 +37,10 @@ const org = () =>
   varchar("org_id", { length: 36 })
     .notNull()
     .references(() => organizations.id, { onDelete: "cascade" });
-const creator = () => varchar("created_by_user_id", { length: 36 }).references(() => users.id, { onDelete: "set null" });
+const creator = () =>
+  varchar("created_by_user_id", { length: 36 }).references(() => users.id, {
+    onDelete: "set null",
+  });
 const id = () =>
   varchar("id", { length: 36 })
     .primaryKey()
@@ -46,7 +61,10 @@ export const circuits = mysqlTable(
     createdAt: createdAt(),
     updatedAt: updatedAt(),
   },
-  (t) => [uniqueIndex("circuits_org_name").on(t.orgId, t.name), index("circuits_org_created").on(t.orgId, t.createdAt, t.id)],
+  (t) => [
+    uniqueIndex("circuits_org_name").on(t.orgId, t.name),
+    index("circuits_org_created").on(t.orgId, t.createdAt, t.id),
+  ],
 );
 
 export const observables = mysqlTable(

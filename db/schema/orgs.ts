@@ -19,7 +19,9 @@ export const ROLES = ["viewer", "member", "admin", "owner"] as const;
 export type Role = (typeof ROLES)[number];
 
 const createdAt = () =>
-  datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`);
+  datetime("created_at", { mode: "date", fsp: 3 })
+    .notNull()
+    .default(sql`CURRENT_TIMESTAMP(3)`);
 
 export const organizations = mysqlTable("organizations", {
   id: varchar("id", { length: 36 })
@@ -57,7 +59,10 @@ export const memberships = mysqlTable(
     role: mysqlEnum("role", ROLES).notNull(),
     createdAt: createdAt(),
   },
-  (t) => [uniqueIndex("memberships_org_user").on(t.orgId, t.userId), index("memberships_user").on(t.userId)],
+  (t) => [
+    uniqueIndex("memberships_org_user").on(t.orgId, t.userId),
+    index("memberships_user").on(t.userId),
+  ],
 );
 
 export const invitations = mysqlTable(
@@ -73,7 +78,9 @@ export const invitations = mysqlTable(
     role: mysqlEnum("role", ROLES).notNull(),
     /** SHA-256 (hex) of the token sent by e-mail; the token itself is never stored. */
     tokenHash: varchar("token_hash", { length: 64 }).notNull().unique(),
-    invitedById: varchar("invited_by_id", { length: 36 }).references(() => users.id, { onDelete: "set null" }),
+    invitedById: varchar("invited_by_id", { length: 36 }).references(() => users.id, {
+      onDelete: "set null",
+    }),
     expiresAt: datetime("expires_at", { mode: "date", fsp: 3 }).notNull(),
     acceptedAt: datetime("accepted_at", { mode: "date", fsp: 3 }),
     revokedAt: datetime("revoked_at", { mode: "date", fsp: 3 }),

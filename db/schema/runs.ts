@@ -56,9 +56,12 @@ export const runs = mysqlTable(
     createdByUserId: varchar("created_by_user_id", { length: 36 }).references(() => users.id, {
       onDelete: "set null",
     }),
-    createdByApiKeyId: varchar("created_by_api_key_id", { length: 36 }).references(() => apiKeys.id, {
-      onDelete: "set null",
-    }),
+    createdByApiKeyId: varchar("created_by_api_key_id", { length: 36 }).references(
+      () => apiKeys.id,
+      {
+        onDelete: "set null",
+      },
+    ),
     name: varchar("name", { length: 120 }).notNull(),
     request: jsonText<Record<string, unknown>>("request").notNull(),
     method: mysqlEnum("method", RUN_METHODS).notNull(),
@@ -78,7 +81,9 @@ export const runs = mysqlTable(
     requestHash: char("request_hash", { length: 64 }).notNull(),
     /** Times a worker has started this run (re-deliveries after a crash count). */
     attempts: int("attempts").notNull().default(0),
-    queuedAt: ms3("queued_at").notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    queuedAt: ms3("queued_at")
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
     startedAt: ms3("started_at"),
     finishedAt: ms3("finished_at"),
     parseMs: double("parse_ms"),

@@ -39,7 +39,9 @@ export const usageEvents = mysqlTable(
     metric: mysqlEnum("metric", USAGE_METRICS).notNull(),
     quantity: decimal("quantity", { precision: 20, scale: 6, mode: "number" }).notNull(),
     period: char("period", { length: 7 }).notNull(),
-    createdAt: datetime("created_at", { mode: "date", fsp: 3 }).notNull().default(sql`CURRENT_TIMESTAMP(3)`),
+    createdAt: datetime("created_at", { mode: "date", fsp: 3 })
+      .notNull()
+      .default(sql`CURRENT_TIMESTAMP(3)`),
     reportedAt: datetime("reported_at", { mode: "date", fsp: 3 }),
   },
   (t) => [

@@ -37,7 +37,13 @@ async function bodyOf(req: IncomingMessage): Promise<unknown> {
   return parseForm(text);
 }
 
-export async function handleAdmin(fake: Fake, dispatcher: WebhookDispatcher, req: IncomingMessage, res: ServerResponse, url: URL): Promise<void> {
+export async function handleAdmin(
+  fake: Fake,
+  dispatcher: WebhookDispatcher,
+  req: IncomingMessage,
+  res: ServerResponse,
+  url: URL,
+): Promise<void> {
   try {
     authenticate(req, fake.config.apiKey);
     const route = `${req.method} ${url.pathname}`;
@@ -48,28 +54,58 @@ export async function handleAdmin(fake: Fake, dispatcher: WebhookDispatcher, req
   } catch (e) {
     if (e instanceof ApiError) return sendJson(res, e.status, e.toBody());
     console.error("[payment-fake] admin request failed:", e);
-    sendJson(res, 500, { error: { type: "api_error", message: "Unexpected error in the local payment fake." } });
+    sendJson(res, 500, {
+      error: { type: "api_error", message: "Unexpected error in the local payment fake." },
+    });
   }
 }
 
-async function run(fake: Fake, dispatcher: WebhookDispatcher, route: string, body: unknown): Promise<unknown> {
+async function run(
+  fake: Fake,
+  dispatcher: WebhookDispatcher,
+  route: string,
+  body: unknown,
+): Promise<unknown> {
   switch (route) {
     case "POST /_fake/advance": {
-      const p = parseParams(z.strictObject({ customer: z.string().optional(), seconds: numberish.optional(), to: numberish.optional() }), body);
-      if ((p.seconds === undefined) === (p.to === undefined)) throw invalidRequest("Give exactly one of seconds or to.");
-      if (p.customer && !fake.state.customers[p.customer]) throw noSuch("customer", p.customer, "customer");
+      const p = parseParams(
+        z.strictObject({
+          customer: z.string().optional(),
+          seconds: numberish.optional(),
+          to: numberish.optional(),
+        }),
+        body,
+      );
+      if ((p.seconds === undefined) === (p.to === undefined))
+        throw invalidRequest("Give exactly one of seconds or to.");
+      if (p.customer && !fake.state.customers[p.customer])
+        throw noSuch("customer", p.customer, "customer");
       const now = fake.now(p.customer);
       const seconds = p.seconds ?? p.to! - now;
-      if (seconds < 0) throw invalidRequest(`Time only moves forward: 'to' (${p.to}) is before now (${now}).`, "to");
+      if (seconds < 0)
+        throw invalidRequest(
+          `Time only moves forward: 'to' (${p.to}) is before now (${now}).`,
+          "to",
+        );
       fake.clock.advance(seconds, p.customer);
       const ran = processDue(fake);
-      return { now: fake.now(p.customer), customer: p.customer ?? null, advanced_seconds: seconds, due_items_run: ran };
+      return {
+        now: fake.now(p.customer),
+        customer: p.customer ?? null,
+        advanced_seconds: seconds,
+        due_items_run: ran,
+      };
     }
     case "POST /_fake/fail-next-payment": {
-      const p = parseParams(z.strictObject({ customer: z.string().optional(), count: numberish.optional() }), body);
-      if (p.customer && !fake.state.customers[p.customer]) throw noSuch("customer", p.customer, "customer");
+      const p = parseParams(
+        z.strictObject({ customer: z.string().optional(), count: numberish.optional() }),
+        body,
+      );
+      if (p.customer && !fake.state.customers[p.customer])
+        throw noSuch("customer", p.customer, "customer");
       const count = p.count ?? 1;
-      if (count < 0 || count > 100) throw invalidRequest("count must be between 0 and 100.", "count");
+      if (count < 0 || count > 100)
+        throw invalidRequest("count must be between 0 and 100.", "count");
       const key = p.customer ?? "*";
       if (count === 0) delete fake.state.failNext[key];
       else fake.state.failNext[key] = count;
@@ -100,7 +136,8 @@ async function run(fake: Fake, dispatcher: WebhookDispatcher, route: string, bod
     }
     case "POST /_fake/config": {
       const p = parseParams(z.strictObject({ webhook_url: z.string() }), body);
-      if (p.webhook_url && !/^https?:\/\//.test(p.webhook_url)) throw invalidRequest("webhook_url must be an http(s) URL or empty.", "webhook_url");
+      if (p.webhook_url && !/^https?:\/\//.test(p.webhook_url))
+        throw invalidRequest("webhook_url must be an http(s) URL or empty.", "webhook_url");
       fake.config.webhook.url = p.webhook_url;
       return { webhook_url: p.webhook_url };
     }

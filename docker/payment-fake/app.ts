@@ -88,13 +88,17 @@ export async function startPaymentFake(opts: PaymentFakeOptions): Promise<Runnin
     const done = (p: Promise<void> | void) =>
       Promise.resolve(p).catch((e: unknown) => {
         console.error("[payment-fake] request failed:", e);
-        if (!res.headersSent) sendJson(res, 500, { error: { type: "api_error", message: "Unexpected error in the local payment fake." } });
+        if (!res.headersSent)
+          sendJson(res, 500, {
+            error: { type: "api_error", message: "Unexpected error in the local payment fake." },
+          });
       });
     if (path === "/health") return void sendJson(res, 200, { status: "ok", now: fake.now() });
     if (path.startsWith("/v1/")) return void done(handleApi(fake, api, req, res, url));
     if (path.startsWith("/_fake/")) return void done(handleAdmin(fake, dispatcher, req, res, url));
     const match = pageRouter.match(req.method ?? "GET", path);
-    if (match && match !== "method") return void done(match.handler({ fake, params: match.params, req, res }));
+    if (match && match !== "method")
+      return void done(match.handler({ fake, params: match.params, req, res }));
     sendHtml(res, 404, notFoundPage(`Nothing here: ${path}`));
   });
 

@@ -18,9 +18,16 @@ const schema = z.object({
   PAYMENT_FAKE_PORT: port.default(12111),
   PAYMENT_FAKE_HOST: z.string().default("127.0.0.1"),
   PAYMENT_FAKE_PUBLIC_URL: z.url().optional(),
-  PAYMENT_FAKE_WEBHOOK_URL: z.union([z.literal(""), z.url()]).default("http://127.0.0.1:3000/api/webhooks/billing"),
-  STRIPE_WEBHOOK_SECRET: z.string().min(8, "must be set (at least 8 characters) and shared with the app"),
-  STRIPE_SECRET_KEY: z.string().regex(/^(sk|rk)_test_\w{4,}$/, "must be a test-mode key like sk_test_…").optional(),
+  PAYMENT_FAKE_WEBHOOK_URL: z
+    .union([z.literal(""), z.url()])
+    .default("http://127.0.0.1:3000/api/webhooks/billing"),
+  STRIPE_WEBHOOK_SECRET: z
+    .string()
+    .min(8, "must be set (at least 8 characters) and shared with the app"),
+  STRIPE_SECRET_KEY: z
+    .string()
+    .regex(/^(sk|rk)_test_\w{4,}$/, "must be a test-mode key like sk_test_…")
+    .optional(),
   PAYMENT_FAKE_DATA: z.string().optional(),
   PAYMENT_FAKE_WEBHOOK_MAX_ATTEMPTS: z.coerce.number().int().min(1).max(50).default(8),
   PAYMENT_FAKE_WEBHOOK_RETRY_BASE_MS: z.coerce.number().int().min(10).default(1000),
@@ -37,7 +44,10 @@ export function optionsFromEnv(env: Record<string, string | undefined>): Payment
   return {
     port: e.PAYMENT_FAKE_PORT,
     host: e.PAYMENT_FAKE_HOST,
-    publicUrl: (e.PAYMENT_FAKE_PUBLIC_URL ?? `http://localhost:${e.PAYMENT_FAKE_PORT}`).replace(/\/$/, ""),
+    publicUrl: (e.PAYMENT_FAKE_PUBLIC_URL ?? `http://localhost:${e.PAYMENT_FAKE_PORT}`).replace(
+      /\/$/,
+      "",
+    ),
     apiKey: e.STRIPE_SECRET_KEY ?? null,
     webhookSecret: e.STRIPE_WEBHOOK_SECRET,
     webhookUrl: e.PAYMENT_FAKE_WEBHOOK_URL,

@@ -26,6 +26,11 @@ export const revokeApiKeyOp = defineOperation({
   schema: revokeApiKeySchema,
   run: async (input, access) => {
     const { key, changed } = await revokeKey(access, input.keyId);
-    return { status: "success", message: changed ? `Key "${key.name}" (${key.prefix}) was revoked.` : `Key "${key.name}" was already revoked.` };
+    return {
+      status: "success",
+      message: changed
+        ? `Key "${key.name}" (${key.prefix}) was revoked.`
+        : `Key "${key.name}" was already revoked.`,
+    };
   },
 });

@@ -8,7 +8,11 @@ import { roleAtLeast, type Role } from "@/lib/orgs/roles";
 export async function listVisibleKeys(orgId: string, viewer: { userId: string; role: Role }) {
   const scope = roleAtLeast(viewer.role, "admin")
     ? eq(apiKeys.orgId, orgId)
-    : and(eq(apiKeys.orgId, orgId), eq(apiKeys.createdById, viewer.userId), eq(apiKeys.scope, "personal"));
+    : and(
+        eq(apiKeys.orgId, orgId),
+        eq(apiKeys.createdById, viewer.userId),
+        eq(apiKeys.scope, "personal"),
+      );
   return db
     .select({
       id: apiKeys.id,
@@ -27,7 +31,10 @@ export async function listVisibleKeys(orgId: string, viewer: { userId: string; r
     })
     .from(apiKeys)
     .leftJoin(users, eq(users.id, apiKeys.createdById))
-    .leftJoin(memberships, and(eq(memberships.orgId, apiKeys.orgId), eq(memberships.userId, apiKeys.createdById)))
+    .leftJoin(
+      memberships,
+      and(eq(memberships.orgId, apiKeys.orgId), eq(memberships.userId, apiKeys.createdById)),
+    )
     .where(scope)
     .orderBy(desc(apiKeys.createdAt));
 }

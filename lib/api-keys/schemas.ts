@@ -8,9 +8,14 @@ import { nameSchema } from "@/lib/validation/names";
 export const KEY_ROLES = ["viewer", "member", "admin"] as const;
 
 export const createApiKeySchema = z.object({
-  name: nameSchema({ max: 80, empty: "Name the key (e.g. the notebook or pipeline that uses it)." }),
+  name: nameSchema({
+    max: 80,
+    empty: "Name the key (e.g. the notebook or pipeline that uses it).",
+  }),
   role: z.enum(KEY_ROLES, { error: "Choose the key's role." }),
-  scope: z.enum(["personal", "organization"], { error: "Choose personal or organisation key." }).default("personal"),
+  scope: z
+    .enum(["personal", "organization"], { error: "Choose personal or organisation key." })
+    .default("personal"),
 });
 
 export const revokeApiKeySchema = z.object({ keyId: z.uuid({ error: "Choose a key." }) });

@@ -32,11 +32,20 @@ export function errorState(error: unknown): ActionState<never> {
   unstable_rethrow(error);
   if (isProblemError(error)) {
     const { detail, errors, status } = error.problem;
-    return { status: "error", message: detail, code: status, ...(errors ? { fieldErrors: toFieldErrors(errors) } : {}) };
+    return {
+      status: "error",
+      message: detail,
+      code: status,
+      ...(errors ? { fieldErrors: toFieldErrors(errors) } : {}),
+    };
   }
   const id = newErrorId();
   console.error(`[ketwise] unexpected error in server action (error id ${id})`, error);
-  return { status: "error", message: `Something went wrong on our side (error id ${id}). Try again.`, code: 500 };
+  return {
+    status: "error",
+    message: `Something went wrong on our side (error id ${id}). Try again.`,
+    code: 500,
+  };
 }
 
 /** Text fields of the form, minus anything that looks like a secret. */
@@ -52,7 +61,10 @@ function withValues<T>(state: ActionState<T>, formData: FormData): ActionState<T
   return state.status === "error" ? { ...state, values: echoValues(formData) } : state;
 }
 
-type Body<S extends z.ZodType, C, T> = (input: z.infer<S>, ctx: C) => Promise<ActionState<T> | void>;
+type Body<S extends z.ZodType, C, T> = (
+  input: z.infer<S>,
+  ctx: C,
+) => Promise<ActionState<T> | void>;
 
 function parse<S extends z.ZodType>(schema: S, formData: FormData) {
   return schema.safeParse(Object.fromEntries(formData));
@@ -66,7 +78,10 @@ const invalid = (error: z.ZodError): ActionState<never> => ({
 });
 
 /** An action anyone may call (sign-in, sign-up). */
-export function formAction<S extends z.ZodType, T = unknown>(schema: S, body: Body<S, FormData, T>) {
+export function formAction<S extends z.ZodType, T = unknown>(
+  schema: S,
+  body: Body<S, FormData, T>,
+) {
   return async (_prev: ActionState<T>, formData: FormData): Promise<ActionState<T>> => {
     const parsed = parse(schema, formData);
     if (!parsed.success) return withValues(invalid(parsed.error), formData);
@@ -79,13 +94,19 @@ export function formAction<S extends z.ZodType, T = unknown>(schema: S, body: Bo
 }
 
 /** An action for a signed-in user, outside any organisation (e.g. profile). */
-export function userAction<S extends z.ZodType, T = unknown>(schema: S, body: Body<S, { userId: string }, T>) {
+export function userAction<S extends z.ZodType, T = unknown>(
+  schema: S,
+  body: Body<S, { userId: string }, T>,
+) {
   return async (_prev: ActionState<T>, formData: FormData): Promise<ActionState<T>> => {
     try {
       const user = await requireUser();
       const parsed = parse(schema, formData);
       if (!parsed.success) return withValues(invalid(parsed.error), formData);
-      return withValues((await body(parsed.data, { userId: user.id })) ?? { status: "success" }, formData);
+      return withValues(
+        (await body(parsed.data, { userId: user.id })) ?? { status: "success" },
+        formData,
+      );
     } catch (error) {
       return withValues(errorState(error), formData);
     }

@@ -112,7 +112,10 @@ export function formatFieldPath(path: readonly PropertyKey[]): string {
 export function zodFieldErrors(error: ZodError): ProblemFieldError[] {
   return error.issues.flatMap((issue) =>
     issue.code === "unrecognized_keys"
-      ? issue.keys.map((key) => ({ path: formatFieldPath([...issue.path, key]), message: "unknown field" }))
+      ? issue.keys.map((key) => ({
+          path: formatFieldPath([...issue.path, key]),
+          message: "unknown field",
+        }))
       : [{ path: formatFieldPath(issue.path), message: issue.message }],
   );
 }

@@ -31,13 +31,7 @@ import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { env } from "@/lib/env";
 import { consume, type Budget, type RateLimitState } from "@/lib/rate-limit";
 import { applyRateLimitHeaders } from "@/lib/rate-limit/headers";
-import {
-  forbidden,
-  problemResponse,
-  sessionExpired,
-  toProblem,
-  unauthorized,
-} from "./problem";
+import { forbidden, problemResponse, sessionExpired, toProblem, unauthorized } from "./problem";
 
 export type Actor =
   | { kind: "user"; userId: string }

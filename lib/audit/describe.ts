@@ -15,7 +15,9 @@ export function describeAuditEvent(action: string, m: Record<string, unknown>): 
     case "member.role_changed":
       return `${str(m.email)}: ${role(m.from)} → ${role(m.to)}.`;
     case "member.removed":
-      return m.self ? `Left the organisation (was ${role(m.role)}).` : `Removed ${str(m.email)} (${role(m.role)}).${Number(m.revokedKeys) ? ` ${str(m.revokedKeys)} personal key(s) revoked.` : ""}`;
+      return m.self
+        ? `Left the organisation (was ${role(m.role)}).`
+        : `Removed ${str(m.email)} (${role(m.role)}).${Number(m.revokedKeys) ? ` ${str(m.revokedKeys)} personal key(s) revoked.` : ""}`;
     case "invitation.created":
       return `Invited ${str(m.email)} as ${role(m.role)}.`;
     case "invitation.resent":

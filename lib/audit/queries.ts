@@ -16,7 +16,13 @@ export async function listAuditLog(orgId: string, filter: AuditFilter, limit = A
   if (filter.group) where.push(inArray(auditEvents.action, actionsInGroup(filter.group)));
   if (filter.actor) where.push(eq(auditEvents.actorUserId, filter.actor));
   if (filter.from) where.push(gte(auditEvents.createdAt, new Date(`${filter.from}T00:00:00Z`)));
-  if (filter.to) where.push(lt(auditEvents.createdAt, new Date(new Date(`${filter.to}T00:00:00Z`).getTime() + 86_400_000)));
+  if (filter.to)
+    where.push(
+      lt(
+        auditEvents.createdAt,
+        new Date(new Date(`${filter.to}T00:00:00Z`).getTime() + 86_400_000),
+      ),
+    );
   if (filter.before) where.push(lt(auditEvents.id, filter.before));
   const rows = await db
     .select({

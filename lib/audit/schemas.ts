@@ -9,8 +9,16 @@ const day = z
   .or(z.literal("").transform(() => undefined));
 
 export const auditFilterSchema = z.object({
-  group: z.enum(Object.keys(AUDIT_GROUPS) as [keyof typeof AUDIT_GROUPS, ...(keyof typeof AUDIT_GROUPS)[]]).optional().or(z.literal("").transform(() => undefined)),
-  actor: z.uuid().optional().or(z.literal("").transform(() => undefined)),
+  group: z
+    .enum(
+      Object.keys(AUDIT_GROUPS) as [keyof typeof AUDIT_GROUPS, ...(keyof typeof AUDIT_GROUPS)[]],
+    )
+    .optional()
+    .or(z.literal("").transform(() => undefined)),
+  actor: z
+    .uuid()
+    .optional()
+    .or(z.literal("").transform(() => undefined)),
   from: day,
   to: day,
   /** Keyset cursor: the id of the last event on the previous page. */

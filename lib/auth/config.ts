@@ -21,7 +21,12 @@ import { createOrganization } from "@/lib/orgs/mutations";
 import { clientIp, consumeSignInIp } from "@/lib/rate-limit";
 import { RateLimitedSignIn } from "./errors";
 import { safeCallbackPath } from "./redirects";
-import { assertSignInAllowed, clearSignInFailures, recordSignInFailure, signInSource } from "./sign-in-throttle";
+import {
+  assertSignInAllowed,
+  clearSignInFailures,
+  recordSignInFailure,
+  signInSource,
+} from "./sign-in-throttle";
 import { endServerSession, isServerSessionLive, startServerSession } from "./server-sessions";
 import { verifyPassword } from "./password";
 import { findUserByEmail } from "./queries";
@@ -39,7 +44,10 @@ export const MAGIC_LINK_MAX_AGE_SECONDS = 15 * 60;
  * for this source (browser / IP), then bcrypt; null for any mismatch. A
  * failure slows only its own source; a success clears it. Exported for tests.
  */
-export async function authorizeWithPassword(raw: Partial<Record<string, unknown>>, request: Request) {
+export async function authorizeWithPassword(
+  raw: Partial<Record<string, unknown>>,
+  request: Request,
+) {
   const parsed = signInSchema.safeParse(raw);
   if (!parsed.success) return null;
   const { email, password } = parsed.data;
@@ -49,7 +57,8 @@ export async function authorizeWithPassword(raw: Partial<Record<string, unknown>
     await consumeSignInIp(ip);
     await assertSignInAllowed(email, source);
   } catch (error) {
-    if (isProblemError(error)) throw new RateLimitedSignIn(error.problem.detail, error.problem.retryAfter ?? 900);
+    if (isProblemError(error))
+      throw new RateLimitedSignIn(error.problem.detail, error.problem.retryAfter ?? 900);
     throw error;
   }
   const user = await findUserByEmail(email);
@@ -104,7 +113,9 @@ export function authConfig(): NextAuthConfig {
           token.sid = await startServerSession(user.id, SESSION_MAX_AGE_SECONDS);
           return token;
         }
-        return (await isServerSessionLive(token.sid, token.sub, SESSION_MAX_AGE_SECONDS)) ? token : null;
+        return (await isServerSessionLive(token.sid, token.sub, SESSION_MAX_AGE_SECONDS))
+          ? token
+          : null;
       },
       redirect({ url, baseUrl }) {
         const origin = new URL(baseUrl).origin;
@@ -123,7 +134,10 @@ export function authConfig(): NextAuthConfig {
       // password sign-ups create theirs in lib/auth/sign-up.ts.
       async createUser({ user }) {
         if (!user.id || !user.email) return;
-        await createOrganization({ name: personalOrgName(user.name, user.email), ownerUserId: user.id });
+        await createOrganization({
+          name: personalOrgName(user.name, user.email),
+          ownerUserId: user.id,
+        });
       },
     },
   };

@@ -6,13 +6,17 @@ import { CredentialsSignin } from "next-auth";
 
 export class RateLimitedSignIn extends CredentialsSignin {
   code = "rate_limited";
-  constructor(readonly detail: string, readonly retryAfter: number) {
+  constructor(
+    readonly detail: string,
+    readonly retryAfter: number,
+  ) {
     super(detail);
   }
 }
 
 /** The single message for an unknown e-mail and a wrong password alike. */
-export const WRONG_CREDENTIALS_MESSAGE = "That e-mail and password don't match an account. Check both and try again.";
+export const WRONG_CREDENTIALS_MESSAGE =
+  "That e-mail and password don't match an account. Check both and try again.";
 
 /** Messages for Auth.js error codes that land on the sign-in page as `?error=`. */
 export const AUTH_ERROR_MESSAGES: Record<string, string> = {

@@ -15,7 +15,12 @@ import "server-only";
 import { cookies } from "next/headers";
 import { cache } from "react";
 import { forbidden, notFound } from "@/lib/api/problem";
-import { getMembership, listMembershipsForUser, type MembershipWithOrg, type OrgSummary } from "@/lib/orgs/queries";
+import {
+  getMembership,
+  listMembershipsForUser,
+  type MembershipWithOrg,
+  type OrgSummary,
+} from "@/lib/orgs/queries";
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { requireUser, requireUserOrRedirect, type SessionUser } from "./session";
 
@@ -25,12 +30,20 @@ export type OrgAccess = { userId: string; org: OrgSummary; role: Role };
 export const ORG_COOKIE = "kw_org";
 
 /** DB check behind every guard: membership of `userId` in `orgId` with at least `min`. */
-export async function authorizeMember(userId: string, orgId: string, min: Role = "viewer"): Promise<OrgAccess> {
+export async function authorizeMember(
+  userId: string,
+  orgId: string,
+  min: Role = "viewer",
+): Promise<OrgAccess> {
   return accessFrom(userId, await getMembership(orgId, userId), min);
 }
 
 /** The same check on a membership already read (404 when there is none, 403 when too weak). */
-export function accessFrom(userId: string, membership: MembershipWithOrg | null | undefined, min: Role): OrgAccess {
+export function accessFrom(
+  userId: string,
+  membership: MembershipWithOrg | null | undefined,
+  min: Role,
+): OrgAccess {
   if (!membership) throw notFound("No such organisation, or you are not a member of it.");
   if (!roleAtLeast(membership.role, min)) {
     throw forbidden(
@@ -54,11 +67,18 @@ export async function requireRole(orgId: string, role: Role): Promise<OrgAccess>
  * Picks the current organisation among the user's memberships: the preferred
  * id when the user belongs to it, else the oldest membership; null when none.
  */
-export function pickCurrentOrg(memberships: MembershipWithOrg[], preferredOrgId: string | null | undefined) {
+export function pickCurrentOrg(
+  memberships: MembershipWithOrg[],
+  preferredOrgId: string | null | undefined,
+) {
   return memberships.find((m) => m.org.id === preferredOrgId) ?? memberships[0] ?? null;
 }
 
-export type CurrentOrg = { user: SessionUser; current: OrgAccess | null; memberships: MembershipWithOrg[] };
+export type CurrentOrg = {
+  user: SessionUser;
+  current: OrgAccess | null;
+  memberships: MembershipWithOrg[];
+};
 
 // Once per request and user: memberships plus the one chosen by the org cookie.
 const currentOrgFor = cache(async (userId: string) => {

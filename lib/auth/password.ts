@@ -10,7 +10,10 @@ export function hashPassword(password: string): Promise<string> {
 }
 
 /** Compares against `hash`, or against a dummy hash when there is none (always false then). */
-export async function verifyPassword(password: string, hash: string | null | undefined): Promise<boolean> {
+export async function verifyPassword(
+  password: string,
+  hash: string | null | undefined,
+): Promise<boolean> {
   const ok = await bcrypt.compare(password, hash ?? DUMMY_HASH);
   return ok && Boolean(hash);
 }

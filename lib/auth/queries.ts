@@ -5,7 +5,11 @@ import { db } from "@/db";
 import { users } from "@/db/schema";
 
 export async function findUserByEmail(email: string) {
-  const rows = await db.select().from(users).where(eq(users.email, email.trim().toLowerCase())).limit(1);
+  const rows = await db
+    .select()
+    .from(users)
+    .where(eq(users.email, email.trim().toLowerCase()))
+    .limit(1);
   return rows[0] ?? null;
 }
 

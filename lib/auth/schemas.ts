@@ -10,9 +10,22 @@ import { z } from "zod";
 import { nameSchema } from "@/lib/validation/names";
 
 const COMMON_PASSWORDS = new Set([
-  "password", "password1", "password12", "password123", "1234567890", "0123456789",
-  "qwertyuiop", "qwerty1234", "iloveyou12", "letmein123", "welcome123", "abc1234567",
-  "changeme12", "passw0rd12", "admin12345", "ketwise123",
+  "password",
+  "password1",
+  "password12",
+  "password123",
+  "1234567890",
+  "0123456789",
+  "qwertyuiop",
+  "qwerty1234",
+  "iloveyou12",
+  "letmein123",
+  "welcome123",
+  "abc1234567",
+  "changeme12",
+  "passw0rd12",
+  "admin12345",
+  "ketwise123",
 ]);
 
 export const emailSchema = z
@@ -26,9 +39,15 @@ export const emailSchema = z
 export const passwordSchema = z
   .string({ error: "Choose a password." })
   .min(10, "Use at least 10 characters.")
-  .refine((v) => new TextEncoder().encode(v).length <= 72, "Use at most 72 bytes (about 72 characters).")
+  .refine(
+    (v) => new TextEncoder().encode(v).length <= 72,
+    "Use at most 72 bytes (about 72 characters).",
+  )
   .refine((v) => new Set(v).size > 1, "Don't use one character repeated.")
-  .refine((v) => !COMMON_PASSWORDS.has(v.toLowerCase()), "That password is too common; choose another.");
+  .refine(
+    (v) => !COMMON_PASSWORDS.has(v.toLowerCase()),
+    "That password is too common; choose another.",
+  );
 
 /** A person's display name (sign-up, joining by invitation). */
 export const personNameSchema = nameSchema({ max: 80, empty: "Enter your name." });

@@ -17,7 +17,10 @@ import { isServerSessionLive } from "./server-sessions";
 
 export type SessionUser = { id: string; email: string | null; name: string | null };
 
-export const SESSION_COOKIE_NAMES = ["authjs.session-token", "__Secure-authjs.session-token"] as const;
+export const SESSION_COOKIE_NAMES = [
+  "authjs.session-token",
+  "__Secure-authjs.session-token",
+] as const;
 
 function secureCookies(): boolean {
   return env.AUTH_URL.startsWith("https://");
@@ -66,6 +69,8 @@ export async function getSessionUserFromRequest(
     return { user, expired: false };
   }
   const cookieHeader = req.headers.get("cookie") ?? "";
-  const expired = SESSION_COOKIE_NAMES.some((name) => cookieHeader.includes(`${name}=`) || cookieHeader.includes(`${name}.0=`));
+  const expired = SESSION_COOKIE_NAMES.some(
+    (name) => cookieHeader.includes(`${name}=`) || cookieHeader.includes(`${name}.0=`),
+  );
   return { user: null, expired };
 }

@@ -20,7 +20,8 @@ export function personalOrgName(name: string | null | undefined, email: string):
 }
 
 function isDuplicateKey(error: unknown): boolean {
-  const code = (error as { code?: string; cause?: { code?: string } })?.code ??
+  const code =
+    (error as { code?: string; cause?: { code?: string } })?.code ??
     (error as { cause?: { code?: string } })?.cause?.code;
   return code === "ER_DUP_ENTRY";
 }
@@ -33,8 +34,13 @@ export async function signUp(input: SignUpInput): Promise<{ userId: string; orgI
   const userId = crypto.randomUUID();
   try {
     return await db.transaction(async (tx) => {
-      await tx.insert(users).values({ id: userId, name: input.name, email: input.email, passwordHash });
-      const org = await createOrganization({ name: personalOrgName(input.name, input.email), ownerUserId: userId }, tx);
+      await tx
+        .insert(users)
+        .values({ id: userId, name: input.name, email: input.email, passwordHash });
+      const org = await createOrganization(
+        { name: personalOrgName(input.name, input.email), ownerUserId: userId },
+        tx,
+      );
       return { userId, orgId: org.id };
     });
   } catch (error) {

@@ -21,7 +21,10 @@ export const METER_EVENT_NAMES: Record<OverageMetric, string> = {
 export type PricePart = "seat" | "shots" | "seconds";
 export type PaidPlanId = Exclude<PlanId, "sandbox">;
 export type PlanPrices = Record<PricePart, string>;
-export type Catalog = { prices: Record<PaidPlanId, PlanPrices>; byPrice: Map<string, { plan: PaidPlanId; part: PricePart }> };
+export type Catalog = {
+  prices: Record<PaidPlanId, PlanPrices>;
+  byPrice: Map<string, { plan: PaidPlanId; part: PricePart }>;
+};
 
 export const PAID_PLAN_IDS = plans.filter(isPaidPlan).map((p) => p.id as PaidPlanId);
 
@@ -37,7 +40,11 @@ async function ensureMeters(stripe: Stripe): Promise<Record<OverageMetric, strin
       found?.id ??
       (
         await stripe.billing.meters.create(
-          { display_name: metric === "shots" ? "Shots" : "Simulation seconds", event_name: event, default_aggregation: { formula: "sum" } },
+          {
+            display_name: metric === "shots" ? "Shots" : "Simulation seconds",
+            event_name: event,
+            default_aggregation: { formula: "sum" },
+          },
           { idempotencyKey: `ketwise-meter-${event}` },
         )
       ).id;
@@ -45,13 +52,18 @@ async function ensureMeters(stripe: Stripe): Promise<Record<OverageMetric, strin
   return out;
 }
 
-async function ensurePlanPrices(stripe: Stripe, planId: PaidPlanId, meters: Record<OverageMetric, string>): Promise<PlanPrices> {
+async function ensurePlanPrices(
+  stripe: Stripe,
+  planId: PaidPlanId,
+  meters: Record<OverageMetric, string>,
+): Promise<PlanPrices> {
   const plan = getPlan(planId);
   if (!isPaidPlan(plan)) throw new Error(`${planId} is not a paid plan`);
   const keys = (["seat", "shots", "seconds"] as const).map((part) => lookupKey(planId, part));
   const listed = await stripe.prices.list({ lookup_keys: keys, active: true, limit: 10 });
   const byKey = new Map(listed.data.map((p) => [p.lookup_key, p.id]));
-  if (byKey.size === 3) return { seat: byKey.get(keys[0])!, shots: byKey.get(keys[1])!, seconds: byKey.get(keys[2])! };
+  if (byKey.size === 3)
+    return { seat: byKey.get(keys[0])!, shots: byKey.get(keys[1])!, seconds: byKey.get(keys[2])! };
   const product = await stripe.products.create(
     { name: `Ketwise ${plan.name}`, metadata: { plan: plan.id } },
     { idempotencyKey: `ketwise-product-${plan.id}` },
@@ -98,7 +110,8 @@ export function ensureCatalog(stripe: Stripe = getStripe()): Promise<Catalog> {
     const byPrice = new Map<string, { plan: PaidPlanId; part: PricePart }>();
     for (const id of PAID_PLAN_IDS) {
       prices[id] = await ensurePlanPrices(stripe, id, meters);
-      for (const part of ["seat", "shots", "seconds"] as const) byPrice.set(prices[id][part], { plan: id, part });
+      for (const part of ["seat", "shots", "seconds"] as const)
+        byPrice.set(prices[id][part], { plan: id, part });
     }
     return { prices, byPrice };
   })().catch((error: unknown) => {

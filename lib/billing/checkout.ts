@@ -31,8 +31,14 @@ import { applySubscription } from "./sync";
 
 export const billingUrl = (query = "") => `${env.APP_URL.replace(/\/$/, "")}/app/billing${query}`;
 
-export function hasLiveSubscription(org: Pick<Organization, "stripeSubscriptionId" | "subscriptionStatus">): boolean {
-  return !!org.stripeSubscriptionId && org.subscriptionStatus !== "canceled" && org.subscriptionStatus !== "incomplete_expired";
+export function hasLiveSubscription(
+  org: Pick<Organization, "stripeSubscriptionId" | "subscriptionStatus">,
+): boolean {
+  return (
+    !!org.stripeSubscriptionId &&
+    org.subscriptionStatus !== "canceled" &&
+    org.subscriptionStatus !== "incomplete_expired"
+  );
 }
 
 /** Seats asked for must hold everyone already in (members + pending invitations) and fit the plan. */
@@ -40,12 +46,15 @@ export async function assertSeatsFit(org: Organization, planId: string, seats: n
   const plan = getPlan(planId);
   const usage = await getSeatUsage(org);
   if (seats < usage.used) {
-    throw conflict(`${usage.used} seats are in use (${usage.members} members, ${usage.pending} pending invitations); choose at least ${usage.used}, or remove people first.`, [
-      { path: "seats", message: `At least ${usage.used}.` },
-    ]);
+    throw conflict(
+      `${usage.used} seats are in use (${usage.members} members, ${usage.pending} pending invitations); choose at least ${usage.used}, or remove people first.`,
+      [{ path: "seats", message: `At least ${usage.used}.` }],
+    );
   }
   if (seats > plan.limits.seats) {
-    throw conflict(`The ${plan.name} plan has at most ${plan.limits.seats} seats.`, [{ path: "seats", message: `At most ${plan.limits.seats}.` }]);
+    throw conflict(`The ${plan.name} plan has at most ${plan.limits.seats} seats.`, [
+      { path: "seats", message: `At most ${plan.limits.seats}.` },
+    ]);
   }
   return usage;
 }
@@ -56,15 +65,24 @@ async function ensureCustomer(org: Organization, email: string | null): Promise<
     { name: org.name, ...(email ? { email } : {}), metadata: { orgId: org.id } },
     { idempotencyKey: `ketwise-customer-${org.id}` },
   );
-  await db.update(organizations).set({ stripeCustomerId: customer.id }).where(and(eq(organizations.id, org.id), isNull(organizations.stripeCustomerId)));
+  await db
+    .update(organizations)
+    .set({ stripeCustomerId: customer.id })
+    .where(and(eq(organizations.id, org.id), isNull(organizations.stripeCustomerId)));
   return customer.id;
 }
 
 /** Creates the hosted checkout session; returns its URL for a redirect. */
-export async function startCheckout(access: OrgAccess, input: CheckoutInput): Promise<{ url: string; sessionId: string }> {
+export async function startCheckout(
+  access: OrgAccess,
+  input: CheckoutInput,
+): Promise<{ url: string; sessionId: string }> {
   const org = await getOrganization(access.org.id);
   if (!org) throw conflict("The organisation no longer exists.");
-  if (hasLiveSubscription(org)) throw conflict("This organisation already has a subscription; change the plan or seats below instead.");
+  if (hasLiveSubscription(org))
+    throw conflict(
+      "This organisation already has a subscription; change the plan or seats below instead.",
+    );
   await assertSeatsFit(org, input.plan, input.seats);
   const admin = await getUserById(access.userId);
   const session = await withProvider(async () => {
@@ -77,7 +95,11 @@ export async function startCheckout(access: OrgAccess, input: CheckoutInput): Pr
       client_reference_id: org.id,
       metadata: { orgId: org.id, plan: input.plan },
       subscription_data: { metadata: { orgId: org.id, plan: input.plan } },
-      line_items: [{ price: prices.seat, quantity: input.seats }, { price: prices.shots }, { price: prices.seconds }],
+      line_items: [
+        { price: prices.seat, quantity: input.seats },
+        { price: prices.shots },
+        { price: prices.seconds },
+      ],
       success_url: billingUrl("?checkout=success&session_id={CHECKOUT_SESSION_ID}"),
       cancel_url: billingUrl("?checkout=canceled"),
     });
@@ -98,7 +120,10 @@ export async function startCheckout(access: OrgAccess, input: CheckoutInput): Pr
  * organisation and is complete, apply its subscription now (the webhook will
  * find nothing left to change). Returns what the page should say.
  */
-export async function confirmCheckout(orgId: string, sessionId: string): Promise<"applied" | "pending" | "foreign"> {
+export async function confirmCheckout(
+  orgId: string,
+  sessionId: string,
+): Promise<"applied" | "pending" | "foreign"> {
   const stripe = getStripe();
   const session = await stripe.checkout.sessions.retrieve(sessionId, { expand: ["subscription"] });
   if (session.client_reference_id !== orgId) return "foreign";
@@ -110,7 +135,13 @@ export async function confirmCheckout(orgId: string, sessionId: string): Promise
 /** A provider-hosted page for the card on file and past invoices. */
 export async function createPortalSession(access: OrgAccess): Promise<string> {
   const org = await getOrganization(access.org.id);
-  if (!org?.stripeCustomerId) throw conflict("There is no billing account yet: choose a paid plan first.");
-  const session = await withProvider(() => getStripe().billingPortal.sessions.create({ customer: org.stripeCustomerId!, return_url: billingUrl() }));
+  if (!org?.stripeCustomerId)
+    throw conflict("There is no billing account yet: choose a paid plan first.");
+  const session = await withProvider(() =>
+    getStripe().billingPortal.sessions.create({
+      customer: org.stripeCustomerId!,
+      return_url: billingUrl(),
+    }),
+  );
   return session.url;
 }

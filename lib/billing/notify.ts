@@ -7,15 +7,27 @@ import { billingUrl } from "./checkout";
 import { listBillingContacts } from "./queries";
 
 const money = (cents: number, currency: string) =>
-  new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
-const date = (unix: number) => new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(new Date(unix * 1000));
+  new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(
+    cents / 100,
+  );
+const date = (unix: number) =>
+  new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(
+    new Date(unix * 1000),
+  );
 
-async function sendToContacts(orgId: string, build: () => { subject: string; text: string; html: string }) {
+async function sendToContacts(
+  orgId: string,
+  build: () => { subject: string; text: string; html: string },
+) {
   const contacts = await listBillingContacts(orgId);
   const mail = build();
   const results = await Promise.allSettled(contacts.map((c) => sendMail({ to: c.email, ...mail })));
   results.forEach((r, i) => {
-    if (r.status === "rejected") console.error(`[ketwise] billing mail "${mail.subject}" to ${contacts[i].email} failed`, r.reason);
+    if (r.status === "rejected")
+      console.error(
+        `[ketwise] billing mail "${mail.subject}" to ${contacts[i].email} failed`,
+        r.reason,
+      );
   });
   return contacts.length;
 }

@@ -9,7 +9,10 @@ import { getPlan } from "./plans";
 import { changePlanSchema, changeSeatsSchema, checkoutSchema, emptySchema } from "./schemas";
 import { changePlan, changeSeats, setCancelAtPeriodEnd } from "./subscription-changes";
 
-const day = (d: Date | null) => (d ? new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(d) : "the end of the period");
+const day = (d: Date | null) =>
+  d
+    ? new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(d)
+    : "the end of the period";
 
 export const startCheckoutOp = defineOperation({
   name: "billing.checkout",
@@ -27,7 +30,8 @@ export const changeSeatsOp = defineOperation({
   schema: changeSeatsSchema,
   run: async (input, access) => {
     const r = await changeSeats(access, input.seats);
-    if (!r.changed) return { status: "success", message: `You already pay for ${input.seats} seats.` };
+    if (!r.changed)
+      return { status: "success", message: `You already pay for ${input.seats} seats.` };
     return {
       status: "success",
       message:
@@ -45,7 +49,12 @@ export const changePlanOp = defineOperation({
   run: async (input, access) => {
     const r = await changePlan(access, input.plan);
     const name = getPlan(input.plan).name;
-    return { status: "success", message: r.changed ? `You are now on the ${name} plan; the prorated difference is on your invoices.` : `You are already on ${name}.` };
+    return {
+      status: "success",
+      message: r.changed
+        ? `You are now on the ${name} plan; the prorated difference is on your invoices.`
+        : `You are already on ${name}.`,
+    };
   },
 });
 
@@ -55,7 +64,10 @@ export const scheduleDowngradeOp = defineOperation({
   schema: emptySchema,
   run: async (_input, access) => {
     const { endsAt } = await setCancelAtPeriodEnd(access, true);
-    return { status: "success", message: `The organisation moves to Sandbox on ${day(endsAt)}; until then the paid plan stays.` };
+    return {
+      status: "success",
+      message: `The organisation moves to Sandbox on ${day(endsAt)}; until then the paid plan stays.`,
+    };
   },
 });
 

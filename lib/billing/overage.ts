@@ -32,17 +32,29 @@ import { getStripe } from "./stripe-client";
 export type OverageQuantities = Record<OverageMetric, number>;
 
 /** Whole units above the plan's included amounts (0 on free plans). */
-export function overageQuantities(plan: Plan, used: { shots: number; simulationSeconds: number }): OverageQuantities {
+export function overageQuantities(
+  plan: Plan,
+  used: { shots: number; simulationSeconds: number },
+): OverageQuantities {
   if (!isPaidPlan(plan)) return { shots: 0, simulation_seconds: 0 };
   return {
     shots: Math.max(0, Math.ceil(used.shots - plan.limits.monthlyShots)),
-    simulation_seconds: Math.max(0, Math.ceil(used.simulationSeconds - plan.limits.monthlySimulationSeconds)),
+    simulation_seconds: Math.max(
+      0,
+      Math.ceil(used.simulationSeconds - plan.limits.monthlySimulationSeconds),
+    ),
   };
 }
 
-export const overageIdentifier = (orgId: string, period: string, metric: OverageMetric) => `kw-ovg-${orgId}-${period}-${metric === "shots" ? "shots" : "secs"}`;
+export const overageIdentifier = (orgId: string, period: string, metric: OverageMetric) =>
+  `kw-ovg-${orgId}-${period}-${metric === "shots" ? "shots" : "secs"}`;
 
-export type OverageOutcome = { orgId: string; period: string; skipped?: string; sent: { metric: OverageMetric; quantity: number }[] };
+export type OverageOutcome = {
+  orgId: string;
+  period: string;
+  skipped?: string;
+  sent: { metric: OverageMetric; quantity: number }[];
+};
 
 export async function reportOverage(orgId: string, period: string): Promise<OverageOutcome> {
   const out: OverageOutcome = { orgId, period, sent: [] };
@@ -54,20 +66,41 @@ export async function reportOverage(orgId: string, period: string): Promise<Over
     db
       .update(usageEvents)
       .set({ reportedAt: new Date() })
-      .where(and(eq(usageEvents.orgId, orgId), eq(usageEvents.period, period), isNull(usageEvents.reportedAt)));
+      .where(
+        and(
+          eq(usageEvents.orgId, orgId),
+          eq(usageEvents.period, period),
+          isNull(usageEvents.reportedAt),
+        ),
+      );
   if (!isPaidPlan(plan) || !org.stripeCustomerId) {
     await markReported();
-    return { ...out, skipped: "not on a paid plan: Sandbox quotas are hard caps, nothing is billed" };
+    return {
+      ...out,
+      skipped: "not on a paid plan: Sandbox quotas are hard caps, nothing is billed",
+    };
   }
   const quantities = overageQuantities(plan, await getUsageTotals(orgId, period));
   const rows = (Object.keys(quantities) as OverageMetric[])
     .filter((m) => quantities[m] > 0)
-    .map((metric) => ({ orgId, period, metric, quantity: quantities[metric], identifier: overageIdentifier(orgId, period, metric) }));
+    .map((metric) => ({
+      orgId,
+      period,
+      metric,
+      quantity: quantities[metric],
+      identifier: overageIdentifier(orgId, period, metric),
+    }));
   if (rows.length) await db.insert(overageReports).ignore().values(rows);
   const pending = await db
     .select()
     .from(overageReports)
-    .where(and(eq(overageReports.orgId, orgId), eq(overageReports.period, period), eq(overageReports.status, "pending")));
+    .where(
+      and(
+        eq(overageReports.orgId, orgId),
+        eq(overageReports.period, period),
+        eq(overageReports.status, "pending"),
+      ),
+    );
   let failure: unknown = null;
   if (pending.length) await ensureCatalog();
   for (const report of pending) {
@@ -81,18 +114,35 @@ export async function reportOverage(orgId: string, period: string): Promise<Over
         { idempotencyKey: report.identifier },
       );
       await db.transaction(async (tx) => {
-        await tx.update(overageReports).set({ status: "sent", sentAt: new Date(), attempts: sql`${overageReports.attempts} + 1`, lastError: null }).where(eq(overageReports.id, report.id));
+        await tx
+          .update(overageReports)
+          .set({
+            status: "sent",
+            sentAt: new Date(),
+            attempts: sql`${overageReports.attempts} + 1`,
+            lastError: null,
+          })
+          .where(eq(overageReports.id, report.id));
         await recordAuditEvent(
           orgId,
-          { action: "billing.overage_reported", targetType: "period", targetId: period, metadata: { metric: report.metric, quantity: report.quantity, plan: plan.id } },
+          {
+            action: "billing.overage_reported",
+            targetType: "period",
+            targetId: period,
+            metadata: { metric: report.metric, quantity: report.quantity, plan: plan.id },
+          },
           tx,
         );
       });
       out.sent.push({ metric: report.metric, quantity: report.quantity });
     } catch (error) {
       failure ??= error;
-      const message = error instanceof Error ? error.message.slice(0, 250) : String(error).slice(0, 250);
-      await db.update(overageReports).set({ attempts: sql`${overageReports.attempts} + 1`, lastError: message }).where(eq(overageReports.id, report.id));
+      const message =
+        error instanceof Error ? error.message.slice(0, 250) : String(error).slice(0, 250);
+      await db
+        .update(overageReports)
+        .set({ attempts: sql`${overageReports.attempts} + 1`, lastError: message })
+        .where(eq(overageReports.id, report.id));
     }
   }
   if (failure) throw failure;
@@ -101,16 +151,28 @@ export async function reportOverage(orgId: string, period: string): Promise<Over
 }
 
 /** (organisation, period) pairs of finished periods whose usage is not settled yet. */
-export async function findUnreportedPeriods(limit = 200): Promise<{ orgId: string; period: string }[]> {
+export async function findUnreportedPeriods(
+  limit = 200,
+): Promise<{ orgId: string; period: string }[]> {
   return db
     .selectDistinct({ orgId: usageEvents.orgId, period: usageEvents.period })
     .from(usageEvents)
     .innerJoin(organizations, eq(organizations.id, usageEvents.orgId))
-    .where(and(isNull(usageEvents.reportedAt), lt(usageEvents.period, currentPeriod()), inArray(usageEvents.metric, ["shots", "simulation_seconds"])))
+    .where(
+      and(
+        isNull(usageEvents.reportedAt),
+        lt(usageEvents.period, currentPeriod()),
+        inArray(usageEvents.metric, ["shots", "simulation_seconds"]),
+      ),
+    )
     .limit(limit);
 }
 
 /** Reports of one organisation (the billing page lists them). */
 export async function listOverageReports(orgId: string) {
-  return db.select().from(overageReports).where(and(eq(overageReports.orgId, orgId), isNotNull(overageReports.id))).orderBy(sql`${overageReports.period} DESC`);
+  return db
+    .select()
+    .from(overageReports)
+    .where(and(eq(overageReports.orgId, orgId), isNotNull(overageReports.id)))
+    .orderBy(sql`${overageReports.period} DESC`);
 }

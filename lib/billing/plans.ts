@@ -163,12 +163,21 @@ export function isPaidPlan(plan: Plan): plan is Plan & { overage: PlanOverage } 
  * shots in started blocks of 1,000 and seconds rounded up, both above quota.
  * Returns 0 on the free plan (its quotas are hard caps).
  */
-export function overageCents(plan: Plan, used: { shots: number; simulationSeconds: number }): number {
+export function overageCents(
+  plan: Plan,
+  used: { shots: number; simulationSeconds: number },
+): number {
   if (!isPaidPlan(plan)) return 0;
   const extraShots = Math.max(0, used.shots - plan.limits.monthlyShots);
-  const extraSeconds = Math.max(0, Math.ceil(used.simulationSeconds - plan.limits.monthlySimulationSeconds));
+  const extraSeconds = Math.max(
+    0,
+    Math.ceil(used.simulationSeconds - plan.limits.monthlySimulationSeconds),
+  );
   const shotBlocks = Math.ceil(extraShots / 1000);
-  return shotBlocks * plan.overage.shotsPer1000Cents + extraSeconds * Number(plan.overage.simulationSecondCentsDecimal);
+  return (
+    shotBlocks * plan.overage.shotsPer1000Cents +
+    extraSeconds * Number(plan.overage.simulationSecondCentsDecimal)
+  );
 }
 
 /** Formats cents as a US-dollar amount, e.g. 2900 → "$29.00". */

@@ -36,7 +36,12 @@ export function providerProblem(error: unknown): ProblemError {
     });
   }
   if (isProviderUnavailable(error)) {
-    return new ProblemError({ type: "/problems/payment-provider-unavailable", title: "Payment provider unavailable", status: 503, detail: PROVIDER_DOWN_MESSAGE });
+    return new ProblemError({
+      type: "/problems/payment-provider-unavailable",
+      title: "Payment provider unavailable",
+      status: 503,
+      detail: PROVIDER_DOWN_MESSAGE,
+    });
   }
   const id = newErrorId();
   console.error(`[ketwise] payment provider refused a request (error id ${id})`, error);

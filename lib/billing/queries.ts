@@ -5,12 +5,18 @@ import { db } from "@/db";
 import { memberships, organizations, runs, usageEvents, users } from "@/db/schema";
 
 export async function getOrgByCustomer(customerId: string) {
-  const rows = await db.select().from(organizations).where(eq(organizations.stripeCustomerId, customerId)).limit(1);
+  const rows = await db
+    .select()
+    .from(organizations)
+    .where(eq(organizations.stripeCustomerId, customerId))
+    .limit(1);
   return rows[0] ?? null;
 }
 
 /** Owners and admins with an e-mail address: who gets billing mail. */
-export async function listBillingContacts(orgId: string): Promise<{ email: string; name: string | null }[]> {
+export async function listBillingContacts(
+  orgId: string,
+): Promise<{ email: string; name: string | null }[]> {
   const rows = await db
     .select({ email: users.email, name: users.name })
     .from(memberships)
@@ -26,14 +32,21 @@ export type DailyUsage = { day: string; runs: number; shots: number; simulationS
  * usage appear. With `userId`, only runs that person submitted (in the UI or
  * through their API keys) count — what a non-admin member sees.
  */
-export async function getDailyUsage(orgId: string, period: string, userId?: string): Promise<DailyUsage[]> {
+export async function getDailyUsage(
+  orgId: string,
+  period: string,
+  userId?: string,
+): Promise<DailyUsage[]> {
   const day = sql<string>`DATE_FORMAT(${usageEvents.createdAt}, '%Y-%m-%d')`;
   const base = db
     .select({ day, metric: usageEvents.metric, total: sql<string>`SUM(${usageEvents.quantity})` })
     .from(usageEvents);
   const where = and(eq(usageEvents.orgId, orgId), eq(usageEvents.period, period));
   const rows = userId
-    ? await base.innerJoin(runs, eq(runs.id, usageEvents.runId)).where(and(where, eq(runs.createdByUserId, userId))).groupBy(day, usageEvents.metric)
+    ? await base
+        .innerJoin(runs, eq(runs.id, usageEvents.runId))
+        .where(and(where, eq(runs.createdByUserId, userId)))
+        .groupBy(day, usageEvents.metric)
     : await base.where(where).groupBy(day, usageEvents.metric);
   const byDay = new Map<string, DailyUsage>();
   for (const r of rows) {

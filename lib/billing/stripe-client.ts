@@ -33,7 +33,9 @@ export class StripeConfigError extends Error {
 export function parseStripeEnv(source: Record<string, string | undefined>): StripeEnv {
   const result = stripeEnvSchema.safeParse(source);
   if (!result.success) {
-    throw new StripeConfigError(result.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`));
+    throw new StripeConfigError(
+      result.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`),
+    );
   }
   return result.data;
 }

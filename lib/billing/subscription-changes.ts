@@ -28,7 +28,8 @@ import { applySubscription, readSubscription } from "./sync";
 
 async function liveOrg(access: OrgAccess) {
   const org = await getOrganization(access.org.id);
-  if (!org || !hasLiveSubscription(org)) throw conflict("This organisation has no paid subscription; choose a plan first.");
+  if (!org || !hasLiveSubscription(org))
+    throw conflict("This organisation has no paid subscription; choose a plan first.");
   return { ...org, stripeSubscriptionId: org.stripeSubscriptionId! };
 }
 
@@ -61,7 +62,9 @@ export async function changePlan(access: OrgAccess, planId: PaidPlanId) {
   if (org.plan === planId) return { changed: false as const };
   const target = getPlan(planId);
   if (org.seats > target.limits.seats) {
-    throw conflict(`The ${target.name} plan has at most ${target.limits.seats} seats and you pay for ${org.seats}; reduce seats first.`);
+    throw conflict(
+      `The ${target.name} plan has at most ${target.limits.seats} seats and you pay for ${org.seats}; reduce seats first.`,
+    );
   }
   const upgrade = target.seatPriceCents > getPlan(org.plan).seatPriceCents;
   const updated = await withProvider(async () => {
@@ -94,7 +97,9 @@ export async function setCancelAtPeriodEnd(access: OrgAccess, cancel: boolean) {
       );
     }
   }
-  const updated = await withProvider(() => getStripe().subscriptions.update(org.stripeSubscriptionId, { cancel_at_period_end: cancel }));
+  const updated = await withProvider(() =>
+    getStripe().subscriptions.update(org.stripeSubscriptionId, { cancel_at_period_end: cancel }),
+  );
   await applySubscription(org.id, updated, access.userId);
   const endsAt = updated.items.data[0]?.current_period_end ?? null;
   await recordAuditEvent(org.id, {

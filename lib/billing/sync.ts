@@ -18,16 +18,17 @@ import { recordAuditEvent } from "@/lib/orgs/mutations";
 import { ensureCatalog, type Catalog } from "./catalog";
 import { getPlan } from "./plans";
 
-
 const ENDED = new Set(["canceled", "incomplete_expired"]);
 
-export type SyncResult = { orgId: string; changed: string[] } | { orgId: string | null; ignored: string };
+export type SyncResult =
+  { orgId: string; changed: string[] } | { orgId: string | null; ignored: string };
 
 /** Plan and seats a subscription stands for, from its seat item's price. */
 export function readSubscription(sub: Stripe.Subscription, catalog: Catalog) {
   for (const item of sub.items.data) {
     const known = catalog.byPrice.get(item.price.id);
-    if (known?.part === "seat") return { plan: known.plan, seats: item.quantity ?? 1, seatItemId: item.id };
+    if (known?.part === "seat")
+      return { plan: known.plan, seats: item.quantity ?? 1, seatItemId: item.id };
   }
   return null;
 }
@@ -47,15 +48,31 @@ export async function applySubscription(
       return { orgId, ignored: `subscription ${sub.id} is not the organisation's current one` };
     }
     const ended = ENDED.has(sub.status);
-    if (ended && !org.stripeSubscriptionId) return { orgId, ignored: "ended subscription of an organisation without one" };
-    if (!ended && !read) return { orgId, ignored: `subscription ${sub.id} has no Ketwise seat price` };
+    if (ended && !org.stripeSubscriptionId)
+      return { orgId, ignored: "ended subscription of an organisation without one" };
+    if (!ended && !read)
+      return { orgId, ignored: `subscription ${sub.id} has no Ketwise seat price` };
     const customer = typeof sub.customer === "string" ? sub.customer : sub.customer.id;
     const next = ended
-      ? { plan: "sandbox", seats: getPlan("sandbox").limits.seats, stripeSubscriptionId: null, subscriptionStatus: sub.status }
-      : { plan: read!.plan, seats: read!.seats, stripeSubscriptionId: sub.id, subscriptionStatus: sub.status };
+      ? {
+          plan: "sandbox",
+          seats: getPlan("sandbox").limits.seats,
+          stripeSubscriptionId: null,
+          subscriptionStatus: sub.status,
+        }
+      : {
+          plan: read!.plan,
+          seats: read!.seats,
+          stripeSubscriptionId: sub.id,
+          subscriptionStatus: sub.status,
+        };
     const changed: string[] = [];
     const audit = (action: string, metadata: Record<string, unknown>) =>
-      recordAuditEvent(orgId, { action, actorUserId, targetType: "subscription", targetId: sub.id, metadata }, tx);
+      recordAuditEvent(
+        orgId,
+        { action, actorUserId, targetType: "subscription", targetId: sub.id, metadata },
+        tx,
+      );
     if (org.plan !== next.plan) {
       changed.push("plan");
       await audit("billing.plan_changed", { from: org.plan, to: next.plan });
@@ -66,9 +83,16 @@ export async function applySubscription(
     }
     if (org.subscriptionStatus !== next.subscriptionStatus) {
       changed.push("status");
-      await audit("billing.status_changed", { from: org.subscriptionStatus, to: next.subscriptionStatus });
+      await audit("billing.status_changed", {
+        from: org.subscriptionStatus,
+        to: next.subscriptionStatus,
+      });
     }
-    if (changed.length || org.stripeSubscriptionId !== next.stripeSubscriptionId || org.stripeCustomerId !== customer) {
+    if (
+      changed.length ||
+      org.stripeSubscriptionId !== next.stripeSubscriptionId ||
+      org.stripeCustomerId !== customer
+    ) {
       await tx
         .update(organizations)
         .set({ ...next, stripeCustomerId: org.stripeCustomerId ?? customer })

@@ -26,8 +26,18 @@ export type InvoiceRow = {
 export type ProviderView =
   | {
       ok: true;
-      subscription: { status: string; periodStart: Date | null; periodEnd: Date | null; cancelAtPeriodEnd: boolean } | null;
-      upcoming: { total: number; currency: string; date: Date | null; lines: { description: string; amount: number }[] } | null;
+      subscription: {
+        status: string;
+        periodStart: Date | null;
+        periodEnd: Date | null;
+        cancelAtPeriodEnd: boolean;
+      } | null;
+      upcoming: {
+        total: number;
+        currency: string;
+        date: Date | null;
+        lines: { description: string; amount: number }[];
+      } | null;
       invoices: InvoiceRow[];
     }
   | { ok: false; message: string };
@@ -48,36 +58,59 @@ function invoiceRow(i: Stripe.Invoice): InvoiceRow {
   };
 }
 
-export async function loadProviderView(org: Pick<Organization, "stripeCustomerId" | "stripeSubscriptionId">): Promise<ProviderView> {
+export async function loadProviderView(
+  org: Pick<Organization, "stripeCustomerId" | "stripeSubscriptionId">,
+): Promise<ProviderView> {
   if (!org.stripeCustomerId) return { ok: true, subscription: null, upcoming: null, invoices: [] };
   const stripe = getStripe();
   try {
     const [invoices, sub] = await Promise.all([
       stripe.invoices.list({ customer: org.stripeCustomerId, limit: 12 }, PAGE_REQUEST),
-      org.stripeSubscriptionId ? stripe.subscriptions.retrieve(org.stripeSubscriptionId, {}, PAGE_REQUEST) : Promise.resolve(null),
+      org.stripeSubscriptionId
+        ? stripe.subscriptions.retrieve(org.stripeSubscriptionId, {}, PAGE_REQUEST)
+        : Promise.resolve(null),
     ]);
     let upcoming: Extract<ProviderView, { ok: true }>["upcoming"] = null;
     if (sub && sub.status !== "canceled" && !sub.cancel_at_period_end) {
-      const preview = await stripe.invoices.createPreview({ customer: org.stripeCustomerId, subscription: sub.id }, PAGE_REQUEST);
+      const preview = await stripe.invoices.createPreview(
+        { customer: org.stripeCustomerId, subscription: sub.id },
+        PAGE_REQUEST,
+      );
       upcoming = {
         total: preview.total,
         currency: preview.currency,
         date: date(preview.period_end) ?? date(sub.items.data[0]?.current_period_end),
-        lines: preview.lines.data.map((l) => ({ description: l.description ?? "", amount: l.amount })),
+        lines: preview.lines.data.map((l) => ({
+          description: l.description ?? "",
+          amount: l.amount,
+        })),
       };
     }
     const item = sub?.items.data[0];
     return {
       ok: true,
       subscription: sub
-        ? { status: sub.status, periodStart: date(item?.current_period_start), periodEnd: date(item?.current_period_end), cancelAtPeriodEnd: sub.cancel_at_period_end }
+        ? {
+            status: sub.status,
+            periodStart: date(item?.current_period_start),
+            periodEnd: date(item?.current_period_end),
+            cancelAtPeriodEnd: sub.cancel_at_period_end,
+          }
         : null,
       upcoming,
       invoices: invoices.data.map(invoiceRow),
     };
   } catch (error) {
-    if (isProviderUnavailable(error)) return { ok: false, message: PROVIDER_DOWN_MESSAGE.replace(" Nothing was changed; try again in a minute.", "") };
+    if (isProviderUnavailable(error))
+      return {
+        ok: false,
+        message: PROVIDER_DOWN_MESSAGE.replace(" Nothing was changed; try again in a minute.", ""),
+      };
     console.error("[ketwise] billing page: provider read failed", error);
-    return { ok: false, message: "The payment provider answered with an error; invoices and the upcoming charge can't be shown right now." };
+    return {
+      ok: false,
+      message:
+        "The payment provider answered with an error; invoices and the upcoming charge can't be shown right now.",
+    };
   }
 }

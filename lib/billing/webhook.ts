@@ -34,7 +34,13 @@ export const WEBHOOK_MAX_BODY_BYTES = 256 * 1024;
 
 export type WebhookOutcome =
   | { status: 400; reason: string }
-  | { status: 200; result: "applied" | "duplicate" | "ignored"; type: string; id: string; detail?: string };
+  | {
+      status: 200;
+      result: "applied" | "duplicate" | "ignored";
+      type: string;
+      id: string;
+      detail?: string;
+    };
 
 type Org = { id: string; name: string };
 type Plan = {
@@ -44,9 +50,13 @@ type Plan = {
   ignored?: string;
 };
 
-const idOf = (v: string | { id: string } | null | undefined) => (typeof v === "string" ? v : (v?.id ?? null));
+const idOf = (v: string | { id: string } | null | undefined) =>
+  typeof v === "string" ? v : (v?.id ?? null);
 
-async function orgForCustomer(customer: string | null, metadataOrgId?: string | null): Promise<Org | null> {
+async function orgForCustomer(
+  customer: string | null,
+  metadataOrgId?: string | null,
+): Promise<Org | null> {
   const byCustomer = customer ? await getOrgByCustomer(customer) : null;
   if (byCustomer) return byCustomer;
   return metadataOrgId ? await getOrganization(metadataOrgId) : null;
@@ -55,7 +65,10 @@ async function orgForCustomer(customer: string | null, metadataOrgId?: string | 
 async function subscriptionPlan(subscriptionId: string, org: Org | null): Promise<Plan> {
   if (!org) return { orgId: null, ignored: "no organisation for this customer" };
   const sub = await getStripe().subscriptions.retrieve(subscriptionId);
-  return { orgId: org.id, apply: async (tx) => void (await applySubscription(org.id, sub, null, tx)) };
+  return {
+    orgId: org.id,
+    apply: async (tx) => void (await applySubscription(org.id, sub, null, tx)),
+  };
 }
 
 async function planFor(event: Stripe.Event): Promise<Plan> {
@@ -63,15 +76,22 @@ async function planFor(event: Stripe.Event): Promise<Plan> {
     case "checkout.session.completed": {
       const session = event.data.object;
       const subscription = idOf(session.subscription);
-      if (session.mode !== "subscription" || !subscription) return { orgId: null, ignored: "not a subscription checkout" };
-      const org = await orgForCustomer(idOf(session.customer), session.client_reference_id ?? session.metadata?.orgId);
+      if (session.mode !== "subscription" || !subscription)
+        return { orgId: null, ignored: "not a subscription checkout" };
+      const org = await orgForCustomer(
+        idOf(session.customer),
+        session.client_reference_id ?? session.metadata?.orgId,
+      );
       return subscriptionPlan(subscription, org);
     }
     case "customer.subscription.created":
     case "customer.subscription.updated":
     case "customer.subscription.deleted": {
       const sub = event.data.object;
-      return subscriptionPlan(sub.id, await orgForCustomer(idOf(sub.customer), sub.metadata?.orgId));
+      return subscriptionPlan(
+        sub.id,
+        await orgForCustomer(idOf(sub.customer), sub.metadata?.orgId),
+      );
     }
     case "invoice.payment_failed": {
       const invoice = event.data.object;
@@ -89,7 +109,11 @@ async function planFor(event: Stripe.Event): Promise<Plan> {
               action: "billing.payment_failed",
               targetType: "invoice",
               targetId: invoice.id,
-              metadata: { amountDue: invoice.amount_due, currency: invoice.currency, attempt: invoice.attempt_count },
+              metadata: {
+                amountDue: invoice.amount_due,
+                currency: invoice.currency,
+                attempt: invoice.attempt_count,
+              },
             },
             tx,
           );
@@ -117,16 +141,31 @@ function isDuplicateKey(error: unknown): boolean {
 }
 
 /** Verifies and applies one delivery. Throws only for faults worth a retry (answered 500). */
-export async function handleBillingWebhook(raw: string, signature: string | null): Promise<WebhookOutcome> {
+export async function handleBillingWebhook(
+  raw: string,
+  signature: string | null,
+): Promise<WebhookOutcome> {
   if (!signature) return { status: 400, reason: "Missing Stripe-Signature header." };
   let event: Stripe.Event;
   try {
-    event = getStripe().webhooks.constructEvent(raw, signature, env.STRIPE_WEBHOOK_SECRET, SIGNATURE_TOLERANCE_SECONDS);
+    event = getStripe().webhooks.constructEvent(
+      raw,
+      signature,
+      env.STRIPE_WEBHOOK_SECRET,
+      SIGNATURE_TOLERANCE_SECONDS,
+    );
   } catch (error) {
-    const reason = error instanceof Stripe.errors.StripeSignatureVerificationError ? error.message : "The payload could not be read.";
+    const reason =
+      error instanceof Stripe.errors.StripeSignatureVerificationError
+        ? error.message
+        : "The payload could not be read.";
     return { status: 400, reason: `Signature verification failed: ${reason}` };
   }
-  const seen = await db.select({ id: billingEvents.id }).from(billingEvents).where(eq(billingEvents.id, event.id)).limit(1);
+  const seen = await db
+    .select({ id: billingEvents.id })
+    .from(billingEvents)
+    .where(eq(billingEvents.id, event.id))
+    .limit(1);
   if (seen.length) return { status: 200, result: "duplicate", type: event.type, id: event.id };
 
   const plan = await planFor(event);
@@ -136,10 +175,15 @@ export async function handleBillingWebhook(raw: string, signature: string | null
       await plan.apply?.(tx);
     });
   } catch (error) {
-    if (isDuplicateKey(error)) return { status: 200, result: "duplicate", type: event.type, id: event.id };
+    if (isDuplicateKey(error))
+      return { status: 200, result: "duplicate", type: event.type, id: event.id };
     throw error;
   }
-  await plan.after?.().catch((error: unknown) => console.error(`[ketwise] after-effects of ${event.id} failed`, error));
+  await plan
+    .after?.()
+    .catch((error: unknown) =>
+      console.error(`[ketwise] after-effects of ${event.id} failed`, error),
+    );
   return plan.ignored
     ? { status: 200, result: "ignored", type: event.type, id: event.id, detail: plan.ignored }
     : { status: 200, result: "applied", type: event.type, id: event.id };

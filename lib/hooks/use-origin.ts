@@ -9,5 +9,9 @@ import { useSyncExternalStore } from "react";
 const subscribe = () => () => {};
 
 export function useOrigin(fallback = ""): string {
-  return useSyncExternalStore(subscribe, () => window.location.origin, () => fallback);
+  return useSyncExternalStore(
+    subscribe,
+    () => window.location.origin,
+    () => fallback,
+  );
 }

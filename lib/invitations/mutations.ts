@@ -21,15 +21,23 @@ import { recordAuditEvent } from "@/lib/orgs/mutations";
 import { ROLE_LABELS } from "@/lib/orgs/roles";
 import { invitationLinkProblem, seatsExhausted, wrongRecipient } from "./problems";
 import type { InviteInput } from "./schemas";
-import { hashInvitationToken, invitationExpiry, signInvitationToken, verifyInvitationToken } from "./token";
-
+import {
+  hashInvitationToken,
+  invitationExpiry,
+  signInvitationToken,
+  verifyInvitationToken,
+} from "./token";
 
 export function invitationUrl(token: string): string {
   return `${env.APP_URL.replace(/\/$/, "")}/invite/${token}`;
 }
 
 const formatExpiry = (d: Date) =>
-  new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeStyle: "short", timeZone: "UTC" }).format(d) + " UTC";
+  new Intl.DateTimeFormat("en-GB", {
+    dateStyle: "long",
+    timeStyle: "short",
+    timeZone: "UTC",
+  }).format(d) + " UTC";
 
 async function assertSeatFree(tx: Tx, orgId: string, now: Date) {
   const org = await lockOrganization(tx, orgId);
@@ -39,10 +47,18 @@ async function assertSeatFree(tx: Tx, orgId: string, now: Date) {
   return org;
 }
 
-async function issueAndSend(tx: Tx, access: OrgAccess, invitation: Pick<Invitation, "id" | "email" | "role">, now: Date) {
+async function issueAndSend(
+  tx: Tx,
+  access: OrgAccess,
+  invitation: Pick<Invitation, "id" | "email" | "role">,
+  now: Date,
+) {
   const expiresAt = invitationExpiry(now);
   const token = signInvitationToken(env.AUTH_SECRET, invitation.id, expiresAt);
-  await tx.update(invitations).set({ tokenHash: hashInvitationToken(token), expiresAt }).where(eq(invitations.id, invitation.id));
+  await tx
+    .update(invitations)
+    .set({ tokenHash: hashInvitationToken(token), expiresAt })
+    .where(eq(invitations.id, invitation.id));
   const inviter = await getUserById(access.userId);
   const mail = invitationMail({
     orgName: access.org.name,
@@ -64,16 +80,28 @@ export async function createInvitation(access: OrgAccess, input: InviteInput, no
       .innerJoin(users, eq(users.id, memberships.userId))
       .where(and(eq(memberships.orgId, access.org.id), eq(users.email, input.email)))
       .limit(1);
-    if (member.length) throw conflict(`${input.email} is already a member.`, [{ path: "email", message: "Already a member of this organisation." }]);
+    if (member.length)
+      throw conflict(`${input.email} is already a member.`, [
+        { path: "email", message: "Already a member of this organisation." },
+      ]);
     const pending = await tx
       .select({ id: invitations.id })
       .from(invitations)
-      .where(and(eq(invitations.orgId, access.org.id), eq(invitations.email, input.email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now)))
+      .where(
+        and(
+          eq(invitations.orgId, access.org.id),
+          eq(invitations.email, input.email),
+          isNull(invitations.acceptedAt),
+          isNull(invitations.revokedAt),
+          gt(invitations.expiresAt, now),
+        ),
+      )
       .limit(1);
     if (pending.length) {
-      throw conflict(`${input.email} already has a pending invitation. Re-send it from the list below.`, [
-        { path: "email", message: "Already invited; use Re-send in the pending list." },
-      ]);
+      throw conflict(
+        `${input.email} already has a pending invitation. Re-send it from the list below.`,
+        [{ path: "email", message: "Already invited; use Re-send in the pending list." }],
+      );
     }
     await assertSeatFree(tx, access.org.id, now);
     const id = crypto.randomUUID();
@@ -89,10 +117,21 @@ export async function createInvitation(access: OrgAccess, input: InviteInput, no
     });
     await recordAuditEvent(
       access.org.id,
-      { action: "invitation.created", actorUserId: access.userId, targetType: "invitation", targetId: id, metadata: { email: input.email, role: input.role } },
+      {
+        action: "invitation.created",
+        actorUserId: access.userId,
+        targetType: "invitation",
+        targetId: id,
+        metadata: { email: input.email, role: input.role },
+      },
       tx,
     );
-    const issued = await issueAndSend(tx, access, { id, email: input.email, role: input.role }, now);
+    const issued = await issueAndSend(
+      tx,
+      access,
+      { id, email: input.email, role: input.role },
+      now,
+    );
     return { id, ...issued };
   });
 }
@@ -106,7 +145,8 @@ async function lockOpenInvitation(tx: Tx, orgId: string, invitationId: string) {
   const row = rows[0];
   if (!row) throw notFound("No such invitation in this organisation.");
   if (row.acceptedAt) throw conflict(`${row.email} has already accepted this invitation.`);
-  if (row.revokedAt) throw conflict(`This invitation was revoked. Invite ${row.email} again instead.`);
+  if (row.revokedAt)
+    throw conflict(`This invitation was revoked. Invite ${row.email} again instead.`);
   return row;
 }
 
@@ -118,7 +158,13 @@ export async function resendInvitation(access: OrgAccess, invitationId: string, 
     if (row.expiresAt <= now) await assertSeatFree(tx, access.org.id, now);
     await recordAuditEvent(
       access.org.id,
-      { action: "invitation.resent", actorUserId: access.userId, targetType: "invitation", targetId: row.id, metadata: { email: row.email } },
+      {
+        action: "invitation.resent",
+        actorUserId: access.userId,
+        targetType: "invitation",
+        targetId: row.id,
+        metadata: { email: row.email },
+      },
       tx,
     );
     const issued = await issueAndSend(tx, access, row, now);
@@ -132,7 +178,13 @@ export async function revokeInvitation(access: OrgAccess, invitationId: string) 
     await tx.update(invitations).set({ revokedAt: new Date() }).where(eq(invitations.id, row.id));
     await recordAuditEvent(
       access.org.id,
-      { action: "invitation.revoked", actorUserId: access.userId, targetType: "invitation", targetId: row.id, metadata: { email: row.email } },
+      {
+        action: "invitation.revoked",
+        actorUserId: access.userId,
+        targetType: "invitation",
+        targetId: row.id,
+        metadata: { email: row.email },
+      },
       tx,
     );
     return { email: row.email };
@@ -143,17 +195,26 @@ export async function revokeInvitation(access: OrgAccess, invitationId: string) 
  * Accepts an invitation for a signed-in user whose e-mail matches it: creates
  * the membership with the invited role and marks the invitation used.
  */
-export async function acceptInvitation(token: string, user: { id: string; email: string | null }, now = new Date()) {
+export async function acceptInvitation(
+  token: string,
+  user: { id: string; email: string | null },
+  now = new Date(),
+) {
   const verified = verifyInvitationToken(env.AUTH_SECRET, token, now);
   if (!verified.ok) throw invitationLinkProblem(verified.problem);
   return db.transaction(async (tx) => {
-    const rows = await tx.select().from(invitations).where(eq(invitations.tokenHash, hashInvitationToken(token))).for("update");
+    const rows = await tx
+      .select()
+      .from(invitations)
+      .where(eq(invitations.tokenHash, hashInvitationToken(token)))
+      .for("update");
     const row = rows[0];
     if (!row || row.id !== verified.invitationId) throw invitationLinkProblem("unknown");
     if (row.acceptedAt) throw invitationLinkProblem("used");
     if (row.revokedAt) throw invitationLinkProblem("revoked");
     if (row.expiresAt <= now) throw invitationLinkProblem("expired");
-    if (!user.email || user.email.toLowerCase() !== row.email.toLowerCase()) throw wrongRecipient(row.email, user.email);
+    if (!user.email || user.email.toLowerCase() !== row.email.toLowerCase())
+      throw wrongRecipient(row.email, user.email);
     const existing = await tx
       .select({ id: memberships.id })
       .from(memberships)
@@ -164,7 +225,13 @@ export async function acceptInvitation(token: string, user: { id: string; email:
     await tx.update(invitations).set({ acceptedAt: now }).where(eq(invitations.id, row.id));
     await recordAuditEvent(
       row.orgId,
-      { action: "invitation.accepted", actorUserId: user.id, targetType: "invitation", targetId: row.id, metadata: { email: row.email, role: row.role } },
+      {
+        action: "invitation.accepted",
+        actorUserId: user.id,
+        targetType: "invitation",
+        targetId: row.id,
+        metadata: { email: row.email, role: row.role },
+      },
       tx,
     );
     return { orgId: row.orgId, role: row.role };

@@ -11,7 +11,10 @@ export const inviteOp = defineOperation({
   schema: inviteSchema,
   run: async (input, access) => {
     await createInvitation(access, input);
-    return { status: "success", message: `Invitation sent to ${input.email} as ${ROLE_LABELS[input.role]}.` };
+    return {
+      status: "success",
+      message: `Invitation sent to ${input.email} as ${ROLE_LABELS[input.role]}.`,
+    };
   },
 });
 
@@ -21,7 +24,10 @@ export const resendInvitationOp = defineOperation({
   schema: invitationIdSchema,
   run: async (input, access) => {
     const { email } = await resendInvitation(access, input.invitationId);
-    return { status: "success", message: `A new link was sent to ${email}; the previous one no longer works.` };
+    return {
+      status: "success",
+      message: `A new link was sent to ${email}; the previous one no longer works.`,
+    };
   },
 });
 

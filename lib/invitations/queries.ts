@@ -21,26 +21,60 @@ export async function listOpenInvitations(orgId: string) {
     })
     .from(invitations)
     .leftJoin(users, eq(users.id, invitations.invitedById))
-    .where(and(eq(invitations.orgId, orgId), isNull(invitations.acceptedAt), isNull(invitations.revokedAt)))
+    .where(
+      and(
+        eq(invitations.orgId, orgId),
+        isNull(invitations.acceptedAt),
+        isNull(invitations.revokedAt),
+      ),
+    )
     .orderBy(desc(invitations.createdAt));
 }
 
-export async function hasPendingInvitation(orgId: string, email: string, now = new Date()): Promise<boolean> {
+export async function hasPendingInvitation(
+  orgId: string,
+  email: string,
+  now = new Date(),
+): Promise<boolean> {
   const rows = await db
     .select({ id: invitations.id })
     .from(invitations)
-    .where(and(eq(invitations.orgId, orgId), eq(invitations.email, email), isNull(invitations.acceptedAt), isNull(invitations.revokedAt), gt(invitations.expiresAt, now)))
+    .where(
+      and(
+        eq(invitations.orgId, orgId),
+        eq(invitations.email, email),
+        isNull(invitations.acceptedAt),
+        isNull(invitations.revokedAt),
+        gt(invitations.expiresAt, now),
+      ),
+    )
     .limit(1);
   return rows.length > 0;
 }
 
 export type InvitationPreview =
-  | { ok: true; id: string; email: string; role: (typeof invitations.$inferSelect)["role"]; orgId: string; orgName: string; inviterName: string | null; expiresAt: Date }
+  | {
+      ok: true;
+      id: string;
+      email: string;
+      role: (typeof invitations.$inferSelect)["role"];
+      orgId: string;
+      orgName: string;
+      inviterName: string | null;
+      expiresAt: Date;
+    }
   | { ok: false; problem: LinkProblem; detail: string };
 
 /** What an invitation link points at, or why it cannot be used (for the invite page). */
-export async function previewInvitation(token: string, now = new Date()): Promise<InvitationPreview> {
-  const fail = (problem: LinkProblem): InvitationPreview => ({ ok: false, problem, detail: invitationLinkProblem(problem).problem.detail });
+export async function previewInvitation(
+  token: string,
+  now = new Date(),
+): Promise<InvitationPreview> {
+  const fail = (problem: LinkProblem): InvitationPreview => ({
+    ok: false,
+    problem,
+    detail: invitationLinkProblem(problem).problem.detail,
+  });
   const verified = verifyInvitationToken(env.AUTH_SECRET, token, now);
   if (!verified.ok) return fail(verified.problem);
   const rows = await db

@@ -8,7 +8,9 @@ export const inviteSchema = z.object({
   role: z.enum(ASSIGNABLE_ROLES, { error: "Choose viewer, member or admin." }),
 });
 
-export const invitationIdSchema = z.object({ invitationId: z.uuid({ error: "Choose an invitation." }) });
+export const invitationIdSchema = z.object({
+  invitationId: z.uuid({ error: "Choose an invitation." }),
+});
 
 export const acceptInvitationSchema = z.object({ token: z.string().min(10).max(400) });
 

@@ -15,7 +15,8 @@ import { createHash, createHmac, randomBytes, timingSafeEqual } from "node:crypt
 export const INVITATION_TTL_DAYS = 7;
 
 export type TokenProblem = "malformed" | "forged" | "expired";
-export type VerifiedToken = { ok: true; invitationId: string; expiresAt: Date } | { ok: false; problem: TokenProblem };
+export type VerifiedToken =
+  { ok: true; invitationId: string; expiresAt: Date } | { ok: false; problem: TokenProblem };
 
 const b64 = (buf: Buffer | string) => Buffer.from(buf).toString("base64url");
 
@@ -28,15 +29,24 @@ export function signInvitationToken(secret: string, invitationId: string, expire
   return `${b64(payload)}.${b64(mac(secret, payload))}`;
 }
 
-export function verifyInvitationToken(secret: string, token: string, now = new Date()): VerifiedToken {
+export function verifyInvitationToken(
+  secret: string,
+  token: string,
+  now = new Date(),
+): VerifiedToken {
   const parts = token.split(".");
-  if (parts.length !== 2 || !/^[A-Za-z0-9_-]+$/.test(parts[0]) || !/^[A-Za-z0-9_-]{43}$/.test(parts[1])) {
+  if (
+    parts.length !== 2 ||
+    !/^[A-Za-z0-9_-]+$/.test(parts[0]) ||
+    !/^[A-Za-z0-9_-]{43}$/.test(parts[1])
+  ) {
     return { ok: false, problem: "malformed" };
   }
   const payload = Buffer.from(parts[0], "base64url").toString("utf8");
   const expected = mac(secret, payload);
   const given = Buffer.from(parts[1], "base64url");
-  if (given.length !== expected.length || !timingSafeEqual(given, expected)) return { ok: false, problem: "forged" };
+  if (given.length !== expected.length || !timingSafeEqual(given, expected))
+    return { ok: false, problem: "forged" };
   const match = /^([0-9a-f-]{36})\.(\d{1,12})\.[A-Za-z0-9_-]{22}$/.exec(payload);
   if (!match) return { ok: false, problem: "malformed" };
   const expiresAt = new Date(Number(match[2]) * 1000);

@@ -14,11 +14,17 @@ import { getCircuitOrThrow, getObservableOrThrow } from "./queries";
 import type { CircuitCreateInput, ObservableCreateInput } from "./schemas";
 
 const taken = (kind: string, name: string) =>
-  conflict(`A saved ${kind} named "${name}" already exists in this organisation; pick another name.`, [
-    { path: "name", message: "already taken" },
-  ]);
+  conflict(
+    `A saved ${kind} named "${name}" already exists in this organisation; pick another name.`,
+    [{ path: "name", message: "already taken" }],
+  );
 
-export async function createCircuit(orgId: string, userId: string | null, input: CircuitCreateInput, qubits: number) {
+export async function createCircuit(
+  orgId: string,
+  userId: string | null,
+  input: CircuitCreateInput,
+  qubits: number,
+) {
   const id = randomUUID();
   try {
     await db.insert(circuits).values({
@@ -39,7 +45,12 @@ export async function createCircuit(orgId: string, userId: string | null, input:
   return getCircuitOrThrow(orgId, id);
 }
 
-export async function createObservable(orgId: string, userId: string | null, input: ObservableCreateInput, qubits: number) {
+export async function createObservable(
+  orgId: string,
+  userId: string | null,
+  input: ObservableCreateInput,
+  qubits: number,
+) {
   const id = randomUUID();
   try {
     await db.insert(observables).values({
@@ -51,8 +62,16 @@ export async function createObservable(orgId: string, userId: string | null, inp
       tags: [...new Set(input.tags)],
       // A JSON term list is kept as the equivalent Pauli-sum text (same numbers, same words).
       format: input.format === "terms" ? "pauli" : input.format,
-      terms: input.format === "pauli" ? input.terms : input.format === "terms" ? pauliTermsToText(input.terms) : null,
-      matrix: input.format === "matrix" ? { real: input.real, ...(input.imag ? { imag: input.imag } : {}) } : null,
+      terms:
+        input.format === "pauli"
+          ? input.terms
+          : input.format === "terms"
+            ? pauliTermsToText(input.terms)
+            : null,
+      matrix:
+        input.format === "matrix"
+          ? { real: input.real, ...(input.imag ? { imag: input.imag } : {}) }
+          : null,
       qubits,
     });
   } catch (error) {
@@ -64,11 +83,15 @@ export async function createObservable(orgId: string, userId: string | null, inp
 
 /** Deletes a saved circuit; false when this organisation has no such item. */
 export async function deleteCircuit(orgId: string, id: string): Promise<boolean> {
-  const [result] = await db.delete(circuits).where(and(eq(circuits.orgId, orgId), eq(circuits.id, id)));
+  const [result] = await db
+    .delete(circuits)
+    .where(and(eq(circuits.orgId, orgId), eq(circuits.id, id)));
   return result.affectedRows > 0;
 }
 
 export async function deleteObservable(orgId: string, id: string): Promise<boolean> {
-  const [result] = await db.delete(observables).where(and(eq(observables.orgId, orgId), eq(observables.id, id)));
+  const [result] = await db
+    .delete(observables)
+    .where(and(eq(observables.orgId, orgId), eq(observables.id, id)));
   return result.affectedRows > 0;
 }

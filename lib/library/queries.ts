@@ -12,14 +12,20 @@ import type { LibraryListQuery } from "./schemas";
 
 type Table = typeof circuits | typeof observables;
 
-const isUuid = (value: string) => /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
+const isUuid = (value: string) =>
+  /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i.test(value);
 
 function listConditions(table: Table, orgId: string, query: LibraryListQuery): SQL | undefined {
   const conditions: (SQL | undefined)[] = [eq(table.orgId, orgId)];
   if (query.tag) conditions.push(sql`JSON_CONTAINS(${table.tags}, ${JSON.stringify(query.tag)})`);
   if (query.cursor) {
     const after = decodeCursor(query.cursor);
-    conditions.push(or(lt(table.createdAt, after.time), and(eq(table.createdAt, after.time), lt(table.id, after.id))));
+    conditions.push(
+      or(
+        lt(table.createdAt, after.time),
+        and(eq(table.createdAt, after.time), lt(table.id, after.id)),
+      ),
+    );
   }
   return and(...conditions);
 }
@@ -58,7 +64,11 @@ export async function listObservables(orgId: string, query: LibraryListQuery) {
 
 export async function getCircuitOrThrow(orgId: string, id: string) {
   const rows = isUuid(id)
-    ? await db.select().from(circuits).where(and(eq(circuits.orgId, orgId), eq(circuits.id, id))).limit(1)
+    ? await db
+        .select()
+        .from(circuits)
+        .where(and(eq(circuits.orgId, orgId), eq(circuits.id, id)))
+        .limit(1)
     : [];
   if (!rows[0]) throw notFound("No saved circuit with this id in this organisation.");
   return rows[0];
@@ -66,7 +76,11 @@ export async function getCircuitOrThrow(orgId: string, id: string) {
 
 export async function getObservableOrThrow(orgId: string, id: string) {
   const rows = isUuid(id)
-    ? await db.select().from(observables).where(and(eq(observables.orgId, orgId), eq(observables.id, id))).limit(1)
+    ? await db
+        .select()
+        .from(observables)
+        .where(and(eq(observables.orgId, orgId), eq(observables.id, id)))
+        .limit(1)
     : [];
   if (!rows[0]) throw notFound("No saved observable with this id in this organisation.");
   return rows[0];

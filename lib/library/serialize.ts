@@ -2,7 +2,10 @@
 import type { CircuitRow, ObservableRow } from "@/db/schema";
 import type { CircuitView, ObservableView } from "./schemas";
 
-type Common = Pick<CircuitRow, "id" | "name" | "description" | "tags" | "qubits" | "createdByUserId" | "createdAt" | "updatedAt">;
+type Common = Pick<
+  CircuitRow,
+  "id" | "name" | "description" | "tags" | "qubits" | "createdByUserId" | "createdAt" | "updatedAt"
+>;
 
 export function commonView(row: Common) {
   return {
@@ -22,9 +25,15 @@ export function toCircuitView(row: CircuitRow): CircuitView {
 }
 
 export function toObservableView(row: ObservableRow): ObservableView {
-  if (row.format === "pauli") return { ...commonView(row), format: "pauli", terms: row.terms ?? "" };
+  if (row.format === "pauli")
+    return { ...commonView(row), format: "pauli", terms: row.terms ?? "" };
   const matrix = row.matrix ?? { real: [[0]] };
-  return { ...commonView(row), format: "matrix", real: matrix.real, ...(matrix.imag ? { imag: matrix.imag } : {}) };
+  return {
+    ...commonView(row),
+    format: "matrix",
+    real: matrix.real,
+    ...(matrix.imag ? { imag: matrix.imag } : {}),
+  };
 }
 
 export function toSummaryView<F extends string>(row: Common & { format: F }) {

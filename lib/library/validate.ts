@@ -5,7 +5,13 @@
  * field paths point into the library request (`source`, `terms`, `real`…).
  */
 import { ProblemError } from "@/lib/api/problem";
-import { isEngineError, parseMatrixObservable, parsePauliSum, parsePauliTerms, parseProgram } from "@/lib/quantum";
+import {
+  isEngineError,
+  parseMatrixObservable,
+  parsePauliSum,
+  parsePauliTerms,
+  parseProgram,
+} from "@/lib/quantum";
 import { engineProblem } from "@/lib/runs/problems";
 import type { CircuitCreateInput, ObservableCreateInput } from "./schemas";
 
@@ -15,7 +21,10 @@ function engineChecked<T>(work: () => T): T {
   } catch (error) {
     if (!isEngineError(error)) throw error;
     // Request paths are ["circuit", "source"] / ["observable", "terms"]; library bodies are flat.
-    const issues = error.issues.map((i) => ({ ...i, path: i.path[0] === "circuit" || i.path[0] === "observable" ? i.path.slice(1) : i.path }));
+    const issues = error.issues.map((i) => ({
+      ...i,
+      path: i.path[0] === "circuit" || i.path[0] === "observable" ? i.path.slice(1) : i.path,
+    }));
     throw new ProblemError(engineProblem({ code: error.code, message: error.message, issues }));
   }
 }

@@ -6,6 +6,11 @@
 export { magicLinkMail } from "./templates/magic-link";
 export { accountExistsMail } from "./templates/account-exists";
 export { invitationMail, type InvitationMailData } from "./templates/invitation";
-export { invoiceAvailableMail, paymentFailedMail, type InvoiceMailData, type PaymentFailedMailData } from "./templates/billing";
+export {
+  invoiceAvailableMail,
+  paymentFailedMail,
+  type InvoiceMailData,
+  type PaymentFailedMailData,
+} from "./templates/billing";
 export { runFinishedMailFrom, type RunFinishedMailData } from "./templates/run-finished";
 export type { RenderedMail } from "./templates/layout";

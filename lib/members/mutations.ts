@@ -19,7 +19,12 @@ import type { AssignableRole } from "./schemas";
 
 async function lockMembers(tx: Tx, orgId: string) {
   return tx
-    .select({ userId: memberships.userId, role: memberships.role, email: users.email, name: users.name })
+    .select({
+      userId: memberships.userId,
+      role: memberships.role,
+      email: users.email,
+      name: users.name,
+    })
     .from(memberships)
     .innerJoin(users, eq(users.id, memberships.userId))
     .where(eq(memberships.orgId, orgId))
@@ -38,7 +43,9 @@ function guardOwner(access: OrgAccess, members: Locked, target: Locked[number], 
   if (target.role !== "owner") return;
   if (access.role !== "owner") throw forbidden(`Only an owner can ${verb} an owner.`);
   if (members.filter((m) => m.role === "owner").length <= 1) {
-    throw conflict(`${target.name ?? target.email} is the last owner. Transfer ownership to someone else first.`);
+    throw conflict(
+      `${target.name ?? target.email} is the last owner. Transfer ownership to someone else first.`,
+    );
   }
 }
 
@@ -48,7 +55,10 @@ export async function changeMemberRole(access: OrgAccess, userId: string, role: 
     const target = targetOf(members, userId);
     if (target.role === role) return { changed: false, target };
     guardOwner(access, members, target, "change the role of");
-    await tx.update(memberships).set({ role }).where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, userId)));
+    await tx
+      .update(memberships)
+      .set({ role })
+      .where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, userId)));
     await auditKeysOfCreator(tx, access, userId, role);
     await recordAuditEvent(
       access.org.id,
@@ -73,9 +83,21 @@ export async function changeMemberRole(access: OrgAccess, userId: string, role: 
  */
 async function auditKeysOfCreator(tx: Tx, access: OrgAccess, userId: string, newRole: Role | null) {
   const keys = await tx
-    .select({ id: apiKeys.id, name: apiKeys.name, prefix: apiKeys.prefix, role: apiKeys.role, scope: apiKeys.scope })
+    .select({
+      id: apiKeys.id,
+      name: apiKeys.name,
+      prefix: apiKeys.prefix,
+      role: apiKeys.role,
+      scope: apiKeys.scope,
+    })
     .from(apiKeys)
-    .where(and(eq(apiKeys.orgId, access.org.id), eq(apiKeys.createdById, userId), isNull(apiKeys.revokedAt)));
+    .where(
+      and(
+        eq(apiKeys.orgId, access.org.id),
+        eq(apiKeys.createdById, userId),
+        isNull(apiKeys.revokedAt),
+      ),
+    );
   for (const key of keys) {
     if (newRole && roleAtLeast(newRole, key.role)) continue;
     await recordAuditEvent(
@@ -85,7 +107,13 @@ async function auditKeysOfCreator(tx: Tx, access: OrgAccess, userId: string, new
         actorUserId: access.userId,
         targetType: "api_key",
         targetId: key.id,
-        metadata: { name: key.name, prefix: key.prefix, scope: key.scope, keyRole: key.role, ...(newRole ? { actsAs: newRole } : {}) },
+        metadata: {
+          name: key.name,
+          prefix: key.prefix,
+          scope: key.scope,
+          keyRole: key.role,
+          ...(newRole ? { actsAs: newRole } : {}),
+        },
       },
       tx,
     );
@@ -93,11 +121,22 @@ async function auditKeysOfCreator(tx: Tx, access: OrgAccess, userId: string, new
 }
 
 /** Revokes the personal keys one user holds in one organisation (organisation keys stay). */
-export async function revokePersonalKeys(executor: Executor, orgId: string, userId: string): Promise<number> {
+export async function revokePersonalKeys(
+  executor: Executor,
+  orgId: string,
+  userId: string,
+): Promise<number> {
   const [result] = await executor
     .update(apiKeys)
     .set({ revokedAt: new Date() })
-    .where(and(eq(apiKeys.orgId, orgId), eq(apiKeys.createdById, userId), eq(apiKeys.scope, "personal"), isNull(apiKeys.revokedAt)));
+    .where(
+      and(
+        eq(apiKeys.orgId, orgId),
+        eq(apiKeys.createdById, userId),
+        eq(apiKeys.scope, "personal"),
+        isNull(apiKeys.revokedAt),
+      ),
+    );
   return result.affectedRows;
 }
 
@@ -106,7 +145,9 @@ export async function removeMember(access: OrgAccess, userId: string) {
     const members = await lockMembers(tx, access.org.id);
     const target = targetOf(members, userId);
     guardOwner(access, members, target, "remove");
-    await tx.delete(memberships).where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, userId)));
+    await tx
+      .delete(memberships)
+      .where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, userId)));
     const revokedKeys = await revokePersonalKeys(tx, access.org.id, userId);
     await auditKeysOfCreator(tx, access, userId, null);
     await recordAuditEvent(
@@ -116,7 +157,12 @@ export async function removeMember(access: OrgAccess, userId: string) {
         actorUserId: access.userId,
         targetType: "user",
         targetId: userId,
-        metadata: { email: target.email, role: target.role, revokedKeys, self: userId === access.userId },
+        metadata: {
+          email: target.email,
+          role: target.role,
+          revokedKeys,
+          self: userId === access.userId,
+        },
       },
       tx,
     );
@@ -127,15 +173,20 @@ export async function removeMember(access: OrgAccess, userId: string) {
 /** Makes `userId` an owner and the acting owner an admin. */
 export async function transferOwnership(access: OrgAccess, userId: string) {
   if (access.role !== "owner") throw forbidden("Only an owner can transfer ownership.");
-  if (userId === access.userId) throw conflict("You already own this organisation; choose another member.");
+  if (userId === access.userId)
+    throw conflict("You already own this organisation; choose another member.");
   return db.transaction(async (tx) => {
     const members = await lockMembers(tx, access.org.id);
     const target = targetOf(members, userId);
     const me = targetOf(members, access.userId);
     if (me.role !== "owner") throw forbidden("Only an owner can transfer ownership.");
-    if (target.role === "owner") throw conflict(`${target.name ?? target.email} is already an owner.`);
+    if (target.role === "owner")
+      throw conflict(`${target.name ?? target.email} is already an owner.`);
     const setRole = (id: string, role: Role) =>
-      tx.update(memberships).set({ role }).where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, id)));
+      tx
+        .update(memberships)
+        .set({ role })
+        .where(and(eq(memberships.orgId, access.org.id), eq(memberships.userId, id)));
     await setRole(userId, "owner");
     await setRole(access.userId, "admin");
     await recordAuditEvent(

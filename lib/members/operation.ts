@@ -30,12 +30,18 @@ export type Operation<S extends z.ZodType, T = unknown> = {
   run: (input: z.infer<S>, access: OrgAccess) => Promise<ActionState<T>>;
 };
 
-export function defineOperation<S extends z.ZodType, T = unknown>(op: Operation<S, T>): Operation<S, T> {
+export function defineOperation<S extends z.ZodType, T = unknown>(
+  op: Operation<S, T>,
+): Operation<S, T> {
   return op;
 }
 
 /** The server action for an operation; revalidates `path` (a layout path revalidates the pages below it). */
-export function operationAction<S extends z.ZodType, T>(op: Operation<S, T>, path: string, type?: "layout" | "page") {
+export function operationAction<S extends z.ZodType, T>(
+  op: Operation<S, T>,
+  path: string,
+  type?: "layout" | "page",
+) {
   return orgAction<S, T>(op.schema, { role: op.role }, async (input, access) => {
     const state = await op.run(input, access);
     if (state.status === "success") revalidatePath(path, type);
@@ -55,7 +61,8 @@ export async function runOperation<S extends z.ZodType, T>(
     const parsed = op.schema.safeParse(fields);
     if (!parsed.success) {
       const fieldErrors: Record<string, string[]> = {};
-      for (const { path, message } of zodFieldErrors(parsed.error)) (fieldErrors[path] ??= []).push(message);
+      for (const { path, message } of zodFieldErrors(parsed.error))
+        (fieldErrors[path] ??= []).push(message);
       return { status: "error", message: "Check the highlighted fields.", fieldErrors, code: 422 };
     }
     return await op.run(parsed.data, access);

@@ -6,7 +6,8 @@ import { changeMemberRole, removeMember, transferOwnership } from "./mutations";
 import { defineOperation } from "./operation";
 import { changeRoleSchema, removeMemberSchema, transferOwnershipSchema } from "./schemas";
 
-const who = (t: { name: string | null; email: string | null }) => t.name ?? t.email ?? "That member";
+const who = (t: { name: string | null; email: string | null }) =>
+  t.name ?? t.email ?? "That member";
 
 export const changeRoleOp = defineOperation({
   name: "member.change-role",
@@ -16,7 +17,9 @@ export const changeRoleOp = defineOperation({
     const { changed, target } = await changeMemberRole(access, input.userId, input.role);
     return {
       status: "success",
-      message: changed ? `${who(target)} is now ${ROLE_LABELS[input.role]}.` : `${who(target)} already is ${ROLE_LABELS[input.role]}.`,
+      message: changed
+        ? `${who(target)} is now ${ROLE_LABELS[input.role]}.`
+        : `${who(target)} already is ${ROLE_LABELS[input.role]}.`,
     };
   },
 });
@@ -27,8 +30,13 @@ export const removeMemberOp = defineOperation({
   schema: removeMemberSchema,
   run: async (input, access) => {
     const { target, revokedKeys } = await removeMember(access, input.userId);
-    const keys = revokedKeys ? ` ${revokedKeys} personal API key${revokedKeys === 1 ? " was" : "s were"} revoked.` : "";
-    return { status: "success", message: `${who(target)} was removed from ${access.org.name}.${keys}` };
+    const keys = revokedKeys
+      ? ` ${revokedKeys} personal API key${revokedKeys === 1 ? " was" : "s were"} revoked.`
+      : "";
+    return {
+      status: "success",
+      message: `${who(target)} was removed from ${access.org.name}.${keys}`,
+    };
   },
 });
 
@@ -43,6 +51,9 @@ export const transferOwnershipOp = defineOperation({
       ]);
     }
     const { target } = await transferOwnership(access, input.userId);
-    return { status: "success", message: `${who(target)} now owns ${access.org.name}; you are an admin.` };
+    return {
+      status: "success",
+      message: `${who(target)} now owns ${access.org.name}; you are an admin.`,
+    };
   },
 });

@@ -12,7 +12,9 @@ const userId = z.uuid({ error: "Choose a member." });
 
 export const changeRoleSchema = z.object({
   userId,
-  role: z.enum(ASSIGNABLE_ROLES, { error: "Choose viewer, member or admin (ownership is transferred separately)." }),
+  role: z.enum(ASSIGNABLE_ROLES, {
+    error: "Choose viewer, member or admin (ownership is transferred separately).",
+  }),
 });
 
 export const removeMemberSchema = z.object({ userId });

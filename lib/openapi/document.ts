@@ -15,7 +15,8 @@ export function buildOpenApiDocument(serverUrl?: string): Document {
   registry.registerComponent("securitySchemes", "bearerKey", {
     type: "http",
     scheme: "bearer",
-    description: "An organisation API key: `Authorization: Bearer kw_xxxxxxxx_…` (created on the API keys page, shown once).",
+    description:
+      "An organisation API key: `Authorization: Bearer kw_xxxxxxxx_…` (created on the API keys page, shown once).",
   });
   registry.registerComponent("securitySchemes", "session", {
     type: "apiKey",

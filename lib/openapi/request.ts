@@ -34,7 +34,9 @@ export async function readText(req: Request, maxBytes: number): Promise<string> 
       step = await reader.read();
     } catch {
       // The client went away mid-body (e.g. a debounced preview it replaced).
-      throw badRequest("The request body ended early: the connection was closed before it was complete.");
+      throw badRequest(
+        "The request body ended early: the connection was closed before it was complete.",
+      );
     }
     const { done, value } = step;
     if (done) break;
@@ -48,7 +50,11 @@ export async function readText(req: Request, maxBytes: number): Promise<string> 
   return Buffer.concat(chunks).toString("utf8");
 }
 
-export async function readJsonBody<S extends z.ZodType>(req: Request, schema: S, maxBytes: number): Promise<z.output<S>> {
+export async function readJsonBody<S extends z.ZodType>(
+  req: Request,
+  schema: S,
+  maxBytes: number,
+): Promise<z.output<S>> {
   const type = req.headers.get("content-type") ?? "";
   if (!/^application\/(?:[\w.+-]+\+)?json\b/i.test(type)) {
     throw new ProblemError({
@@ -63,16 +69,23 @@ export async function readJsonBody<S extends z.ZodType>(req: Request, schema: S,
   try {
     value = JSON.parse(text);
   } catch (error) {
-    throw badRequest(`The body is not valid JSON (${error instanceof Error ? error.message : "parse error"}).`);
+    throw badRequest(
+      `The body is not valid JSON (${error instanceof Error ? error.message : "parse error"}).`,
+    );
   }
   const parsed = schema.safeParse(value);
-  if (!parsed.success) throw validationFailed("The request body does not match the schema.", zodFieldErrors(parsed.error));
+  if (!parsed.success)
+    throw validationFailed(
+      "The request body does not match the schema.",
+      zodFieldErrors(parsed.error),
+    );
   return parsed.data;
 }
 
 export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.output<S> {
   const params = Object.fromEntries(new URL(req.url).searchParams);
   const parsed = schema.safeParse(params);
-  if (!parsed.success) throw badRequest("The query string is not valid.", zodFieldErrors(parsed.error));
+  if (!parsed.success)
+    throw badRequest("The query string is not valid.", zodFieldErrors(parsed.error));
   return parsed.data;
 }

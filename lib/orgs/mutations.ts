@@ -10,7 +10,6 @@ import { auditEvents, memberships, organizations } from "@/db/schema";
 import { orgNameSchema } from "@/lib/validation/names";
 import type { Role } from "./roles";
 
-
 export type AuditInput = {
   action: string;
   actorUserId?: string | null;
@@ -21,7 +20,11 @@ export type AuditInput = {
   ip?: string | null;
 };
 
-export async function recordAuditEvent(orgId: string, event: AuditInput, executor: Executor = db): Promise<void> {
+export async function recordAuditEvent(
+  orgId: string,
+  event: AuditInput,
+  executor: Executor = db,
+): Promise<void> {
   await executor.insert(auditEvents).values({ orgId, ...event });
 }
 
@@ -70,7 +73,12 @@ export async function createOrganization(
 }
 
 /** Adds a user to an organisation, or changes their role if already a member. */
-export async function upsertMembership(orgId: string, userId: string, role: Role, executor: Executor = db) {
+export async function upsertMembership(
+  orgId: string,
+  userId: string,
+  role: Role,
+  executor: Executor = db,
+) {
   await executor
     .insert(memberships)
     .values({ orgId, userId, role })

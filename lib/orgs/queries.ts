@@ -20,7 +20,10 @@ const orgSummary = {
 };
 
 /** The user's role in the organisation, with the organisation; null when not a member. */
-export async function getMembership(orgId: string, userId: string): Promise<MembershipWithOrg | null> {
+export async function getMembership(
+  orgId: string,
+  userId: string,
+): Promise<MembershipWithOrg | null> {
   const rows = await db
     .select({ org: orgSummary, role: memberships.role })
     .from(memberships)
@@ -61,7 +64,10 @@ export async function listMembers(orgId: string) {
 }
 
 export async function countMembers(orgId: string): Promise<number> {
-  const rows = await db.select({ id: memberships.id }).from(memberships).where(eq(memberships.orgId, orgId));
+  const rows = await db
+    .select({ id: memberships.id })
+    .from(memberships)
+    .where(eq(memberships.orgId, orgId));
   return rows.length;
 }
 
@@ -75,7 +81,10 @@ export async function findActiveApiKeyByHash(hash: string) {
     .select({ key: apiKeys, org: organizations, creatorRole: memberships.role })
     .from(apiKeys)
     .innerJoin(organizations, eq(organizations.id, apiKeys.orgId))
-    .leftJoin(memberships, and(eq(memberships.orgId, apiKeys.orgId), eq(memberships.userId, apiKeys.createdById)))
+    .leftJoin(
+      memberships,
+      and(eq(memberships.orgId, apiKeys.orgId), eq(memberships.userId, apiKeys.createdById)),
+    )
     .where(and(eq(apiKeys.hash, hash), isNull(apiKeys.revokedAt)))
     .limit(1);
   return rows[0] ?? null;

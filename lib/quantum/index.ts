@@ -36,7 +36,12 @@ export type { ParsedProgram, CircuitStats, ProgramInput, QasmFormat } from "./ci
 
 // Observables.
 export { parsePauliSum, type ParsedPauliSum, type TermOrigin } from "./observable/pauli-parse";
-export { parsePauliTerms, pauliTermsToText, type ParsedPauliTerms, type PauliTermInput } from "./observable/pauli-terms";
+export {
+  parsePauliTerms,
+  pauliTermsToText,
+  type ParsedPauliTerms,
+  type PauliTermInput,
+} from "./observable/pauli-terms";
 export { padPauliSum, sparseLabel, masksToWord } from "./observable/pauli-word";
 export { groupQubitWise, type MeasurementSetting } from "./observable/grouping";
 export {

@@ -29,7 +29,14 @@ export interface GateApplication {
  * `parts` are the primitive applications that realise it, in order.
  */
 export type CircuitOp =
-  | { kind: "gate"; name: string; qubits: number[]; params: number[]; parts: GateApplication[]; line: number }
+  | {
+      kind: "gate";
+      name: string;
+      qubits: number[];
+      params: number[];
+      parts: GateApplication[];
+      line: number;
+    }
   | { kind: "measure"; qubit: number; clbit: number; line: number }
   | { kind: "reset"; qubit: number; line: number }
   | { kind: "barrier"; qubits: number[]; line: number };
@@ -88,9 +95,16 @@ export interface NoiseModel {
   amplitudeDamping?: number;
   phaseDamping?: number;
   /** Readout error; `qubits["3"]` overrides the two rates for qubit 3. */
-  readout?: { p1Given0?: number; p0Given1?: number; qubits?: Record<string, { p1Given0?: number; p0Given1?: number }> };
+  readout?: {
+    p1Given0?: number;
+    p0Given1?: number;
+    qubits?: Record<string, { p1Given0?: number; p0Given1?: number }>;
+  };
   /** Overrides by gate name as written ("cx", "mygate", "ctrl @ x"); unset fields keep the defaults. */
-  gates?: Record<string, { depolarizing?: number; amplitudeDamping?: number; phaseDamping?: number }>;
+  gates?: Record<
+    string,
+    { depolarizing?: number; amplitudeDamping?: number; phaseDamping?: number }
+  >;
   /** Noise on every qubit a gate does NOT touch, after that gate (off unless given). */
   idle?: { depolarizing?: number; amplitudeDamping?: number; phaseDamping?: number };
 }

@@ -97,7 +97,13 @@ export async function reset(name: string, budget: Budget, key: string): Promise<
 
 /** The per-IP sign-in budget (skipped when the client IP is unknown). */
 export async function consumeSignInIp(ip: string | null): Promise<void> {
-  if (ip) await consume("signin-ip", BUDGETS.signInIp, ip, "Too many sign-in attempts from your network.");
+  if (ip)
+    await consume(
+      "signin-ip",
+      BUDGETS.signInIp,
+      ip,
+      "Too many sign-in attempts from your network.",
+    );
 }
 
 export async function consumeMagicLink(email: string, ip: string | null): Promise<void> {

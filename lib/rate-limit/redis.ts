@@ -12,7 +12,10 @@ let lastLogged = 0;
 
 export function getRedis(): Redis {
   if (!holder.client) {
-    const client = new Redis(env.REDIS_URL, { maxRetriesPerRequest: 2, enableAutoPipelining: true });
+    const client = new Redis(env.REDIS_URL, {
+      maxRetriesPerRequest: 2,
+      enableAutoPipelining: true,
+    });
     // Without a listener ioredis reports every failed reconnect as an unhandled
     // error event; callers already turn failed commands into 503s, so log once
     // a minute while Redis is unreachable.

@@ -15,7 +15,9 @@ export async function cancelRunForOrg(orgId: string, runId: string): Promise<Run
   const before = await getRunOrThrow(orgId, runId);
   if (before.status === "canceled") return before;
   if (before.status === "succeeded" || before.status === "failed") {
-    throw conflict(`The run already ${before.status === "succeeded" ? "succeeded" : "failed"}; only queued or running runs can be canceled.`);
+    throw conflict(
+      `The run already ${before.status === "succeeded" ? "succeeded" : "failed"}; only queued or running runs can be canceled.`,
+    );
   }
   const changed = await cancelRunRow(orgId, runId);
   const after = await getRunOrThrow(orgId, runId);

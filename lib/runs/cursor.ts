@@ -32,7 +32,11 @@ export function decodeCursor(cursor: string): CursorKey {
 }
 
 /** Splits a `limit + 1` fetch into the page and the next cursor. */
-export function paginate<T>(rows: T[], limit: number, key: (row: T) => CursorKey): { page: T[]; nextCursor: string | null } {
+export function paginate<T>(
+  rows: T[],
+  limit: number,
+  key: (row: T) => CursorKey,
+): { page: T[]; nextCursor: string | null } {
   if (rows.length <= limit) return { page: rows, nextCursor: null };
   const page = rows.slice(0, limit);
   return { page, nextCursor: encodeCursor(key(page[page.length - 1])) };

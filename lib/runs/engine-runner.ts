@@ -10,7 +10,11 @@ import type { EstimateRequest, EstimateResult } from "@/lib/quantum/schemas";
 
 export type EngineRunOutcome =
   | { kind: "result"; result: EstimateResult; elapsedMs: number }
-  | { kind: "engine-error"; error: { code: EngineErrorCode; message: string; issues: EngineIssue[] }; elapsedMs: number }
+  | {
+      kind: "engine-error";
+      error: { code: EngineErrorCode; message: string; issues: EngineIssue[] };
+      elapsedMs: number;
+    }
   | { kind: "aborted"; elapsedMs: number };
 
 export type EngineRunOptions = {

@@ -15,4 +15,7 @@ import type { Budget } from "@/lib/rate-limit";
 export const MAX_BODY_BYTES = 4 * 1024 * 1024;
 
 /** Run submissions per minute per person (their session and all keys they created together). */
-export const runSubmitBudget = (): Budget => ({ points: env.RUN_SUBMIT_LIMIT_PER_MINUTE, duration: 60 });
+export const runSubmitBudget = (): Budget => ({
+  points: env.RUN_SUBMIT_LIMIT_PER_MINUTE,
+  duration: 60,
+});

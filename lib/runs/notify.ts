@@ -15,7 +15,12 @@ import { runFinishedMail } from "./run-mail";
 
 export const NOTIFY_AFTER_MS = 60_000;
 
-export async function notifyIfLong(orgId: string, runId: string, elapsedMs: number, log: (m: string, e?: unknown) => void) {
+export async function notifyIfLong(
+  orgId: string,
+  runId: string,
+  elapsedMs: number,
+  log: (m: string, e?: unknown) => void,
+) {
   if (elapsedMs < NOTIFY_AFTER_MS) return;
   try {
     await enqueue("run.finished-mail", { orgId, runId }, { jobId: `mail-${runId}` });

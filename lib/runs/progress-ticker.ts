@@ -11,7 +11,10 @@ import { isCurrentAttempt, writeProgress } from "./execution-mutations";
 
 export const PROGRESS_INTERVAL_MS = 250;
 
-export type ProgressTicker = { report: (fraction: number, phase: string) => void; stop: () => Promise<void> };
+export type ProgressTicker = {
+  report: (fraction: number, phase: string) => void;
+  stop: () => Promise<void>;
+};
 
 export function startProgressTicker(
   run: { orgId: string; runId: string; attempt: number },

@@ -18,5 +18,7 @@ function canonical(value: unknown): unknown {
 }
 
 export function requestHash(value: unknown): string {
-  return createHash("sha256").update(JSON.stringify(canonical(value))).digest("hex");
+  return createHash("sha256")
+    .update(JSON.stringify(canonical(value)))
+    .digest("hex");
 }

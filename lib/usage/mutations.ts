@@ -9,17 +9,28 @@ import { and, eq, sql } from "drizzle-orm";
 import type { Tx } from "@/db";
 import { usageEvents, usageTotals } from "@/db/schema";
 
-
 export type RunUsage = { runs?: number; shots?: number; simulationSeconds?: number };
 
-export async function recordRunUsage(tx: Tx, orgId: string, runId: string, period: string, usage: RunUsage) {
+export async function recordRunUsage(
+  tx: Tx,
+  orgId: string,
+  runId: string,
+  period: string,
+  usage: RunUsage,
+) {
   const rows = [
     { metric: "runs" as const, quantity: usage.runs },
     { metric: "shots" as const, quantity: usage.shots },
     { metric: "simulation_seconds" as const, quantity: usage.simulationSeconds },
   ]
     .filter((r): r is { metric: typeof r.metric; quantity: number } => r.quantity !== undefined)
-    .map((r) => ({ orgId, runId, period, metric: r.metric, quantity: Math.round(r.quantity * 1e6) / 1e6 }));
+    .map((r) => ({
+      orgId,
+      runId,
+      period,
+      metric: r.metric,
+      quantity: Math.round(r.quantity * 1e6) / 1e6,
+    }));
   if (rows.length === 0) return;
   const [inserted] = await tx.insert(usageEvents).ignore().values(rows);
   if (inserted.affectedRows === 0) return;
@@ -27,7 +38,9 @@ export async function recordRunUsage(tx: Tx, orgId: string, runId: string, perio
     await tx
       .insert(usageTotals)
       .values(rows.map(({ metric, quantity }) => ({ orgId, period, metric, quantity })))
-      .onDuplicateKeyUpdate({ set: { quantity: sql`${usageTotals.quantity} + VALUES(${usageTotals.quantity})` } });
+      .onDuplicateKeyUpdate({
+        set: { quantity: sql`${usageTotals.quantity} + VALUES(${usageTotals.quantity})` },
+      });
     return;
   }
   // Some of this run's events existed already (not a path the app takes): rebuild the totals from the events.
@@ -36,7 +49,9 @@ export async function recordRunUsage(tx: Tx, orgId: string, runId: string, perio
 
 /** Recomputes an organisation's totals for a period from its usage events. */
 export async function rebuildUsageTotals(tx: Tx, orgId: string, period: string): Promise<void> {
-  await tx.delete(usageTotals).where(and(eq(usageTotals.orgId, orgId), eq(usageTotals.period, period)));
+  await tx
+    .delete(usageTotals)
+    .where(and(eq(usageTotals.orgId, orgId), eq(usageTotals.period, period)));
   await tx.execute(sql`
     INSERT INTO ${usageTotals} (org_id, period, metric, quantity)
     SELECT org_id, period, metric, SUM(quantity) FROM ${usageEvents}

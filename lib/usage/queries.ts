@@ -31,12 +31,16 @@ export type UnfinishedRuns = { queued: number; running: number; pendingShots: nu
  * false) the shots they will draw. Without shots the count reads the
  * (org_id, status, …) index only.
  */
-export async function getUnfinishedRuns(orgId: string, options: { shots?: boolean } = {}): Promise<UnfinishedRuns> {
+export async function getUnfinishedRuns(
+  orgId: string,
+  options: { shots?: boolean } = {},
+): Promise<UnfinishedRuns> {
   const rows = await db
     .select({
       status: runs.status,
       count: sql<string>`COUNT(*)`,
-      shots: options.shots === false ? sql<string>`0` : sql<string>`COALESCE(SUM(${runs.shots}), 0)`,
+      shots:
+        options.shots === false ? sql<string>`0` : sql<string>`COALESCE(SUM(${runs.shots}), 0)`,
     })
     .from(runs)
     .where(and(eq(runs.orgId, orgId), inArray(runs.status, ["queued", "running"])))
@@ -53,7 +57,11 @@ export async function getUnfinishedRuns(orgId: string, options: { shots?: boolea
 /** Usage rows of one run (tests and the run page's "what this cost"). */
 export async function listRunUsage(orgId: string, runId: string) {
   return db
-    .select({ metric: usageEvents.metric, quantity: usageEvents.quantity, period: usageEvents.period })
+    .select({
+      metric: usageEvents.metric,
+      quantity: usageEvents.quantity,
+      period: usageEvents.period,
+    })
     .from(usageEvents)
     .where(and(eq(usageEvents.orgId, orgId), eq(usageEvents.runId, runId)));
 }

@@ -40,9 +40,12 @@ export function evaluateQuota(
 ): QuotaVerdict {
   const refusals: QuotaVerdict["refusals"] = [];
   const maxQubits =
-    demand.method === "density_matrix" ? plan.limits.maxDensityMatrixQubits : plan.limits.maxStatevectorQubits;
+    demand.method === "density_matrix"
+      ? plan.limits.maxDensityMatrixQubits
+      : plan.limits.maxStatevectorQubits;
   if (demand.qubits > maxQubits) {
-    const key = demand.method === "density_matrix" ? "maxDensityMatrixQubits" : "maxStatevectorQubits";
+    const key =
+      demand.method === "density_matrix" ? "maxDensityMatrixQubits" : "maxStatevectorQubits";
     refusals.push({
       limit: "max_qubits",
       status: 402,
@@ -60,7 +63,9 @@ export function evaluateQuota(
         status: 402,
         detail:
           `The ${plan.name} plan includes ${fmt(quota)} shots a month; ${fmt(usage.shots)} are used in ${period}` +
-          (unfinished.pendingShots > 0 ? ` and ${fmt(unfinished.pendingShots)} are reserved by unfinished runs` : "") +
+          (unfinished.pendingShots > 0
+            ? ` and ${fmt(unfinished.pendingShots)} are reserved by unfinished runs`
+            : "") +
           `, so ${fmt(Math.max(0, quota - committed))} remain and this run needs ${fmt(demand.shots)}.` +
           upgradeHint(plan, () => true),
       });
@@ -94,7 +99,11 @@ export function evaluateQuota(
 }
 
 /** Loads the organisation's usage and evaluates the limits for a run. */
-export async function quotaVerdict(orgId: string, planId: string, demand: RunDemand): Promise<QuotaVerdict> {
+export async function quotaVerdict(
+  orgId: string,
+  planId: string,
+  demand: RunDemand,
+): Promise<QuotaVerdict> {
   const period = currentPeriod();
   const plan = getPlan(planId);
   // Pending shots only matter where shots are a hard cap (plans without overage).
@@ -107,7 +116,12 @@ export function assertAllowed(verdict: QuotaVerdict): void {
   const first = verdict.refusals.find((r) => r.status === 402) ?? verdict.refusals[0];
   if (!first) return;
   if (first.status === 402) {
-    throw new ProblemError({ type: "/problems/quota-exceeded", title: "Plan limit reached", status: 402, detail: first.detail });
+    throw new ProblemError({
+      type: "/problems/quota-exceeded",
+      title: "Plan limit reached",
+      status: 402,
+      detail: first.detail,
+    });
   }
   throw new ProblemError({
     type: "/problems/too-many-runs",

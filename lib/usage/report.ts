@@ -9,7 +9,10 @@ import type { UsageReport } from "./schemas";
 export async function getUsageReport(orgId: string, planId: string): Promise<UsageReport> {
   const plan = getPlan(planId);
   const period = currentPeriod();
-  const [usage, unfinished] = await Promise.all([getUsageTotals(orgId, period), getUnfinishedRuns(orgId)]);
+  const [usage, unfinished] = await Promise.all([
+    getUsageTotals(orgId, period),
+    getUnfinishedRuns(orgId),
+  ]);
   const overage = isPaidPlan(plan);
   const meter = (used: number, pending: number, included: number) => ({
     used,

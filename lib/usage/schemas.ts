@@ -5,8 +5,14 @@ const meter = (unit: string) =>
   z.object({
     used: z.number().describe(`Used this period (${unit})`),
     pending: z.number().describe("Reserved by queued and running runs"),
-    included: z.number().nullable().describe("Included in the plan each month (null = not limited)"),
-    remaining: z.number().nullable().describe("included − used − pending, never below 0 (null = not limited)"),
+    included: z
+      .number()
+      .nullable()
+      .describe("Included in the plan each month (null = not limited)"),
+    remaining: z
+      .number()
+      .nullable()
+      .describe("included − used − pending, never below 0 (null = not limited)"),
     overage: z.boolean().describe("True when use above `included` is billed instead of refused"),
   });
 
@@ -23,7 +29,9 @@ export const usageReportSchema = z
       queued: z.int(),
       running: z.int(),
       concurrentLimit: z.int().describe("Runs the plan executes at once; more wait queued"),
-      unfinishedLimit: z.int().describe("Queued + running runs accepted before submissions answer 429"),
+      unfinishedLimit: z
+        .int()
+        .describe("Queued + running runs accepted before submissions answer 429"),
     }),
     limits: z.object({
       maxStatevectorQubits: z.int(),

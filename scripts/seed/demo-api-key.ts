@@ -23,9 +23,14 @@ export async function ensureDemoApiKey(orgId: string): Promise<{ key: string; cr
   }
   const member = DEMO_USERS.find((u) => u.role === "member");
   const user = member ? await findUserByEmail(member.email) : null;
-  if (!user) throw new Error(`the demo member ${member?.email} is missing; seed the demo users first`);
+  if (!user)
+    throw new Error(`the demo member ${member?.email} is missing; seed the demo users first`);
   const access = await authorizeMember(user.id, orgId, "member");
-  const { key } = await createKey(access, { name: "Demo key (README example)", role: "member", scope: "personal" });
+  const { key } = await createKey(access, {
+    name: "Demo key (README example)",
+    role: "member",
+    scope: "personal",
+  });
   mkdirSync(".data", { recursive: true });
   writeFileSync(DEMO_API_KEY_FILE, `${key}\n`, { mode: 0o600 });
   return { key, created: true };

@@ -17,21 +17,24 @@ import { DEMO_USERS } from "./demo-data";
 export const DEMO_CIRCUITS = [
   {
     name: "Bell pair",
-    description: "Two qubits in (|00⟩ + |11⟩)/√2. Pair it with the correlator to check qubit order and sampling.",
+    description:
+      "Two qubits in (|00⟩ + |11⟩)/√2. Pair it with the correlator to check qubit order and sampling.",
     tags: ["starter", "bell"],
     format: "qasm2",
     source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nh q[0];\ncx q[0], q[1];\n',
   },
   {
     name: "Three-spin ansatz (θ)",
-    description: "One-parameter ansatz for the three-spin cluster: cos(θ/2)|000⟩ + sin(θ/2)|111⟩, qubit 0 first.",
+    description:
+      "One-parameter ansatz for the three-spin cluster: cos(θ/2)|000⟩ + sin(θ/2)|111⟩, qubit 0 first.",
     tags: ["ansatz", "cluster"],
     format: "qasm3",
     source: CLUSTER_ANSATZ,
   },
   {
     name: "Four-site lattice layer (a, b)",
-    description: "One hardware-style layer for the four-site chain: y rotations, a ladder of cx, z rotations.",
+    description:
+      "One hardware-style layer for the four-site chain: y rotations, a ladder of cx, z rotations.",
     tags: ["ansatz", "lattice"],
     format: "qasm3",
     source:
@@ -39,10 +42,12 @@ export const DEMO_CIRCUITS = [
   },
   {
     name: "Four-qubit cat state",
-    description: "(|0000⟩ + |1111⟩)/√2 — every ZZ pair correlates, every single Z averages to zero.",
+    description:
+      "(|0000⟩ + |1111⟩)/√2 — every ZZ pair correlates, every single Z averages to zero.",
     tags: ["starter"],
     format: "qasm2",
-    source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[4];\nh q[0];\ncx q[0], q[1];\ncx q[1], q[2];\ncx q[2], q[3];\n',
+    source:
+      'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[4];\nh q[0];\ncx q[0], q[1];\ncx q[1], q[2];\ncx q[2], q[3];\n',
   },
 ] as const;
 
@@ -56,7 +61,8 @@ export const DEMO_OBSERVABLES = [
   },
   {
     name: "Three-spin cluster (invented)",
-    description: "A three-spin chain with Ising coupling, two fields and two three-body terms; every coefficient invented for Ketwise. Try it with the three-spin ansatz and a sweep of θ.",
+    description:
+      "A three-spin chain with Ising coupling, two fields and two three-body terms; every coefficient invented for Ketwise. Try it with the three-spin ansatz and a sweep of θ.",
     tags: ["cluster", "invented"],
     format: "pauli",
     terms: CLUSTER_TERMS,
@@ -70,7 +76,8 @@ export const DEMO_OBSERVABLES = [
   },
   {
     name: "Parity of two qubits (matrix)",
-    description: "Z⊗Z written as a matrix, to try matrix observables (sampled in their eigenbasis).",
+    description:
+      "Z⊗Z written as a matrix, to try matrix observables (sampled in their eigenbasis).",
     tags: ["matrix"],
     format: "matrix",
     real: [
@@ -83,9 +90,24 @@ export const DEMO_OBSERVABLES = [
 ] as const;
 
 export async function seedDemoLibrary(orgId: string): Promise<{ created: number }> {
-  const [author] = await db.select({ id: users.id }).from(users).where(eq(users.email, DEMO_USERS[1].email)).limit(1);
-  const haveCircuits = new Set((await db.select({ name: circuits.name }).from(circuits).where(eq(circuits.orgId, orgId))).map((r) => r.name));
-  const haveObservables = new Set((await db.select({ name: observables.name }).from(observables).where(eq(observables.orgId, orgId))).map((r) => r.name));
+  const [author] = await db
+    .select({ id: users.id })
+    .from(users)
+    .where(eq(users.email, DEMO_USERS[1].email))
+    .limit(1);
+  const haveCircuits = new Set(
+    (await db.select({ name: circuits.name }).from(circuits).where(eq(circuits.orgId, orgId))).map(
+      (r) => r.name,
+    ),
+  );
+  const haveObservables = new Set(
+    (
+      await db
+        .select({ name: observables.name })
+        .from(observables)
+        .where(eq(observables.orgId, orgId))
+    ).map((r) => r.name),
+  );
   let created = 0;
   for (const item of DEMO_CIRCUITS) {
     if (haveCircuits.has(item.name)) continue;

@@ -29,17 +29,28 @@ export async function seedDemo(): Promise<{ orgId: string }> {
   const passwordHash = await hashPassword(DEMO_PASSWORD);
   const ids: string[] = [];
   for (const user of DEMO_USERS) ids.push(await ensureUser(user.name, user.email, passwordHash));
-  let [org] = await db.select().from(organizations).where(eq(organizations.slug, DEMO_ORG.slug)).limit(1);
+  let [org] = await db
+    .select()
+    .from(organizations)
+    .where(eq(organizations.slug, DEMO_ORG.slug))
+    .limit(1);
   if (!org) {
     await createOrganization({ name: DEMO_ORG.name, slug: DEMO_ORG.slug, ownerUserId: ids[0] });
-    [org] = await db.select().from(organizations).where(eq(organizations.slug, DEMO_ORG.slug)).limit(1);
+    [org] = await db
+      .select()
+      .from(organizations)
+      .where(eq(organizations.slug, DEMO_ORG.slug))
+      .limit(1);
   }
   for (const [i, user] of DEMO_USERS.entries()) await upsertMembership(org.id, ids[i], user.role);
   // Personal organisations come after the demo one, so the demo is what opens first.
   for (const [i, user] of DEMO_USERS.entries()) {
     const memberships = await listMembershipsForUser(ids[i]);
     if (!memberships.some((m) => m.role === "owner" && m.org.slug !== DEMO_ORG.slug)) {
-      await createOrganization({ name: personalOrgName(user.name, user.email), ownerUserId: ids[i] });
+      await createOrganization({
+        name: personalOrgName(user.name, user.email),
+        ownerUserId: ids[i],
+      });
     }
   }
   return { orgId: org.id };

@@ -12,15 +12,58 @@ export const ryAngle = (l: number, q: number): number => 0.1 + 0.37 * l + 0.61 *
 export const rzAngle = (l: number, q: number): number => 0.2 + 0.53 * l + 0.29 * q;
 
 export function ry(t: number): Float64Array {
-  const c = Math.cos(t / 2), s = Math.sin(t / 2);
+  const c = Math.cos(t / 2),
+    s = Math.sin(t / 2);
   return Float64Array.of(c, 0, -s, 0, s, 0, c, 0);
 }
 
 export function rz(t: number): Float64Array {
-  return Float64Array.of(Math.cos(t / 2), -Math.sin(t / 2), 0, 0, 0, 0, Math.cos(t / 2), Math.sin(t / 2));
+  return Float64Array.of(
+    Math.cos(t / 2),
+    -Math.sin(t / 2),
+    0,
+    0,
+    0,
+    0,
+    Math.cos(t / 2),
+    Math.sin(t / 2),
+  );
 }
 
-export const CX = Float64Array.of(1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 0, 1, 0, 0, 0);
+export const CX = Float64Array.of(
+  1,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  1,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  0,
+  1,
+  0,
+  0,
+  0,
+  0,
+  0,
+  1,
+  0,
+  0,
+  0,
+);
 
 function gate(name: string, qubits: number[], matrix: Float64Array, line: number): CircuitOp {
   const part: GateApplication = { name, qubits, matrix };

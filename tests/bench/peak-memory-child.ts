@@ -8,7 +8,9 @@ import { simulateStatevector } from "@/lib/quantum/statevector/simulate";
 import { layeredAnsatz } from "./ansatz";
 
 function kib(field: string): number {
-  const line = readFileSync("/proc/self/status", "utf8").split("\n").find((l) => l.startsWith(field));
+  const line = readFileSync("/proc/self/status", "utf8")
+    .split("\n")
+    .find((l) => l.startsWith(field));
   return line ? Number(line.replace(/\D+/g, " ").trim().split(" ")[0]) : NaN;
 }
 

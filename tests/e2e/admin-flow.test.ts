@@ -20,7 +20,8 @@ import { linkIn, waitForMail } from "../support/maildev";
 
 const FAKE_URL = `http://127.0.0.1:${process.env.PAYMENT_FAKE_PORT ?? 12111}`;
 /** The fake's own default when PAYMENT_FAKE_WEBHOOK_URL is unset (docker/payment-fake/README.md). */
-const DEV_WEBHOOK_URL = process.env.PAYMENT_FAKE_WEBHOOK_URL ?? "http://127.0.0.1:3000/api/webhooks/billing";
+const DEV_WEBHOOK_URL =
+  process.env.PAYMENT_FAKE_WEBHOOK_URL ?? "http://127.0.0.1:3000/api/webhooks/billing";
 const E2E_WEBHOOK_URL = `http://127.0.0.1:${E2E_PORT}/api/webhooks/billing`;
 
 async function fake<T>(path: string, body?: unknown): Promise<T> {
@@ -132,7 +133,9 @@ describe("organisation admin: invite, join, upgrade, audit", () => {
     await admin.getByLabel("Expiry (MM / YY)").fill("12 / 34");
     await admin.getByLabel("CVC").fill("123");
     await admin.getByRole("button", { name: /^Pay .* and subscribe$/ }).click();
-    await admin.waitForURL(new RegExp(`^${E2E_URL}/app/billing\\?checkout=success&session_id=${checkoutSessionId}$`));
+    await admin.waitForURL(
+      new RegExp(`^${E2E_URL}/app/billing\\?checkout=success&session_id=${checkoutSessionId}$`),
+    );
     await admin.getByText("Payment received — your new plan is active.").waitFor();
   });
 
@@ -140,7 +143,9 @@ describe("organisation admin: invite, join, upgrade, audit", () => {
     await admin.reload();
     // The "Plan" card's title is the plan's name with the subscription status beside it.
     await admin.getByRole("heading", { level: 2, name: /^Lab\s*active$/ }).waitFor();
-    const currentCard = admin.locator("div", { has: admin.getByText("Current plan", { exact: true }) }).last();
+    const currentCard = admin
+      .locator("div", { has: admin.getByText("Current plan", { exact: true }) })
+      .last();
     expect(await currentCard.getByRole("heading", { level: 2 }).textContent()).toBe("Lab");
     const invoice = admin.getByRole("row").filter({ hasText: "First month" });
     await invoice.waitFor();
@@ -157,14 +162,21 @@ describe("organisation admin: invite, join, upgrade, audit", () => {
     );
     const event = events.data.find((e) => e.data.object.id === checkoutSessionId);
     expect(event, "checkout.session.completed event for this session").toBeDefined();
-    const { data } = await fake<{ data: { url: string; status: string }[] }>(`/_fake/deliveries?event=${event!.id}`);
+    const { data } = await fake<{ data: { url: string; status: string }[] }>(
+      `/_fake/deliveries?event=${event!.id}`,
+    );
     expect(data.map((d) => [d.url, d.status])).toEqual([[E2E_WEBHOOK_URL, "succeeded"]]);
   });
 
   it("records the invitation, the join and the plan change in the audit log", async () => {
     await admin.goto(`${E2E_URL}/app/audit`);
     await admin.getByRole("heading", { level: 1, name: "Audit log" }).waitFor();
-    for (const label of ["Invitation sent", "Invitation accepted", "Checkout started", "Plan changed"]) {
+    for (const label of [
+      "Invitation sent",
+      "Invitation accepted",
+      "Checkout started",
+      "Plan changed",
+    ]) {
       await admin.getByRole("cell", { name: label }).first().waitFor();
     }
     await screenshot(admin, "admin-audit");

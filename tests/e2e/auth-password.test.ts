@@ -66,7 +66,9 @@ describe("sign up, sign out, sign in", () => {
   });
 
   it("signs out from the user menu, and a copy of the session cookie stops working", async () => {
-    const copied = (await page.context().cookies()).filter((c) => c.name.startsWith("authjs.session-token"));
+    const copied = (await page.context().cookies()).filter((c) =>
+      c.name.startsWith("authjs.session-token"),
+    );
     expect(copied.length).toBeGreaterThan(0);
     await page.getByRole("button", { name: /^Account:/ }).click();
     await page.getByRole("menuitem", { name: "Sign out", exact: true }).click();
@@ -85,9 +87,15 @@ describe("sign up, sign out, sign in", () => {
   it("answers a taken e-mail like a new one, and tells the owner by e-mail", async () => {
     const since = new Date();
     await page.goto(`${E2E_URL}/sign-up`);
-    await fillSignUp(page, { name: "Someone Else", email: email.toUpperCase(), password: "another fine password" });
+    await fillSignUp(page, {
+      name: "Someone Else",
+      email: email.toUpperCase(),
+      password: "another fine password",
+    });
     await page.waitForURL(/\/check-email\?.*for=sign-up/);
-    await page.getByText("if the address already has an account, it tells you how to sign in").waitFor();
+    await page
+      .getByText("if the address already has an account, it tells you how to sign in")
+      .waitFor();
     await waitForMail(email, since, 20_000, /already have a Ketwise account/);
   });
 
@@ -136,7 +144,9 @@ describe("sign up, sign out, sign in", () => {
 
   it("sends an expired session back to sign-in with a clear message", async () => {
     const context = await browser.newContext();
-    await context.addCookies([{ name: "authjs.session-token", value: "expired.or.garbage", url: E2E_URL }]);
+    await context.addCookies([
+      { name: "authjs.session-token", value: "expired.or.garbage", url: E2E_URL },
+    ]);
     const p = await context.newPage();
     await p.goto(`${E2E_URL}/app`);
     await p.waitForURL(/\/sign-in\?.*error=SessionExpired/);

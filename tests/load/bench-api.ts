@@ -226,12 +226,26 @@ async function previewOnly(key: string, procs: Proc[]): Promise<void> {
 async function previewPhase(key: string): Promise<[string, string, string][]> {
   log("light requests alone, then while one client loops the heaviest allowed preview (20 s each)");
   const r = await previewIsolationPhase(BASE, key);
-  log(`  alone p95 ${r.baseline.p95} ms; with heavy previews p95 ${r.loaded.p95} ms; heavy: ${r.heavy.count} (${r.heavy.statuses}), median ${Math.round(r.heavy.medianMs)} ms`);
+  log(
+    `  alone p95 ${r.baseline.p95} ms; with heavy previews p95 ${r.loaded.p95} ms; heavy: ${r.heavy.count} (${r.heavy.statuses}), median ${Math.round(r.heavy.medianMs)} ms`,
+  );
   return [
-    ["GET /api/v1/usage, 10 connections, alone: p95", `${r.baseline.p95} ms (${r.baseline.requests} requests, ${r.baseline.errors} errors)`, "—"],
-    ["… while one client loops the heaviest allowed preview: p95", `${r.loaded.p95} ms (${r.loaded.requests} requests, ${r.loaded.errors} errors)`, "< 100 ms"],
+    [
+      "GET /api/v1/usage, 10 connections, alone: p95",
+      `${r.baseline.p95} ms (${r.baseline.requests} requests, ${r.baseline.errors} errors)`,
+      "—",
+    ],
+    [
+      "… while one client loops the heaviest allowed preview: p95",
+      `${r.loaded.p95} ms (${r.loaded.requests} requests, ${r.loaded.errors} errors)`,
+      "< 100 ms",
+    ],
     ["… ratio loaded : alone (p95)", (r.loaded.p95 / r.baseline.p95).toFixed(2), "—"],
-    [`heaviest allowed preview (${(r.bodyBytes / 1024).toFixed(0)} KiB body): answers, median`, `${r.heavy.statuses}; ${Math.round(r.heavy.medianMs)} ms`, "—"],
+    [
+      `heaviest allowed preview (${(r.bodyBytes / 1024).toFixed(0)} KiB body): answers, median`,
+      `${r.heavy.statuses}; ${Math.round(r.heavy.medianMs)} ms`,
+      "—",
+    ],
   ];
 }
 
@@ -243,7 +257,10 @@ async function main(): Promise<void> {
       await previewOnly(key, procs);
     } finally {
       await Promise.all(procs.map((p) => p.stop()));
-      await db.delete(organizations).where(eq(organizations.id, orgId)).catch(() => {});
+      await db
+        .delete(organizations)
+        .where(eq(organizations.id, orgId))
+        .catch(() => {});
       await closeQueue();
       await closeDb();
     }

@@ -7,8 +7,18 @@ import { spawn, type ChildProcess } from "node:child_process";
 
 export type Proc = { child: ChildProcess; output: () => string; stop: () => Promise<void> };
 
-function start(command: string, args: string[], env: Record<string, string>, ready: (out: string) => boolean, what: string): Promise<Proc> {
-  const child = spawn(command, args, { env: { ...process.env, ...env }, stdio: ["ignore", "pipe", "pipe"], detached: true });
+function start(
+  command: string,
+  args: string[],
+  env: Record<string, string>,
+  ready: (out: string) => boolean,
+  what: string,
+): Promise<Proc> {
+  const child = spawn(command, args, {
+    env: { ...process.env, ...env },
+    stdio: ["ignore", "pipe", "pipe"],
+    detached: true,
+  });
   let out = "";
   child.stdout!.on("data", (d: Buffer) => (out = (out + d.toString()).slice(-20_000)));
   child.stderr!.on("data", (d: Buffer) => (out = (out + d.toString()).slice(-20_000)));
@@ -42,7 +52,13 @@ function start(command: string, args: string[], env: Record<string, string>, rea
 }
 
 export async function startServer(port: number, env: Record<string, string>): Promise<Proc> {
-  const server = await start("npx", ["next", "start", "-H", "127.0.0.1", "-p", String(port)], env, (o) => /Ready in|ready/i.test(o), "next start");
+  const server = await start(
+    "npx",
+    ["next", "start", "-H", "127.0.0.1", "-p", String(port)],
+    env,
+    (o) => /Ready in|ready/i.test(o),
+    "next start",
+  );
   // Ready means listening; the first request compiles nothing in production but loads route modules.
   for (let i = 0; i < 100; i++) {
     const res = await fetch(`http://127.0.0.1:${port}/api/v1/openapi.json`).catch(() => null);

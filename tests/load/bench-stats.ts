@@ -13,5 +13,7 @@ export function table(rows: [string, string, string][]): string {
   const all = [head, ...rows];
   const width = [0, 1, 2].map((i) => Math.max(...all.map((r) => r[i].length)));
   const line = (r: string[]) => `| ${r.map((c, i) => c.padEnd(width[i])).join(" | ")} |`;
-  return [line(head), `|${width.map((w) => "-".repeat(w + 2)).join("|")}|`, ...rows.map(line)].join("\n");
+  return [line(head), `|${width.map((w) => "-".repeat(w + 2)).join("|")}|`, ...rows.map(line)].join(
+    "\n",
+  );
 }

@@ -11,7 +11,8 @@ import { E2E_PORT, E2E_URL } from "./e2e-config";
 async function waitForServer(url: string, timeoutMs: number, alive: () => boolean): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
-    if (!alive()) throw new Error("the e2e app server exited during start-up (see its output above)");
+    if (!alive())
+      throw new Error("the e2e app server exited during start-up (see its output above)");
     try {
       const res = await fetch(url, { signal: AbortSignal.timeout(2000) });
       if (res.ok) return;
@@ -42,7 +43,10 @@ export default async function setup(): Promise<() => Promise<void>> {
   };
   const build = spawnSync(
     "bash",
-    ["-c", 'source scripts/lib/common.sh && source scripts/lib/build.sh && build_if_stale .next-e2e'],
+    [
+      "-c",
+      "source scripts/lib/common.sh && source scripts/lib/build.sh && build_if_stale .next-e2e",
+    ],
     { env, stdio: "inherit" },
   );
   if (build.status !== 0) throw new Error("next build for the e2e tests failed (see output above)");

@@ -54,12 +54,21 @@ export async function addMember(orgId: string, userId: string, role: Role): Prom
  * organisation's first owner (a key acts with at most its creator's role, and
  * a key without a member behind it is disabled).
  */
-export async function createTestApiKey(orgId: string, role: Role, createdById?: string, scope: "personal" | "organization" = "personal") {
+export async function createTestApiKey(
+  orgId: string,
+  role: Role,
+  createdById?: string,
+  scope: "personal" | "organization" = "personal",
+) {
   const creator = createdById ?? (await firstOwner(orgId));
   // Through the same module as the API-keys page: the key's role is at most its creator's.
   const keyRole = KEY_ROLES.find((r) => r === role);
   if (!keyRole) throw new Error(`an API key cannot have the ${role} role`);
-  return createKey(await authorizeMember(creator, orgId), { name: `test ${role} key`, role: keyRole, scope });
+  return createKey(await authorizeMember(creator, orgId), {
+    name: `test ${role} key`,
+    role: keyRole,
+    scope,
+  });
 }
 
 async function firstOwner(orgId: string): Promise<string> {
@@ -74,7 +83,10 @@ async function firstOwner(orgId: string): Promise<string> {
 }
 
 /** A session cookie as Auth.js would set it after sign-in (JWT with a live server-side session id, salt = cookie name). */
-export async function sessionCookie(userId: string, options: { maxAgeSeconds?: number } = {}): Promise<string> {
+export async function sessionCookie(
+  userId: string,
+  options: { maxAgeSeconds?: number } = {},
+): Promise<string> {
   const name = "authjs.session-token";
   const secret = process.env.AUTH_SECRET;
   if (!secret) throw new Error("AUTH_SECRET is not set");

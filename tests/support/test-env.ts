@@ -8,7 +8,10 @@ import { existsSync } from "node:fs";
 if (existsSync(".env.local")) process.loadEnvFile(".env.local");
 
 const url = process.env.DATABASE_URL;
-if (!url) throw new Error("DATABASE_URL is not set: run `npm test` (it creates .env.local and the services).");
+if (!url)
+  throw new Error(
+    "DATABASE_URL is not set: run `npm test` (it creates .env.local and the services).",
+  );
 const match = /^(mysql:\/\/[^/]+\/)([A-Za-z0-9_]+)(.*)$/.exec(url);
 if (!match) throw new Error(`DATABASE_URL is malformed: ${url.replace(/:[^:@/]*@/, ":***@")}`);
 const [, base, name, rest] = match;

@@ -15,14 +15,21 @@ const PASS_EVERY_MS = 60 * 60_000;
 
 export async function reportOverageJob(job: OverageJob): Promise<string> {
   const outcome = await reportOverage(job.orgId, job.period);
-  const what = outcome.skipped ?? (outcome.sent.map((s) => `${s.metric} ${s.quantity}`).join(", ") || "no overage");
+  const what =
+    outcome.skipped ??
+    (outcome.sent.map((s) => `${s.metric} ${s.quantity}`).join(", ") || "no overage");
   log(`overage ${job.orgId} ${job.period}: ${what}`);
   return what;
 }
 
 export async function queueOveragePass(): Promise<number> {
   const due = await findUnreportedPeriods();
-  for (const { orgId, period } of due) await enqueue("billing.report-overage", { orgId, period }, { jobId: `overage-${orgId}-${period}` });
+  for (const { orgId, period } of due)
+    await enqueue(
+      "billing.report-overage",
+      { orgId, period },
+      { jobId: `overage-${orgId}-${period}` },
+    );
   return due.length;
 }
 

@@ -18,17 +18,20 @@ export default async function CheckEmailPage({
   return (
     <div className="grid gap-6">
       <div className="grid gap-1.5">
-        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">Check your e-mail</h1>
+        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">
+          Check your e-mail
+        </h1>
         {afterSignUp ? (
           <p className="text-sm leading-6 text-ink-2">
-            We sent a message to {email ? <strong className="font-medium text-ink">{email}</strong> : "that address"}.
-            For a new account it holds a sign-in link (it works once and expires in 15 minutes); if the address
-            already has an account, it tells you how to sign in.
+            We sent a message to{" "}
+            {email ? <strong className="font-medium text-ink">{email}</strong> : "that address"}.
+            For a new account it holds a sign-in link (it works once and expires in 15 minutes); if
+            the address already has an account, it tells you how to sign in.
           </p>
         ) : (
           <p className="text-sm leading-6 text-ink-2">
-            If {email ? <strong className="font-medium text-ink">{email}</strong> : "that address"} can sign
-            in, a link is on its way. It works once and expires in 15 minutes.
+            If {email ? <strong className="font-medium text-ink">{email}</strong> : "that address"}{" "}
+            can sign in, a link is on its way. It works once and expires in 15 minutes.
           </p>
         )}
       </div>

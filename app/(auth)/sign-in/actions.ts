@@ -19,8 +19,10 @@ export const signInWithPasswordAction = formAction(signInSchema.extend(callback)
   try {
     await signIn("credentials", { email: input.email, password: input.password, redirect: false });
   } catch (error) {
-    if (error instanceof RateLimitedSignIn) return { status: "error", message: error.detail, code: 429 };
-    if (error instanceof AuthError) return { status: "error", message: WRONG_CREDENTIALS_MESSAGE, code: 401 };
+    if (error instanceof RateLimitedSignIn)
+      return { status: "error", message: error.detail, code: 429 };
+    if (error instanceof AuthError)
+      return { status: "error", message: WRONG_CREDENTIALS_MESSAGE, code: 401 };
     throw error;
   }
   // This browser now counts as the account's own: other sources' failures never slow it down.
@@ -29,20 +31,27 @@ export const signInWithPasswordAction = formAction(signInSchema.extend(callback)
 });
 
 /** Sends a one-time sign-in link; the same answer whether or not the e-mail has an account. */
-export const requestMagicLinkAction = formAction(magicLinkSchema.extend(callback), async (input) => {
-  await consumeMagicLink(input.email, clientIp(await headers()));
-  try {
-    await signIn("nodemailer", {
-      email: input.email,
-      redirect: false,
-      redirectTo: safeCallbackPath(input.callbackUrl),
-    });
-  } catch (error) {
-    if (error instanceof AuthError) {
-      console.error("[ketwise] magic-link e-mail failed", error);
-      return { status: "error", message: "We couldn't send the e-mail just now. Try again in a minute.", code: 503 };
+export const requestMagicLinkAction = formAction(
+  magicLinkSchema.extend(callback),
+  async (input) => {
+    await consumeMagicLink(input.email, clientIp(await headers()));
+    try {
+      await signIn("nodemailer", {
+        email: input.email,
+        redirect: false,
+        redirectTo: safeCallbackPath(input.callbackUrl),
+      });
+    } catch (error) {
+      if (error instanceof AuthError) {
+        console.error("[ketwise] magic-link e-mail failed", error);
+        return {
+          status: "error",
+          message: "We couldn't send the e-mail just now. Try again in a minute.",
+          code: 503,
+        };
+      }
+      throw error;
     }
-    throw error;
-  }
-  redirect(`/check-email?email=${encodeURIComponent(input.email)}`);
-});
+    redirect(`/check-email?email=${encodeURIComponent(input.email)}`);
+  },
+);

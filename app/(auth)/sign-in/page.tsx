@@ -29,7 +29,9 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   return (
     <div className="grid gap-6">
       <div className="grid gap-1.5">
-        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">Sign in to Ketwise</h1>
+        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">
+          Sign in to Ketwise
+        </h1>
         <p className="text-sm text-ink-2">
           New here?{" "}
           <Link href="/sign-up" className="font-medium text-accent-ink hover:underline">
@@ -51,7 +53,10 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
         </Alert>
       ) : null}
 
-      <nav aria-label="Sign-in method" className="grid grid-cols-2 rounded-lg border border-line bg-surface-2 p-1">
+      <nav
+        aria-label="Sign-in method"
+        className="grid grid-cols-2 rounded-lg border border-line bg-surface-2 p-1"
+      >
         {(
           [
             ["password", "Password"],

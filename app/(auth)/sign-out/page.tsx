@@ -12,7 +12,9 @@ export default async function SignOutPage() {
   if (!user) {
     return (
       <div className="grid gap-4">
-        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">You are signed out</h1>
+        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">
+          You are signed out
+        </h1>
         <Link href="/sign-in" className={buttonClasses({ className: "w-fit" })}>
           Sign in
         </Link>
@@ -22,7 +24,9 @@ export default async function SignOutPage() {
   return (
     <div className="grid gap-6">
       <div className="grid gap-1.5">
-        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">Sign out of Ketwise?</h1>
+        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">
+          Sign out of Ketwise?
+        </h1>
         <p className="text-sm text-ink-2">
           You are signed in as <strong className="font-medium text-ink">{user.email}</strong>.
         </p>

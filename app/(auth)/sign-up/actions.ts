@@ -19,7 +19,11 @@ export const signUpAction = formAction(signUpSchema, async (input) => {
   const outcome = await registerAccount(input);
   if (outcome === "created") {
     try {
-      await signIn("nodemailer", { email: input.email, redirect: false, redirectTo: "/app?welcome=1" });
+      await signIn("nodemailer", {
+        email: input.email,
+        redirect: false,
+        redirectTo: "/app?welcome=1",
+      });
     } catch (error) {
       if (!(error instanceof AuthError)) throw error;
       console.error("[ketwise] sign-up link e-mail failed", error);

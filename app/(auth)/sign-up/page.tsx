@@ -11,7 +11,9 @@ export default async function SignUpPage() {
   return (
     <div className="grid gap-6">
       <div className="grid gap-1.5">
-        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">Create your Ketwise account</h1>
+        <h1 className="text-[22px] leading-8 font-semibold tracking-[-0.015em] text-ink">
+          Create your Ketwise account
+        </h1>
         <p className="text-sm text-ink-2">
           You get a personal organisation on the free Sandbox plan; invite your team later.
         </p>

@@ -14,10 +14,22 @@ export function SignUpForm() {
     <form action={action} className="grid gap-4" noValidate>
       <FormStatus state={state} />
       <Field label="Name" error={fieldError(state, "name")}>
-        <Input name="name" autoComplete="name" defaultValue={typedValue(state, "name")} required autoFocus />
+        <Input
+          name="name"
+          autoComplete="name"
+          defaultValue={typedValue(state, "name")}
+          required
+          autoFocus
+        />
       </Field>
       <Field label="Work e-mail" error={fieldError(state, "email")}>
-        <Input name="email" type="email" autoComplete="email" defaultValue={typedValue(state, "email")} required />
+        <Input
+          name="email"
+          type="email"
+          autoComplete="email"
+          defaultValue={typedValue(state, "email")}
+          required
+        />
       </Field>
       <Field
         label="Password"

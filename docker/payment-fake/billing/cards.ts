@@ -17,10 +17,24 @@ export interface TestCard {
   charge: Decline | null;
 }
 
-const GENERIC: Decline = { code: "card_declined", decline_code: "generic_decline", message: "Your card was declined." };
+const GENERIC: Decline = {
+  code: "card_declined",
+  decline_code: "generic_decline",
+  message: "Your card was declined.",
+};
 
-const ok = (brand: string, funding: TestCard["funding"] = "credit"): TestCard => ({ brand, funding, attach: null, charge: null });
-const declines = (decline: Decline): TestCard => ({ brand: "visa", funding: "credit", attach: decline, charge: decline });
+const ok = (brand: string, funding: TestCard["funding"] = "credit"): TestCard => ({
+  brand,
+  funding,
+  attach: null,
+  charge: null,
+});
+const declines = (decline: Decline): TestCard => ({
+  brand: "visa",
+  funding: "credit",
+  attach: decline,
+  charge: decline,
+});
 
 export const TEST_CARDS: Record<string, TestCard> = {
   "4242424242424242": ok("visa"),
@@ -35,8 +49,16 @@ export const TEST_CARDS: Record<string, TestCard> = {
     decline_code: "insufficient_funds",
     message: "Your card has insufficient funds.",
   }),
-  "4000000000009987": declines({ code: "card_declined", decline_code: "lost_card", message: "Your card was declined." }),
-  "4000000000000069": declines({ code: "expired_card", decline_code: "expired_card", message: "Your card has expired." }),
+  "4000000000009987": declines({
+    code: "card_declined",
+    decline_code: "lost_card",
+    message: "Your card was declined.",
+  }),
+  "4000000000000069": declines({
+    code: "expired_card",
+    decline_code: "expired_card",
+    message: "Your card has expired.",
+  }),
   "4000000000000127": declines({
     code: "incorrect_cvc",
     decline_code: "incorrect_cvc",
@@ -87,7 +109,9 @@ export interface ValidCard {
   exp_year: number;
 }
 
-export type CardCheck = { ok: true; value: ValidCard } | { ok: false; decline: Decline; field: "number" | "expiry" | "cvc" };
+export type CardCheck =
+  | { ok: true; value: ValidCard }
+  | { ok: false; decline: Decline; field: "number" | "expiry" | "cvc" };
 
 /**
  * Validates what a person typed into a card form. `nowUnix` is the
@@ -96,7 +120,11 @@ export type CardCheck = { ok: true; value: ValidCard } | { ok: false; decline: D
 export function checkCardInput(input: CardInput, nowUnix: number): CardCheck {
   const number = input.number.replace(/[\s-]/g, "");
   if (!/^\d{12,19}$/.test(number) || !luhnValid(number)) {
-    return { ok: false, field: "number", decline: { code: "incorrect_number", message: "Your card number is incorrect." } };
+    return {
+      ok: false,
+      field: "number",
+      decline: { code: "incorrect_number", message: "Your card number is incorrect." },
+    };
   }
   const card = TEST_CARDS[number];
   if (!card) {
@@ -106,26 +134,55 @@ export function checkCardInput(input: CardInput, nowUnix: number): CardCheck {
       decline: {
         code: "card_declined",
         decline_code: "test_mode_live_card",
-        message: "Your card was declined. This is a test payment page: use one of the documented test card numbers.",
+        message:
+          "Your card was declined. This is a test payment page: use one of the documented test card numbers.",
       },
     };
   }
   const m = /^\s*(\d{1,2})\s*\/\s*(\d{2}|\d{4})\s*$/.exec(input.expiry);
   if (!m) {
-    return { ok: false, field: "expiry", decline: { code: "invalid_expiry_month", message: "Your card's expiration date is incomplete (use MM / YY)." } };
+    return {
+      ok: false,
+      field: "expiry",
+      decline: {
+        code: "invalid_expiry_month",
+        message: "Your card's expiration date is incomplete (use MM / YY).",
+      },
+    };
   }
   const month = Number(m[1]);
   const year = m[2].length === 2 ? 2000 + Number(m[2]) : Number(m[2]);
   if (month < 1 || month > 12) {
-    return { ok: false, field: "expiry", decline: { code: "invalid_expiry_month", message: "Your card's expiration month is invalid." } };
+    return {
+      ok: false,
+      field: "expiry",
+      decline: {
+        code: "invalid_expiry_month",
+        message: "Your card's expiration month is invalid.",
+      },
+    };
   }
   const now = new Date(nowUnix * 1000);
-  if (year < now.getUTCFullYear() || (year === now.getUTCFullYear() && month < now.getUTCMonth() + 1)) {
-    return { ok: false, field: "expiry", decline: { code: "invalid_expiry_year", message: "Your card's expiration date is in the past." } };
+  if (
+    year < now.getUTCFullYear() ||
+    (year === now.getUTCFullYear() && month < now.getUTCMonth() + 1)
+  ) {
+    return {
+      ok: false,
+      field: "expiry",
+      decline: {
+        code: "invalid_expiry_year",
+        message: "Your card's expiration date is in the past.",
+      },
+    };
   }
   const cvcLength = card.brand === "amex" ? 4 : 3;
   if (!new RegExp(`^\\d{${cvcLength}}$`).test(input.cvc.trim())) {
-    return { ok: false, field: "cvc", decline: { code: "invalid_cvc", message: "Your card's security code is invalid." } };
+    return {
+      ok: false,
+      field: "cvc",
+      decline: { code: "invalid_cvc", message: "Your card's security code is invalid." },
+    };
   }
   return { ok: true, value: { number, card, exp_month: month, exp_year: year } };
 }

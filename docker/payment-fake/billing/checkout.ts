@@ -35,7 +35,14 @@ export function completeCheckout(
   form: CardInput & { email: string; name: string },
 ): CheckoutResult {
   if (!refreshSessionStatus(fake, s)) {
-    return { ok: false, field: "session", message: s.status === "complete" ? "This checkout is already complete." : "This checkout session has expired." };
+    return {
+      ok: false,
+      field: "session",
+      message:
+        s.status === "complete"
+          ? "This checkout is already complete."
+          : "This checkout session has expired.",
+    };
   }
   const email = s.customer ? null : (s.customer_email ?? form.email.trim());
   if (email !== null && !/^[^\s@]+@[^\s@]+\.[^\s@]+$/.test(email)) {
@@ -49,8 +56,13 @@ export function completeCheckout(
     if (failure) return declined(failure);
   }
 
-  const customer = s.customer ? fake.state.customers[s.customer] : createCustomer(fake, email!, form.name.trim() || null);
-  const pm = createPaymentMethod(fake, check.value, { name: form.name.trim() || null, email: customer.email });
+  const customer = s.customer
+    ? fake.state.customers[s.customer]
+    : createCustomer(fake, email!, form.name.trim() || null);
+  const pm = createPaymentMethod(fake, check.value, {
+    name: form.name.trim() || null,
+    email: customer.email,
+  });
   attachPaymentMethod(fake, pm, customer.id, false);
   const sub = startSubscription(fake, {
     customer: customer.id,

@@ -45,7 +45,11 @@ function nextDue(fake: Fake): DueItem | null {
       const paid = attemptPayment(fake, inv, { automatic: true });
       const sub = inv.subscription ? fake.state.subscriptions[inv.subscription] : undefined;
       if (!paid && inv.next_payment_attempt === null && sub && sub.status !== "canceled") {
-        endSubscription(fake, sub, { at: fake.now(sub.customer), reason: "payment_failed", finalInvoice: false });
+        endSubscription(fake, sub, {
+          at: fake.now(sub.customer),
+          reason: "payment_failed",
+          finalInvoice: false,
+        });
       }
     });
   }

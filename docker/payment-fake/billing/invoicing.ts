@@ -123,10 +123,15 @@ function markPaid(fake: Fake, inv: InvoiceRec, pmId: string | null): void {
  * a manual attempt (hosted page, `invoices.pay`) does not move it. Returns
  * whether the invoice is now paid.
  */
-export function attemptPayment(fake: Fake, inv: InvoiceRec, opts: { automatic: boolean; paymentMethod?: string }): boolean {
+export function attemptPayment(
+  fake: Fake,
+  inv: InvoiceRec,
+  opts: { automatic: boolean; paymentMethod?: string },
+): boolean {
   if (inv.status !== "open") return inv.status === "paid";
   const sub = inv.subscription ? fake.state.subscriptions[inv.subscription] : null;
-  const pmId = opts.paymentMethod ?? paymentMethodFor(fake, inv.customer, sub?.default_payment_method ?? null);
+  const pmId =
+    opts.paymentMethod ?? paymentMethodFor(fake, inv.customer, sub?.default_payment_method ?? null);
   const decline = chargeDecline(fake, inv.customer, pmId);
   inv.attempted = true;
   inv.attempt_count += 1;

@@ -20,7 +20,9 @@ function describeLicensed(fake: Fake, price: PriceRec, quantity: number): string
 }
 
 function describeMetered(fake: Fake, price: PriceRec, quantity: number): string {
-  const per = price.transform_quantity ? ` per ${price.transform_quantity.divide_by.toLocaleString("en-US")}` : "";
+  const per = price.transform_quantity
+    ? ` per ${price.transform_quantity.divide_by.toLocaleString("en-US")}`
+    : "";
   return `${quantity.toLocaleString("en-US")} × ${productName(fake, price)} (at ${formatUnitDecimal(price.unit_amount_decimal, price.currency)}${per})`;
 }
 
@@ -28,7 +30,12 @@ export function isMetered(price: PriceRec): boolean {
   return price.recurring?.usage_type === "metered";
 }
 
-export function licensedLines(fake: Fake, sub: SubscriptionRec, start: number, end: number): LineInput[] {
+export function licensedLines(
+  fake: Fake,
+  sub: SubscriptionRec,
+  start: number,
+  end: number,
+): LineInput[] {
   const lines: LineInput[] = [];
   for (const item of sub.items) {
     const price = priceOf(fake, item.price);
@@ -52,7 +59,12 @@ export function licensedLines(fake: Fake, sub: SubscriptionRec, start: number, e
   return lines;
 }
 
-export function meteredLines(fake: Fake, sub: SubscriptionRec, start: number, end: number): LineInput[] {
+export function meteredLines(
+  fake: Fake,
+  sub: SubscriptionRec,
+  start: number,
+  end: number,
+): LineInput[] {
   const lines: LineInput[] = [];
   for (const item of sub.items) {
     const price = priceOf(fake, item.price);
@@ -78,7 +90,9 @@ export function meteredLines(fake: Fake, sub: SubscriptionRec, start: number, en
 
 /** Pending prorations of a subscription, marked as now belonging to an invoice by the caller. */
 export function pendingItems(fake: Fake, subscriptionId: string): InvoiceItemRec[] {
-  return Object.values(fake.state.invoiceItems).filter((ii) => ii.subscription === subscriptionId && ii.invoice === null);
+  return Object.values(fake.state.invoiceItems).filter(
+    (ii) => ii.subscription === subscriptionId && ii.invoice === null,
+  );
 }
 
 export function itemLines(fake: Fake, items: InvoiceItemRec[]): LineInput[] {

@@ -13,14 +13,18 @@ export function decimalToScaled(decimal: string): bigint {
 
 /** round_half_up(quantity × unitDecimal) for a non-negative integer quantity. */
 export function lineAmount(quantity: number, unitDecimal: string): number {
-  if (!Number.isSafeInteger(quantity) || quantity < 0) throw new RangeError(`quantity must be a non-negative integer, got ${quantity}`);
+  if (!Number.isSafeInteger(quantity) || quantity < 0)
+    throw new RangeError(`quantity must be a non-negative integer, got ${quantity}`);
   const product = BigInt(quantity) * decimalToScaled(unitDecimal);
   return Number((product + SCALE / 2n) / SCALE);
 }
 
 /** Formats cents, e.g. 2900 → "$29.00", -450 → "−$4.50". */
 export function formatCents(cents: number, currency = "usd"): string {
-  const text = new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(Math.abs(cents) / 100);
+  const text = new Intl.NumberFormat("en-US", {
+    style: "currency",
+    currency: currency.toUpperCase(),
+  }).format(Math.abs(cents) / 100);
   return cents < 0 ? `-${text}` : text;
 }
 
@@ -37,5 +41,10 @@ export function formatUnitDecimal(decimal: string, currency = "usd"): string {
 }
 
 export function formatDate(unix: number): string {
-  return new Date(unix * 1000).toLocaleDateString("en-GB", { day: "numeric", month: "short", year: "numeric", timeZone: "UTC" });
+  return new Date(unix * 1000).toLocaleDateString("en-GB", {
+    day: "numeric",
+    month: "short",
+    year: "numeric",
+    timeZone: "UTC",
+  });
 }

@@ -47,7 +47,12 @@ export function createPaymentMethod(
 }
 
 /** Attaches a saved card to a customer and, optionally, makes it the default. */
-export function attachPaymentMethod(fake: Fake, pm: PaymentMethodRec, customerId: string, makeDefault: boolean): void {
+export function attachPaymentMethod(
+  fake: Fake,
+  pm: PaymentMethodRec,
+  customerId: string,
+  makeDefault: boolean,
+): void {
   const customer = fake.state.customers[customerId];
   pm.customer = customerId;
   fake.emit("payment_method.attached", renderPaymentMethod(pm), undefined, customerId);
@@ -64,14 +69,23 @@ export function attachPaymentMethod(fake: Fake, pm: PaymentMethodRec, customerId
  */
 export function chargeError(decline: Decline): ApiError {
   if (decline.code === NO_PAYMENT_METHOD.code) {
-    return invalidRequest("This customer has no attached payment source or default payment method.", undefined, "resource_missing");
+    return invalidRequest(
+      "This customer has no attached payment source or default payment method.",
+      undefined,
+      "resource_missing",
+    );
   }
   return cardError(decline);
 }
 
 /** A failure queued for this customer (or anyone), used up unless `peek`. */
 export function queuedFailure(fake: Fake, customerId: string | null, peek = false): Decline | null {
-  const key = customerId && (fake.state.failNext[customerId] ?? 0) > 0 ? customerId : (fake.state.failNext["*"] ?? 0) > 0 ? "*" : null;
+  const key =
+    customerId && (fake.state.failNext[customerId] ?? 0) > 0
+      ? customerId
+      : (fake.state.failNext["*"] ?? 0) > 0
+        ? "*"
+        : null;
   if (!key) return null;
   if (!peek) {
     fake.state.failNext[key] -= 1;
@@ -81,7 +95,12 @@ export function queuedFailure(fake: Fake, customerId: string | null, peek = fals
 }
 
 /** Why a charge on this card for this customer would fail, or null if it succeeds. */
-export function chargeDecline(fake: Fake, customerId: string, pmId: string | null, opts: { peek?: boolean } = {}): Decline | null {
+export function chargeDecline(
+  fake: Fake,
+  customerId: string,
+  pmId: string | null,
+  opts: { peek?: boolean } = {},
+): Decline | null {
   const queued = queuedFailure(fake, customerId, opts.peek);
   if (queued) return queued;
   const pm = pmId ? fake.state.paymentMethods[pmId] : undefined;
@@ -90,6 +109,10 @@ export function chargeDecline(fake: Fake, customerId: string, pmId: string | nul
 }
 
 /** The card a charge for this customer (and subscription) would use. */
-export function paymentMethodFor(fake: Fake, customerId: string, subscriptionPm: string | null): string | null {
+export function paymentMethodFor(
+  fake: Fake,
+  customerId: string,
+  subscriptionPm: string | null,
+): string | null {
   return subscriptionPm ?? fake.state.customers[customerId]?.default_payment_method ?? null;
 }

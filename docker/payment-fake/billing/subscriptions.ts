@@ -12,7 +12,13 @@ import type { Fake } from "../core/fake";
 import { newId } from "../core/ids";
 import type { Metadata, SubscriptionRec } from "../core/state";
 import { renderSubscription } from "../resources/render-billing";
-import { attemptPayment, createDraftInvoice, finalizeInvoice, invoiceNow, type LineInput } from "./invoicing";
+import {
+  attemptPayment,
+  createDraftInvoice,
+  finalizeInvoice,
+  invoiceNow,
+  type LineInput,
+} from "./invoicing";
 import { claimItems, itemLines, licensedLines, meteredLines, pendingItems } from "./lines";
 
 export interface NewItem {
@@ -40,7 +46,13 @@ export function startSubscription(
     customer: opts.customer,
     status: "incomplete",
     currency: opts.currency,
-    items: opts.items.map((i) => ({ id: newId("si"), created: now, price: i.price, quantity: i.quantity, metadata: {} })),
+    items: opts.items.map((i) => ({
+      id: newId("si"),
+      created: now,
+      price: i.price,
+      quantity: i.quantity,
+      metadata: {},
+    })),
     billing_cycle_anchor: now,
     _period_index: 0,
     current_period_start: now,
@@ -59,12 +71,20 @@ export function startSubscription(
     start_date: now,
   };
   fake.state.subscriptions[sub.id] = sub;
-  fake.emit("customer.subscription.created", renderSubscription(fake, sub), undefined, sub.customer);
+  fake.emit(
+    "customer.subscription.created",
+    renderSubscription(fake, sub),
+    undefined,
+    sub.customer,
+  );
   const inv = createDraftInvoice(fake, {
     customer: sub.customer,
     subscription: sub.id,
     billing_reason: "subscription_create",
-    lines: [...licensedLines(fake, sub, sub.current_period_start, sub.current_period_end), ...meteredLines(fake, sub, now, now)],
+    lines: [
+      ...licensedLines(fake, sub, sub.current_period_start, sub.current_period_end),
+      ...meteredLines(fake, sub, now, now),
+    ],
     period_start: now,
     period_end: now,
     currency: sub.currency,
@@ -82,7 +102,11 @@ export function endSubscription(
 ): void {
   if (opts.finalInvoice) {
     const pending = pendingItems(fake, sub.id);
-    const lines = [...meteredLines(fake, sub, sub.current_period_start, opts.at), ...itemLines(fake, pending), ...(opts.extraLines ?? [])];
+    const lines = [
+      ...meteredLines(fake, sub, sub.current_period_start, opts.at),
+      ...itemLines(fake, pending),
+      ...(opts.extraLines ?? []),
+    ];
     if (lines.some((l) => l.amount !== 0)) {
       const inv = invoiceNow(fake, {
         customer: sub.customer,
@@ -112,7 +136,11 @@ export function renewSubscription(fake: Fake, sub: SubscriptionRec): void {
   const oldStart = sub.current_period_start;
   const oldEnd = sub.current_period_end;
   if (sub.cancel_at_period_end || (sub.cancel_at !== null && sub.cancel_at <= oldEnd)) {
-    endSubscription(fake, sub, { at: sub.cancel_at ?? oldEnd, reason: "cancellation_requested", finalInvoice: true });
+    endSubscription(fake, sub, {
+      at: sub.cancel_at ?? oldEnd,
+      reason: "cancellation_requested",
+      finalInvoice: true,
+    });
     return;
   }
   const before = renderSubscription(fake, sub);

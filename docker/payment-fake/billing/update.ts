@@ -33,7 +33,12 @@ export interface ItemChange {
 export type ProrationBehavior = "create_prorations" | "always_invoice" | "none";
 
 /** Validates item changes and returns the new item list (the subscription is not touched). */
-export function planItems(fake: Fake, sub: SubscriptionRec, changes: ItemChange[], now: number): SubItemRec[] {
+export function planItems(
+  fake: Fake,
+  sub: SubscriptionRec,
+  changes: ItemChange[],
+  now: number,
+): SubItemRec[] {
   const next = sub.items.map((i) => ({ ...i, metadata: { ...i.metadata } }));
   changes.forEach((change, index) => {
     const param = (f: string) => `items[${index}][${f}]`;
@@ -47,24 +52,33 @@ export function planItems(fake: Fake, sub: SubscriptionRec, changes: ItemChange[
       }
     } else {
       if (change.deleted) throw invalidRequest("An item to delete needs its id.", param("id"));
-      if (change.price === undefined) throw invalidRequest("A new subscription item needs a price.", param("price"));
+      if (change.price === undefined)
+        throw invalidRequest("A new subscription item needs a price.", param("price"));
       item = { id: newId("si"), created: now, price: change.price, quantity: null, metadata: {} };
       next.push(item);
     }
     if (change.price !== undefined) {
       const price = fake.state.prices[change.price];
       if (!price) throw noSuch("price", change.price, param("price"));
-      if (!price.active) throw invalidRequest(`The price ${price.id} is not active.`, param("price"));
-      if (!price.recurring) throw invalidRequest(`The price ${price.id} is not recurring.`, param("price"));
+      if (!price.active)
+        throw invalidRequest(`The price ${price.id} is not active.`, param("price"));
+      if (!price.recurring)
+        throw invalidRequest(`The price ${price.id} is not recurring.`, param("price"));
       if (price.currency !== sub.currency) {
-        throw invalidRequest(`The price ${price.id} is in ${price.currency}, the subscription in ${sub.currency}.`, param("price"));
+        throw invalidRequest(
+          `The price ${price.id} is in ${price.currency}, the subscription in ${sub.currency}.`,
+          param("price"),
+        );
       }
       item.price = price.id;
     }
     const price = priceOf(fake, item.price);
     if (isMetered(price)) {
       if (change.quantity !== undefined) {
-        throw invalidRequest("Quantity should not be specified where usage_type is `metered`.", param("quantity"));
+        throw invalidRequest(
+          "Quantity should not be specified where usage_type is `metered`.",
+          param("quantity"),
+        );
       }
       item.quantity = null;
     } else if (change.quantity !== undefined) {
@@ -83,7 +97,12 @@ export function planItems(fake: Fake, sub: SubscriptionRec, changes: ItemChange[
 }
 
 /** Proration lines for moving from `before` to `after` items at time `t`. */
-export function prorationLines(fake: Fake, sub: SubscriptionRec, after: SubItemRec[], t: number): LineInput[] {
+export function prorationLines(
+  fake: Fake,
+  sub: SubscriptionRec,
+  after: SubItemRec[],
+  t: number,
+): LineInput[] {
   const start = sub.current_period_start;
   const end = sub.current_period_end;
   if (t >= end) return [];
@@ -144,14 +163,30 @@ export function changeItems(
   const after = opts.changes ? planItems(fake, sub, opts.changes, now) : sub.items;
   const t = opts.prorationDate ?? now;
   if (t < sub.current_period_start || t > sub.current_period_end) {
-    throw invalidRequest("proration_date must be within the current billing period.", "proration_date");
+    throw invalidRequest(
+      "proration_date must be within the current billing period.",
+      "proration_date",
+    );
   }
-  const lines = opts.changes && opts.proration !== "none" ? prorationLines(fake, sub, after, t) : [];
+  const lines =
+    opts.changes && opts.proration !== "none" ? prorationLines(fake, sub, after, t) : [];
   const pending = opts.proration === "always_invoice" ? pendingItems(fake, sub.id) : [];
   const invoiceLines = [...lines, ...itemLines(fake, pending)];
-  const due = invoiceLines.reduce((s, l) => s + l.amount, 0) + (fake.state.customers[sub.customer]?.balance ?? 0);
-  if (opts.proration === "always_invoice" && opts.errorIfIncomplete && invoiceLines.length > 0 && due > 0) {
-    const decline = chargeDecline(fake, sub.customer, paymentMethodFor(fake, sub.customer, sub.default_payment_method), { peek: true });
+  const due =
+    invoiceLines.reduce((s, l) => s + l.amount, 0) +
+    (fake.state.customers[sub.customer]?.balance ?? 0);
+  if (
+    opts.proration === "always_invoice" &&
+    opts.errorIfIncomplete &&
+    invoiceLines.length > 0 &&
+    due > 0
+  ) {
+    const decline = chargeDecline(
+      fake,
+      sub.customer,
+      paymentMethodFor(fake, sub.customer, sub.default_payment_method),
+      { peek: true },
+    );
     if (decline) throw chargeError(decline);
   }
 

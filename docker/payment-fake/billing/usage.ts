@@ -8,9 +8,16 @@
 import type { Fake } from "../core/fake";
 import type { MeterRec, PriceRec } from "../core/state";
 
-export function meterTotal(fake: Fake, meter: MeterRec, customer: string, start: number, end: number): number {
+export function meterTotal(
+  fake: Fake,
+  meter: MeterRec,
+  customer: string,
+  start: number,
+  end: number,
+): number {
   const events = fake.state.meterEvents.filter(
-    (e) => e.meter === meter.id && e.customer === customer && e.timestamp >= start && e.timestamp < end,
+    (e) =>
+      e.meter === meter.id && e.customer === customer && e.timestamp >= start && e.timestamp < end,
   );
   if (meter.formula === "count") return events.length;
   if (meter.formula === "last") {
@@ -27,7 +34,13 @@ export function billableQuantity(price: PriceRec, raw: number): number {
 }
 
 /** Raw usage for a metered price in a period (0 when its meter is gone). */
-export function usageFor(fake: Fake, price: PriceRec, customer: string, start: number, end: number): number {
+export function usageFor(
+  fake: Fake,
+  price: PriceRec,
+  customer: string,
+  start: number,
+  end: number,
+): number {
   const meter = price.recurring?.meter ? fake.state.meters[price.recurring.meter] : undefined;
   return meter ? meterTotal(fake, meter, customer, start, end) : 0;
 }

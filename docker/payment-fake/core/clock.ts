@@ -30,7 +30,8 @@ export class FakeClock {
   advance(seconds: number, customer?: string | null): void {
     if (!Number.isFinite(seconds) || seconds < 0) throw new RangeError("time only moves forward");
     if (customer) {
-      this.state.customerOffsets[customer] = (this.state.customerOffsets[customer] ?? 0) + Math.round(seconds);
+      this.state.customerOffsets[customer] =
+        (this.state.customerOffsets[customer] ?? 0) + Math.round(seconds);
     } else {
       this.state.offset += Math.round(seconds);
     }
@@ -46,9 +47,18 @@ export function addMonths(unixSeconds: number, months: number): number {
   const d = new Date(unixSeconds * 1000);
   const day = d.getUTCDate();
   const target = new Date(
-    Date.UTC(d.getUTCFullYear(), d.getUTCMonth() + months, 1, d.getUTCHours(), d.getUTCMinutes(), d.getUTCSeconds()),
+    Date.UTC(
+      d.getUTCFullYear(),
+      d.getUTCMonth() + months,
+      1,
+      d.getUTCHours(),
+      d.getUTCMinutes(),
+      d.getUTCSeconds(),
+    ),
   );
-  const lastDay = new Date(Date.UTC(target.getUTCFullYear(), target.getUTCMonth() + 1, 0)).getUTCDate();
+  const lastDay = new Date(
+    Date.UTC(target.getUTCFullYear(), target.getUTCMonth() + 1, 0),
+  ).getUTCDate();
   target.setUTCDate(Math.min(day, lastDay));
   return Math.floor(target.getTime() / 1000);
 }

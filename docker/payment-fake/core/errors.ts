@@ -5,7 +5,8 @@
  * declined, 404 unknown object, 409 conflict). The SDK turns the status and
  * type into its error classes, so both must be right.
  */
-export type ApiErrorType = "invalid_request_error" | "card_error" | "api_error" | "idempotency_error";
+export type ApiErrorType =
+  "invalid_request_error" | "card_error" | "api_error" | "idempotency_error";
 
 export interface ApiErrorExtra {
   code?: string;

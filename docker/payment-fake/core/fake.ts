@@ -84,7 +84,12 @@ export class Fake {
    * Records an event with a snapshot of the object and, for `*.updated`
    * events, the previous values of the top-level fields that changed.
    */
-  emit(type: string, object: Record<string, unknown>, before?: Record<string, unknown>, customer?: string | null): EventRec {
+  emit(
+    type: string,
+    object: Record<string, unknown>,
+    before?: Record<string, unknown>,
+    customer?: string | null,
+  ): EventRec {
     const event: EventRec = {
       id: newId("evt"),
       object: "event",
@@ -143,12 +148,16 @@ export class Fake {
 function loadState(file: string | null): FakeState {
   if (!file || !existsSync(file)) return emptyState();
   const parsed = JSON.parse(readFileSync(file, "utf8")) as FakeState;
-  if (parsed.version !== 1) throw new Error(`${file}: unknown state version ${String(parsed.version)}`);
+  if (parsed.version !== 1)
+    throw new Error(`${file}: unknown state version ${String(parsed.version)}`);
   return { ...emptyState(), ...parsed };
 }
 
 /** Top-level fields whose JSON differs, with their old values. */
-export function changedFields(before: Record<string, unknown>, after: Record<string, unknown>): Record<string, unknown> {
+export function changedFields(
+  before: Record<string, unknown>,
+  after: Record<string, unknown>,
+): Record<string, unknown> {
   const previous: Record<string, unknown> = {};
   for (const key of Object.keys(before)) {
     if (JSON.stringify(before[key]) !== JSON.stringify(after[key])) previous[key] = before[key];

@@ -135,7 +135,8 @@ export interface SubItemRec {
   metadata: Metadata;
 }
 
-export type SubscriptionStatus = "incomplete" | "active" | "past_due" | "canceled" | "incomplete_expired";
+export type SubscriptionStatus =
+  "incomplete" | "active" | "past_due" | "canceled" | "incomplete_expired";
 
 export interface SubscriptionRec {
   id: string;

@@ -9,8 +9,19 @@ import { ApiError, invalidRequest, unrecognizedUrl } from "../core/errors";
 import type { Fake } from "../core/fake";
 import { newId } from "../core/ids";
 import { includeCheckoutField } from "../resources/checkout-sessions";
-import { renderCustomer, renderMeter, renderPaymentMethod, renderPrice, renderProduct } from "../resources/render-catalog";
-import { renderCheckoutSession, renderPortalSession, renderSubscription, renderSubscriptionItem } from "../resources/render-billing";
+import {
+  renderCustomer,
+  renderMeter,
+  renderPaymentMethod,
+  renderPrice,
+  renderProduct,
+} from "../resources/render-catalog";
+import {
+  renderCheckoutSession,
+  renderPortalSession,
+  renderSubscription,
+  renderSubscriptionItem,
+} from "../resources/render-billing";
 import { renderInvoice } from "../resources/render-invoice";
 import type { ApiHandler } from "../resources/types";
 import { authenticate } from "./auth";
@@ -42,7 +53,14 @@ function expanderFor(fake: Fake): Expander {
           return s.subscriptions[id] && renderSubscription(fake, s.subscriptions[id]);
         case "si": {
           const sub = Object.values(s.subscriptions).find((x) => x.items.some((i) => i.id === id));
-          return sub && renderSubscriptionItem(fake, sub, sub.items.find((i) => i.id === id)!);
+          return (
+            sub &&
+            renderSubscriptionItem(
+              fake,
+              sub,
+              sub.items.find((i) => i.id === id)!,
+            )
+          );
         }
         case "in":
           return s.invoices[id] && renderInvoice(fake, s.invoices[id]);
@@ -61,11 +79,20 @@ function header(req: IncomingMessage, name: string): string | null {
   return Array.isArray(v) ? (v[0] ?? null) : (v ?? null);
 }
 
-export async function handleApi(fake: Fake, router: Router<ApiHandler>, req: IncomingMessage, res: ServerResponse, url: URL): Promise<void> {
+export async function handleApi(
+  fake: Fake,
+  router: Router<ApiHandler>,
+  req: IncomingMessage,
+  res: ServerResponse,
+  url: URL,
+): Promise<void> {
   const method = req.method ?? "GET";
   const requestId = newId("req");
   const idemKey = method === "POST" ? header(req, "idempotency-key") : null;
-  const baseHeaders: Record<string, string> = { "Request-Id": requestId, "Stripe-Version": header(req, "stripe-version") ?? fake.config.apiVersion };
+  const baseHeaders: Record<string, string> = {
+    "Request-Id": requestId,
+    "Stripe-Version": header(req, "stripe-version") ?? fake.config.apiVersion,
+  };
   if (idemKey) baseHeaders["Idempotency-Key"] = idemKey;
   let status = 200;
   let payload: unknown;
@@ -90,11 +117,19 @@ export async function handleApi(fake: Fake, router: Router<ApiHandler>, req: Inc
     const match = router.match(method, url.pathname);
     if (match === null || match === "method") throw unrecognizedUrl(method, url.pathname);
     if (idemKey) {
-      if (idemKey.length > 255) throw invalidRequest("Idempotency-Key must be at most 255 characters.");
+      if (idemKey.length > 255)
+        throw invalidRequest("Idempotency-Key must be at most 255 characters.");
       scopedKey = `${apiKey}:${idemKey}`;
       print = fingerprint(body);
       pruneIdempotency(fake.state, fake.realNowMs());
-      const saved = lookupIdempotent(fake.state, scopedKey, method, url.pathname, print, fake.realNowMs());
+      const saved = lookupIdempotent(
+        fake.state,
+        scopedKey,
+        method,
+        url.pathname,
+        print,
+        fake.realNowMs(),
+      );
       if (saved) {
         sendJson(res, saved.status, saved.body, { ...baseHeaders, "Idempotent-Replayed": "true" });
         return;
@@ -103,7 +138,9 @@ export async function handleApi(fake: Fake, router: Router<ApiHandler>, req: Inc
     fake.request = { id: requestId, idempotency_key: idemKey };
     try {
       const result = match.handler({ fake, params: match.params, body, path: url.pathname });
-      const expandList = Array.isArray(body.expand) ? body.expand.filter((x): x is string => typeof x === "string") : undefined;
+      const expandList = Array.isArray(body.expand)
+        ? body.expand.filter((x): x is string => typeof x === "string")
+        : undefined;
       payload = applyExpand(result, expandList, expanderFor(fake));
     } finally {
       fake.request = { id: null, idempotency_key: null };
@@ -115,12 +152,24 @@ export async function handleApi(fake: Fake, router: Router<ApiHandler>, req: Inc
     } else {
       status = 500;
       console.error(`[payment-fake] ${requestId} ${method} ${url.pathname} failed:`, e);
-      payload = { error: { type: "api_error", message: `An unexpected error occurred in the local payment fake (request ${requestId}).` } };
+      payload = {
+        error: {
+          type: "api_error",
+          message: `An unexpected error occurred in the local payment fake (request ${requestId}).`,
+        },
+      };
     }
   }
   const text = JSON.stringify(payload, null, 2);
   if (scopedKey && shouldSave(status)) {
-    fake.state.idempotency[scopedKey] = { method, path: url.pathname, fingerprint: print, status, body: text, saved_ms: fake.realNowMs() };
+    fake.state.idempotency[scopedKey] = {
+      method,
+      path: url.pathname,
+      fingerprint: print,
+      status,
+      body: text,
+      saved_ms: fake.realNowMs(),
+    };
   }
   if (method !== "GET") fake.scheduleSave();
   sendJson(res, status, text, baseHeaders);

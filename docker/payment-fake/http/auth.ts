@@ -24,7 +24,11 @@ export function authenticate(req: IncomingMessage, requiredKey: string | null): 
   if (bearer) key = bearer[1];
   else if (basic) key = Buffer.from(basic[1], "base64").toString("utf8").split(":")[0];
   if (!key) {
-    throw new ApiError(401, "invalid_request_error", "Invalid Authorization header: use Bearer auth with your secret key.");
+    throw new ApiError(
+      401,
+      "invalid_request_error",
+      "Invalid Authorization header: use Bearer auth with your secret key.",
+    );
   }
   if (!KEY_FORMAT.test(key) || (requiredKey !== null && key !== requiredKey)) {
     throw new ApiError(401, "invalid_request_error", `Invalid API Key provided: ${redact(key)}`);

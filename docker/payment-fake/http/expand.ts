@@ -13,13 +13,20 @@ export interface Expander {
   include(owner: Record<string, unknown>, field: string): unknown;
 }
 
-export function applyExpand(value: unknown, paths: string[] | undefined, expander: Expander): unknown {
+export function applyExpand(
+  value: unknown,
+  paths: string[] | undefined,
+  expander: Expander,
+): unknown {
   if (!paths || paths.length === 0) return value;
   let out = value;
   for (const path of paths) {
     const parts = path.split(".");
     if (parts.length > 4 || parts.some((p) => p === "")) {
-      throw invalidRequest(`You cannot expand more than 4 levels of a property, or an empty one (${path}).`, "expand");
+      throw invalidRequest(
+        `You cannot expand more than 4 levels of a property, or an empty one (${path}).`,
+        "expand",
+      );
     }
     out = expandPath(out, parts, path, expander);
   }
@@ -39,7 +46,11 @@ function expandPath(value: unknown, parts: string[], full: string, expander: Exp
       const resolved = expander.resolve(field);
       if (!resolved) throw cannotExpand(full);
       field = resolved;
-    } else if (rest.length === 0 && field !== null && (typeof field !== "object" || Array.isArray(field))) {
+    } else if (
+      rest.length === 0 &&
+      field !== null &&
+      (typeof field !== "object" || Array.isArray(field))
+    ) {
       throw cannotExpand(full);
     }
   } else {

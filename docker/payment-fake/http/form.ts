@@ -48,7 +48,8 @@ export function splitKey(key: string): string[] {
     parts.push(m[1]);
     consumed = m.index + m[0].length;
   }
-  if (consumed !== key.length || parts[0] === "") throw new FormError(`Malformed parameter name "${key}"`);
+  if (consumed !== key.length || parts[0] === "")
+    throw new FormError(`Malformed parameter name "${key}"`);
   if (parts.length > MAX_DEPTH) throw new FormError(`Parameter "${key}" is nested too deeply`);
   return parts;
 }
@@ -64,19 +65,25 @@ function assign(target: Node, path: string[], value: string): void {
       throw new FormError(`Parameter name part "${part}" is not allowed`);
     }
     if (i === path.length - 1) {
-      if (typeof node[part] === "object") throw new FormError(`Parameter "${path.join(".")}" given both as a value and a hash`);
+      if (typeof node[part] === "object")
+        throw new FormError(`Parameter "${path.join(".")}" given both as a value and a hash`);
       node[part] = value;
       return;
     }
     const next = node[part];
     if (next === undefined) node[part] = {};
-    else if (typeof next === "string") throw new FormError(`Parameter "${path.slice(0, i + 1).join(".")}" given both as a value and a hash`);
+    else if (typeof next === "string")
+      throw new FormError(
+        `Parameter "${path.slice(0, i + 1).join(".")}" given both as a value and a hash`,
+      );
     node = node[part] as Node;
   }
 }
 
 function nextIndex(node: Node): number {
-  const indices = Object.keys(node).filter((k) => /^\d+$/.test(k)).map(Number);
+  const indices = Object.keys(node)
+    .filter((k) => /^\d+$/.test(k))
+    .map(Number);
   return indices.length ? Math.max(...indices) + 1 : 0;
 }
 

@@ -31,19 +31,34 @@ export function paginate<R extends { id?: string }, T>(
   let start = 0;
   let end = records.length;
   if (params.starting_after !== undefined && params.ending_before !== undefined) {
-    throw invalidRequest("You may only specify one of these parameters: starting_after, ending_before.");
+    throw invalidRequest(
+      "You may only specify one of these parameters: starting_after, ending_before.",
+    );
   }
   if (params.starting_after !== undefined) {
     const i = records.findIndex((r) => idOf(r) === params.starting_after);
-    if (i < 0) throw invalidRequest(`No object with id '${params.starting_after}' in this list.`, "starting_after");
+    if (i < 0)
+      throw invalidRequest(
+        `No object with id '${params.starting_after}' in this list.`,
+        "starting_after",
+      );
     start = i + 1;
   }
   if (params.ending_before !== undefined) {
     const i = records.findIndex((r) => idOf(r) === params.ending_before);
-    if (i < 0) throw invalidRequest(`No object with id '${params.ending_before}' in this list.`, "ending_before");
+    if (i < 0)
+      throw invalidRequest(
+        `No object with id '${params.ending_before}' in this list.`,
+        "ending_before",
+      );
     end = i;
     start = Math.max(0, end - limit);
-    return { object: "list", data: records.slice(start, end).map(render), has_more: start > 0, url };
+    return {
+      object: "list",
+      data: records.slice(start, end).map(render),
+      has_more: start > 0,
+      url,
+    };
   }
   const page = records.slice(start, start + limit);
   return { object: "list", data: page.map(render), has_more: start + limit < end, url };

@@ -58,7 +58,10 @@ export const int = (min = Number.MIN_SAFE_INTEGER, max = Number.MAX_SAFE_INTEGER
     }
     const n = Number(v);
     if (n < min || n > max) {
-      ctx.addIssue({ code: "custom", message: `This value must be between ${min} and ${max} (got ${v}).` });
+      ctx.addIssue({
+        code: "custom",
+        message: `This value must be between ${min} and ${max} (got ${v}).`,
+      });
       return z.NEVER;
     }
     return n;
@@ -66,7 +69,11 @@ export const int = (min = Number.MIN_SAFE_INTEGER, max = Number.MAX_SAFE_INTEGER
 
 /** A non-negative decimal number with up to 12 decimal places, kept as its string. */
 export const decimal = () =>
-  z.string().refine((v) => /^\d+(\.\d{1,12})?$/.test(v), { message: "Invalid decimal: must be a non-negative number with at most 12 decimal places." });
+  z
+    .string()
+    .refine((v) => /^\d+(\.\d{1,12})?$/.test(v), {
+      message: "Invalid decimal: must be a non-negative number with at most 12 decimal places.",
+    });
 
 export const bool = () =>
   z.string().transform((v, ctx) => {
@@ -79,7 +86,10 @@ export const bool = () =>
 export const oneOf = <T extends string>(values: readonly T[]) =>
   z.string().transform((v, ctx) => {
     if ((values as readonly string[]).includes(v)) return v as T;
-    ctx.addIssue({ code: "custom", message: `Invalid value "${v}": must be one of ${values.join(", ")}.` });
+    ctx.addIssue({
+      code: "custom",
+      message: `Invalid value "${v}": must be one of ${values.join(", ")}.`,
+    });
     return z.NEVER;
   });
 
@@ -95,7 +105,10 @@ export const metadata = () =>
 export type MetadataParam = z.output<ReturnType<typeof metadata>>;
 
 /** Applies a metadata parameter to existing metadata. */
-export function mergeMetadata(current: Record<string, string>, update: MetadataParam | undefined): Record<string, string> {
+export function mergeMetadata(
+  current: Record<string, string>,
+  update: MetadataParam | undefined,
+): Record<string, string> {
   if (update === undefined) return current;
   if (update === "") return {};
   const next = { ...current };
@@ -120,10 +133,18 @@ export const listShape = {
 export const rangeFilter = () =>
   z.union([
     int(0),
-    z.strictObject({ gt: int(0).optional(), gte: int(0).optional(), lt: int(0).optional(), lte: int(0).optional() }),
+    z.strictObject({
+      gt: int(0).optional(),
+      gte: int(0).optional(),
+      lt: int(0).optional(),
+      lte: int(0).optional(),
+    }),
   ]);
 
-export function inRange(value: number, range: z.output<ReturnType<typeof rangeFilter>> | undefined): boolean {
+export function inRange(
+  value: number,
+  range: z.output<ReturnType<typeof rangeFilter>> | undefined,
+): boolean {
   if (range === undefined) return true;
   if (typeof range === "number") return value === range;
   if (range.gt !== undefined && !(value > range.gt)) return false;

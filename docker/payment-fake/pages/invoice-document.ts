@@ -29,12 +29,18 @@ export function invoicePdf(fake: Fake, inv: InvoiceRec): Buffer {
   let y = 628;
   for (const line of inv.lines.slice(0, 24)) {
     texts.push({ x: 50, y, text: clip(line.description, 62), size: 9 });
-    texts.push({ x: 50, y: y - 11, text: `${formatDate(line.period_start)} - ${formatDate(line.period_end)}`, size: 7 });
+    texts.push({
+      x: 50,
+      y: y - 11,
+      text: `${formatDate(line.period_start)} - ${formatDate(line.period_end)}`,
+      size: 7,
+    });
     texts.push({ x: 390, y, text: line.quantity.toLocaleString("en-US"), size: 9 });
     texts.push({ x: 470, y, text: money(line.amount), size: 9 });
     y -= 28;
   }
-  if (inv.lines.length > 24) texts.push({ x: 50, y, text: `... and ${inv.lines.length - 24} more lines`, size: 9 });
+  if (inv.lines.length > 24)
+    texts.push({ x: 50, y, text: `... and ${inv.lines.length - 24} more lines`, size: 9 });
   rules.push({ x1: 330, y1: y + 8, x2: 545, y2: y + 8 });
   const totals: [string, number][] = [
     ["Subtotal", inv.subtotal],

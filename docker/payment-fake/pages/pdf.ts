@@ -20,15 +20,23 @@ export interface PdfRule {
 }
 
 function pdfString(text: string): string {
-  const latin1 = Array.from(text, (ch) => (ch.charCodeAt(0) <= 0xff ? ch : ch === "\u2212" ? "-" : "?")).join("");
-  return `(${latin1.replace(/\\/g, "\\\\").replace(/\(/g, "\\(").replace(/\)/g, "\\)").replace(/[\r\n]/g, " ")})`;
+  const latin1 = Array.from(text, (ch) =>
+    ch.charCodeAt(0) <= 0xff ? ch : ch === "\u2212" ? "-" : "?",
+  ).join("");
+  return `(${latin1
+    .replace(/\\/g, "\\\\")
+    .replace(/\(/g, "\\(")
+    .replace(/\)/g, "\\)")
+    .replace(/[\r\n]/g, " ")})`;
 }
 
 export function buildPdf(title: string, texts: PdfText[], rules: PdfRule[] = []): Buffer {
   const ops: string[] = ["0.8 0.82 0.8 RG 0.6 w"];
   for (const r of rules) ops.push(`${r.x1} ${r.y1} m ${r.x2} ${r.y2} l S`);
   for (const t of texts) {
-    ops.push(`BT /${t.bold ? "F2" : "F1"} ${t.size ?? 10} Tf ${t.x} ${t.y} Td ${pdfString(t.text)} Tj ET`);
+    ops.push(
+      `BT /${t.bold ? "F2" : "F1"} ${t.size ?? 10} Tf ${t.x} ${t.y} Td ${pdfString(t.text)} Tj ET`,
+    );
   }
   const content = ops.join("\n");
   const objects = [

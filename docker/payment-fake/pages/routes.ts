@@ -40,7 +40,13 @@ async function formOf(req: IncomingMessage): Promise<Record<string, string>> {
 }
 
 function cardFields(f: Record<string, string>) {
-  return { number: f.number ?? "", expiry: f.expiry ?? "", cvc: f.cvc ?? "", name: f.name ?? "", email: f.email ?? "" };
+  return {
+    number: f.number ?? "",
+    expiry: f.expiry ?? "",
+    cvc: f.cvc ?? "",
+    name: f.name ?? "",
+    email: f.email ?? "",
+  };
 }
 
 function invoiceFor(fake: Fake, params: Record<string, string>) {
@@ -55,7 +61,14 @@ function portalFor(fake: Fake, id: string, res: ServerResponse): PortalSessionRe
     return null;
   }
   if (fake.now(p.customer) >= p.expires_at) {
-    sendHtml(res, 410, page("Link expired", `<div class="card"><h1>Link expired</h1><p>Open billing again from the application.</p></div>`));
+    sendHtml(
+      res,
+      410,
+      page(
+        "Link expired",
+        `<div class="card"><h1>Link expired</h1><p>Open billing again from the application.</p></div>`,
+      ),
+    );
     return null;
   }
   return p;
@@ -76,7 +89,14 @@ export const pageRouter = new Router<PageHandler>()
     fake.scheduleSave();
     if (result.ok) return redirect(res, result.redirect);
     const status = result.field === "session" ? 409 : 402;
-    sendHtml(res, status, checkoutView(fake, s, { error: result.message, values: { email: f.email, name: f.name, expiry: f.expiry } }));
+    sendHtml(
+      res,
+      status,
+      checkoutView(fake, s, {
+        error: result.message,
+        values: { email: f.email, name: f.name, expiry: f.expiry },
+      }),
+    );
   })
   .add("GET", "/invoice/:id/:token", ({ fake, params, res }) => {
     const inv = invoiceFor(fake, params);
@@ -87,16 +107,33 @@ export const pageRouter = new Router<PageHandler>()
     const inv = invoiceFor(fake, params);
     if (!inv) return sendHtml(res, 404, notFoundPage("This invoice does not exist."));
     const f = cardFields(await formOf(req));
-    if (inv.status !== "open") return sendHtml(res, 409, invoiceView(fake, inv, { error: `This invoice is ${inv.status}.` }));
+    if (inv.status !== "open")
+      return sendHtml(
+        res,
+        409,
+        invoiceView(fake, inv, { error: `This invoice is ${inv.status}.` }),
+      );
     const check = checkCardInput(f, fake.now(inv.customer));
-    if (!check.ok) return sendHtml(res, 402, invoiceView(fake, inv, { error: check.decline.message }));
-    if (check.value.card.attach) return sendHtml(res, 402, invoiceView(fake, inv, { error: check.value.card.attach.message }));
-    const pm = createPaymentMethod(fake, check.value, { name: f.name || null, email: inv.customer_email });
+    if (!check.ok)
+      return sendHtml(res, 402, invoiceView(fake, inv, { error: check.decline.message }));
+    if (check.value.card.attach)
+      return sendHtml(res, 402, invoiceView(fake, inv, { error: check.value.card.attach.message }));
+    const pm = createPaymentMethod(fake, check.value, {
+      name: f.name || null,
+      email: inv.customer_email,
+    });
     attachPaymentMethod(fake, pm, inv.customer, false);
     const paid = attemptPayment(fake, inv, { automatic: false, paymentMethod: pm.id });
     fake.scheduleSave();
-    if (paid) return sendHtml(res, 200, invoiceView(fake, inv, { ok: "Payment received. Thank you." }));
-    sendHtml(res, 402, invoiceView(fake, inv, { error: inv.last_payment_error?.message ?? "Your card was declined." }));
+    if (paid)
+      return sendHtml(res, 200, invoiceView(fake, inv, { ok: "Payment received. Thank you." }));
+    sendHtml(
+      res,
+      402,
+      invoiceView(fake, inv, {
+        error: inv.last_payment_error?.message ?? "Your card was declined.",
+      }),
+    );
   })
   .add("GET", "/invoice/:id/:token/pdf", ({ fake, params, res }) => {
     const inv = invoiceFor(fake, params);
@@ -116,30 +153,79 @@ export const pageRouter = new Router<PageHandler>()
     if (!p) return;
     const f = cardFields(await formOf(req));
     const check = checkCardInput(f, fake.now(p.customer));
-    if (!check.ok) return sendHtml(res, 402, portalView(fake, p, { cardForm: true, error: check.decline.message }));
-    if (check.value.card.attach) return sendHtml(res, 402, portalView(fake, p, { cardForm: true, error: check.value.card.attach.message }));
+    if (!check.ok)
+      return sendHtml(
+        res,
+        402,
+        portalView(fake, p, { cardForm: true, error: check.decline.message }),
+      );
+    if (check.value.card.attach)
+      return sendHtml(
+        res,
+        402,
+        portalView(fake, p, { cardForm: true, error: check.value.card.attach.message }),
+      );
     const customer = fake.state.customers[p.customer];
-    const pm = createPaymentMethod(fake, check.value, { name: f.name || null, email: customer.email });
+    const pm = createPaymentMethod(fake, check.value, {
+      name: f.name || null,
+      email: customer.email,
+    });
     attachPaymentMethod(fake, pm, customer.id, true);
     for (const sub of Object.values(fake.state.subscriptions)) {
-      if (sub.customer !== customer.id || sub.status === "canceled" || sub.status === "incomplete_expired") continue;
+      if (
+        sub.customer !== customer.id ||
+        sub.status === "canceled" ||
+        sub.status === "incomplete_expired"
+      )
+        continue;
       const before = renderSubscription(fake, sub);
       sub.default_payment_method = pm.id;
-      fake.emit("customer.subscription.updated", renderSubscription(fake, sub), before, customer.id);
+      fake.emit(
+        "customer.subscription.updated",
+        renderSubscription(fake, sub),
+        before,
+        customer.id,
+      );
     }
     // Unpaid invoices that already failed once are retried on the new card at once.
-    const unpaid = Object.values(fake.state.invoices).filter((i) => i.customer === customer.id && i.status === "open" && i.attempted);
-    const failed = unpaid.filter((i) => !attemptPayment(fake, i, { automatic: false, paymentMethod: pm.id }));
+    const unpaid = Object.values(fake.state.invoices).filter(
+      (i) => i.customer === customer.id && i.status === "open" && i.attempted,
+    );
+    const failed = unpaid.filter(
+      (i) => !attemptPayment(fake, i, { automatic: false, paymentMethod: pm.id }),
+    );
     fake.scheduleSave();
     if (failed.length) {
-      return sendHtml(res, 402, portalView(fake, p, { error: `Card saved, but paying ${failed.length} open invoice(s) failed: ${failed[0].last_payment_error?.message ?? "declined"}` }));
+      return sendHtml(
+        res,
+        402,
+        portalView(fake, p, {
+          error: `Card saved, but paying ${failed.length} open invoice(s) failed: ${failed[0].last_payment_error?.message ?? "declined"}`,
+        }),
+      );
     }
-    sendHtml(res, 200, portalView(fake, p, { ok: unpaid.length ? `Card saved; ${unpaid.length} open invoice(s) paid.` : "Card saved." }));
+    sendHtml(
+      res,
+      200,
+      portalView(fake, p, {
+        ok: unpaid.length ? `Card saved; ${unpaid.length} open invoice(s) paid.` : "Card saved.",
+      }),
+    );
   })
-  .add("POST", "/portal/:id/cancel", async ({ fake, params, req, res }) => setCancel(fake, params.id, req, res, true))
-  .add("POST", "/portal/:id/resume", async ({ fake, params, req, res }) => setCancel(fake, params.id, req, res, false));
+  .add("POST", "/portal/:id/cancel", async ({ fake, params, req, res }) =>
+    setCancel(fake, params.id, req, res, true),
+  )
+  .add("POST", "/portal/:id/resume", async ({ fake, params, req, res }) =>
+    setCancel(fake, params.id, req, res, false),
+  );
 
-async function setCancel(fake: Fake, id: string, req: IncomingMessage, res: ServerResponse, cancel: boolean): Promise<void> {
+async function setCancel(
+  fake: Fake,
+  id: string,
+  req: IncomingMessage,
+  res: ServerResponse,
+  cancel: boolean,
+): Promise<void> {
   const p = portalFor(fake, id, res);
   if (!p) return;
   const f = await formOf(req);
@@ -154,5 +240,13 @@ async function setCancel(fake: Fake, id: string, req: IncomingMessage, res: Serv
   sub.cancellation_reason = cancel ? "cancellation_requested" : null;
   fake.emit("customer.subscription.updated", renderSubscription(fake, sub), before, sub.customer);
   fake.scheduleSave();
-  sendHtml(res, 200, portalView(fake, p, { ok: cancel ? "Your subscription will end at the end of the period." : "Your subscription will continue." }));
+  sendHtml(
+    res,
+    200,
+    portalView(fake, p, {
+      ok: cancel
+        ? "Your subscription will end at the end of the period."
+        : "Your subscription will continue.",
+    }),
+  );
 }

@@ -6,13 +6,19 @@ import { priceOf } from "../resources/render-billing";
 import { invoiceUrls } from "../resources/render-invoice";
 import { cardForm, esc, page, type CardFormOptions } from "./layout";
 
-export function checkoutView(fake: Fake, s: CheckoutSessionRec, form: Omit<CardFormOptions, "action" | "button"> = {}): string {
+export function checkoutView(
+  fake: Fake,
+  s: CheckoutSessionRec,
+  form: Omit<CardFormOptions, "action" | "button"> = {},
+): string {
   const rows = s.line_items
     .map((l) => {
       const price = priceOf(fake, l.price);
       const name = fake.state.products[price.product]?.name ?? price.product;
       if (l.quantity === null) {
-        const per = price.transform_quantity ? ` per ${price.transform_quantity.divide_by.toLocaleString("en-US")}` : " per unit";
+        const per = price.transform_quantity
+          ? ` per ${price.transform_quantity.divide_by.toLocaleString("en-US")}`
+          : " per unit";
         return `<tr><td>${esc(name)}<div class="muted">Billed monthly by usage: ${esc(formatUnitDecimal(price.unit_amount_decimal, price.currency))}${esc(per)}</div></td><td class="num">—</td><td class="num">${esc(formatCents(0, s.currency))}</td></tr>`;
       }
       return `<tr><td>${esc(name)}<div class="muted">${esc(formatCents(price.unit_amount ?? 0, s.currency))} each per month</div></td><td class="num">${l.quantity}</td><td class="num">${esc(formatCents((price.unit_amount ?? 0) * l.quantity, s.currency))}</td></tr>`;
@@ -23,7 +29,9 @@ export function checkoutView(fake: Fake, s: CheckoutSessionRec, form: Omit<CardF
   const body =
     s.status !== "open"
       ? `<div class="card"><h1>${s.status === "complete" ? "Payment complete" : "Checkout expired"}</h1><p>${
-          s.status === "complete" ? "This checkout has already been paid." : "This checkout session has expired. Start again from the application."
+          s.status === "complete"
+            ? "This checkout has already been paid."
+            : "This checkout session has expired. Start again from the application."
         }</p></div>`
       : `<div class="card"><h1>Subscribe</h1><p class="muted">${email ? `For ${esc(email)}` : ""}</p>
 <table><tr><th>Item</th><th class="num">Qty</th><th class="num">Per month</th></tr>${rows}
@@ -33,7 +41,11 @@ ${s.cancel_url ? `<p><a href="${esc(s.cancel_url)}">Cancel and go back</a></p>` 
   return page("Checkout", body);
 }
 
-export function invoiceView(fake: Fake, inv: InvoiceRec, notice: { error?: string; ok?: string } = {}): string {
+export function invoiceView(
+  fake: Fake,
+  inv: InvoiceRec,
+  notice: { error?: string; ok?: string } = {},
+): string {
   const money = (c: number) => formatCents(c, inv.currency);
   const urls = invoiceUrls(fake, inv);
   const rows = inv.lines
@@ -59,11 +71,19 @@ ${inv.starting_balance ? `<tr><td>Applied balance</td><td></td><td class="num">$
   );
 }
 
-export function portalView(fake: Fake, p: PortalSessionRec, notice: { error?: string; ok?: string; cardForm?: boolean } = {}): string {
+export function portalView(
+  fake: Fake,
+  p: PortalSessionRec,
+  notice: { error?: string; ok?: string; cardForm?: boolean } = {},
+): string {
   const customer = fake.state.customers[p.customer];
-  const subs = Object.values(fake.state.subscriptions).filter((s) => s.customer === p.customer && s.status !== "incomplete_expired");
+  const subs = Object.values(fake.state.subscriptions).filter(
+    (s) => s.customer === p.customer && s.status !== "incomplete_expired",
+  );
   const live = subs.filter((s) => s.status !== "canceled");
-  const pmId = live.find((s) => s.default_payment_method)?.default_payment_method ?? customer.default_payment_method;
+  const pmId =
+    live.find((s) => s.default_payment_method)?.default_payment_method ??
+    customer.default_payment_method;
   const pm = pmId ? fake.state.paymentMethods[pmId] : undefined;
   const invoices = Object.values(fake.state.invoices)
     .filter((i) => i.customer === p.customer && i.status !== "draft")
@@ -77,7 +97,12 @@ export function portalView(fake: Fake, p: PortalSessionRec, notice: { error?: st
           return i.quantity === null ? `${esc(name)} (usage)` : `${i.quantity} × ${esc(name)}`;
         })
         .join(", ");
-      const state = s.status === "canceled" ? `ended ${formatDate(s.ended_at ?? s.canceled_at ?? s.created)}` : s.cancel_at ? `ends ${formatDate(s.cancel_at)}` : `renews ${formatDate(s.current_period_end)}`;
+      const state =
+        s.status === "canceled"
+          ? `ended ${formatDate(s.ended_at ?? s.canceled_at ?? s.created)}`
+          : s.cancel_at
+            ? `ends ${formatDate(s.cancel_at)}`
+            : `renews ${formatDate(s.current_period_end)}`;
       const action =
         s.status === "canceled"
           ? ""
@@ -93,7 +118,9 @@ export function portalView(fake: Fake, p: PortalSessionRec, notice: { error?: st
       return `<tr><td><a href="${esc(urls.hosted)}">${esc(i.number)}</a></td><td>${esc(formatDate(i.created))}</td><td><span class="pill ${esc(i.status)}">${esc(i.status)}</span></td><td class="num">${esc(formatCents(i.total, i.currency))}</td><td><a href="${esc(urls.pdf)}">PDF</a></td></tr>`;
     })
     .join("");
-  const card = pm ? `${esc(pm.brand)} ending in ${esc(pm.last4)}, expires ${pm.exp_month}/${pm.exp_year}` : "No card on file";
+  const card = pm
+    ? `${esc(pm.brand)} ending in ${esc(pm.last4)}, expires ${pm.exp_month}/${pm.exp_year}`
+    : "No card on file";
   const cardSection = notice.cardForm
     ? cardForm({ action: `/portal/${p.id}/card`, button: "Save card", error: notice.error })
     : `${notice.error ? `<div class="error" role="alert">${esc(notice.error)}</div>` : ""}<p>${card}</p><form method="get" action="/portal/${esc(p.id)}/card"><button class="secondary" type="submit">Replace card</button></form>`;

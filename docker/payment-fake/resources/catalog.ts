@@ -12,7 +12,19 @@ import type { Fake } from "../core/fake";
 import { newId } from "../core/ids";
 import type { PriceRec, ProductRec } from "../core/state";
 import { newestFirst, paginate } from "../http/list";
-import { bool, decimal, emptyable, expand, int, listShape, mergeMetadata, metadata, oneOf, parseParams, str } from "../http/params";
+import {
+  bool,
+  decimal,
+  emptyable,
+  expand,
+  int,
+  listShape,
+  mergeMetadata,
+  metadata,
+  oneOf,
+  parseParams,
+  str,
+} from "../http/params";
 import { renderPrice, renderProduct } from "./render-catalog";
 import type { ApiRouter } from "./types";
 
@@ -24,8 +36,18 @@ const productFields = {
   unit_label: emptyable().optional(),
   expand: expand(),
 };
-const productCreate = z.strictObject({ ...productFields, id: z.string().regex(/^[A-Za-z0-9_-]{1,200}$/).optional() });
-const productUpdate = z.strictObject({ ...productFields, name: str().optional(), default_price: emptyable().optional() });
+const productCreate = z.strictObject({
+  ...productFields,
+  id: z
+    .string()
+    .regex(/^[A-Za-z0-9_-]{1,200}$/)
+    .optional(),
+});
+const productUpdate = z.strictObject({
+  ...productFields,
+  name: str().optional(),
+  default_price: emptyable().optional(),
+});
 
 const recurring = z.strictObject({
   interval: oneOf(["day", "week", "month", "year"] as const),
@@ -35,14 +57,25 @@ const recurring = z.strictObject({
 });
 
 const priceCreate = z.strictObject({
-  currency: z.string().regex(/^[a-z]{3}$/i, "must be a three-letter ISO currency code").transform((c) => c.toLowerCase()),
+  currency: z
+    .string()
+    .regex(/^[a-z]{3}$/i, "must be a three-letter ISO currency code")
+    .transform((c) => c.toLowerCase()),
   product: z.string().optional(),
-  product_data: z.strictObject({ name: str(), metadata: metadata().optional(), unit_label: z.string().optional() }).optional(),
+  product_data: z
+    .strictObject({
+      name: str(),
+      metadata: metadata().optional(),
+      unit_label: z.string().optional(),
+    })
+    .optional(),
   unit_amount: int(0, 99_999_999).optional(),
   unit_amount_decimal: decimal().optional(),
   billing_scheme: z.literal("per_unit").optional(),
   recurring: recurring.optional(),
-  transform_quantity: z.strictObject({ divide_by: int(1, 1_000_000_000), round: oneOf(["up", "down"] as const) }).optional(),
+  transform_quantity: z
+    .strictObject({ divide_by: int(1, 1_000_000_000), round: oneOf(["up", "down"] as const) })
+    .optional(),
   lookup_key: z.string().max(200).optional(),
   transfer_lookup_key: bool().optional(),
   nickname: z.string().optional(),
@@ -68,15 +101,25 @@ const priceList = z.strictObject({
   currency: z.string().optional(),
   type: oneOf(["one_time", "recurring"] as const).optional(),
   lookup_keys: z.array(z.string()).max(10).optional(),
-  recurring: z.strictObject({ usage_type: oneOf(["licensed", "metered"] as const).optional(), interval: z.string().optional() }).optional(),
+  recurring: z
+    .strictObject({
+      usage_type: oneOf(["licensed", "metered"] as const).optional(),
+      interval: z.string().optional(),
+    })
+    .optional(),
 });
 
 function claimLookupKey(fake: Fake, key: string | null, transfer: boolean, priceId: string): void {
   if (key === null) return;
-  const holder = Object.values(fake.state.prices).find((p) => p.lookup_key === key && p.id !== priceId);
+  const holder = Object.values(fake.state.prices).find(
+    (p) => p.lookup_key === key && p.id !== priceId,
+  );
   if (!holder) return;
   if (!transfer) {
-    throw invalidRequest(`A price (\`${holder.id}\`) already uses the lookup key \`${key}\`. Pass transfer_lookup_key=true to move it.`, "lookup_key");
+    throw invalidRequest(
+      `A price (\`${holder.id}\`) already uses the lookup key \`${key}\`. Pass transfer_lookup_key=true to move it.`,
+      "lookup_key",
+    );
   }
   holder.lookup_key = null;
 }
@@ -85,7 +128,8 @@ export function registerCatalog(router: ApiRouter): void {
   router.add("POST", "/v1/products", ({ fake, body }) => {
     const p = parseParams(productCreate, body);
     const id = p.id ?? newId("prod");
-    if (fake.state.products[id]) throw invalidRequest(`Product already exists: ${id}`, "id", "resource_already_exists");
+    if (fake.state.products[id])
+      throw invalidRequest(`Product already exists: ${id}`, "id", "resource_already_exists");
     const now = fake.now();
     const product: ProductRec = {
       id,
@@ -116,7 +160,8 @@ export function registerCatalog(router: ApiRouter): void {
     if (!product) throw noSuch("product", params.id);
     if (p.default_price) {
       const price = fake.state.prices[p.default_price];
-      if (!price || price.product !== product.id) throw noSuch("price", p.default_price, "default_price");
+      if (!price || price.product !== product.id)
+        throw noSuch("price", p.default_price, "default_price");
     }
     const before = renderProduct(product);
     if (p.name !== undefined) product.name = p.name;
@@ -131,7 +176,14 @@ export function registerCatalog(router: ApiRouter): void {
   });
 
   router.add("GET", "/v1/products", ({ fake, body }) => {
-    const p = parseParams(z.strictObject({ ...listShape, active: bool().optional(), ids: z.array(z.string()).optional() }), body);
+    const p = parseParams(
+      z.strictObject({
+        ...listShape,
+        active: bool().optional(),
+        ids: z.array(z.string()).optional(),
+      }),
+      body,
+    );
     const rows = newestFirst(fake.state.products).filter(
       (x) => (p.active === undefined || x.active === p.active) && (!p.ids || p.ids.includes(x.id)),
     );
@@ -140,24 +192,44 @@ export function registerCatalog(router: ApiRouter): void {
 
   router.add("POST", "/v1/prices", ({ fake, body }) => {
     const p = parseParams(priceCreate, body);
-    if (!p.product === !p.product_data) throw invalidRequest("Give exactly one of product or product_data.", p.product ? "product_data" : "product");
+    if (!p.product === !p.product_data)
+      throw invalidRequest(
+        "Give exactly one of product or product_data.",
+        p.product ? "product_data" : "product",
+      );
     if (p.product && !fake.state.products[p.product]) throw noSuch("product", p.product, "product");
     if ((p.unit_amount === undefined) === (p.unit_amount_decimal === undefined)) {
-      throw invalidRequest("Give exactly one of unit_amount or unit_amount_decimal.", "unit_amount");
+      throw invalidRequest(
+        "Give exactly one of unit_amount or unit_amount_decimal.",
+        "unit_amount",
+      );
     }
     const r = p.recurring;
     if (r && (r.interval !== "month" || (r.interval_count ?? 1) !== 1)) {
-      throw invalidRequest("This local fake bills monthly only: use recurring[interval]=month with interval_count 1.", "recurring[interval]");
+      throw invalidRequest(
+        "This local fake bills monthly only: use recurring[interval]=month with interval_count 1.",
+        "recurring[interval]",
+      );
     }
     const usage = r?.usage_type ?? "licensed";
     if (r && usage === "metered") {
-      if (!r.meter) throw invalidRequest("Metered prices need a billing meter: set recurring[meter].", "recurring[meter]");
+      if (!r.meter)
+        throw invalidRequest(
+          "Metered prices need a billing meter: set recurring[meter].",
+          "recurring[meter]",
+        );
       if (!fake.state.meters[r.meter]) throw noSuch("billing meter", r.meter, "recurring[meter]");
     } else if (r?.meter) {
-      throw invalidRequest("recurring[meter] is only allowed when recurring[usage_type] is metered.", "recurring[meter]");
+      throw invalidRequest(
+        "recurring[meter] is only allowed when recurring[usage_type] is metered.",
+        "recurring[meter]",
+      );
     }
     if (p.transform_quantity && usage !== "metered") {
-      throw invalidRequest("This local fake supports transform_quantity on metered prices only.", "transform_quantity");
+      throw invalidRequest(
+        "This local fake supports transform_quantity on metered prices only.",
+        "transform_quantity",
+      );
     }
     const id = newId("price");
     claimLookupKey(fake, p.lookup_key ?? null, p.transfer_lookup_key ?? false, id);
@@ -177,7 +249,9 @@ export function registerCatalog(router: ApiRouter): void {
         unit_label: p.product_data!.unit_label ?? null,
       };
     }
-    const decimalAmount = (p.unit_amount_decimal ?? String(p.unit_amount)).replace(/(\.\d*?)0+$/, "$1").replace(/\.$/, "");
+    const decimalAmount = (p.unit_amount_decimal ?? String(p.unit_amount))
+      .replace(/(\.\d*?)0+$/, "$1")
+      .replace(/\.$/, "");
     const price: PriceRec = {
       id,
       created: fake.now(),
@@ -186,7 +260,9 @@ export function registerCatalog(router: ApiRouter): void {
       currency: p.currency,
       unit_amount: /^\d+$/.test(decimalAmount) ? Number(decimalAmount) : null,
       unit_amount_decimal: decimalAmount,
-      recurring: r ? { interval: "month", interval_count: 1, usage_type: usage, meter: r.meter ?? null } : null,
+      recurring: r
+        ? { interval: "month", interval_count: 1, usage_type: usage, meter: r.meter ?? null }
+        : null,
       lookup_key: p.lookup_key ?? null,
       nickname: p.nickname ?? null,
       metadata: mergeMetadata({}, p.metadata),
@@ -208,7 +284,8 @@ export function registerCatalog(router: ApiRouter): void {
     const p = parseParams(priceUpdate, body);
     const price = fake.state.prices[params.id];
     if (!price) throw noSuch("price", params.id);
-    if (p.lookup_key !== undefined) claimLookupKey(fake, p.lookup_key, p.transfer_lookup_key ?? false, price.id);
+    if (p.lookup_key !== undefined)
+      claimLookupKey(fake, p.lookup_key, p.transfer_lookup_key ?? false, price.id);
     const before = renderPrice(price);
     if (p.active !== undefined) price.active = p.active;
     if (p.nickname !== undefined) price.nickname = p.nickname;
@@ -227,7 +304,8 @@ export function registerCatalog(router: ApiRouter): void {
         (p.currency === undefined || x.currency === p.currency.toLowerCase()) &&
         (p.type === undefined || (p.type === "recurring") === (x.recurring !== null)) &&
         (!p.lookup_keys || (x.lookup_key !== null && p.lookup_keys.includes(x.lookup_key))) &&
-        (p.recurring?.usage_type === undefined || x.recurring?.usage_type === p.recurring.usage_type),
+        (p.recurring?.usage_type === undefined ||
+          x.recurring?.usage_type === p.recurring.usage_type),
     );
     return paginate(rows, p, "/v1/prices", renderPrice);
   });

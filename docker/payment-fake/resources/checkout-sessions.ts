@@ -10,7 +10,18 @@ import type { Fake } from "../core/fake";
 import { newId } from "../core/ids";
 import type { CheckoutSessionRec } from "../core/state";
 import { newestFirst, paginate } from "../http/list";
-import { emptyable, expand, int, listShape, mergeMetadata, metadata, oneOf, parseParams, str, url } from "../http/params";
+import {
+  emptyable,
+  expand,
+  int,
+  listShape,
+  mergeMetadata,
+  metadata,
+  oneOf,
+  parseParams,
+  str,
+  url,
+} from "../http/params";
 import { isMetered } from "../billing/lines";
 import { lineAmount } from "../billing/money";
 import { refreshSessionStatus } from "../billing/checkout";
@@ -19,14 +30,19 @@ import type { ApiRouter } from "./types";
 
 const createSchema = z.strictObject({
   mode: oneOf(["payment", "setup", "subscription"] as const),
-  line_items: z.array(z.strictObject({ price: str(), quantity: int(0, 999_999).optional() })).min(1).max(20),
+  line_items: z
+    .array(z.strictObject({ price: str(), quantity: int(0, 999_999).optional() }))
+    .min(1)
+    .max(20),
   success_url: url(),
   cancel_url: url().optional(),
   customer: z.string().optional(),
   customer_email: z.string().optional(),
   client_reference_id: z.string().max(200).optional(),
   metadata: metadata().optional(),
-  subscription_data: z.strictObject({ metadata: metadata().optional(), description: emptyable().optional() }).optional(),
+  subscription_data: z
+    .strictObject({ metadata: metadata().optional(), description: emptyable().optional() })
+    .optional(),
   expires_at: int(0).optional(),
   payment_method_types: z.array(z.literal("card")).optional(),
   expand: expand(),
@@ -56,7 +72,11 @@ function lineItemsList(fake: Fake, s: CheckoutSessionRec) {
 }
 
 /** `line_items` is only present when expanded; the expander asks here. */
-export function includeCheckoutField(fake: Fake, owner: Record<string, unknown>, field: string): unknown {
+export function includeCheckoutField(
+  fake: Fake,
+  owner: Record<string, unknown>,
+  field: string,
+): unknown {
   if (owner.object !== "checkout.session" || field !== "line_items") return undefined;
   const s = fake.state.checkoutSessions[owner.id as string];
   return s ? lineItemsList(fake, s) : undefined;
@@ -66,10 +86,16 @@ export function registerCheckoutSessions(router: ApiRouter): void {
   router.add("POST", "/v1/checkout/sessions", ({ fake, body }) => {
     const p = parseParams(createSchema, body);
     if (p.mode !== "subscription") {
-      throw invalidRequest(`This local fake supports mode=subscription only (got ${p.mode}).`, "mode");
+      throw invalidRequest(
+        `This local fake supports mode=subscription only (got ${p.mode}).`,
+        "mode",
+      );
     }
     if (p.customer && p.customer_email) {
-      throw invalidRequest("You may only specify one of these parameters: customer, customer_email.", "customer_email");
+      throw invalidRequest(
+        "You may only specify one of these parameters: customer, customer_email.",
+        "customer_email",
+      );
     }
     if (p.customer) {
       const c = fake.state.customers[p.customer];
@@ -81,24 +107,39 @@ export function registerCheckoutSessions(router: ApiRouter): void {
       const param = (f: string) => `line_items[${i}][${f}]`;
       const price = fake.state.prices[li.price];
       if (!price) throw noSuch("price", li.price, param("price"));
-      if (!price.active) throw invalidRequest(`The price ${price.id} is not active.`, param("price"));
-      if (!price.recurring) throw invalidRequest("In subscription mode every line item needs a recurring price.", param("price"));
-      if (currency && price.currency !== currency) throw invalidRequest("All line items must use the same currency.", param("price"));
+      if (!price.active)
+        throw invalidRequest(`The price ${price.id} is not active.`, param("price"));
+      if (!price.recurring)
+        throw invalidRequest(
+          "In subscription mode every line item needs a recurring price.",
+          param("price"),
+        );
+      if (currency && price.currency !== currency)
+        throw invalidRequest("All line items must use the same currency.", param("price"));
       currency = price.currency;
       if (isMetered(price)) {
-        if (li.quantity !== undefined) throw invalidRequest("Quantity should not be specified where usage_type is `metered`.", param("quantity"));
+        if (li.quantity !== undefined)
+          throw invalidRequest(
+            "Quantity should not be specified where usage_type is `metered`.",
+            param("quantity"),
+          );
         return { id: newId("li"), price: price.id, quantity: null };
       }
-      if (li.quantity === undefined) throw invalidRequest("Quantity is required for a licensed price.", param("quantity"));
+      if (li.quantity === undefined)
+        throw invalidRequest("Quantity is required for a licensed price.", param("quantity"));
       if (li.quantity < 1) throw invalidRequest("Quantity must be at least 1.", param("quantity"));
       total += lineAmount(li.quantity, price.unit_amount_decimal);
       return { id: newId("li"), price: price.id, quantity: li.quantity };
     });
     const prices = lines.map((l) => l.price);
-    if (new Set(prices).size !== prices.length) throw invalidRequest("Each price may appear only once.", "line_items");
+    if (new Set(prices).size !== prices.length)
+      throw invalidRequest("Each price may appear only once.", "line_items");
     const now = fake.now(p.customer);
     if (p.expires_at !== undefined && (p.expires_at < now + 1800 || p.expires_at > now + 86_400)) {
-      throw invalidRequest("expires_at must be between 30 minutes and 24 hours from now.", "expires_at");
+      throw invalidRequest(
+        "expires_at must be between 30 minutes and 24 hours from now.",
+        "expires_at",
+      );
     }
     const s: CheckoutSessionRec = {
       id: newId("cs_test"),
@@ -134,13 +175,16 @@ export function registerCheckoutSessions(router: ApiRouter): void {
   router.add("GET", "/v1/checkout/sessions/:id/line_items", ({ fake, params, body }) => {
     const p = parseParams(z.strictObject(listShape), body);
     const s = getSessionOrThrow(fake, params.id);
-    return paginate(s.line_items, p, `/v1/checkout/sessions/${s.id}/line_items`, (l) => renderCheckoutLine(fake, s, l));
+    return paginate(s.line_items, p, `/v1/checkout/sessions/${s.id}/line_items`, (l) =>
+      renderCheckoutLine(fake, s, l),
+    );
   });
 
   router.add("POST", "/v1/checkout/sessions/:id/expire", ({ fake, params, body }) => {
     parseParams(z.strictObject({ expand: expand() }), body);
     const s = getSessionOrThrow(fake, params.id);
-    if (s.status !== "open") throw invalidRequest(`Only open sessions can be expired; this one is ${s.status}.`);
+    if (s.status !== "open")
+      throw invalidRequest(`Only open sessions can be expired; this one is ${s.status}.`);
     s.status = "expired";
     fake.emit("checkout.session.expired", renderCheckoutSession(fake, s), undefined, s.customer);
     return renderCheckoutSession(fake, s);

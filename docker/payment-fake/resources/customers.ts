@@ -7,7 +7,16 @@ import { invalidRequest, noSuch } from "../core/errors";
 import type { Fake } from "../core/fake";
 import { newId, randomText } from "../core/ids";
 import type { CustomerRec } from "../core/state";
-import { emptyable, expand, inRange, listShape, mergeMetadata, metadata, parseParams, rangeFilter } from "../http/params";
+import {
+  emptyable,
+  expand,
+  inRange,
+  listShape,
+  mergeMetadata,
+  metadata,
+  parseParams,
+  rangeFilter,
+} from "../http/params";
 import { newestFirst, paginate } from "../http/list";
 import { endSubscription } from "../billing/subscriptions";
 import { renderCustomer, renderPaymentMethod } from "./render-catalog";
@@ -33,7 +42,11 @@ const createSchema = z.strictObject({
 
 const updateSchema = createSchema.omit({ payment_method: true });
 
-const listSchema = z.strictObject({ ...listShape, email: z.string().optional(), created: rangeFilter().optional() });
+const listSchema = z.strictObject({
+  ...listShape,
+  email: z.string().optional(),
+  created: rangeFilter().optional(),
+});
 
 export function registerCustomers(router: ApiRouter): void {
   router.add("POST", "/v1/customers", ({ fake, body }) => {
@@ -53,10 +66,15 @@ export function registerCustomers(router: ApiRouter): void {
       default_payment_method: null,
     };
     // Resolve the card before storing anything, so a bad card leaves no half-made customer.
-    const pm = p.payment_method ? resolvePaymentMethodParam(fake, p.payment_method, "payment_method", id) : null;
+    const pm = p.payment_method
+      ? resolvePaymentMethodParam(fake, p.payment_method, "payment_method", id)
+      : null;
     const defaultPm = p.invoice_settings?.default_payment_method;
     if (defaultPm && defaultPm !== pm?.id) {
-      throw invalidRequest("invoice_settings[default_payment_method] must be the payment_method given with it.", "invoice_settings[default_payment_method]");
+      throw invalidRequest(
+        "invoice_settings[default_payment_method] must be the payment_method given with it.",
+        "invoice_settings[default_payment_method]",
+      );
     }
     fake.state.customers[id] = c;
     fake.emit("customer.created", renderCustomer(fake, c), undefined, id);
@@ -83,7 +101,10 @@ export function registerCustomers(router: ApiRouter): void {
       const pm = fake.state.paymentMethods[pmId];
       if (!pm) throw noSuch("PaymentMethod", pmId, "invoice_settings[default_payment_method]");
       if (pm.customer !== c.id) {
-        throw invalidRequest(`The payment method ${pmId} is not attached to this customer.`, "invoice_settings[default_payment_method]");
+        throw invalidRequest(
+          `The payment method ${pmId} is not attached to this customer.`,
+          "invoice_settings[default_payment_method]",
+        );
       }
     }
     const before = renderCustomer(fake, c);
@@ -102,8 +123,16 @@ export function registerCustomers(router: ApiRouter): void {
     const c = getCustomerOrThrow(fake, params.id, "id");
     const json = renderCustomer(fake, c);
     for (const sub of Object.values(fake.state.subscriptions)) {
-      if (sub.customer === c.id && sub.status !== "canceled" && sub.status !== "incomplete_expired") {
-        endSubscription(fake, sub, { at: fake.now(c.id), reason: "cancellation_requested", finalInvoice: false });
+      if (
+        sub.customer === c.id &&
+        sub.status !== "canceled" &&
+        sub.status !== "incomplete_expired"
+      ) {
+        endSubscription(fake, sub, {
+          at: fake.now(c.id),
+          reason: "cancellation_requested",
+          finalInvoice: false,
+        });
       }
     }
     c.deleted = true;
@@ -114,13 +143,19 @@ export function registerCustomers(router: ApiRouter): void {
   router.add("GET", "/v1/customers", ({ fake, body }) => {
     const p = parseParams(listSchema, body);
     const rows = newestFirst(fake.state.customers).filter(
-      (c) => !c.deleted && (p.email === undefined || c.email === p.email) && inRange(c.created, p.created),
+      (c) =>
+        !c.deleted &&
+        (p.email === undefined || c.email === p.email) &&
+        inRange(c.created, p.created),
     );
     return paginate(rows, p, "/v1/customers", (c) => renderCustomer(fake, c));
   });
 
   router.add("GET", "/v1/customers/:id/payment_methods", ({ fake, params, body }) => {
-    const p = parseParams(z.strictObject({ ...listShape, type: z.literal("card").optional() }), body);
+    const p = parseParams(
+      z.strictObject({ ...listShape, type: z.literal("card").optional() }),
+      body,
+    );
     const c = getCustomerOrThrow(fake, params.id, "customer");
     const rows = newestFirst(fake.state.paymentMethods).filter((pm) => pm.customer === c.id);
     return paginate(rows, p, `/v1/customers/${c.id}/payment_methods`, renderPaymentMethod);

@@ -34,12 +34,18 @@ export function getInvoiceOrThrow(fake: Fake, id: string): InvoiceRec {
 
 function preview(fake: Fake, customerId: string, subscriptionId: string): InvoiceRec {
   const sub = fake.state.subscriptions[subscriptionId];
-  if (!sub || sub.customer !== customerId) throw noSuch("subscription", subscriptionId, "subscription");
+  if (!sub || sub.customer !== customerId)
+    throw noSuch("subscription", subscriptionId, "subscription");
   if (sub.status === "canceled" || sub.status === "incomplete_expired") {
-    throw invalidRequest("No upcoming invoice: the subscription has ended.", "subscription", "invoice_upcoming_none");
+    throw invalidRequest(
+      "No upcoming invoice: the subscription has ended.",
+      "subscription",
+      "invoice_upcoming_none",
+    );
   }
   const now = fake.now(customerId);
-  const ending = sub.cancel_at_period_end || (sub.cancel_at !== null && sub.cancel_at <= sub.current_period_end);
+  const ending =
+    sub.cancel_at_period_end || (sub.cancel_at !== null && sub.cancel_at <= sub.current_period_end);
   const nextEnd = addMonths(sub.billing_cycle_anchor, sub._period_index + 2);
   const lines: LineInput[] = [
     ...meteredLines(fake, sub, sub.current_period_start, Math.min(now + 1, sub.current_period_end)),
@@ -106,15 +112,23 @@ export function registerInvoices(router: ApiRouter): void {
   router.add("GET", "/v1/invoices/:id/lines", ({ fake, params, body }) => {
     const p = parseParams(z.strictObject(listShape), body);
     const inv = getInvoiceOrThrow(fake, params.id);
-    return paginate(inv.lines, p, `/v1/invoices/${inv.id}/lines`, (l) => renderInvoiceLine(fake, inv.id, l));
+    return paginate(inv.lines, p, `/v1/invoices/${inv.id}/lines`, (l) =>
+      renderInvoiceLine(fake, inv.id, l),
+    );
   });
 
   router.add("POST", "/v1/invoices/:id/pay", ({ fake, params, body }) => {
-    const p = parseParams(z.strictObject({ payment_method: z.string().optional(), expand: expand() }), body);
+    const p = parseParams(
+      z.strictObject({ payment_method: z.string().optional(), expand: expand() }),
+      body,
+    );
     const inv = getInvoiceOrThrow(fake, params.id);
     if (inv.status === "paid") throw invalidRequest("Invoice is already paid.");
-    if (inv.status !== "open") throw invalidRequest(`Only open invoices can be paid; this one is ${inv.status}.`);
-    const pm = p.payment_method ? resolvePaymentMethodParam(fake, p.payment_method, "payment_method", inv.customer) : null;
+    if (inv.status !== "open")
+      throw invalidRequest(`Only open invoices can be paid; this one is ${inv.status}.`);
+    const pm = p.payment_method
+      ? resolvePaymentMethodParam(fake, p.payment_method, "payment_method", inv.customer)
+      : null;
     if (pm && !pm.customer) pm.customer = inv.customer;
     const paid = attemptPayment(fake, inv, { automatic: false, paymentMethod: pm?.id });
     if (!paid && inv.last_payment_error) throw chargeError(inv.last_payment_error);
@@ -124,7 +138,8 @@ export function registerInvoices(router: ApiRouter): void {
   router.add("POST", "/v1/invoices/:id/void", ({ fake, params, body }) => {
     parseParams(z.strictObject({ expand: expand() }), body);
     const inv = getInvoiceOrThrow(fake, params.id);
-    if (inv.status !== "open") throw invalidRequest(`Only open invoices can be voided; this one is ${inv.status}.`);
+    if (inv.status !== "open")
+      throw invalidRequest(`Only open invoices can be voided; this one is ${inv.status}.`);
     inv.status = "void";
     inv.voided_at = fake.now(inv.customer);
     inv.next_payment_attempt = null;
@@ -133,7 +148,10 @@ export function registerInvoices(router: ApiRouter): void {
   });
 
   router.add("POST", "/v1/invoices/create_preview", ({ fake, body }) => {
-    const p = parseParams(z.strictObject({ customer: z.string().optional(), subscription: str(), expand: expand() }), body);
+    const p = parseParams(
+      z.strictObject({ customer: z.string().optional(), subscription: str(), expand: expand() }),
+      body,
+    );
     const sub = fake.state.subscriptions[p.subscription];
     if (!sub) throw noSuch("subscription", p.subscription, "subscription");
     const json = renderInvoice(fake, preview(fake, p.customer ?? sub.customer, sub.id));

@@ -24,9 +24,13 @@ const DAY = 86_400;
 
 const meterCreate = z.strictObject({
   display_name: str(),
-  event_name: z.string().regex(/^[A-Za-z0-9_.:-]{1,100}$/, "use letters, digits, _ . : - (at most 100)"),
+  event_name: z
+    .string()
+    .regex(/^[A-Za-z0-9_.:-]{1,100}$/, "use letters, digits, _ . : - (at most 100)"),
   default_aggregation: z.strictObject({ formula: oneOf(["sum", "count", "last"] as const) }),
-  customer_mapping: z.strictObject({ event_payload_key: str(), type: z.literal("by_id") }).optional(),
+  customer_mapping: z
+    .strictObject({ event_payload_key: str(), type: z.literal("by_id") })
+    .optional(),
   value_settings: z.strictObject({ event_payload_key: str() }).optional(),
   expand: expand(),
 });
@@ -56,8 +60,14 @@ function getMeterOrThrow(fake: Fake, id: string): MeterRec {
 export function registerMeters(router: ApiRouter): void {
   router.add("POST", "/v1/billing/meters", ({ fake, body }) => {
     const p = parseParams(meterCreate, body);
-    const clash = Object.values(fake.state.meters).find((m) => m.event_name === p.event_name && m.status === "active");
-    if (clash) throw invalidRequest(`An active meter (${clash.id}) already uses event_name "${p.event_name}".`, "event_name");
+    const clash = Object.values(fake.state.meters).find(
+      (m) => m.event_name === p.event_name && m.status === "active",
+    );
+    if (clash)
+      throw invalidRequest(
+        `An active meter (${clash.id}) already uses event_name "${p.event_name}".`,
+        "event_name",
+      );
     const now = fake.now();
     const meter: MeterRec = {
       id: newId("mtr"),
@@ -81,7 +91,10 @@ export function registerMeters(router: ApiRouter): void {
   });
 
   router.add("POST", "/v1/billing/meters/:id", ({ fake, params, body }) => {
-    const p = parseParams(z.strictObject({ display_name: str().optional(), expand: expand() }), body);
+    const p = parseParams(
+      z.strictObject({ display_name: str().optional(), expand: expand() }),
+      body,
+    );
     const meter = getMeterOrThrow(fake, params.id);
     if (p.display_name !== undefined) meter.display_name = p.display_name;
     meter.updated = fake.now();
@@ -102,18 +115,30 @@ export function registerMeters(router: ApiRouter): void {
   }
 
   router.add("GET", "/v1/billing/meters", ({ fake, body }) => {
-    const p = parseParams(z.strictObject({ ...listShape, status: oneOf(["active", "inactive"] as const).optional() }), body);
-    const rows = newestFirst(fake.state.meters).filter((m) => p.status === undefined || m.status === p.status);
+    const p = parseParams(
+      z.strictObject({ ...listShape, status: oneOf(["active", "inactive"] as const).optional() }),
+      body,
+    );
+    const rows = newestFirst(fake.state.meters).filter(
+      (m) => p.status === undefined || m.status === p.status,
+    );
     return paginate(rows, p, "/v1/billing/meters", renderMeter);
   });
 
   router.add("GET", "/v1/billing/meters/:id/event_summaries", ({ fake, params, body }) => {
     const p = parseParams(summaryParams, body);
     const meter = getMeterOrThrow(fake, params.id);
-    if (p.end_time <= p.start_time) throw invalidRequest("end_time must be after start_time.", "end_time");
-    const step = p.value_grouping_window === "hour" ? 3600 : p.value_grouping_window === "day" ? DAY : p.end_time - p.start_time;
+    if (p.end_time <= p.start_time)
+      throw invalidRequest("end_time must be after start_time.", "end_time");
+    const step =
+      p.value_grouping_window === "hour"
+        ? 3600
+        : p.value_grouping_window === "day"
+          ? DAY
+          : p.end_time - p.start_time;
     const windows: { start: number; end: number }[] = [];
-    for (let s = p.start_time; s < p.end_time; s += step) windows.push({ start: s, end: Math.min(p.end_time, s + step) });
+    for (let s = p.start_time; s < p.end_time; s += step)
+      windows.push({ start: s, end: Math.min(p.end_time, s + step) });
     const summaries = windows.reverse().map((w) => ({
       id: `mtrusg_${w.start}_${w.end}`,
       object: "billing.meter_event_summary",
@@ -128,26 +153,48 @@ export function registerMeters(router: ApiRouter): void {
 
   router.add("POST", "/v1/billing/meter_events", ({ fake, body }) => {
     const p = parseParams(meterEventCreate, body);
-    const meter = Object.values(fake.state.meters).find((m) => m.event_name === p.event_name && m.status === "active");
-    if (!meter) throw invalidRequest(`No active meter exists for event_name "${p.event_name}".`, "event_name");
+    const meter = Object.values(fake.state.meters).find(
+      (m) => m.event_name === p.event_name && m.status === "active",
+    );
+    if (!meter)
+      throw invalidRequest(
+        `No active meter exists for event_name "${p.event_name}".`,
+        "event_name",
+      );
     const customerId = p.payload[meter.customer_key];
-    if (!customerId) throw invalidRequest(`The payload needs the customer id under "${meter.customer_key}".`, `payload[${meter.customer_key}]`);
+    if (!customerId)
+      throw invalidRequest(
+        `The payload needs the customer id under "${meter.customer_key}".`,
+        `payload[${meter.customer_key}]`,
+      );
     const customer = fake.state.customers[customerId];
-    if (!customer || customer.deleted) throw noSuch("customer", customerId, `payload[${meter.customer_key}]`);
+    if (!customer || customer.deleted)
+      throw noSuch("customer", customerId, `payload[${meter.customer_key}]`);
     const raw = p.payload[meter.value_key];
     if (meter.formula !== "count" && raw === undefined) {
-      throw invalidRequest(`The payload needs a value under "${meter.value_key}".`, `payload[${meter.value_key}]`);
+      throw invalidRequest(
+        `The payload needs a value under "${meter.value_key}".`,
+        `payload[${meter.value_key}]`,
+      );
     }
     if (raw !== undefined && !/^\d+$/.test(raw)) {
-      throw invalidRequest(`The value under "${meter.value_key}" must be a non-negative whole number, got "${raw}".`, `payload[${meter.value_key}]`);
+      throw invalidRequest(
+        `The value under "${meter.value_key}" must be a non-negative whole number, got "${raw}".`,
+        `payload[${meter.value_key}]`,
+      );
     }
     const now = fake.now(customerId);
     const timestamp = p.timestamp ?? now;
     if (timestamp < now - 35 * DAY || timestamp > now + 300) {
-      throw invalidRequest("timestamp must be within the past 35 days and at most 5 minutes in the future.", "timestamp");
+      throw invalidRequest(
+        "timestamp must be within the past 35 days and at most 5 minutes in the future.",
+        "timestamp",
+      );
     }
     const identifier = p.identifier ?? randomText(24);
-    const duplicate = fake.state.meterEvents.find((e) => e.identifier === identifier && e.created > now - DAY);
+    const duplicate = fake.state.meterEvents.find(
+      (e) => e.identifier === identifier && e.created > now - DAY,
+    );
     const event = duplicate ?? {
       identifier,
       event_name: p.event_name,

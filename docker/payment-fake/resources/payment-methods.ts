@@ -20,18 +20,30 @@ import type { ApiRouter } from "./types";
  * saved card that `customerId` may use. Declining test cards fail here
  * with a 402, exactly when saving them would fail.
  */
-export function resolvePaymentMethodParam(fake: Fake, value: string, param: string, customerId: string): PaymentMethodRec {
+export function resolvePaymentMethodParam(
+  fake: Fake,
+  value: string,
+  param: string,
+  customerId: string,
+): PaymentMethodRec {
   const tokenNumber = TEST_PAYMENT_METHOD_TOKENS[value];
   if (tokenNumber) {
     const card = TEST_CARDS[tokenNumber];
     if (card.attach) throw cardError(card.attach, param);
     const year = new Date(fake.now(customerId) * 1000).getUTCFullYear() + 3;
-    return createPaymentMethod(fake, { number: tokenNumber, card, exp_month: 12, exp_year: year }, { name: null, email: null });
+    return createPaymentMethod(
+      fake,
+      { number: tokenNumber, card, exp_month: 12, exp_year: year },
+      { name: null, email: null },
+    );
   }
   const pm = fake.state.paymentMethods[value];
   if (!pm) throw noSuch("PaymentMethod", value, param);
   if (pm.customer && pm.customer !== customerId) {
-    throw invalidRequest(`The payment method ${value} is already attached to another customer.`, param);
+    throw invalidRequest(
+      `The payment method ${value} is already attached to another customer.`,
+      param,
+    );
   }
   return pm;
 }
@@ -45,8 +57,17 @@ export function registerPaymentMethods(router: ApiRouter): void {
   });
 
   router.add("GET", "/v1/payment_methods", ({ fake, body }) => {
-    const p = parseParams(z.strictObject({ ...listShape, customer: z.string().optional(), type: z.literal("card").optional() }), body);
-    const rows = newestFirst(fake.state.paymentMethods).filter((pm) => p.customer === undefined || pm.customer === p.customer);
+    const p = parseParams(
+      z.strictObject({
+        ...listShape,
+        customer: z.string().optional(),
+        type: z.literal("card").optional(),
+      }),
+      body,
+    );
+    const rows = newestFirst(fake.state.paymentMethods).filter(
+      (pm) => p.customer === undefined || pm.customer === p.customer,
+    );
     return paginate(rows, p, "/v1/payment_methods", renderPaymentMethod);
   });
 
@@ -63,7 +84,8 @@ export function registerPaymentMethods(router: ApiRouter): void {
     parseParams(z.strictObject({ expand: expand() }), body);
     const pm = fake.state.paymentMethods[params.id];
     if (!pm) throw noSuch("PaymentMethod", params.id);
-    if (!pm.customer) throw invalidRequest(`The payment method ${pm.id} is not attached to a customer.`);
+    if (!pm.customer)
+      throw invalidRequest(`The payment method ${pm.id} is not attached to a customer.`);
     const customer = fake.state.customers[pm.customer];
     if (customer && customer.default_payment_method === pm.id) {
       const before = renderCustomer(fake, customer);

@@ -8,7 +8,16 @@ import { noSuch } from "../core/errors";
 import { newId } from "../core/ids";
 import type { PortalSessionRec } from "../core/state";
 import { newestFirst, paginate } from "../http/list";
-import { bool, expand, inRange, listShape, parseParams, rangeFilter, str, url } from "../http/params";
+import {
+  bool,
+  expand,
+  inRange,
+  listShape,
+  parseParams,
+  rangeFilter,
+  str,
+  url,
+} from "../http/params";
 import { getCustomerOrThrow } from "./customers";
 import { renderPortalSession } from "./render-billing";
 import type { ApiRouter } from "./types";
@@ -18,7 +27,15 @@ const PORTAL_TTL = 3600;
 
 export function registerPortalAndEvents(router: ApiRouter): void {
   router.add("POST", "/v1/billing_portal/sessions", ({ fake, body }) => {
-    const p = parseParams(z.strictObject({ customer: str(), return_url: url().optional(), locale: z.literal("auto").optional(), expand: expand() }), body);
+    const p = parseParams(
+      z.strictObject({
+        customer: str(),
+        return_url: url().optional(),
+        locale: z.literal("auto").optional(),
+        expand: expand(),
+      }),
+      body,
+    );
     const customer = getCustomerOrThrow(fake, p.customer);
     const id = newId("bps");
     const now = fake.now(customer.id);

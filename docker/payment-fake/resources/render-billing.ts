@@ -4,7 +4,13 @@
  * billing periods live on subscription items. Invoices: render-invoice.ts.
  */
 import type { Fake } from "../core/fake";
-import type { CheckoutSessionRec, PortalSessionRec, PriceRec, SubItemRec, SubscriptionRec } from "../core/state";
+import type {
+  CheckoutSessionRec,
+  PortalSessionRec,
+  PriceRec,
+  SubItemRec,
+  SubscriptionRec,
+} from "../core/state";
 import { renderPlan, renderPrice, type Json } from "./render-catalog";
 
 export function priceOf(fake: Fake, id: string): PriceRec {
@@ -35,13 +41,25 @@ export function renderCheckoutSession(fake: Fake, s: CheckoutSessionRec): Json {
     currency: s.currency,
     currency_conversion: null,
     custom_fields: [],
-    custom_text: { after_submit: null, shipping_address: null, submit: null, terms_of_service_acceptance: null },
+    custom_text: {
+      after_submit: null,
+      shipping_address: null,
+      submit: null,
+      terms_of_service_acceptance: null,
+    },
     customer: s.customer,
     customer_account: null,
     customer_creation: s.customer ? null : "always",
     customer_details:
       s.status === "complete" && customer
-        ? { address: null, email: customer.email, name: customer.name, phone: null, tax_exempt: "none", tax_ids: [] }
+        ? {
+            address: null,
+            email: customer.email,
+            name: customer.name,
+            phone: null,
+            tax_exempt: "none",
+            tax_ids: [],
+          }
         : null,
     customer_email: s.customer_email,
     discounts: [],
@@ -79,10 +97,15 @@ export function renderCheckoutSession(fake: Fake, s: CheckoutSessionRec): Json {
 }
 
 /** One checkout line item (`item` objects), as in `line_items` expansions. */
-export function renderCheckoutLine(fake: Fake, s: CheckoutSessionRec, line: CheckoutSessionRec["line_items"][number]): Json {
+export function renderCheckoutLine(
+  fake: Fake,
+  s: CheckoutSessionRec,
+  line: CheckoutSessionRec["line_items"][number],
+): Json {
   const price = priceOf(fake, line.price);
   const product = fake.state.products[price.product];
-  const amount = price.recurring?.usage_type === "metered" ? 0 : (price.unit_amount ?? 0) * (line.quantity ?? 0);
+  const amount =
+    price.recurring?.usage_type === "metered" ? 0 : (price.unit_amount ?? 0) * (line.quantity ?? 0);
   return {
     id: line.id,
     object: "item",
@@ -131,7 +154,11 @@ export function renderSubscription(fake: Fake, s: SubscriptionRec): Json {
     cancel_at: s.cancel_at,
     cancel_at_period_end: s.cancel_at_period_end,
     canceled_at: s.canceled_at,
-    cancellation_details: { comment: s.cancellation_comment, feedback: s.cancellation_feedback, reason: s.cancellation_reason },
+    cancellation_details: {
+      comment: s.cancellation_comment,
+      feedback: s.cancellation_feedback,
+      reason: s.cancellation_reason,
+    },
     collection_method: "charge_automatically",
     created: s.created,
     currency: s.currency,
@@ -158,7 +185,11 @@ export function renderSubscription(fake: Fake, s: SubscriptionRec): Json {
     next_pending_invoice_item_invoice: null,
     on_behalf_of: null,
     pause_collection: null,
-    payment_settings: { payment_method_options: null, payment_method_types: null, save_default_payment_method: "off" },
+    payment_settings: {
+      payment_method_options: null,
+      payment_method_types: null,
+      save_default_payment_method: "off",
+    },
     pending_invoice_item_interval: null,
     pending_setup_intent: null,
     pending_update: null,

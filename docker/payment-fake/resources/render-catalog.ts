@@ -20,7 +20,8 @@ export function renderCustomer(fake: Fake, c: CustomerRec): Json {
     address: null,
     balance: c.balance,
     created: c.created,
-    currency: Object.values(fake.state.subscriptions).find((s) => s.customer === c.id)?.currency ?? null,
+    currency:
+      Object.values(fake.state.subscriptions).find((s) => s.customer === c.id)?.currency ?? null,
     default_source: null,
     delinquent,
     description: c.description,

@@ -9,7 +9,11 @@ import type { InvoiceLineRec, InvoiceRec } from "../core/state";
 import { priceOf } from "./render-billing";
 import type { Json } from "./render-catalog";
 
-export function renderInvoiceLine(fake: Fake, invoiceId: string | null, line: InvoiceLineRec): Json {
+export function renderInvoiceLine(
+  fake: Fake,
+  invoiceId: string | null,
+  line: InvoiceLineRec,
+): Json {
   const price = priceOf(fake, line.price);
   return {
     id: line.id,
@@ -49,7 +53,10 @@ export function renderInvoiceLine(fake: Fake, invoiceId: string | null, line: In
   };
 }
 
-export function invoiceUrls(fake: Fake, inv: InvoiceRec): { hosted: string | null; pdf: string | null } {
+export function invoiceUrls(
+  fake: Fake,
+  inv: InvoiceRec,
+): { hosted: string | null; pdf: string | null } {
   if (inv.status === "draft") return { hosted: null, pdf: null };
   const base = `${fake.config.publicUrl}/invoice/${inv.id}/${inv._token}`;
   return { hosted: base, pdf: `${base}/pdf` };
@@ -73,7 +80,13 @@ export function renderInvoice(fake: Fake, inv: InvoiceRec): Json {
     attempt_count: inv.attempt_count,
     attempted: inv.attempted,
     auto_advance: inv.status === "draft" || inv.status === "open",
-    automatic_tax: { disabled_reason: null, enabled: false, liability: null, provider: null, status: null },
+    automatic_tax: {
+      disabled_reason: null,
+      enabled: false,
+      liability: null,
+      provider: null,
+      status: null,
+    },
     automatically_finalizes_at: null,
     billing_reason: inv.billing_reason,
     collection_method: "charge_automatically",
@@ -119,11 +132,18 @@ export function renderInvoice(fake: Fake, inv: InvoiceRec): Json {
     parent: inv.subscription
       ? {
           quote_details: null,
-          subscription_details: { metadata: sub ? { ...sub.metadata } : {}, subscription: inv.subscription },
+          subscription_details: {
+            metadata: sub ? { ...sub.metadata } : {},
+            subscription: inv.subscription,
+          },
           type: "subscription_details",
         }
       : null,
-    payment_settings: { default_mandate: null, payment_method_options: null, payment_method_types: null },
+    payment_settings: {
+      default_mandate: null,
+      payment_method_options: null,
+      payment_method_types: null,
+    },
     period_end: inv.period_end,
     period_start: inv.period_start,
     post_payment_credit_notes_amount: 0,

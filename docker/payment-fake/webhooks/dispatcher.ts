@@ -90,7 +90,9 @@ export class WebhookDispatcher {
     try {
       for (;;) {
         const now = this.fake.realNowMs();
-        const due = this.fake.state.deliveries.find((d) => d.status === "pending" && d.next_attempt_ms <= now);
+        const due = this.fake.state.deliveries.find(
+          (d) => d.status === "pending" && d.next_attempt_ms <= now,
+        );
         if (!due) break;
         await this.attempt(due);
         if (this.stopped) return;
@@ -118,7 +120,11 @@ export class WebhookDispatcher {
     // Deliver to the endpoint configured now (it may have changed since a restart).
     if (this.settings.url) delivery.url = this.settings.url;
     const payload = JSON.stringify(event, null, 2);
-    const signature = signPayload(payload, this.settings.secret, Math.floor(this.fake.realNowMs() / 1000));
+    const signature = signPayload(
+      payload,
+      this.settings.secret,
+      Math.floor(this.fake.realNowMs() / 1000),
+    );
     let status: number | null = null;
     let error: string | null = null;
     try {
@@ -145,7 +151,10 @@ export class WebhookDispatcher {
     } else if (delivery.attempts.length >= this.settings.maxAttempts) {
       delivery.status = "failed";
     } else {
-      const backoff = Math.min(this.settings.maxDelayMs, this.settings.baseDelayMs * 2 ** (delivery.attempts.length - 1));
+      const backoff = Math.min(
+        this.settings.maxDelayMs,
+        this.settings.baseDelayMs * 2 ** (delivery.attempts.length - 1),
+      );
       delivery.next_attempt_ms = this.fake.realNowMs() + backoff;
     }
     this.fake.scheduleSave();

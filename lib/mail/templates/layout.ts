@@ -11,7 +11,13 @@ import Handlebars from "handlebars";
 import { subjectSafeName } from "@/lib/validation/names";
 
 /** Ketwise's accent (the verdigris of the logo) and neutrals, as hex for mail clients. */
-export const MAIL_COLORS = { accent: "#13777d", ink: "#1b2430", ink2: "#4b5563", line: "#e3e7ec", canvas: "#f5f7f9" } as const;
+export const MAIL_COLORS = {
+  accent: "#13777d",
+  ink: "#1b2430",
+  ink2: "#4b5563",
+  line: "#e3e7ec",
+  canvas: "#f5f7f9",
+} as const;
 
 const hb = Handlebars.create();
 
@@ -48,8 +54,17 @@ export function textTemplate<T>(source: string): (data: T) => string {
 export type RenderedMail = { subject: string; text: string; html: string };
 
 /** Wraps a rendered body in the frame. `preview` is the inbox preview line. */
-export function frameMail(input: { subject: string; title: string; preview: string; bodyHtml: string; text: string; footer?: string }): RenderedMail {
-  const footer = input.footer ?? "You get this e-mail because of your Ketwise account. Ketwise never asks for your password by e-mail.";
+export function frameMail(input: {
+  subject: string;
+  title: string;
+  preview: string;
+  bodyHtml: string;
+  text: string;
+  footer?: string;
+}): RenderedMail {
+  const footer =
+    input.footer ??
+    "You get this e-mail because of your Ketwise account. Ketwise never asks for your password by e-mail.";
   const html = frame({ title: input.title, preview: input.preview, body: input.bodyHtml, footer });
   // Subjects are one line of bounded length whatever a template put in them.
   const subject = subjectSafeName(input.subject, 160);

@@ -49,16 +49,33 @@ export interface ExprContext {
 
 const CONSTANTS: Record<QasmFormat, Record<string, number>> = {
   qasm2: { pi: Math.PI },
-  qasm3: { pi: Math.PI, "π": Math.PI, tau: 2 * Math.PI, "τ": 2 * Math.PI, euler: Math.E, "ℇ": Math.E },
+  qasm3: { pi: Math.PI, π: Math.PI, tau: 2 * Math.PI, τ: 2 * Math.PI, euler: Math.E, ℇ: Math.E },
 };
 
 type Fn = (...a: number[]) => number;
 const FUNCTIONS: Record<QasmFormat, Record<string, Fn>> = {
-  qasm2: { sin: Math.sin, cos: Math.cos, tan: Math.tan, exp: Math.exp, ln: Math.log, sqrt: Math.sqrt },
+  qasm2: {
+    sin: Math.sin,
+    cos: Math.cos,
+    tan: Math.tan,
+    exp: Math.exp,
+    ln: Math.log,
+    sqrt: Math.sqrt,
+  },
   qasm3: {
-    sin: Math.sin, cos: Math.cos, tan: Math.tan, arcsin: Math.asin, arccos: Math.acos, arctan: Math.atan,
-    exp: Math.exp, log: Math.log, sqrt: Math.sqrt, floor: Math.floor, ceiling: Math.ceil,
-    pow: Math.pow, mod: (a, b) => a - b * Math.floor(a / b),
+    sin: Math.sin,
+    cos: Math.cos,
+    tan: Math.tan,
+    arcsin: Math.asin,
+    arccos: Math.acos,
+    arctan: Math.atan,
+    exp: Math.exp,
+    log: Math.log,
+    sqrt: Math.sqrt,
+    floor: Math.floor,
+    ceiling: Math.ceil,
+    pow: Math.pow,
+    mod: (a, b) => a - b * Math.floor(a / b),
   },
 };
 
@@ -157,9 +174,16 @@ export const BINARY: Record<string, (a: number, b: number) => number> = {
 
 export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
   const text = ctx.source.slice(e.pos.start, e.pos.end);
-  const finish = (evaluate: (x: Float64Array) => number, constant: number | null, grad: Grad = NO_GRADIENT): Compiled => {
+  const finish = (
+    evaluate: (x: Float64Array) => number,
+    constant: number | null,
+    grad: Grad = NO_GRADIENT,
+  ): Compiled => {
     if (constant !== null && !Number.isFinite(constant)) {
-      throw semanticError(`expression '${text}' does not evaluate to a finite number (${constant})${ctx.where ?? ""}`, e.pos);
+      throw semanticError(
+        `expression '${text}' does not evaluate to a finite number (${constant})${ctx.where ?? ""}`,
+        e.pos,
+      );
     }
     return constant !== null
       ? constantOf(constant, text, e.pos.line, e.pos.column)
@@ -182,7 +206,11 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
       const a = compileExpr(e.arg, ctx);
       const f = a.evaluate;
       const g = a.grad;
-      return finish((x) => -f(x), a.constant === null ? null : -a.constant, (x, out, sc) => g(x, out, -sc));
+      return finish(
+        (x) => -f(x),
+        a.constant === null ? null : -a.constant,
+        (x, out, sc) => g(x, out, -sc),
+      );
     }
     case "binary": {
       if (e.op === "**" && ctx.format === "qasm2") {
@@ -196,7 +224,8 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
       const op = BINARY[e.op];
       const fa = a.evaluate;
       const fb = b.evaluate;
-      const constant = a.constant !== null && b.constant !== null ? op(a.constant, b.constant) : null;
+      const constant =
+        a.constant !== null && b.constant !== null ? op(a.constant, b.constant) : null;
       return finish((x) => op(fa(x), fb(x)), constant, binaryGrad(e.op, fa, fb, a.grad, b.grad));
     }
     case "call": {
@@ -206,7 +235,10 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
         throw semanticError(`unknown function '${e.fn}' (available: ${names})`, e.pos);
       }
       if (e.args.length !== fn.length) {
-        throw semanticError(`function '${e.fn}' takes ${plural(fn.length, "argument")}, got ${e.args.length}`, e.pos);
+        throw semanticError(
+          `function '${e.fn}' takes ${plural(fn.length, "argument")}, got ${e.args.length}`,
+          e.pos,
+        );
       }
       const args = e.args.map((a) => compileExpr(a, ctx));
       const allConst = args.every((a) => a.constant !== null);
@@ -215,7 +247,11 @@ export function compileExpr(e: Expr, ctx: ExprContext): Compiled {
         const f0 = args[0].evaluate;
         const g0 = args[0].grad;
         const d = DERIVATIVES[e.fn];
-        return finish((x) => fn(f0(x)), constant, (x, out, sc) => g0(x, out, sc * d(f0(x))));
+        return finish(
+          (x) => fn(f0(x)),
+          constant,
+          (x, out, sc) => g0(x, out, sc * d(f0(x))),
+        );
       }
       const f0 = args[0].evaluate;
       const f1 = args[1].evaluate;

@@ -87,8 +87,14 @@ export function rx(theta: number): Float64Array {
   const c = Math.cos(theta / 2);
   const s = Math.sin(theta / 2);
   return fromRows([
-    [[c, 0], [0, -s]],
-    [[0, -s], [c, 0]],
+    [
+      [c, 0],
+      [0, -s],
+    ],
+    [
+      [0, -s],
+      [c, 0],
+    ],
   ]);
 }
 
@@ -96,8 +102,14 @@ export function ry(theta: number): Float64Array {
   const c = Math.cos(theta / 2);
   const s = Math.sin(theta / 2);
   return fromRows([
-    [[c, 0], [-s, 0]],
-    [[s, 0], [c, 0]],
+    [
+      [c, 0],
+      [-s, 0],
+    ],
+    [
+      [s, 0],
+      [c, 0],
+    ],
   ]);
 }
 
@@ -110,14 +122,47 @@ export function phase(lambda: number): Float64Array {
 }
 
 const R = Math.SQRT1_2;
-export const X = fromRows([[ZERO, ONE], [ONE, ZERO]]);
-export const Y = fromRows([[ZERO, [0, -1]], [I, ZERO]]);
+export const X = fromRows([
+  [ZERO, ONE],
+  [ONE, ZERO],
+]);
+export const Y = fromRows([
+  [ZERO, [0, -1]],
+  [I, ZERO],
+]);
 export const Z = diag([ONE, [-1, 0]]);
-export const H = fromRows([[[R, 0], [R, 0]], [[R, 0], [-R, 0]]]);
+export const H = fromRows([
+  [
+    [R, 0],
+    [R, 0],
+  ],
+  [
+    [R, 0],
+    [-R, 0],
+  ],
+]);
 export const ID = diag([ONE, ONE]);
 /** √X = ½[[1+i, 1−i], [1−i, 1+i]] (principal square root of X). */
-export const SX = fromRows([[[0.5, 0.5], [0.5, -0.5]], [[0.5, -0.5], [0.5, 0.5]]]);
-export const SXDG = fromRows([[[0.5, -0.5], [0.5, 0.5]], [[0.5, 0.5], [0.5, -0.5]]]);
+export const SX = fromRows([
+  [
+    [0.5, 0.5],
+    [0.5, -0.5],
+  ],
+  [
+    [0.5, -0.5],
+    [0.5, 0.5],
+  ],
+]);
+export const SXDG = fromRows([
+  [
+    [0.5, -0.5],
+    [0.5, 0.5],
+  ],
+  [
+    [0.5, 0.5],
+    [0.5, -0.5],
+  ],
+]);
 
 export const SWAP = fromRows([
   [ONE, ZERO, ZERO, ZERO],
@@ -144,6 +189,11 @@ export function rzz(theta: number): Float64Array {
 }
 
 /** e^{iγ}·U3(θ,φ,λ), the target block of OpenQASM 3 `cu`. */
-export function u3WithPhase(theta: number, phi: number, lambda: number, gamma: number): Float64Array {
+export function u3WithPhase(
+  theta: number,
+  phi: number,
+  lambda: number,
+  gamma: number,
+): Float64Array {
   return scaled(u3(theta, phi, lambda), cis(gamma));
 }

@@ -34,19 +34,24 @@ const compiledPrograms = new WeakMap<ParsedProgram, CompiledProgram>();
 /** The compiled form behind a ParsedProgram made by parseProgram (for the exporters). */
 export function compiledOf(program: ParsedProgram): CompiledProgram {
   const c = compiledPrograms.get(program);
-  if (c === undefined) throw new EngineError("invalid_request", "not a program returned by parseProgram");
+  if (c === undefined)
+    throw new EngineError("invalid_request", "not a program returned by parseProgram");
   return c;
 }
 
 /** Parses and checks an OpenQASM 2.0 or OpenQASM 3 (Ketwise subset) program. */
 export function parseProgram(format: QasmFormat, source: string): ParsedProgram {
   if (format !== "qasm2" && format !== "qasm3") {
-    throw new EngineError("invalid_request", `unknown circuit format '${String(format)}' (expected "qasm2" or "qasm3")`, [
-      { path: ["circuit", "format"], message: "expected \"qasm2\" or \"qasm3\"" },
-    ]);
+    throw new EngineError(
+      "invalid_request",
+      `unknown circuit format '${String(format)}' (expected "qasm2" or "qasm3")`,
+      [{ path: ["circuit", "format"], message: 'expected "qasm2" or "qasm3"' }],
+    );
   }
   if (typeof source !== "string") {
-    throw new EngineError("invalid_request", "the circuit source must be a string", [{ path: ["circuit", "source"], message: "expected a string" }]);
+    throw new EngineError("invalid_request", "the circuit source must be a string", [
+      { path: ["circuit", "source"], message: "expected a string" },
+    ]);
   }
   let compiled: CompiledProgram;
   try {
@@ -73,15 +78,20 @@ export function parseProgram(format: QasmFormat, source: string): ParsedProgram 
 /** Checks the parameter object against the declared inputs; values in input order. */
 export function readInputs(inputs: readonly ProgramInput[], params: unknown): Float64Array {
   if (typeof params !== "object" || params === null || Array.isArray(params)) {
-    throw new EngineError("invalid_request", "parameters must be an object mapping input names to numbers", [
-      { path: ["parameters"], message: "expected an object of name → number" },
-    ]);
+    throw new EngineError(
+      "invalid_request",
+      "parameters must be an object mapping input names to numbers",
+      [{ path: ["parameters"], message: "expected an object of name → number" }],
+    );
   }
   const record = params as Record<string, unknown>;
   const names = inputs.map((i) => i.name);
   for (const key of Object.keys(record)) {
     if (!names.includes(key)) {
-      const declared = names.length > 0 ? `the circuit declares: ${names.join(", ")}` : "the circuit declares no inputs";
+      const declared =
+        names.length > 0
+          ? `the circuit declares: ${names.join(", ")}`
+          : "the circuit declares no inputs";
       throw parameterError(key, `unknown parameter '${key}' (${declared})`);
     }
   }
@@ -92,7 +102,10 @@ export function readInputs(inputs: readonly ProgramInput[], params: unknown): Fl
     }
     const v = record[input.name];
     if (typeof v !== "number" || !Number.isFinite(v)) {
-      throw parameterError(input.name, `parameter '${input.name}' must be a finite number, got ${String(v)}`);
+      throw parameterError(
+        input.name,
+        `parameter '${input.name}' must be a finite number, got ${String(v)}`,
+      );
     }
     values[i] = v;
   });
@@ -104,7 +117,10 @@ export function evaluateChecked(c: Compiled, inputs: Float64Array): number {
   if (c.constant !== null) return c.constant;
   const v = c.evaluate(inputs);
   if (!Number.isFinite(v)) {
-    throw semanticError(`expression '${c.text}' does not evaluate to a finite number (${v}) for the given parameter values`, c);
+    throw semanticError(
+      `expression '${c.text}' does not evaluate to a finite number (${v}) for the given parameter values`,
+      c,
+    );
   }
   return v;
 }
@@ -127,10 +143,21 @@ function bindProgram(p: CompiledProgram, params: unknown): Circuit {
     const parts: GateApplication[] = new Array(op.parts.length);
     for (let k = 0; k < op.parts.length; k++) {
       const t = op.parts[k];
-      parts[k] = { name: t.gate.name, qubits: op.partQubits[k], matrix: t.constMatrix ?? matrices[t.slot] };
+      parts[k] = {
+        name: t.gate.name,
+        qubits: op.partQubits[k],
+        matrix: t.constMatrix ?? matrices[t.slot],
+      };
     }
     const values = op.params.map((c) => evaluateChecked(c, inputs));
-    ops[i] = { kind: "gate", name: op.name, qubits: op.qubits, params: values, parts, line: op.line };
+    ops[i] = {
+      kind: "gate",
+      name: op.name,
+      qubits: op.qubits,
+      params: values,
+      parts,
+      line: op.line,
+    };
   }
   return {
     numQubits: p.numQubits,

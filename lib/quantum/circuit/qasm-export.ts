@@ -30,14 +30,18 @@ function checkWord(p: CompiledProgram, word: unknown, field: string): string {
 function header(p: CompiledProgram, title: string[]): string[] {
   const lines = ["OPENQASM 2.0;", 'include "qelib1.inc";', ...title.map((t) => `// ${t}`)];
   const renamed = p.qubitLabels.some((l, i) => l !== `q[${i}]`);
-  if (renamed) lines.push(`// qubit map: ${p.qubitLabels.map((l, i) => `q[${i}] = ${l}`).join(", ")}`);
+  if (renamed)
+    lines.push(`// qubit map: ${p.qubitLabels.map((l, i) => `q[${i}] = ${l}`).join(", ")}`);
   return lines;
 }
 
 /** Gates, resets and barriers of the bound program (measurements dropped). */
 function body(p: CompiledProgram, params: Record<string, number>, purpose: string): string[] {
   if (p.hasMidCircuitMeasurement) {
-    throw new EngineError("unsupported", `${purpose} cannot be exported for a circuit with mid-circuit measurements`);
+    throw new EngineError(
+      "unsupported",
+      `${purpose} cannot be exported for a circuit with mid-circuit measurements`,
+    );
   }
   const inputs = readInputs(p.inputs, params);
   const q = (i: number) => `q[${i}]`;
@@ -58,13 +62,19 @@ function body(p: CompiledProgram, params: Record<string, number>, purpose: strin
 }
 
 /** OpenQASM 2.0 circuit measuring every qubit whose basis is not I in its Pauli basis. */
-export function measurementCircuitQasm(program: ParsedProgram, params: Record<string, number>, bases: string): string {
+export function measurementCircuitQasm(
+  program: ParsedProgram,
+  params: Record<string, number>,
+  bases: string,
+): string {
   const p = compiledOf(program);
   checkWord(p, bases, "bases");
   const measured = [...bases].flatMap((b, i) => (b === "I" ? [] : [i]));
   const lines = header(p, [
     `Ketwise measurement circuit for bases ${bases} (qubit 0 first)`,
-    measured.length > 0 ? `m[j] holds the j-th measured qubit: ${measured.map((i, j) => `m[${j}] = q[${i}]`).join(", ")}` : "no qubit is measured (all bases I)",
+    measured.length > 0
+      ? `m[j] holds the j-th measured qubit: ${measured.map((i, j) => `m[${j}] = q[${i}]`).join(", ")}`
+      : "no qubit is measured (all bases I)",
   ]);
   lines.push(`qreg q[${p.numQubits}];`);
   if (measured.length > 0) lines.push(`creg m[${measured.length}];`);
@@ -81,11 +91,18 @@ export function measurementCircuitQasm(program: ParsedProgram, params: Record<st
 }
 
 /** OpenQASM 2.0 Hadamard test whose ancilla has ⟨Z⟩ = Re⟨ψ|P|ψ⟩ ("re") or Im⟨ψ|P|ψ⟩ ("im"). */
-export function hadamardTestQasm(program: ParsedProgram, params: Record<string, number>, word: string, part: "re" | "im"): string {
+export function hadamardTestQasm(
+  program: ParsedProgram,
+  params: Record<string, number>,
+  word: string,
+  part: "re" | "im",
+): string {
   const p = compiledOf(program);
   checkWord(p, word, "word");
   if (part !== "re" && part !== "im") {
-    throw new EngineError("invalid_request", `part must be "re" or "im"`, [{ path: ["part"], message: 'expected "re" or "im"' }]);
+    throw new EngineError("invalid_request", `part must be "re" or "im"`, [
+      { path: ["part"], message: 'expected "re" or "im"' },
+    ]);
   }
   const lines = header(p, [
     `Ketwise Hadamard test for P = ${word} (qubit 0 first)`,

@@ -39,5 +39,11 @@ export function circuitStats(circuit: Circuit): CircuitStats {
     depth = Math.max(depth, d);
   }
   // fromEntries defines own properties, so a gate named "__proto__" is counted safely.
-  return { qubits: circuit.numQubits, gateCounts: Object.fromEntries(counts), totalGates, twoQubitGates, depth };
+  return {
+    qubits: circuit.numQubits,
+    gateCounts: Object.fromEntries(counts),
+    totalGates,
+    twoQubitGates,
+    depth,
+  };
 }

@@ -72,7 +72,11 @@ function opMatrix(
 }
 
 /** The step list: unitaries (fused), noise after each gate op, measurements and resets. */
-export function densitySteps(circuit: Circuit, noisy: boolean, plan: NoisePlan = new NoisePlan(undefined, circuit.numQubits)): Step[] {
+export function densitySteps(
+  circuit: Circuit,
+  noisy: boolean,
+  plan: NoisePlan = new NoisePlan(undefined, circuit.numQubits),
+): Step[] {
   const steps: Step[] = [];
   const final = finalMeasurements(circuit);
   let fuser = new GateFuser();

@@ -14,10 +14,15 @@ import type { PreparedObservable } from "../sampling/sample-observable";
 import type { EstimateRequest } from "../schemas";
 import type { PauliSum } from "../types";
 
-export type ObservableShape = { kind: "pauli"; sum: PauliSum; settings: MeasurementSetting[] } | { kind: "matrix"; matrix: HermitianMatrix };
+export type ObservableShape =
+  | { kind: "pauli"; sum: PauliSum; settings: MeasurementSetting[] }
+  | { kind: "matrix"; matrix: HermitianMatrix };
 
 /** Parsed, checked observable without the (costly) eigendecomposition — for previews. */
-export function parseObservableForCircuit(input: EstimateRequest["observable"], n: number): ObservableShape {
+export function parseObservableForCircuit(
+  input: EstimateRequest["observable"],
+  n: number,
+): ObservableShape {
   if (input.format === "matrix") return { kind: "matrix", matrix: parseMatrixObservable(input, n) };
   if (input.format === "terms") return termsForCircuit(input.terms, n);
   return pauliForCircuit(input.terms, n);
@@ -29,25 +34,37 @@ function termsForCircuit(terms: unknown, n: number): ObservableShape {
   const plural = n === 1 ? "" : "s";
   const fail = (entry: number, message: string): never => {
     throw new EngineError("observable_invalid", `observable.terms[${entry}].pauli: ${message}`, [
-      { path: ["observable", "terms", entry, "pauli"], message: `observable.terms[${entry}].pauli: ${message}` },
+      {
+        path: ["observable", "terms", entry, "pauli"],
+        message: `observable.terms[${entry}].pauli: ${message}`,
+      },
     ]);
   };
   if (parsed.denseLength !== null && parsed.denseLength !== n) {
-    fail(parsed.denseEntry ?? 0, `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`);
+    fail(
+      parsed.denseEntry ?? 0,
+      `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`,
+    );
   }
   if (parsed.numQubits > n) {
     let worst = 0;
     parsed.terms.forEach((t, i) => {
       if (highestQubit(t) > highestQubit(parsed.terms[worst])) worst = i;
     });
-    fail(parsed.entries[worst], `observable acts on qubit ${highestQubit(parsed.terms[worst])} but the circuit has ${n} qubit${plural}`);
+    fail(
+      parsed.entries[worst],
+      `observable acts on qubit ${highestQubit(parsed.terms[worst])} but the circuit has ${n} qubit${plural}`,
+    );
   }
   const sum = padPauliSum(parsed, n);
   return { kind: "pauli", sum, settings: groupQubitWise(sum) };
 }
 
 /** The observable ready for estimation (matrix observables get their eigendecomposition). */
-export function prepareObservable(input: EstimateRequest["observable"], n: number): PreparedObservable {
+export function prepareObservable(
+  input: EstimateRequest["observable"],
+  n: number,
+): PreparedObservable {
   const shape = parseObservableForCircuit(input, n);
   return shape.kind === "matrix" ? { ...shape, eigen: hermitianEigen(shape.matrix) } : shape;
 }
@@ -58,7 +75,9 @@ function pauliForCircuit(terms: string, n: number): ObservableShape {
   if (parsed.denseLength !== null && parsed.denseLength !== n) {
     const at = parsed.denseAt ?? { line: 1, column: 1 };
     const message = `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`;
-    throw new EngineError("observable_invalid", message, [{ path: ["observable", "terms"], message, line: at.line, column: at.column }]);
+    throw new EngineError("observable_invalid", message, [
+      { path: ["observable", "terms"], message, line: at.line, column: at.column },
+    ]);
   }
   if (parsed.numQubits > n) {
     let worst = 0;
@@ -68,7 +87,9 @@ function pauliForCircuit(terms: string, n: number): ObservableShape {
     const q = Math.max(highestQubit(parsed.terms[worst]), parsed.numQubits - 1);
     const at = parsed.origins[worst];
     const message = `observable acts on qubit ${q} but the circuit has ${n} qubit${plural}`;
-    throw new EngineError("observable_invalid", message, [{ path: ["observable", "terms"], message, line: at.line, column: at.column }]);
+    throw new EngineError("observable_invalid", message, [
+      { path: ["observable", "terms"], message, line: at.line, column: at.column },
+    ]);
   }
   const sum = padPauliSum(parsed, n);
   return { kind: "pauli", sum, settings: groupQubitWise(sum) };

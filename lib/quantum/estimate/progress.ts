@@ -29,7 +29,12 @@ export class Progress {
 
   static root(onProgress?: ProgressFn, signal?: AbortSignal): Progress {
     const now = performance.now();
-    return new Progress({ onProgress, signal, lastReport: now, lastYield: now, lastFraction: 0 }, 0, 1, "start");
+    return new Progress(
+      { onProgress, signal, lastReport: now, lastYield: now, lastFraction: 0 },
+      0,
+      1,
+      "start",
+    );
   }
 
   span(from: number, to: number, phase: string = this.phase): Progress {

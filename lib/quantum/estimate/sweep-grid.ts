@@ -29,13 +29,19 @@ export function parameterPoints(
  * value — checked here for every point, so a bad point is refused at submission with its
  * path (e.g. points.3.theta). `names` lists the inputs the points set, in declaration order.
  */
-export function pointList(parameters: Record<string, number>, list: Record<string, number>[], inputs: readonly { name: string }[]): SweepGrid {
+export function pointList(
+  parameters: Record<string, number>,
+  list: Record<string, number>[],
+  inputs: readonly { name: string }[],
+): SweepGrid {
   const declared = inputs.map((i) => i.name);
   const set = new Set<string>();
   const points = list.map((point, k) => {
     for (const [name, value] of Object.entries(point)) {
       if (!declared.includes(name)) {
-        const list = declared.length ? `the circuit declares: ${declared.join(", ")}` : "the circuit declares no inputs";
+        const list = declared.length
+          ? `the circuit declares: ${declared.join(", ")}`
+          : "the circuit declares no inputs";
         const message = `points[${k}] sets '${name}', which is not an input of the circuit (${list})`;
         throw new EngineError("invalid_request", message, [{ path: ["points", k, name], message }]);
       }
@@ -56,13 +62,19 @@ export function pointList(parameters: Record<string, number>, list: Record<strin
   return { kind: "points", names: declared.filter((n) => set.has(n)), points };
 }
 
-export function sweepGrid(parameters: Record<string, number>, sweep: Record<string, number[]> | null, inputs: readonly { name: string }[]): SweepGrid {
+export function sweepGrid(
+  parameters: Record<string, number>,
+  sweep: Record<string, number[]> | null,
+  inputs: readonly { name: string }[],
+): SweepGrid {
   if (!sweep) return { kind: "single", names: [], points: [{ ...parameters }] };
   const declared = inputs.map((i) => i.name);
   const names = Object.keys(sweep);
   for (const name of names) {
     if (!declared.includes(name)) {
-      const list = declared.length ? `the circuit declares: ${declared.join(", ")}` : "the circuit declares no inputs";
+      const list = declared.length
+        ? `the circuit declares: ${declared.join(", ")}`
+        : "the circuit declares no inputs";
       const message = `cannot sweep '${name}': it is not an input of the circuit (${list})`;
       throw new EngineError("invalid_request", message, [{ path: ["sweep", name], message }]);
     }

@@ -11,13 +11,17 @@
 import type { DensityMatrix } from "../types";
 
 /** Index-bit offsets of the 2^k local states on the row bits and on the column bits. */
-function rowColOffsets(n: number, qubits: readonly number[]): { row: Int32Array; col: Int32Array; mask: number } {
+function rowColOffsets(
+  n: number,
+  qubits: readonly number[],
+): { row: Int32Array; col: Int32Array; mask: number } {
   const k = qubits.length;
   const d = 1 << k;
   const row = new Int32Array(d);
   const col = new Int32Array(d);
   for (let s = 0; s < d; s++) {
-    let r = 0, c = 0;
+    let r = 0,
+      c = 0;
     for (let j = 0; j < k; j++) {
       if ((s >> (k - 1 - j)) & 1) {
         c |= 1 << qubits[j];
@@ -46,7 +50,9 @@ export function depolarize(rho: DensityMatrix, qubits: readonly number[], p: num
   const notMask = ~mask;
   const count = re.length / (d * d);
   if (d === 2) {
-    const r1 = row[1], c1 = col[1], rc = r1 | c1;
+    const r1 = row[1],
+      c1 = col[1],
+      rc = r1 | c1;
     for (let t = 0, b = 0; t < count; t++, b = ((b | mask) + 1) & notMask) {
       const tr = re[b] + re[b | rc];
       const ti = im[b] + im[b | rc];
@@ -62,7 +68,8 @@ export function depolarize(rho: DensityMatrix, qubits: readonly number[], p: num
     return;
   }
   for (let t = 0, b = 0; t < count; t++, b = ((b | mask) + 1) & notMask) {
-    let tr = 0, ti = 0;
+    let tr = 0,
+      ti = 0;
     for (let s = 0; s < d; s++) {
       tr += re[b | row[s] | col[s]];
       ti += im[b | row[s] | col[s]];
@@ -117,7 +124,13 @@ export function dampQubit(rho: DensityMatrix, q: number, gamma: number, lambda: 
  * [[a, b], [c, e]] over q: a' = (1−p)a + p(a+e)/2, e' = (1−p)e + p(a+e)/2, b' = (1−p)b,
  * c' = (1−p)c; then a'' = a' + γe', e'' = (1−γ)e', b'' = √(1−γ)√(1−λ)·b', likewise c''.
  */
-export function noiseAfter1q(rho: DensityMatrix, q: number, p: number, gamma: number, lambda: number): void {
+export function noiseAfter1q(
+  rho: DensityMatrix,
+  q: number,
+  p: number,
+  gamma: number,
+  lambda: number,
+): void {
   if (p === 0 && gamma === 0 && lambda === 0) return;
   const { re, im } = rho;
   const c1 = 1 << q;
@@ -131,9 +144,14 @@ export function noiseAfter1q(rho: DensityMatrix, q: number, p: number, gamma: nu
   const count = re.length >>> 2;
   for (let t = 0, b = 0; t < count; t++, b = ((b | rc) + 1) & notMask) {
     const i11 = b | rc;
-    const ar = re[b], ai = im[b], er = re[i11], ei = im[i11];
-    const tr = mix * (ar + er), ti = mix * (ai + ei);
-    const er1 = keep * er + tr, ei1 = keep * ei + ti;
+    const ar = re[b],
+      ai = im[b],
+      er = re[i11],
+      ei = im[i11];
+    const tr = mix * (ar + er),
+      ti = mix * (ai + ei);
+    const er1 = keep * er + tr,
+      ei1 = keep * ei + ti;
     re[b] = keep * ar + tr + gamma * er1;
     im[b] = keep * ai + ti + gamma * ei1;
     re[i11] = pop * er1;

@@ -24,7 +24,9 @@ export function groupQubitWise(sum: PauliSum): MeasurementSetting[] {
   const order = sum.terms
     .map((t, i) => i)
     .filter((i) => sum.terms[i].xMask !== 0 || sum.terms[i].zMask !== 0)
-    .sort((a, b) => Math.abs(sum.terms[b].coefficient) - Math.abs(sum.terms[a].coefficient) || a - b);
+    .sort(
+      (a, b) => Math.abs(sum.terms[b].coefficient) - Math.abs(sum.terms[a].coefficient) || a - b,
+    );
   const groups: { x: number; z: number; s: number; terms: number[] }[] = [];
   for (const i of order) {
     const { xMask: tx, zMask: tz } = sum.terms[i];

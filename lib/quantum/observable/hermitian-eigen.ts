@@ -40,7 +40,12 @@ function realSymmetricEigen(h: HermitianMatrix): HermitianEigen {
   const rows: number[][] = [];
   for (let i = 0; i < d; i++) rows.push(Array.from(h.re.subarray(i * d, (i + 1) * d)));
   const { values, vectors, order } = sortedEvd(new Matrix(rows));
-  const out: HermitianEigen = { dim: d, values: new Float64Array(d), vecRe: new Float64Array(d * d), vecIm: new Float64Array(d * d) };
+  const out: HermitianEigen = {
+    dim: d,
+    values: new Float64Array(d),
+    vecRe: new Float64Array(d * d),
+    vecIm: new Float64Array(d * d),
+  };
   order.forEach((col, k) => {
     out.values[k] = values[col];
     for (let i = 0; i < d; i++) out.vecRe[k * d + i] = vectors.get(i, col);
@@ -63,12 +68,21 @@ function complexEigenByEmbedding(h: HermitianMatrix, d: number): HermitianEigen 
   const { values, vectors, order } = sortedEvd(m);
   const scale = Math.max(1, ...values.map(Math.abs));
   const tol = 1e-9 * scale;
-  const out: HermitianEigen = { dim: d, values: new Float64Array(d), vecRe: new Float64Array(d * d), vecIm: new Float64Array(d * d) };
+  const out: HermitianEigen = {
+    dim: d,
+    values: new Float64Array(d),
+    vecRe: new Float64Array(d * d),
+    vecIm: new Float64Array(d * d),
+  };
   let filled = 0;
   let start = 0;
   while (start < order.length) {
     let end = start + 1;
-    while (end < order.length && (values[order[end]] - values[order[end - 1]] <= tol || (end - start) % 2 === 1)) end++;
+    while (
+      end < order.length &&
+      (values[order[end]] - values[order[end - 1]] <= tol || (end - start) % 2 === 1)
+    )
+      end++;
     const want = Math.min((end - start) >> 1, d - filled);
     const cands = order.slice(start, end).map((col) => {
       const re = new Float64Array(d);

@@ -34,7 +34,11 @@ export const HERMITIAN_RELATIVE_TOLERANCE = 1e-10;
 
 type Path = (string | number)[];
 
-function invalid(message: string, path: Path, code: "observable_invalid" | "not_hermitian" | "too_large" = "observable_invalid"): never {
+function invalid(
+  message: string,
+  path: Path,
+  code: "observable_invalid" | "not_hermitian" | "too_large" = "observable_invalid",
+): never {
   throw new EngineError(code, message, [{ path, message }]);
 }
 
@@ -46,24 +50,41 @@ export function formatComplex(z: Complex): string {
   return `${f(z.re)}${sign}${f(Math.abs(z.im))}i`;
 }
 
-function readPart(rows: unknown, dim: number | null, name: "real" | "imag"): { dim: number; data: Float64Array } {
+function readPart(
+  rows: unknown,
+  dim: number | null,
+  name: "real" | "imag",
+): { dim: number; data: Float64Array } {
   const base: Path = ["observable", name];
-  if (!Array.isArray(rows) || rows.length === 0) invalid(`"${name}" must be a non-empty array of rows`, base);
+  if (!Array.isArray(rows) || rows.length === 0)
+    invalid(`"${name}" must be a non-empty array of rows`, base);
   const d = dim ?? rows.length;
   if (rows.length !== d) invalid(`"${name}" has ${rows.length} rows but "real" has ${d}`, base);
-  if (d < 2 || (d & (d - 1)) !== 0) invalid(`the matrix is ${d}×${d}; its dimension must be 2^n for n ≥ 1 qubits (2, 4, 8, …)`, base);
+  if (d < 2 || (d & (d - 1)) !== 0)
+    invalid(
+      `the matrix is ${d}×${d}; its dimension must be 2^n for n ≥ 1 qubits (2, 4, 8, …)`,
+      base,
+    );
   if (d > 1 << MAX_MATRIX_QUBITS) {
-    invalid(`the matrix is ${d}×${d}; matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${1 << MAX_MATRIX_QUBITS}×${1 << MAX_MATRIX_QUBITS})`, base, "too_large");
+    invalid(
+      `the matrix is ${d}×${d}; matrix observables are limited to ${MAX_MATRIX_QUBITS} qubits (${1 << MAX_MATRIX_QUBITS}×${1 << MAX_MATRIX_QUBITS})`,
+      base,
+      "too_large",
+    );
   }
   const data = new Float64Array(d * d);
   for (let i = 0; i < d; i++) {
     const row = rows[i] as unknown;
     if (!Array.isArray(row) || row.length !== d) {
-      invalid(`row ${i} of "${name}" must have ${d} entries (the matrix must be square)`, [...base, i]);
+      invalid(`row ${i} of "${name}" must have ${d} entries (the matrix must be square)`, [
+        ...base,
+        i,
+      ]);
     }
     for (let j = 0; j < d; j++) {
       const v = row[j] as unknown;
-      if (typeof v !== "number" || !Number.isFinite(v)) invalid(`entry (${i},${j}) of "${name}" is not a finite number`, [...base, i, j]);
+      if (typeof v !== "number" || !Number.isFinite(v))
+        invalid(`entry (${i},${j}) of "${name}" is not a finite number`, [...base, i, j]);
       data[i * d + j] = v;
     }
   }
@@ -74,14 +95,21 @@ function readPart(rows: unknown, dim: number | null, name: "real" | "imag"): { d
  * Validates and symmetrises a matrix observable. `numQubits`, when given, is the
  * circuit's qubit count and the dimension must be 2^numQubits.
  */
-export function parseMatrixObservable(input: MatrixObservableInput, numQubits?: number): HermitianMatrix {
+export function parseMatrixObservable(
+  input: MatrixObservableInput,
+  numQubits?: number,
+): HermitianMatrix {
   const real = readPart(input.real, null, "real");
   const dim = real.dim;
-  const im = input.imag === undefined ? new Float64Array(dim * dim) : readPart(input.imag, dim, "imag").data;
+  const im =
+    input.imag === undefined ? new Float64Array(dim * dim) : readPart(input.imag, dim, "imag").data;
   const re = real.data;
   const n = Math.log2(dim);
   if (numQubits !== undefined && n !== numQubits) {
-    invalid(`the matrix is ${dim}×${dim} (${n} qubits) but the circuit has ${numQubits} qubits; it must be ${2 ** numQubits}×${2 ** numQubits}`, ["observable", "real"]);
+    invalid(
+      `the matrix is ${dim}×${dim} (${n} qubits) but the circuit has ${numQubits} qubits; it must be ${2 ** numQubits}×${2 ** numQubits}`,
+      ["observable", "real"],
+    );
   }
   let scale = 0;
   for (let k = 0; k < dim * dim; k++) scale = Math.max(scale, Math.hypot(re[k], im[k]));

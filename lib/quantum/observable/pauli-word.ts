@@ -56,7 +56,9 @@ export function padPauliSum(sum: PauliSum, n: number): PauliSum {
     const highest = Math.max(-1, ...sum.terms.map(highestQubit));
     const named = highest >= n ? highest : sum.numQubits - 1;
     const message = `observable acts on qubit ${named} but the circuit has ${n} qubit${n === 1 ? "" : "s"}`;
-    throw new EngineError("observable_invalid", message, [{ path: ["observable", "terms"], message }]);
+    throw new EngineError("observable_invalid", message, [
+      { path: ["observable", "terms"], message },
+    ]);
   }
   return {
     numQubits: n,

@@ -39,7 +39,8 @@ import {
 // would try to bundle (the boot file loads tsx). The web app never starts kernel helpers.
 const PARALLEL_DIR = ["lib", "quantum", "parallel"];
 const bootPath = (): string => join(process.cwd(), ...PARALLEL_DIR, "helper-boot.mjs");
-const entryUrl = (): string => pathToFileURL(join(process.cwd(), ...PARALLEL_DIR, "kernel-helper.ts")).href;
+const entryUrl = (): string =>
+  pathToFileURL(join(process.cwd(), ...PARALLEL_DIR, "kernel-helper.ts")).href;
 const workerClass = (): typeof Worker => process.getBuiltinModule("node:worker_threads").Worker;
 /** Longest wait for helpers to start or attach before the run falls back to one thread. */
 const ATTACH_TIMEOUT_MS = 20_000;

@@ -17,7 +17,10 @@ export function varianceFromLaw(p: Float64Array, value: (b: number) => number): 
 }
 
 /** Exact single-shot mean and variance of a setting from its outcome law. */
-export function momentsFromLaw(p: Float64Array, value: (b: number) => number): { mean: number; variance: number } {
+export function momentsFromLaw(
+  p: Float64Array,
+  value: (b: number) => number,
+): { mean: number; variance: number } {
   let m1 = 0;
   let m2 = 0;
   for (let b = 0; b < p.length; b++) {
@@ -30,12 +33,22 @@ export function momentsFromLaw(p: Float64Array, value: (b: number) => number): {
   return { mean: m1, variance: Math.max(0, m2 - m1 * m1) };
 }
 
-export function pauliSettingVariance(p: Float64Array, sum: PauliSum, termIndices: number[], model: SettingModel): number {
+export function pauliSettingVariance(
+  p: Float64Array,
+  sum: PauliSum,
+  termIndices: number[],
+  model: SettingModel,
+): number {
   return pauliSettingMoments(p, sum, termIndices, model).variance;
 }
 
 /** Exact single-shot mean and variance of a Pauli setting (the cheaper evaluation, module doc). */
-export function pauliSettingMoments(p: Float64Array, sum: PauliSum, termIndices: number[], model: SettingModel): { mean: number; variance: number } {
+export function pauliSettingMoments(
+  p: Float64Array,
+  sum: PauliSum,
+  termIndices: number[],
+  model: SettingModel,
+): { mean: number; variance: number } {
   const k = termIndices.length;
   const n = Math.round(Math.log2(p.length));
   if (k <= n + 1 || k * k > p.length * k) return momentsFromLaw(p, (b) => model.value(b));

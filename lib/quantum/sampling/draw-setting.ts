@@ -95,7 +95,7 @@ export async function drawSetting(input: DrawSettingInput): Promise<SettingSampl
     const sizes = bounds.map((b, j) => b - (j === 0 ? 0 : bounds[j - 1]));
     const deal = new IntervalAssigner(sizes, rng);
     const iv = new Float64Array(4 * sizes.length); // per interval: Σv, Σv², Σv̂, Σv̂²
-    for (let i = 0; i < m; ) {
+    for (let i = 0; i < m;) {
       const b = outcomes[i];
       let j = i + 1;
       while (j < m && outcomes[j] === b) j++;
@@ -154,6 +154,19 @@ export async function drawSetting(input: DrawSettingInput): Promise<SettingSampl
   const termSums = new Float64Array(model.termCount);
   const termMitSums = mitFn ? new Float64Array(model.termCount) : null;
   const termMitSumSq = mitFn ? new Float64Array(model.termCount) : null;
-  for (let j = 0; j < distinctOutcomes.length; j++) model.accumulateTerms(distinctOutcomes[j], counts[j], termSums, termMitSums, termMitSumSq);
-  return { shots, sum, sumSq, mitSum, mitSumSq, checkpoints: recorded, outcomes: distinctOutcomes, counts, termSums, termMitSums, termMitSumSq };
+  for (let j = 0; j < distinctOutcomes.length; j++)
+    model.accumulateTerms(distinctOutcomes[j], counts[j], termSums, termMitSums, termMitSumSq);
+  return {
+    shots,
+    sum,
+    sumSq,
+    mitSum,
+    mitSumSq,
+    checkpoints: recorded,
+    outcomes: distinctOutcomes,
+    counts,
+    termSums,
+    termMitSums,
+    termMitSumSq,
+  };
 }

@@ -30,7 +30,13 @@ export function cumulative(weights: Float64Array): Float64Array {
  * Fills out[0..m) with m outcomes drawn from the law whose cumulative sums are `cdf`,
  * in ascending order. `spacing` is scratch space of length ≥ m.
  */
-export function drawSortedOutcomes(cdf: Float64Array, m: number, rng: Rng, out: Int32Array, spacing: Float64Array): void {
+export function drawSortedOutcomes(
+  cdf: Float64Array,
+  m: number,
+  rng: Rng,
+  out: Int32Array,
+  spacing: Float64Array,
+): void {
   const k = cdf.length;
   const total = cdf[k - 1];
   let s = 0;
@@ -77,7 +83,10 @@ export class IntervalAssigner {
   private readonly free: Float64Array;
   private left: number;
 
-  constructor(sizes: number[], private readonly rng: Rng) {
+  constructor(
+    sizes: number[],
+    private readonly rng: Rng,
+  ) {
     this.free = Float64Array.from(sizes);
     this.left = sizes.reduce((a, b) => a + b, 0);
   }

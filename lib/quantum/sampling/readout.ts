@@ -28,7 +28,9 @@ export function qubitReadout(r: Readout, q: number): { e0: number; e1: number } 
 }
 
 export function hasReadoutError(r: Readout): boolean {
-  return r.e0 > 0 || r.e1 > 0 || (r.qubits ?? []).some((x) => x !== undefined && (x.e0 > 0 || x.e1 > 0));
+  return (
+    r.e0 > 0 || r.e1 > 0 || (r.qubits ?? []).some((x) => x !== undefined && (x.e0 > 0 || x.e1 > 0))
+  );
 }
 
 /**
@@ -69,13 +71,17 @@ export interface MitigationFactors {
 export function mitigationFactors(r: Readout): MitigationFactors {
   const base = factorsOf(r, null);
   if (!r.qubits) return base;
-  return { ...base, qubits: r.qubits.map((x, q) => (x === undefined ? undefined : factorsOf(x, q))) };
+  return {
+    ...base,
+    qubits: r.qubits.map((x, q) => (x === undefined ? undefined : factorsOf(x, q))),
+  };
 }
 
 function factorsOf(r: { e0: number; e1: number }, qubit: number | null): MitigationFactors {
   const det = 1 - r.e0 - r.e1;
   if (Math.abs(det) < 1e-9) {
-    const which = qubit === null ? "p1Given0 + p0Given1 = 1" : `p1Given0 + p0Given1 = 1 on qubit ${qubit}`;
+    const which =
+      qubit === null ? "p1Given0 + p0Given1 = 1" : `p1Given0 + p0Given1 = 1 on qubit ${qubit}`;
     const message = `readout mitigation is impossible when ${which} (the readout carries no information)`;
     throw new EngineError("invalid_request", message, [{ path: ["mitigateReadout"], message }]);
   }
@@ -90,7 +96,11 @@ function factorsOf(r: { e0: number; e1: number }, qubit: number | null): Mitigat
  * Row vector m = λ·(A^{-1})^{⊗n} in place: the mitigated per-shot value of outcome b
  * for an observable whose true-outcome value is λ (E[m(read)] = Σ_k λ_k p_true(k)).
  */
-export function mitigateValueTable(values: Float64Array, f: MitigationFactors, bitQubit: BitQubit = SAME): void {
+export function mitigateValueTable(
+  values: Float64Array,
+  f: MitigationFactors,
+  bitQubit: BitQubit = SAME,
+): void {
   const n = values.length;
   for (let bit = 1, q = 0; bit < n; bit <<= 1, q++) {
     const [a, b, c, d] = (f.qubits?.[bitQubit(q)] ?? f).inv; // A^{-1} = [[a, b], [c, d]]; m_new[j] = Σ_k λ_k inv[k][j]

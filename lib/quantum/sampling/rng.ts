@@ -15,7 +15,6 @@ import { MAX_SEED } from "../estimate/limits";
 
 export type Rng = JumpableRandomGenerator;
 
-
 export function createRng(seed: number): Rng {
   return xoroshiro128plus(seed >>> 0);
 }

@@ -98,7 +98,8 @@ export function pauliSettingModel(
   const mitTerm = own
     ? (b: number, i: number): number => {
         let v = 1;
-        for (let m = s[i], q = 0; m !== 0; m >>>= 1, q++) if (m & 1) v *= (b >> q) & 1 ? fq(q).f1 : fq(q).f0;
+        for (let m = s[i], q = 0; m !== 0; m >>>= 1, q++)
+          if (m & 1) v *= (b >> q) & 1 ? fq(q).f1 : fq(q).f0;
         return v;
       }
     : (b: number, i: number): number => {

@@ -16,7 +16,8 @@ function fail(op: CircuitOp, message: string): never {
 function checkQubits(op: CircuitOp, qubits: readonly number[], n: number): void {
   const seen = new Set<number>();
   for (const q of qubits) {
-    if (!Number.isInteger(q) || q < 0 || q >= n) fail(op, `qubit index ${q} is outside the ${n}-qubit register`);
+    if (!Number.isInteger(q) || q < 0 || q >= n)
+      fail(op, `qubit index ${q} is outside the ${n}-qubit register`);
     if (seen.has(q)) fail(op, `qubit ${q} is used twice in one operation`);
     seen.add(q);
   }
@@ -25,7 +26,10 @@ function checkQubits(op: CircuitOp, qubits: readonly number[], n: number): void 
 export function checkCircuit(circuit: Circuit): void {
   const n = circuit.numQubits;
   if (!Number.isInteger(n) || n < 0) {
-    throw new EngineError("invalid_request", `a circuit needs a whole, non-negative number of qubits (got ${n})`);
+    throw new EngineError(
+      "invalid_request",
+      `a circuit needs a whole, non-negative number of qubits (got ${n})`,
+    );
   }
   for (const op of circuit.ops) {
     if (op.kind === "gate") {

@@ -20,7 +20,13 @@ import {
   applySubsetGeneral,
   applySwapSubset,
 } from "./kernels-special";
-import { classifyMatrix, subMatrix, twoBlocks, ZERO_TOL, type MatrixShape } from "./matrix-classify";
+import {
+  classifyMatrix,
+  subMatrix,
+  twoBlocks,
+  ZERO_TOL,
+  type MatrixShape,
+} from "./matrix-classify";
 
 /** True when every imaginary part of the interleaved matrix is exactly zero. */
 export function isRealMatrix(m: Float64Array): boolean {
@@ -32,7 +38,12 @@ export function isRealMatrix(m: Float64Array): boolean {
  * The dense path only (no structure detection): the reference the specialised kernels
  * are tested against.
  */
-export function applyDense(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
+export function applyDense(
+  re: Float64Array,
+  im: Float64Array,
+  bits: readonly number[],
+  m: Float64Array,
+): void {
   const k = bits.length;
   if (k === 1) {
     if (isRealMatrix(m)) applyReal1q(re, im, bits[0], m);
@@ -45,7 +56,12 @@ export function applyDense(re: Float64Array, im: Float64Array, bits: readonly nu
 }
 
 /** ψ ← (U on index bits `bits`) ψ, in place, with the cheapest kernel for U's structure. */
-export function applyToAmplitudes(re: Float64Array, im: Float64Array, bits: readonly number[], m: Float64Array): void {
+export function applyToAmplitudes(
+  re: Float64Array,
+  im: Float64Array,
+  bits: readonly number[],
+  m: Float64Array,
+): void {
   applyWithShape(re, im, bits, m, classifyMatrix(m, 1 << bits.length));
 }
 
@@ -119,5 +135,12 @@ export function applyWithShape(
     applySubset2x2(re, im, mask, count, offsets[active[0]], offsets[active[1]], u);
     return;
   }
-  applySubsetGeneral(re, im, mask, count, Int32Array.from(active, (a) => offsets[a]), u);
+  applySubsetGeneral(
+    re,
+    im,
+    mask,
+    count,
+    Int32Array.from(active, (a) => offsets[a]),
+    u,
+  );
 }

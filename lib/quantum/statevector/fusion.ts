@@ -45,13 +45,22 @@ export class GateFuser {
     if (k === 1) {
       const q = gate.qubits[0];
       const p = this.pending.get(q);
-      if (p) this.pending.set(q, { matrix: multiplyMatrices(gate.matrix, p.matrix, 2), names: [...p.names, gate.name] });
+      if (p)
+        this.pending.set(q, {
+          matrix: multiplyMatrices(gate.matrix, p.matrix, 2),
+          names: [...p.names, gate.name],
+        });
       else this.pending.set(q, { matrix: gate.matrix, names: [gate.name] });
       return;
     }
     if (k > 2) {
       for (const q of gate.qubits) this.emitPending(q);
-      this.push({ qubits: [...gate.qubits], matrix: gate.matrix, names: [gate.name], fusable: false });
+      this.push({
+        qubits: [...gate.qubits],
+        matrix: gate.matrix,
+        names: [gate.name],
+        fusable: false,
+      });
       return;
     }
     this.addTwoQubit(gate);
@@ -82,7 +91,11 @@ export class GateFuser {
             if (!useB) this.emitPending(b);
             this.pending.delete(a);
             this.pending.delete(b);
-            const names = [...(useA && pa ? pa.names : []), ...(useB && pb ? pb.names : []), gate.name];
+            const names = [
+              ...(useA && pa ? pa.names : []),
+              ...(useB && pb ? pb.names : []),
+              gate.name,
+            ];
             this.push({ qubits: [a, b], matrix: m, names, fusable: true });
           },
         });
@@ -128,7 +141,10 @@ export class GateFuser {
       const block = target === undefined ? undefined : this.blocks[target];
       if (block && block.fusable && block.qubits.length === 2) {
         const merged = multiplyMatrices(embedMatrix(p.matrix, [q], block.qubits), block.matrix, 4);
-        if (gateCost(merged, 2) < gateCost(block.matrix, 2) + gateCost(p.matrix, 1) + PASS_PENALTY - 1e-9) {
+        if (
+          gateCost(merged, 2) <
+          gateCost(block.matrix, 2) + gateCost(p.matrix, 1) + PASS_PENALTY - 1e-9
+        ) {
           block.matrix = merged;
           block.names.push(...p.names);
           this.pending.delete(q);

@@ -3,7 +3,12 @@ export { createZeroState, probabilities, normSquared, cloneState } from "./state
 export { applyMatrix, checkGateShape } from "./kernels";
 export { applyToAmplitudes } from "./dispatch";
 export { fuseGates, GateFuser } from "./fusion";
-export { simulateStatevector, assertNoMidCircuitMeasurement, circuitGates, type StatevectorOptions } from "./simulate";
+export {
+  simulateStatevector,
+  assertNoMidCircuitMeasurement,
+  circuitGates,
+  type StatevectorOptions,
+} from "./simulate";
 export {
   statevectorBytes,
   densityMatrixBytes,

@@ -29,7 +29,8 @@ export function gateCost(m: Float64Array, k: number): number {
   if (shape.permutation) return (s === 2 ? COST.swap : COST.permutation) * frac;
   if (s < d && s === 2) return COST.subset2x2 * frac;
   if (k === 1) return shape.real ? COST.real1q : COST.dense1q;
-  if (k === 2 && s === d) return shape.blockOperand >= 0 ? COST.twoBlock : shape.real ? COST.real2q : COST.dense2q;
+  if (k === 2 && s === d)
+    return shape.blockOperand >= 0 ? COST.twoBlock : shape.real ? COST.real2q : COST.dense2q;
   // dense s×s block on the touched fraction: s complex products per amplitude (a 1q pass does 2)
   return COST.dense2q * (s / 4) * frac;
 }

@@ -22,13 +22,15 @@ export function applyDiagonal1q(
   for (let blk = 0; blk < len; blk += step) {
     if (!skipZeroHalf) {
       for (let i = blk, end = blk + half; i < end; i++) {
-        const x = re[i], y = im[i];
+        const x = re[i],
+          y = im[i];
         re[i] = d0r * x - d0i * y;
         im[i] = d0r * y + d0i * x;
       }
     }
     for (let i = blk + half, end = blk + step; i < end; i++) {
-      const x = re[i], y = im[i];
+      const x = re[i],
+        y = im[i];
       re[i] = d1r * x - d1i * y;
       im[i] = d1r * y + d1i * x;
     }
@@ -48,10 +50,13 @@ export function applyPhaseSubset(
   const s = offsets.length;
   const notMask = ~mask;
   if (s === 1) {
-    const o = offsets[0], pr = phRe[0], pi = phIm[0];
+    const o = offsets[0],
+      pr = phRe[0],
+      pi = phIm[0];
     for (let t = 0, b = 0; t < count; t++, b = ((b | mask) + 1) & notMask) {
       const i = b | o;
-      const x = re[i], y = im[i];
+      const x = re[i],
+        y = im[i];
       re[i] = pr * x - pi * y;
       im[i] = pr * y + pi * x;
     }
@@ -60,7 +65,10 @@ export function applyPhaseSubset(
   for (let t = 0, b = 0; t < count; t++, b = ((b | mask) + 1) & notMask) {
     for (let a = 0; a < s; a++) {
       const i = b | offsets[a];
-      const x = re[i], y = im[i], pr = phRe[a], pi = phIm[a];
+      const x = re[i],
+        y = im[i],
+        pr = phRe[a],
+        pi = phIm[a];
       re[i] = pr * x - pi * y;
       im[i] = pr * y + pi * x;
     }
@@ -78,8 +86,10 @@ export function applySwapSubset(
 ): void {
   const notMask = ~mask;
   for (let t = 0, b = 0; t < count; t++, b = ((b | mask) + 1) & notMask) {
-    const i = b | offA, j = b | offB;
-    const x = re[i], y = im[i];
+    const i = b | offA,
+      j = b | offB;
+    const x = re[i],
+      y = im[i];
     re[i] = re[j];
     im[i] = im[j];
     re[j] = x;
@@ -108,7 +118,11 @@ export function applyPermutationSubset(
       ti[a] = im[b | src[a]];
     }
     for (let a = 0; a < s; a++) {
-      const i = b | dst[a], x = tr[a], y = ti[a], pr = phRe[a], pi = phIm[a];
+      const i = b | dst[a],
+        x = tr[a],
+        y = ti[a],
+        pr = phRe[a],
+        pi = phIm[a];
       re[i] = pr * x - pi * y;
       im[i] = pr * y + pi * x;
     }
@@ -125,12 +139,22 @@ export function applySubset2x2(
   offB: number,
   u: Float64Array,
 ): void {
-  const ar = u[0], ai = u[1], br = u[2], bi = u[3];
-  const cr = u[4], ci = u[5], dr = u[6], di = u[7];
+  const ar = u[0],
+    ai = u[1],
+    br = u[2],
+    bi = u[3];
+  const cr = u[4],
+    ci = u[5],
+    dr = u[6],
+    di = u[7];
   const notMask = ~mask;
   for (let t = 0, b = 0; t < count; t++, b = ((b | mask) + 1) & notMask) {
-    const i = b | offA, j = b | offB;
-    const x0 = re[i], y0 = im[i], x1 = re[j], y1 = im[j];
+    const i = b | offA,
+      j = b | offB;
+    const x0 = re[i],
+      y0 = im[i],
+      x1 = re[j],
+      y1 = im[j];
     re[i] = ar * x0 - ai * y0 + br * x1 - bi * y1;
     im[i] = ar * y0 + ai * x0 + br * y1 + bi * x1;
     re[j] = cr * x0 - ci * y0 + dr * x1 - di * y1;
@@ -157,10 +181,12 @@ export function applySubsetGeneral(
       ti[c] = im[b | offsets[c]];
     }
     for (let r = 0; r < s; r++) {
-      let sr = 0, si = 0;
+      let sr = 0,
+        si = 0;
       const row = 2 * r * s;
       for (let c = 0; c < s; c++) {
-        const mr = u[row + 2 * c], mi = u[row + 2 * c + 1];
+        const mr = u[row + 2 * c],
+          mi = u[row + 2 * c + 1];
         sr += mr * tr[c] - mi * ti[c];
         si += mr * ti[c] + mi * tr[c];
       }

@@ -29,6 +29,8 @@ export function checkGateShape(n: number, qubits: readonly number[], matrix: Flo
   }
   const want = 2 * 4 ** k;
   if (matrix.length !== want) {
-    throw new RangeError(`a ${k}-qubit gate needs a matrix of ${want} numbers (interleaved re/im), got ${matrix.length}`);
+    throw new RangeError(
+      `a ${k}-qubit gate needs a matrix of ${want} numbers (interleaved re/im), got ${matrix.length}`,
+    );
   }
 }

@@ -59,7 +59,14 @@ export function classifyMatrix(m: Float64Array, d: number): MatrixShape {
     source.push(src);
     if (!identityRow) active.push(r);
   }
-  return { active, diagonal, permutation, source, real, blockOperand: d === 4 ? twoBlockOperand(m) : -1 };
+  return {
+    active,
+    diagonal,
+    permutation,
+    source,
+    real,
+    blockOperand: d === 4 ? twoBlockOperand(m) : -1,
+  };
 }
 
 /** For a 4×4 matrix: 0 if block-diagonal in the first operand's basis, 1 if in the second's, else −1. */
@@ -69,7 +76,8 @@ function twoBlockOperand(m: Float64Array): number {
     let ok = true;
     for (let r = 0; r < 4 && ok; r++)
       for (let c = 0; c < 4 && ok; c++)
-        if ((r & bit) !== (c & bit) && !isZero(m[2 * (r * 4 + c)], m[2 * (r * 4 + c) + 1])) ok = false;
+        if ((r & bit) !== (c & bit) && !isZero(m[2 * (r * 4 + c)], m[2 * (r * 4 + c) + 1]))
+          ok = false;
     if (ok) return operand;
   }
   return -1;
@@ -77,7 +85,16 @@ function twoBlockOperand(m: Float64Array): number {
 
 /** The two 2×2 blocks (selector operand = 0, then = 1) of a two-block 4×4 matrix. */
 export function twoBlocks(m: Float64Array, operand: number): [Float64Array, Float64Array] {
-  const idx = operand === 0 ? [[0, 1], [2, 3]] : [[0, 2], [1, 3]];
+  const idx =
+    operand === 0
+      ? [
+          [0, 1],
+          [2, 3],
+        ]
+      : [
+          [0, 2],
+          [1, 3],
+        ];
   return [subMatrix(m, 4, idx[0]), subMatrix(m, 4, idx[1])];
 }
 

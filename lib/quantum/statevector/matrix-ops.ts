@@ -9,10 +9,13 @@ export function multiplyMatrices(a: Float64Array, b: Float64Array, d: number): F
   const out = new Float64Array(2 * d * d);
   for (let r = 0; r < d; r++) {
     for (let c = 0; c < d; c++) {
-      let sr = 0, si = 0;
+      let sr = 0,
+        si = 0;
       for (let j = 0; j < d; j++) {
-        const ar = a[2 * (r * d + j)], ai = a[2 * (r * d + j) + 1];
-        const br = b[2 * (j * d + c)], bi = b[2 * (j * d + c) + 1];
+        const ar = a[2 * (r * d + j)],
+          ai = a[2 * (r * d + j) + 1];
+        const br = b[2 * (j * d + c)],
+          bi = b[2 * (j * d + c) + 1];
         sr += ar * br - ai * bi;
         si += ar * bi + ai * br;
       }
@@ -27,7 +30,11 @@ export function multiplyMatrices(a: Float64Array, b: Float64Array, d: number): F
  * The matrix of gate `m` on `gateQubits` written on the larger operand list `target`
  * (which contains every gate qubit): U ⊗ I on the other target qubits, in target's order.
  */
-export function embedMatrix(m: Float64Array, gateQubits: readonly number[], target: readonly number[]): Float64Array {
+export function embedMatrix(
+  m: Float64Array,
+  gateQubits: readonly number[],
+  target: readonly number[],
+): Float64Array {
   const K = target.length;
   const D = 1 << K;
   const k = gateQubits.length;

@@ -39,12 +39,21 @@ export function formatBytes(bytes: number): string {
   return u >= 3 || v < 10 ? `${v.toFixed(1)} ${units[u]}` : `${Math.round(v)} ${units[u]}`;
 }
 
-function assertFits(kind: string, n: number, bytes: number, defaultMax: number, limits: MemoryLimits): void {
+function assertFits(
+  kind: string,
+  n: number,
+  bytes: number,
+  defaultMax: number,
+  limits: MemoryLimits,
+): void {
   const maxQubits = limits.maxQubits ?? defaultMax;
   const need = `a ${n}-qubit ${kind} needs ${formatBytes(bytes)}`;
   if (n > maxQubits) {
     throw new EngineError("too_large", `${need}; the limit is ${maxQubits} qubits`, [
-      { path: ["circuit", "source"], message: `${n} qubits exceed the ${kind} limit of ${maxQubits}` },
+      {
+        path: ["circuit", "source"],
+        message: `${n} qubits exceed the ${kind} limit of ${maxQubits}`,
+      },
     ]);
   }
   if (limits.maxBytes !== undefined && bytes > limits.maxBytes) {

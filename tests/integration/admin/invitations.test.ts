@@ -67,9 +67,14 @@ describe("invitation links", () => {
     expect(mail.text).toMatch(/as Viewer/);
     const joined = await acceptInvitation(token, { id: guest.id, email: guest.email });
     expect(joined).toEqual({ orgId: owner.orgId, role: "viewer" });
-    const row = await db.select().from(memberships).where(and(eq(memberships.orgId, owner.orgId), eq(memberships.userId, guest.id)));
+    const row = await db
+      .select()
+      .from(memberships)
+      .where(and(eq(memberships.orgId, owner.orgId), eq(memberships.userId, guest.id)));
     expect(row[0].role).toBe("viewer");
-    await expect(acceptInvitation(token, { id: guest.id, email: guest.email })).rejects.toMatchObject({ status: 409, message: expect.stringMatching(/already been used/) });
+    await expect(
+      acceptInvitation(token, { id: guest.id, email: guest.email }),
+    ).rejects.toMatchObject({ status: 409, message: expect.stringMatching(/already been used/) });
   });
 
   it("refuses a link for another e-mail, a forged or expired one, and a replaced or revoked one", async () => {
@@ -78,21 +83,44 @@ describe("invitation links", () => {
     expect(state).toMatchObject({ status: "success" });
     const { token } = await tokenFromMail(email, since);
     const stranger = await createTestUser("inv-stranger");
-    await expect(acceptInvitation(token, { id: stranger.id, email: stranger.email })).rejects.toMatchObject({ status: 403 });
+    await expect(
+      acceptInvitation(token, { id: stranger.id, email: stranger.email }),
+    ).rejects.toMatchObject({ status: 403 });
     const forged = token.slice(0, -2) + (token.endsWith("AA") ? "BB" : "AA");
-    await expect(acceptInvitation(forged, { id: stranger.id, email })).rejects.toMatchObject({ status: 400 });
+    await expect(acceptInvitation(forged, { id: stranger.id, email })).rejects.toMatchObject({
+      status: 400,
+    });
     const later = new Date(Date.now() + 8 * 86_400_000);
-    expect(verifyInvitationToken(process.env.AUTH_SECRET!, token, later)).toEqual({ ok: false, problem: "expired" });
-    await expect(acceptInvitation(token, { id: stranger.id, email }, later)).rejects.toMatchObject({ status: 410 });
+    expect(verifyInvitationToken(process.env.AUTH_SECRET!, token, later)).toEqual({
+      ok: false,
+      problem: "expired",
+    });
+    await expect(acceptInvitation(token, { id: stranger.id, email }, later)).rejects.toMatchObject({
+      status: 410,
+    });
 
     const pending = (await listOpenInvitations(owner.orgId)).find((i) => i.email === email)!;
     const resentAt = wholeSecond();
-    expect(await runOperation(resendInvitationOp, owner.user.id, owner.orgId, { invitationId: pending.id })).toMatchObject({ status: "success" });
+    expect(
+      await runOperation(resendInvitationOp, owner.user.id, owner.orgId, {
+        invitationId: pending.id,
+      }),
+    ).toMatchObject({ status: "success" });
     const fresh = await newerToken(email, resentAt, token);
     expect(fresh).not.toBe(token);
-    await expect(acceptInvitation(token, { id: stranger.id, email })).rejects.toMatchObject({ status: 410, message: expect.stringMatching(/newer invitation/) });
-    expect(await runOperation(revokeInvitationOp, owner.user.id, owner.orgId, { invitationId: pending.id })).toMatchObject({ status: "success" });
-    await expect(acceptInvitation(fresh, { id: stranger.id, email })).rejects.toMatchObject({ status: 410, message: expect.stringMatching(/withdrawn/) });
+    await expect(acceptInvitation(token, { id: stranger.id, email })).rejects.toMatchObject({
+      status: 410,
+      message: expect.stringMatching(/newer invitation/),
+    });
+    expect(
+      await runOperation(revokeInvitationOp, owner.user.id, owner.orgId, {
+        invitationId: pending.id,
+      }),
+    ).toMatchObject({ status: "success" });
+    await expect(acceptInvitation(fresh, { id: stranger.id, email })).rejects.toMatchObject({
+      status: 410,
+      message: expect.stringMatching(/withdrawn/),
+    });
   });
 
   it("refuses to invite a member twice or beyond the seats, offering an upgrade", async () => {
@@ -103,6 +131,8 @@ describe("invitation links", () => {
     expect(third.state).toMatchObject({ status: "success" });
     const fourth = await invite(uniqueEmail("inv-d"));
     expect(fourth.state).toMatchObject({ status: "error", code: 402 });
-    expect((fourth.state as { message: string }).message).toMatch(/Sandbox plan allows 3 people.*Upgrade/);
+    expect((fourth.state as { message: string }).message).toMatch(
+      /Sandbox plan allows 3 people.*Upgrade/,
+    );
   });
 });

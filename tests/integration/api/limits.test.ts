@@ -15,7 +15,12 @@ import { closeRedis } from "@/lib/rate-limit/redis";
 import { requestHash } from "@/lib/runs/request-hash";
 import { recordRunUsage } from "@/lib/usage/mutations";
 import { currentPeriod } from "@/lib/usage/period";
-import { createTestApiKey, createTestUser, createUserWithOrg, addMember } from "../../support/factories";
+import {
+  createTestApiKey,
+  createTestUser,
+  createUserWithOrg,
+  addMember,
+} from "../../support/factories";
 import { api } from "../runs/support/api";
 import { cancelLeftoverRuns, insertRawRun, setPlan } from "../runs/support/db-helpers";
 import { bellRequest } from "../runs/support/requests";
@@ -39,7 +44,11 @@ async function orgWithKey(label: string) {
 /** A circuit of n qubits: H on each. */
 function wideRequest(n: number, extra: Record<string, unknown> = {}) {
   const source = `OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[${n}];\nh q;\n`;
-  return { circuit: { format: "qasm2", source }, observable: { format: "pauli", terms: "Z0" }, ...extra };
+  return {
+    circuit: { format: "qasm2", source },
+    observable: { format: "pauli", terms: "Z0" },
+    ...extra,
+  };
 }
 
 /** Meters usage as a finished run would (events + monthly totals, one transaction). */
@@ -54,7 +63,10 @@ describe("plan limits (402)", () => {
 
   it("refuses more qubits than the plan allows for the method, and a larger plan accepts them", async () => {
     const org = await orgWithKey("qubits");
-    const tooWide = await api("POST", "/api/v1/runs", { key: org.key, body: wideRequest(sandbox.maxStatevectorQubits + 1) });
+    const tooWide = await api("POST", "/api/v1/runs", {
+      key: org.key,
+      body: wideRequest(sandbox.maxStatevectorQubits + 1),
+    });
     expect(tooWide.status).toBe(402);
     expect(tooWide.body.type).toBe("/problems/quota-exceeded");
     expect(tooWide.body.detail).toContain(`up to ${sandbox.maxStatevectorQubits} qubits`);
@@ -66,41 +78,68 @@ describe("plan limits (402)", () => {
     expect(dm.status).toBe(402);
     expect(dm.body.detail).toMatch(/density-matrix/);
     await setPlan(org.orgId, "lab");
-    const accepted = await api("POST", "/api/v1/runs", { key: org.key, body: wideRequest(sandbox.maxStatevectorQubits + 1) });
+    const accepted = await api("POST", "/api/v1/runs", {
+      key: org.key,
+      body: wideRequest(sandbox.maxStatevectorQubits + 1),
+    });
     expect(accepted.status).toBe(202);
   });
 
   it("refuses shots beyond the Sandbox month, counting shots of unfinished runs", async () => {
     const org = await orgWithKey("shots");
     await addUsage(org.orgId, "shots", sandbox.monthlyShots - 1500);
-    const first = await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 1000 }) });
+    const first = await api("POST", "/api/v1/runs", {
+      key: org.key,
+      body: bellRequest({ shots: 1000 }),
+    });
     expect(first.status).toBe(202);
-    const second = await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 1000 }) });
+    const second = await api("POST", "/api/v1/runs", {
+      key: org.key,
+      body: bellRequest({ shots: 1000 }),
+    });
     expect(second.status).toBe(402);
     expect(second.body.detail).toContain("1,000,000 shots a month");
     expect(second.body.detail).toContain("998,500 are used");
     expect(second.body.detail).toContain("1,000 are reserved by unfinished runs");
     expect(second.body.detail).toContain("500 remain");
     // Exact-only runs draw no shots and are still accepted.
-    expect((await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 0 }) })).status).toBe(202);
+    expect(
+      (await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 0 }) })).status,
+    ).toBe(202);
     // Paid plans bill overage instead of refusing.
     await setPlan(org.orgId, "lab");
     await addUsage(org.orgId, "shots", getPlan("lab").limits.monthlyShots);
-    expect((await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 1000 }) })).status).toBe(202);
+    expect(
+      (await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 1000 }) }))
+        .status,
+    ).toBe(202);
   });
 
   it("refuses runs once the Sandbox simulation-seconds are used up, and reports usage", async () => {
     const org = await orgWithKey("seconds");
     await addUsage(org.orgId, "simulation_seconds", sandbox.monthlySimulationSeconds);
-    const res = await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 0 }) });
+    const res = await api("POST", "/api/v1/runs", {
+      key: org.key,
+      body: bellRequest({ shots: 0 }),
+    });
     expect(res.status).toBe(402);
     expect(res.body.detail).toContain(`${sandbox.monthlySimulationSeconds} simulation-seconds`);
-    const preview = await api("POST", "/api/v1/runs/preview", { key: org.key, body: bellRequest() });
+    const preview = await api("POST", "/api/v1/runs/preview", {
+      key: org.key,
+      body: bellRequest(),
+    });
     expect(preview.body.quota.allowed).toBe(false);
-    expect(preview.body.quota.refusals[0]).toMatchObject({ limit: "monthly_simulation_seconds", status: 402 });
+    expect(preview.body.quota.refusals[0]).toMatchObject({
+      limit: "monthly_simulation_seconds",
+      status: 402,
+    });
     const usage = await api("GET", "/api/v1/usage", { key: org.key });
     expect(usage.status).toBe(200);
-    expect(usage.body.meters.simulationSeconds).toMatchObject({ used: sandbox.monthlySimulationSeconds, remaining: 0, overage: false });
+    expect(usage.body.meters.simulationSeconds).toMatchObject({
+      used: sandbox.monthlySimulationSeconds,
+      remaining: 0,
+      overage: false,
+    });
     expect(usage.body.runs.concurrentLimit).toBe(sandbox.concurrentRuns);
   });
 });
@@ -122,7 +161,10 @@ describe("429 limits", () => {
         requestHash: requestHash(bellRequest()),
       })),
     );
-    const res = await api("POST", "/api/v1/runs", { key: org.key, body: bellRequest({ shots: 0 }) });
+    const res = await api("POST", "/api/v1/runs", {
+      key: org.key,
+      body: bellRequest({ shots: 0 }),
+    });
     expect(res.status).toBe(429);
     expect(res.body.type).toBe("/problems/too-many-runs");
     expect(res.body.detail).toContain(`${max} runs queued or running`);
@@ -151,7 +193,8 @@ describe("429 limits", () => {
   it("limits requests per key", async () => {
     const org = await orgWithKey("key-rate");
     const budget = env.API_RATE_LIMIT_PER_MINUTE;
-    for (let i = 0; i < budget; i++) expect((await api("GET", "/api/v1/usage", { key: org.key })).status).toBe(200);
+    for (let i = 0; i < budget; i++)
+      expect((await api("GET", "/api/v1/usage", { key: org.key })).status).toBe(200);
     const over = await api("GET", "/api/v1/usage", { key: org.key });
     expect(over.status).toBe(429);
     expect(Number(over.headers.get("retry-after"))).toBeGreaterThan(0);

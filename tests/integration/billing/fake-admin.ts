@@ -2,7 +2,10 @@
  * A client for the payment fake's test controls (`/_fake/*`), shared by the
  * fake's own tests and Ketwise's billing tests. Same Bearer key as the API.
  */
-export type FakeAdmin = (path: string, body?: Record<string, unknown>) => Promise<Record<string, unknown>>;
+export type FakeAdmin = (
+  path: string,
+  body?: Record<string, unknown>,
+) => Promise<Record<string, unknown>>;
 
 export function fakeAdminClient(baseUrl: string, apiKey: string): FakeAdmin {
   return async (path, body) => {

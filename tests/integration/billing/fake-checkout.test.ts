@@ -33,7 +33,11 @@ async function newSession(customer: Stripe.Customer, seats: number) {
     client_reference_id: "org_42",
     metadata: { org: "42" },
     subscription_data: { metadata: { org: "42", plan: "lab" } },
-    line_items: [{ price: catalog.seat.id, quantity: seats }, { price: catalog.shots.id }, { price: catalog.seconds.id }],
+    line_items: [
+      { price: catalog.seat.id, quantity: seats },
+      { price: catalog.shots.id },
+      { price: catalog.seconds.id },
+    ],
     success_url: "http://localhost:3000/billing/done?session={CHECKOUT_SESSION_ID}",
     cancel_url: "http://localhost:3000/billing",
   });
@@ -41,7 +45,11 @@ async function newSession(customer: Stripe.Customer, seats: number) {
 
 describe("checkout with the hosted test payment page", () => {
   it("pays with 4242…, creates an active subscription, a paid first invoice and signed webhooks", async () => {
-    const customer = await h.stripe.customers.create({ email: "pi@lab.example", name: "PI", metadata: { org: "42" } });
+    const customer = await h.stripe.customers.create({
+      email: "pi@lab.example",
+      name: "PI",
+      metadata: { org: "42" },
+    });
     const session = await newSession(customer, 3);
     const seatCents = getPlan("lab").seatPriceCents;
     expect(session.object).toBe("checkout.session");
@@ -57,7 +65,9 @@ describe("checkout with the hosted test payment page", () => {
     expect(result.status).toBe(303);
     expect(result.location).toBe(`http://localhost:3000/billing/done?session=${session.id}`);
 
-    const done = await h.stripe.checkout.sessions.retrieve(session.id, { expand: ["subscription", "line_items"] });
+    const done = await h.stripe.checkout.sessions.retrieve(session.id, {
+      expand: ["subscription", "line_items"],
+    });
     expect(done.status).toBe("complete");
     expect(done.payment_status).toBe("paid");
     expect(done.line_items!.data.map((l) => l.quantity)).toEqual([3, null, null]);
@@ -77,7 +87,9 @@ describe("checkout with the hosted test payment page", () => {
     expect(invoice.billing_reason).toBe("subscription_create");
     expect(invoice.amount_paid).toBe(3 * seatCents);
     expect(invoice.parent?.subscription_details?.subscription).toBe(sub.id);
-    const seatLine = invoice.lines.data.find((l) => l.pricing?.price_details?.price === catalog.seat.id)!;
+    const seatLine = invoice.lines.data.find(
+      (l) => l.pricing?.price_details?.price === catalog.seat.id,
+    )!;
     expect(seatLine.quantity).toBe(3);
     expect(seatLine.amount).toBe(3 * seatCents);
     expect(invoice.hosted_invoice_url).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/invoice\//);
@@ -86,7 +98,8 @@ describe("checkout with the hosted test payment page", () => {
     expect(list.data.map((i) => i.id)).toEqual([invoice.id]);
 
     await h.flush();
-    const mine = (e: Stripe.Event) => (e.data.object as { customer?: string }).customer === customer.id;
+    const mine = (e: Stripe.Event) =>
+      (e.data.object as { customer?: string }).customer === customer.id;
     const types = h.receiver.types(mine);
     for (const t of [
       "customer.subscription.created",
@@ -99,7 +112,9 @@ describe("checkout with the hosted test payment page", () => {
       expect(types).toContain(t);
     }
     expect(types.indexOf("invoice.created")).toBeLessThan(types.indexOf("invoice.paid"));
-    const completed = h.receiver.accepted().find((e) => e.type === "checkout.session.completed" && mine(e))!;
+    const completed = h.receiver
+      .accepted()
+      .find((e) => e.type === "checkout.session.completed" && mine(e))!;
     const cs = completed.data.object as Stripe.Checkout.Session;
     expect(cs.id).toBe(session.id);
     expect(cs.subscription).toBe(sub.id);
@@ -122,7 +137,9 @@ describe("checkout with the hosted test payment page", () => {
     const after = await h.stripe.checkout.sessions.retrieve(session.id);
     expect(after.status).toBe("open");
     expect(after.subscription).toBeNull();
-    expect((await h.stripe.subscriptions.list({ customer: customer.id, status: "all" })).data).toHaveLength(0);
+    expect(
+      (await h.stripe.subscriptions.list({ customer: customer.id, status: "all" })).data,
+    ).toHaveLength(0);
     expect((await h.stripe.invoices.list({ customer: customer.id })).data).toHaveLength(0);
     expect((await h.stripe.customers.listPaymentMethods(customer.id)).data).toHaveLength(0);
     expect((await h.stripe.events.list({ limit: 100 })).data.length).toBe(eventsBefore);
@@ -173,9 +190,16 @@ describe("checkout with the hosted test payment page", () => {
         line_items: [{ price: catalog.shots.id, quantity: 5 }],
         success_url: "http://localhost:3000/ok",
       }),
-    ).rejects.toMatchObject({ type: "StripeInvalidRequestError", param: "line_items[0][quantity]" });
+    ).rejects.toMatchObject({
+      type: "StripeInvalidRequestError",
+      param: "line_items[0][quantity]",
+    });
     await expect(
-      h.stripe.checkout.sessions.create({ mode: "subscription", customer: customer.id, success_url: "http://x.test" } as Stripe.Checkout.SessionCreateParams),
+      h.stripe.checkout.sessions.create({
+        mode: "subscription",
+        customer: customer.id,
+        success_url: "http://x.test",
+      } as Stripe.Checkout.SessionCreateParams),
     ).rejects.toMatchObject({ statusCode: 400, code: "parameter_missing", param: "line_items" });
     await expect(
       h.stripe.checkout.sessions.create({
@@ -184,6 +208,10 @@ describe("checkout with the hosted test payment page", () => {
         line_items: [{ price: catalog.seat.id, quantity: 1 }],
         success_url: "http://x.test",
       }),
-    ).rejects.toMatchObject({ statusCode: 404, code: "resource_missing", message: "No such customer: 'cus_missing'" });
+    ).rejects.toMatchObject({
+      statusCode: 404,
+      code: "resource_missing",
+      message: "No such customer: 'cus_missing'",
+    });
   });
 });

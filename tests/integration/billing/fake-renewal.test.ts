@@ -9,7 +9,13 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import type Stripe from "stripe";
 import { getPlan } from "@/lib/billing/plans";
-import { createLabCatalog, startHarness, subscribeThroughCheckout, type Catalog, type Harness } from "./fake-support";
+import {
+  createLabCatalog,
+  startHarness,
+  subscribeThroughCheckout,
+  type Catalog,
+  type Harness,
+} from "./fake-support";
 
 let h: Harness;
 let catalog: Catalog;
@@ -74,7 +80,9 @@ describe("renewal with metered overage", () => {
     const seconds = lineFor(invoice, catalog.seconds);
     expect(seconds.quantity).toBe(123);
     // 123 s × 0.2 ¢ = 24.6 ¢ → 25 ¢ (round half up to whole cents).
-    expect(seconds.amount).toBe(Math.round(123 * Number(lab.overage!.simulationSecondCentsDecimal)));
+    expect(seconds.amount).toBe(
+      Math.round(123 * Number(lab.overage!.simulationSecondCentsDecimal)),
+    );
     expect(seconds.amount).toBe(25);
 
     const seats = lineFor(invoice, catalog.seat);
@@ -85,9 +93,17 @@ describe("renewal with metered overage", () => {
     await h.flush();
     const created = h.receiver
       .accepted()
-      .find((e) => e.type === "invoice.created" && (e.data.object as Stripe.Invoice).id === invoice.id);
+      .find(
+        (e) => e.type === "invoice.created" && (e.data.object as Stripe.Invoice).id === invoice.id,
+      );
     expect((created!.data.object as Stripe.Invoice).status).toBe("draft");
-    expect(h.receiver.accepted().some((e) => e.type === "invoice.paid" && (e.data.object as Stripe.Invoice).id === invoice.id)).toBe(true);
+    expect(
+      h.receiver
+        .accepted()
+        .some(
+          (e) => e.type === "invoice.paid" && (e.data.object as Stripe.Invoice).id === invoice.id,
+        ),
+    ).toBe(true);
   });
 
   it("usage reported in the new period waits for the following renewal", async () => {
@@ -101,20 +117,32 @@ describe("renewal with metered overage", () => {
     const sub = await h.stripe.subscriptions.retrieve(subscription.id);
     const firstRenewal = await h.stripe.invoices.retrieve(sub.latest_invoice as string);
     expect(lineFor(firstRenewal, catalog.seconds).quantity).toBe(0);
-    const preview = await h.stripe.invoices.createPreview({ customer: customer.id, subscription: subscription.id });
+    const preview = await h.stripe.invoices.createPreview({
+      customer: customer.id,
+      subscription: subscription.id,
+    });
     expect(lineFor(preview, catalog.seconds).quantity).toBe(50);
     await h.admin("/_fake/advance", { customer: customer.id, to: periodOf(sub).end });
-    const second = (await h.stripe.invoices.list({ subscription: subscription.id, limit: 1 })).data[0];
+    const second = (await h.stripe.invoices.list({ subscription: subscription.id, limit: 1 }))
+      .data[0];
     expect(lineFor(second, catalog.seconds).quantity).toBe(50);
   });
 
   it("advancing several months renews once per month, periods back to back", async () => {
     const { customer, subscription } = await subscribeThroughCheckout(h, catalog, 2);
     await h.admin("/_fake/advance", { customer: customer.id, seconds: 95 * 86_400 });
-    const invoices = (await h.stripe.invoices.list({ subscription: subscription.id })).data.reverse();
-    expect(invoices.map((i) => i.billing_reason)).toEqual(["subscription_create", "subscription_cycle", "subscription_cycle", "subscription_cycle"]);
+    const invoices = (
+      await h.stripe.invoices.list({ subscription: subscription.id })
+    ).data.reverse();
+    expect(invoices.map((i) => i.billing_reason)).toEqual([
+      "subscription_create",
+      "subscription_cycle",
+      "subscription_cycle",
+      "subscription_cycle",
+    ]);
     const seatPeriods = invoices.map((i) => lineFor(i, catalog.seat).period);
-    for (let k = 1; k < seatPeriods.length; k++) expect(seatPeriods[k].start).toBe(seatPeriods[k - 1].end);
+    for (let k = 1; k < seatPeriods.length; k++)
+      expect(seatPeriods[k].start).toBe(seatPeriods[k - 1].end);
     // Invoices are stamped with the time they fell due, not the moment of the advance.
     expect(invoices[1].created).toBe(seatPeriods[0].end);
   });
@@ -122,13 +150,22 @@ describe("renewal with metered overage", () => {
   it("rejects bad meter events with the provider's error shape", async () => {
     const { customer } = await subscribeThroughCheckout(h, catalog, 1);
     await expect(
-      h.stripe.billing.meterEvents.create({ event_name: "no_such_meter", payload: { stripe_customer_id: customer.id, value: "1" } }),
+      h.stripe.billing.meterEvents.create({
+        event_name: "no_such_meter",
+        payload: { stripe_customer_id: customer.id, value: "1" },
+      }),
     ).rejects.toMatchObject({ statusCode: 400, param: "event_name" });
     await expect(
-      h.stripe.billing.meterEvents.create({ event_name: catalog.shotsMeter.event_name, payload: { stripe_customer_id: customer.id, value: "1.5" } }),
+      h.stripe.billing.meterEvents.create({
+        event_name: catalog.shotsMeter.event_name,
+        payload: { stripe_customer_id: customer.id, value: "1.5" },
+      }),
     ).rejects.toMatchObject({ statusCode: 400, param: "payload[value]" });
     await expect(
-      h.stripe.billing.meterEvents.create({ event_name: catalog.shotsMeter.event_name, payload: { stripe_customer_id: "cus_nobody", value: "1" } }),
+      h.stripe.billing.meterEvents.create({
+        event_name: catalog.shotsMeter.event_name,
+        payload: { stripe_customer_id: "cus_nobody", value: "1" },
+      }),
     ).rejects.toMatchObject({ statusCode: 404 });
   });
 });
@@ -146,15 +183,25 @@ describe("failed renewal payments", () => {
     expect(invoice.status).toBe("open");
     expect(invoice.attempt_count).toBe(1);
     expect(invoice.next_payment_attempt).toBe(period.end + 3 * 86_400);
-    expect(((await h.stripe.customers.retrieve(customer.id)) as Stripe.Customer).delinquent).toBe(true);
+    expect(((await h.stripe.customers.retrieve(customer.id)) as Stripe.Customer).delinquent).toBe(
+      true,
+    );
 
     await h.flush();
-    const mine = (e: Stripe.Event) => (e.data.object as { customer?: string }).customer === customer.id;
-    const failed = h.receiver.accepted().find((e) => e.type === "invoice.payment_failed" && mine(e));
+    const mine = (e: Stripe.Event) =>
+      (e.data.object as { customer?: string }).customer === customer.id;
+    const failed = h.receiver
+      .accepted()
+      .find((e) => e.type === "invoice.payment_failed" && mine(e));
     expect((failed!.data.object as Stripe.Invoice).id).toBe(invoice.id);
     const toPastDue = h.receiver
       .accepted()
-      .find((e) => e.type === "customer.subscription.updated" && mine(e) && (e.data.object as Stripe.Subscription).status === "past_due");
+      .find(
+        (e) =>
+          e.type === "customer.subscription.updated" &&
+          mine(e) &&
+          (e.data.object as Stripe.Subscription).status === "past_due",
+      );
     expect(toPastDue!.data.previous_attributes).toMatchObject({ status: "active" });
 
     await h.admin("/_fake/advance", { customer: customer.id, seconds: 3 * 86_400 });
@@ -167,7 +214,10 @@ describe("failed renewal payments", () => {
   it("cancels the subscription after the last retry fails", async () => {
     const { customer, subscription } = await subscribeThroughCheckout(h, catalog, 1);
     await h.admin("/_fake/fail-next-payment", { customer: customer.id, count: 4 });
-    await h.admin("/_fake/advance", { customer: customer.id, to: periodOf(subscription).end + 16 * 86_400 });
+    await h.admin("/_fake/advance", {
+      customer: customer.id,
+      to: periodOf(subscription).end + 16 * 86_400,
+    });
     const sub = await h.stripe.subscriptions.retrieve(subscription.id);
     expect(sub.status).toBe("canceled");
     expect(sub.cancellation_details?.reason).toBe("payment_failed");
@@ -181,7 +231,9 @@ describe("failed renewal payments", () => {
     await h.admin("/_fake/fail-next-payment", { customer: customer.id });
     await h.admin("/_fake/advance", { customer: customer.id, to: periodOf(subscription).end });
     const open = (await h.stripe.invoices.list({ customer: customer.id, status: "open" })).data[0];
-    await expect(h.stripe.invoices.pay(open.id, { payment_method: "pm_card_chargeDeclined" })).rejects.toMatchObject({
+    await expect(
+      h.stripe.invoices.pay(open.id, { payment_method: "pm_card_chargeDeclined" }),
+    ).rejects.toMatchObject({
       type: "StripeCardError",
       code: "card_declined",
     });

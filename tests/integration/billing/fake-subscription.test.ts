@@ -61,8 +61,12 @@ describe("changing seats", () => {
       expect(line.parent?.subscription_item_details?.proration).toBe(true);
       expect(line.period).toEqual({ start: t, end: e });
     }
-    expect(invoice.lines.data.find((l) => l.amount < 0)!.description).toMatch(/^Unused time on 3 × /);
-    expect(invoice.lines.data.find((l) => l.amount > 0)!.description).toMatch(/^Remaining time on 5 × /);
+    expect(invoice.lines.data.find((l) => l.amount < 0)!.description).toMatch(
+      /^Unused time on 3 × /,
+    );
+    expect(invoice.lines.data.find((l) => l.amount > 0)!.description).toMatch(
+      /^Remaining time on 5 × /,
+    );
   });
 
   it("downgrades credit the customer's balance, used by the next invoice", async () => {
@@ -79,7 +83,10 @@ describe("changing seats", () => {
     const c = (await h.stripe.customers.retrieve(customer.id)) as Stripe.Customer;
     expect(c.balance).toBe(invoice.total); // negative = credit
 
-    const preview = await h.stripe.invoices.createPreview({ customer: customer.id, subscription: subscription.id });
+    const preview = await h.stripe.invoices.createPreview({
+      customer: customer.id,
+      subscription: subscription.id,
+    });
     expect(preview.starting_balance).toBe(invoice.total);
     expect(preview.amount_due).toBe(Math.max(0, 2 * seatCents + invoice.total));
   });
@@ -87,18 +94,30 @@ describe("changing seats", () => {
   it("create_prorations: keeps the lines pending for the next renewal invoice", async () => {
     const { subscription, customer } = await subscribeThroughCheckout(h, catalog, 2);
     const item = seatItem(subscription);
-    const updated = await h.stripe.subscriptions.update(subscription.id, { items: [{ id: item.id, quantity: 3 }] });
+    const updated = await h.stripe.subscriptions.update(subscription.id, {
+      items: [{ id: item.id, quantity: 3 }],
+    });
     expect(updated.latest_invoice).toBe(subscription.latest_invoice); // no new invoice yet
-    const preview = await h.stripe.invoices.createPreview({ customer: customer.id, subscription: subscription.id });
-    expect(preview.lines.data.filter((l) => l.parent?.subscription_item_details?.proration)).toHaveLength(2);
+    const preview = await h.stripe.invoices.createPreview({
+      customer: customer.id,
+      subscription: subscription.id,
+    });
+    expect(
+      preview.lines.data.filter((l) => l.parent?.subscription_item_details?.proration),
+    ).toHaveLength(2);
 
     await h.admin("/_fake/advance", { customer: customer.id, to: item.current_period_end });
-    const renewal = (await h.stripe.invoices.list({ subscription: subscription.id, limit: 1 })).data[0];
+    const renewal = (await h.stripe.invoices.list({ subscription: subscription.id, limit: 1 }))
+      .data[0];
     expect(renewal.billing_reason).toBe("subscription_cycle");
-    const prorations = renewal.lines.data.filter((l) => l.parent?.subscription_item_details?.proration);
+    const prorations = renewal.lines.data.filter(
+      (l) => l.parent?.subscription_item_details?.proration,
+    );
     expect(prorations).toHaveLength(2);
     const seatLine = renewal.lines.data.find(
-      (l) => !l.parent?.subscription_item_details?.proration && l.pricing?.price_details?.price === catalog.seat.id,
+      (l) =>
+        !l.parent?.subscription_item_details?.proration &&
+        l.pricing?.price_details?.price === catalog.seat.id,
     )!;
     expect(seatLine.quantity).toBe(3);
     expect(seatLine.amount).toBe(3 * seatCents);
@@ -138,7 +157,9 @@ describe("cancelling", () => {
   it("cancel_at_period_end keeps the subscription until the period ends, then deletes it", async () => {
     const { subscription, customer } = await subscribeThroughCheckout(h, catalog, 1);
     const end = seatItem(subscription).current_period_end;
-    const updated = await h.stripe.subscriptions.update(subscription.id, { cancel_at_period_end: true });
+    const updated = await h.stripe.subscriptions.update(subscription.id, {
+      cancel_at_period_end: true,
+    });
     expect(updated.cancel_at_period_end).toBe(true);
     expect(updated.cancel_at).toBe(end);
     expect(updated.status).toBe("active");
@@ -147,13 +168,23 @@ describe("cancelling", () => {
     expect(after.status).toBe("canceled");
     expect(after.ended_at).toBe(end);
     await h.flush();
-    const deleted = h.receiver.accepted().find(
-      (e) => e.type === "customer.subscription.deleted" && (e.data.object as Stripe.Subscription).id === subscription.id,
-    );
+    const deleted = h.receiver
+      .accepted()
+      .find(
+        (e) =>
+          e.type === "customer.subscription.deleted" &&
+          (e.data.object as Stripe.Subscription).id === subscription.id,
+      );
     expect(deleted).toBeDefined();
     // No seat invoice for a period that will not happen.
     const invoices = await h.stripe.invoices.list({ subscription: subscription.id });
-    expect(invoices.data.every((i) => i.lines.data.every((l) => l.pricing?.price_details?.price !== catalog.seat.id || l.period.end <= end))).toBe(true);
+    expect(
+      invoices.data.every((i) =>
+        i.lines.data.every(
+          (l) => l.pricing?.price_details?.price !== catalog.seat.id || l.period.end <= end,
+        ),
+      ),
+    ).toBe(true);
   });
 
   it("cancel now ends the subscription at once", async () => {
@@ -161,33 +192,48 @@ describe("cancelling", () => {
     const canceled = await h.stripe.subscriptions.cancel(subscription.id);
     expect(canceled.status).toBe("canceled");
     expect(canceled.cancellation_details?.reason).toBe("cancellation_requested");
-    await expect(h.stripe.subscriptions.update(subscription.id, { metadata: { a: "b" } })).rejects.toMatchObject({ statusCode: 400 });
+    await expect(
+      h.stripe.subscriptions.update(subscription.id, { metadata: { a: "b" } }),
+    ).rejects.toMatchObject({ statusCode: 400 });
   });
 });
 
 describe("billing portal", () => {
   it("lists invoices and the card, replaces the card and schedules cancellation", async () => {
     const { customer, subscription } = await subscribeThroughCheckout(h, catalog, 2);
-    const session = await h.stripe.billingPortal.sessions.create({ customer: customer.id, return_url: "http://localhost:3000/billing" });
+    const session = await h.stripe.billingPortal.sessions.create({
+      customer: customer.id,
+      return_url: "http://localhost:3000/billing",
+    });
     expect(session.object).toBe("billing_portal.session");
     const home = await (await fetch(session.url)).text();
     const invoice = await h.stripe.invoices.retrieve(subscription.latest_invoice as string);
     expect(home).toContain(invoice.number!);
     expect(home).toContain("visa ending in 4242");
 
-    const replaced = await submitCard(`${session.url}/card`, { ...GOOD_CARD, number: "5555 5555 5555 4444" });
+    const replaced = await submitCard(`${session.url}/card`, {
+      ...GOOD_CARD,
+      number: "5555 5555 5555 4444",
+    });
     expect(replaced.status).toBe(200);
     expect(replaced.html).toContain("Card saved.");
-    const sub = await h.stripe.subscriptions.retrieve(subscription.id, { expand: ["default_payment_method"] });
+    const sub = await h.stripe.subscriptions.retrieve(subscription.id, {
+      expand: ["default_payment_method"],
+    });
     expect((sub.default_payment_method as Stripe.PaymentMethod).card?.last4).toBe("4444");
 
-    const declined = await submitCard(`${session.url}/card`, { ...GOOD_CARD, number: "4000 0000 0000 0002" });
+    const declined = await submitCard(`${session.url}/card`, {
+      ...GOOD_CARD,
+      number: "4000 0000 0000 0002",
+    });
     expect(declined.status).toBe(402);
     expect(declined.html).toContain("Your card was declined.");
 
     const cancel = await submitCard(`${session.url}/cancel`, { subscription: subscription.id });
     expect(cancel.status).toBe(200);
-    expect((await h.stripe.subscriptions.retrieve(subscription.id)).cancel_at_period_end).toBe(true);
+    expect((await h.stripe.subscriptions.retrieve(subscription.id)).cancel_at_period_end).toBe(
+      true,
+    );
   });
 
   it("serves the hosted invoice page and a well-formed PDF", async () => {
@@ -203,11 +249,17 @@ describe("billing portal", () => {
     expect(pdf.trimEnd().endsWith("%%EOF")).toBe(true);
     const startxref = Number(/startxref\n(\d+)\n/.exec(pdf)![1]);
     expect(pdf.slice(startxref, startxref + 4)).toBe("xref");
-    const entries = [...pdf.slice(startxref).matchAll(/^(\d{10}) 00000 n $/gm)].map((m) => Number(m[1]));
+    const entries = [...pdf.slice(startxref).matchAll(/^(\d{10}) 00000 n $/gm)].map((m) =>
+      Number(m[1]),
+    );
     expect(entries.length).toBeGreaterThan(5);
-    entries.forEach((offset, i) => expect(pdf.slice(offset, offset + `${i + 1} 0 obj`.length)).toBe(`${i + 1} 0 obj`));
+    entries.forEach((offset, i) =>
+      expect(pdf.slice(offset, offset + `${i + 1} 0 obj`.length)).toBe(`${i + 1} 0 obj`),
+    );
     expect(pdf).toContain(`(Number ${invoice.number})`);
-    const bad = await fetch(invoice.invoice_pdf!.replace(/\/[A-Za-z0-9]+\/pdf$/, "/wrongtoken/pdf"));
+    const bad = await fetch(
+      invoice.invoice_pdf!.replace(/\/[A-Za-z0-9]+\/pdf$/, "/wrongtoken/pdf"),
+    );
     expect(bad.status).toBe(404);
   });
 
@@ -215,7 +267,10 @@ describe("billing portal", () => {
     const { customer, subscription } = await subscribeThroughCheckout(h, catalog, 1);
     const session = await h.stripe.billingPortal.sessions.create({ customer: customer.id });
     expect((await submitCard(`${session.url}/card`, CHARGE_FAILS_CARD)).status).toBe(200);
-    await h.admin("/_fake/advance", { customer: customer.id, to: seatItem(subscription).current_period_end });
+    await h.admin("/_fake/advance", {
+      customer: customer.id,
+      to: seatItem(subscription).current_period_end,
+    });
     const sub = await h.stripe.subscriptions.retrieve(subscription.id);
     expect(sub.status).toBe("past_due");
   });
@@ -231,18 +286,33 @@ describe("creating subscriptions through the API", () => {
       default_payment_method: pm.id,
     });
     expect(active.status).toBe("active");
-    expect((await h.stripe.invoices.retrieve(active.latest_invoice as string)).amount_paid).toBe(2 * seatCents);
+    expect((await h.stripe.invoices.retrieve(active.latest_invoice as string)).amount_paid).toBe(
+      2 * seatCents,
+    );
 
     const noCard = await h.stripe.customers.create({ email: "api-nocard@lab.example" });
     await expect(
-      h.stripe.subscriptions.create({ customer: noCard.id, items: [{ price: catalog.seat.id }], payment_behavior: "error_if_incomplete" }),
+      h.stripe.subscriptions.create({
+        customer: noCard.id,
+        items: [{ price: catalog.seat.id }],
+        payment_behavior: "error_if_incomplete",
+      }),
     ).rejects.toMatchObject({ statusCode: 400, type: "StripeInvalidRequestError" });
-    expect((await h.stripe.subscriptions.list({ customer: noCard.id, status: "all" })).data).toHaveLength(0);
-    const incomplete = await h.stripe.subscriptions.create({ customer: noCard.id, items: [{ price: catalog.seat.id }] });
+    expect(
+      (await h.stripe.subscriptions.list({ customer: noCard.id, status: "all" })).data,
+    ).toHaveLength(0);
+    const incomplete = await h.stripe.subscriptions.create({
+      customer: noCard.id,
+      items: [{ price: catalog.seat.id }],
+    });
     expect(incomplete.status).toBe("incomplete");
-    expect((await h.stripe.invoices.retrieve(incomplete.latest_invoice as string)).status).toBe("open");
+    expect((await h.stripe.invoices.retrieve(incomplete.latest_invoice as string)).status).toBe(
+      "open",
+    );
 
-    await expect(h.stripe.paymentMethods.attach("pm_card_chargeDeclined", { customer: noCard.id })).rejects.toMatchObject({
+    await expect(
+      h.stripe.paymentMethods.attach("pm_card_chargeDeclined", { customer: noCard.id }),
+    ).rejects.toMatchObject({
       statusCode: 402,
       code: "card_declined",
       decline_code: "generic_decline",

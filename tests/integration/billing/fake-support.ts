@@ -147,7 +147,10 @@ export async function createLabCatalog(stripe: Stripe, suffix: string): Promise<
     event_name: `ketwise_sim_seconds_${suffix}`,
     default_aggregation: { formula: "sum" },
   });
-  const product = await stripe.products.create({ name: `${lab.name} seat`, metadata: { plan: lab.id } });
+  const product = await stripe.products.create({
+    name: `${lab.name} seat`,
+    metadata: { plan: lab.id },
+  });
   const seat = await stripe.prices.create({
     product: product.id,
     currency: lab.currency,
@@ -170,7 +173,12 @@ export async function createLabCatalog(stripe: Stripe, suffix: string): Promise<
   return { seat, shots, seconds, shotsMeter, secondsMeter };
 }
 
-export const GOOD_CARD = { number: "4242 4242 4242 4242", expiry: "12 / 34", cvc: "123", name: "Ada Lovelace" };
+export const GOOD_CARD = {
+  number: "4242 4242 4242 4242",
+  expiry: "12 / 34",
+  cvc: "123",
+  name: "Ada Lovelace",
+};
 export const DECLINED_CARD = { ...GOOD_CARD, number: "4000 0000 0000 0002" };
 /** Saves fine, but every later charge fails (the provider's documented test number). */
 export const CHARGE_FAILS_CARD = { ...GOOD_CARD, number: "4000 0000 0000 0341" };
@@ -194,17 +202,29 @@ export async function subscribeThroughCheckout(
   h: Harness,
   catalog: Catalog,
   seats = 3,
-): Promise<{ customer: Stripe.Customer; subscription: Stripe.Subscription; session: Stripe.Checkout.Session }> {
-  const customer = await h.stripe.customers.create({ email: `admin+${Date.now()}@lab.example`, name: "Lab Admin" });
+): Promise<{
+  customer: Stripe.Customer;
+  subscription: Stripe.Subscription;
+  session: Stripe.Checkout.Session;
+}> {
+  const customer = await h.stripe.customers.create({
+    email: `admin+${Date.now()}@lab.example`,
+    name: "Lab Admin",
+  });
   const session = await h.stripe.checkout.sessions.create({
     mode: "subscription",
     customer: customer.id,
-    line_items: [{ price: catalog.seat.id, quantity: seats }, { price: catalog.shots.id }, { price: catalog.seconds.id }],
+    line_items: [
+      { price: catalog.seat.id, quantity: seats },
+      { price: catalog.shots.id },
+      { price: catalog.seconds.id },
+    ],
     success_url: "http://localhost:3000/billing?session={CHECKOUT_SESSION_ID}",
     cancel_url: "http://localhost:3000/billing",
   });
   const paid = await submitCard(session.url!, GOOD_CARD);
-  if (paid.status !== 303) throw new Error(`checkout failed: ${paid.status} ${paid.html.slice(0, 300)}`);
+  if (paid.status !== 303)
+    throw new Error(`checkout failed: ${paid.status} ${paid.html.slice(0, 300)}`);
   const done = await h.stripe.checkout.sessions.retrieve(session.id, { expand: ["subscription"] });
   return { customer, subscription: done.subscription as Stripe.Subscription, session: done };
 }

@@ -12,7 +12,14 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { and, eq } from "drizzle-orm";
 import { closeDb, db } from "@/db";
-import { auditEvents, billingEvents, organizations, overageReports, runs, usageEvents } from "@/db/schema";
+import {
+  auditEvents,
+  billingEvents,
+  organizations,
+  overageReports,
+  runs,
+  usageEvents,
+} from "@/db/schema";
 import { ensureCatalog } from "@/lib/billing/catalog";
 import { changeSeatsOp, startCheckoutOp } from "@/lib/billing/operations";
 import { reportOverage } from "@/lib/billing/overage";
@@ -23,7 +30,12 @@ import { closeRedis } from "@/lib/rate-limit/redis";
 import { recordRunUsage } from "@/lib/usage/mutations";
 import { addMember, createTestUser, createUserWithOrg } from "../../support/factories";
 import { waitForMail } from "../../support/maildev";
-import { payOnHostedPage, startBillingHarness, TEST_WEBHOOK_SECRET, type BillingHarness } from "./ketwise-support";
+import {
+  payOnHostedPage,
+  startBillingHarness,
+  TEST_WEBHOOK_SECRET,
+  type BillingHarness,
+} from "./ketwise-support";
 
 let h: BillingHarness;
 /** maildev stamps messages to the whole second; compare from the start of this second. */
@@ -33,9 +45,13 @@ let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
 let admin: Awaited<ReturnType<typeof createTestUser>>;
 const lab = getPlan("lab");
 
-const org = async () => (await db.select().from(organizations).where(eq(organizations.id, owner.orgId)))[0];
+const org = async () =>
+  (await db.select().from(organizations).where(eq(organizations.id, owner.orgId)))[0];
 const audits = async (action: string) =>
-  db.select().from(auditEvents).where(and(eq(auditEvents.orgId, owner.orgId), eq(auditEvents.action, action)));
+  db
+    .select()
+    .from(auditEvents)
+    .where(and(eq(auditEvents.orgId, owner.orgId), eq(auditEvents.action, action)));
 
 beforeAll(async () => {
   h = await startBillingHarness();
@@ -52,7 +68,10 @@ afterAll(async () => {
 
 describe("checkout → webhook → plan", () => {
   it("a declined card changes nothing; a good card moves the organisation to Lab through the webhook", async () => {
-    const started = await runOperation(startCheckoutOp, owner.user.id, owner.orgId, { plan: "lab", seats: "3" });
+    const started = await runOperation(startCheckoutOp, owner.user.id, owner.orgId, {
+      plan: "lab",
+      seats: "3",
+    });
     expect(started.status).toBe("success");
     const url = (started as { data: { url: string } }).data.url;
     expect(url).toMatch(/\/pay\/cs_test_/);
@@ -83,7 +102,8 @@ describe("checkout → webhook → plan", () => {
 
   it("a replayed delivery is a no-op, also when the provider redelivers it", async () => {
     const delivery = h.deliveries.find((d) => d.body.type === "checkout.session.completed")!;
-    const before = (await db.select().from(auditEvents).where(eq(auditEvents.orgId, owner.orgId))).length;
+    const before = (await db.select().from(auditEvents).where(eq(auditEvents.orgId, owner.orgId)))
+      .length;
     const again = await h.post(delivery.raw, delivery.signature);
     expect(again).toMatchObject({ status: 200, body: { result: "duplicate" } });
     const id = (JSON.parse(delivery.raw) as { id: string }).id;
@@ -91,7 +111,9 @@ describe("checkout → webhook → plan", () => {
     await h.admin("/_fake/webhooks/redeliver", { event: id });
     await h.flush();
     expect(h.deliveries.slice(count).map((d) => d.body.result)).toEqual(["duplicate"]);
-    expect((await db.select().from(auditEvents).where(eq(auditEvents.orgId, owner.orgId))).length).toBe(before);
+    expect(
+      (await db.select().from(auditEvents).where(eq(auditEvents.orgId, owner.orgId))).length,
+    ).toBe(before);
     expect(await db.select().from(billingEvents).where(eq(billingEvents.id, id))).toHaveLength(1);
   });
 
@@ -102,15 +124,24 @@ describe("checkout → webhook → plan", () => {
     expect((await h.post(forged, delivery.signature)).status).toBe(400);
     const fresh = JSON.stringify({ ...JSON.parse(delivery.raw), id: "evt_forged_1" });
     const stripe = getStripe();
-    const wrongSecret = stripe.webhooks.generateTestHeaderString({ payload: fresh, secret: "whsec_someone_else" });
+    const wrongSecret = stripe.webhooks.generateTestHeaderString({
+      payload: fresh,
+      secret: "whsec_someone_else",
+    });
     expect((await h.post(fresh, wrongSecret)).status).toBe(400);
     // Five minutes is the provider's documented default tolerance; ten minutes old is a replay.
-    const stale = stripe.webhooks.generateTestHeaderString({ payload: fresh, secret: TEST_WEBHOOK_SECRET, timestamp: Math.floor(Date.now() / 1000) - 600 });
+    const stale = stripe.webhooks.generateTestHeaderString({
+      payload: fresh,
+      secret: TEST_WEBHOOK_SECRET,
+      timestamp: Math.floor(Date.now() / 1000) - 600,
+    });
     const staleAnswer = await h.post(fresh, stale);
     expect(staleAnswer.status).toBe(400);
     expect(String(staleAnswer.body.detail)).toMatch(/tolerance/i);
     expect((await h.post(fresh, null)).status).toBe(400);
-    expect(await db.select().from(billingEvents).where(eq(billingEvents.id, "evt_forged_1"))).toHaveLength(0);
+    expect(
+      await db.select().from(billingEvents).where(eq(billingEvents.id, "evt_forged_1")),
+    ).toHaveLength(0);
   });
 });
 
@@ -128,7 +159,8 @@ describe("seats", () => {
     const [s, e] = [item.current_period_start, item.current_period_end];
     const t = invoice.lines.data[0].period.start;
     const f = (e - t) / (e - s);
-    const expected = Math.round(5 * lab.seatPriceCents * f) - Math.round(3 * lab.seatPriceCents * f);
+    const expected =
+      Math.round(5 * lab.seatPriceCents * f) - Math.round(3 * lab.seatPriceCents * f);
     expect(invoice.total).toBe(expected);
     expect(invoice.lines.data.map((l) => l.amount).sort((a, b) => a - b)).toEqual([
       -Math.round(3 * lab.seatPriceCents * f),
@@ -149,16 +181,31 @@ describe("seats", () => {
 
 describe("overage and renewal", () => {
   const period = "2025-01";
-  const used = { shots: lab.limits.monthlyShots + 12_345, simulationSeconds: lab.limits.monthlySimulationSeconds + 100.4 };
+  const used = {
+    shots: lab.limits.monthlyShots + 12_345,
+    simulationSeconds: lab.limits.monthlySimulationSeconds + 100.4,
+  };
 
   it("reports the period's overage once, and the renewal invoice bills it", async () => {
     const runId = crypto.randomUUID();
     await db.insert(runs).values({
-      id: runId, orgId: owner.orgId, name: "overage fixture", request: {}, method: "statevector", qubits: 2, seed: 1,
-      status: "succeeded", requestHash: "0".repeat(64),
+      id: runId,
+      orgId: owner.orgId,
+      name: "overage fixture",
+      request: {},
+      method: "statevector",
+      qubits: 2,
+      seed: 1,
+      status: "succeeded",
+      requestHash: "0".repeat(64),
     });
     // Through the runs pipeline's own writer, so events and monthly totals agree.
-    await db.transaction((tx) => recordRunUsage(tx, owner.orgId, runId, period, { shots: used.shots, simulationSeconds: used.simulationSeconds }));
+    await db.transaction((tx) =>
+      recordRunUsage(tx, owner.orgId, runId, period, {
+        shots: used.shots,
+        simulationSeconds: used.simulationSeconds,
+      }),
+    );
     const first = await reportOverage(owner.orgId, period);
     expect(first.skipped).toBeUndefined();
     expect(first.sent).toEqual([
@@ -167,7 +214,10 @@ describe("overage and renewal", () => {
     ]);
     const second = await reportOverage(owner.orgId, period);
     expect(second.sent).toEqual([]);
-    const rows = await db.select().from(overageReports).where(eq(overageReports.orgId, owner.orgId));
+    const rows = await db
+      .select()
+      .from(overageReports)
+      .where(eq(overageReports.orgId, owner.orgId));
     expect(rows.map((r) => [r.metric, r.status, r.attempts])).toEqual([
       ["shots", "sent", 1],
       ["simulation_seconds", "sent", 1],
@@ -180,13 +230,16 @@ describe("overage and renewal", () => {
     const invoice = await getStripe().invoices.retrieve(renewed.latest_invoice as string);
     expect(invoice.billing_reason).toBe("subscription_cycle");
     const catalog = await ensureCatalog();
-    const line = (price: string) => invoice.lines.data.find((l) => l.pricing?.price_details?.price === price)!;
+    const line = (price: string) =>
+      invoice.lines.data.find((l) => l.pricing?.price_details?.price === price)!;
     const shots = line(catalog.prices.lab.shots);
     const seconds = line(catalog.prices.lab.seconds);
     expect(shots.quantity).toBe(13); // ⌈12,345 / 1,000⌉ started blocks
     expect(shots.amount).toBe(13 * lab.overage!.shotsPer1000Cents);
     expect(seconds.quantity).toBe(101);
-    expect(seconds.amount).toBe(Math.round(101 * Number(lab.overage!.simulationSecondCentsDecimal)));
+    expect(seconds.amount).toBe(
+      Math.round(101 * Number(lab.overage!.simulationSecondCentsDecimal)),
+    );
     // The plan table's own overage formula agrees before the per-line rounding.
     expect(Math.abs(overageCents(lab, used) - (shots.amount + seconds.amount))).toBeLessThan(1);
     expect(line(catalog.prices.lab.seat).quantity).toBe(5);
@@ -226,4 +279,3 @@ describe("payment provider down", () => {
     expect(after.updatedAt.getTime()).toBe(before.updatedAt.getTime());
   });
 });
-

@@ -14,7 +14,12 @@ import { fakeAdminClient, flushWebhooks } from "./fake-admin";
 export const TEST_API_KEY = "sk_test_ketwise_admin_billing";
 export const TEST_WEBHOOK_SECRET = "whsec_ketwise_admin_billing_secret";
 
-export type Delivered = { status: number; body: Record<string, unknown>; raw: string; signature: string };
+export type Delivered = {
+  status: number;
+  body: Record<string, unknown>;
+  raw: string;
+  signature: string;
+};
 
 async function readAll(req: IncomingMessage): Promise<string> {
   const chunks: Buffer[] = [];
@@ -28,7 +33,10 @@ export type BillingHarness = {
   admin(path: string, body?: Record<string, unknown>): Promise<Record<string, unknown>>;
   flush(): Promise<void>;
   /** Posts a body + signature straight to the route handler. */
-  post(raw: string, signature: string | null): Promise<{ status: number; body: Record<string, unknown> }>;
+  post(
+    raw: string,
+    signature: string | null,
+  ): Promise<{ status: number; body: Record<string, unknown> }>;
   close(): Promise<void>;
 };
 
@@ -38,7 +46,9 @@ export async function startBillingHarness(): Promise<BillingHarness> {
   const post = async (raw: string, signature: string | null) => {
     const headers: Record<string, string> = { "content-type": "application/json" };
     if (signature) headers["stripe-signature"] = signature;
-    const res = await POST(new Request("http://localhost/api/webhooks/billing", { method: "POST", headers, body: raw }));
+    const res = await POST(
+      new Request("http://localhost/api/webhooks/billing", { method: "POST", headers, body: raw }),
+    );
     return { status: res.status, body: (await res.json()) as Record<string, unknown> };
   };
   const server: Server = createServer(async (req, res) => {
@@ -86,7 +96,12 @@ export async function payOnHostedPage(url: string, number = "4242 4242 4242 4242
   const res = await fetch(url, {
     method: "POST",
     headers: { "Content-Type": "application/x-www-form-urlencoded" },
-    body: new URLSearchParams({ number, expiry: "12 / 34", cvc: "123", name: "Ada Admin" }).toString(),
+    body: new URLSearchParams({
+      number,
+      expiry: "12 / 34",
+      cvc: "123",
+      name: "Ada Admin",
+    }).toString(),
     redirect: "manual",
   });
   return { status: res.status, location: res.headers.get("location"), html: await res.text() };

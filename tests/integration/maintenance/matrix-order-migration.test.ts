@@ -45,18 +45,16 @@ afterAll(() => closeDb());
 describe("matrix observables keep their meaning across the qubit-order change", () => {
   it("re-indexes library matrices, run requests and eigenbasis histograms; re-running gives the same number", async () => {
     const obsId = randomUUID();
-    await db
-      .insert(observables)
-      .values({
-        id: obsId,
-        orgId,
-        name: `legacy ${obsId}`,
-        description: "",
-        tags: [],
-        format: "matrix",
-        matrix: { real: LEGACY_Z0 },
-        qubits: 2,
-      });
+    await db.insert(observables).values({
+      id: obsId,
+      orgId,
+      name: `legacy ${obsId}`,
+      description: "",
+      tags: [],
+      format: "matrix",
+      matrix: { real: LEGACY_Z0 },
+      qubits: 2,
+    });
     const request = {
       circuit: { format: "qasm2", source: SOURCE },
       observable: {

@@ -26,7 +26,9 @@ afterAll(async () => {
   await closeDb();
 });
 
-const route = withOrg(async (_req, ctx) => Response.json({ orgId: ctx.org.id }), { role: "viewer" });
+const route = withOrg(async (_req, ctx) => Response.json({ orgId: ctx.org.id }), {
+  role: "viewer",
+});
 
 describe("cross-organisation access", () => {
   it("guard: the owner of A is not found in B", async () => {
@@ -35,14 +37,18 @@ describe("cross-organisation access", () => {
   });
 
   it("guard: an unknown organisation id is also 404", async () => {
-    const error = await authorizeMember(a.user.id, crypto.randomUUID(), "viewer").catch((e: unknown) => e);
+    const error = await authorizeMember(a.user.id, crypto.randomUUID(), "viewer").catch(
+      (e: unknown) => e,
+    );
     expect(isProblemError(error) && error.status).toBe(404);
   });
 
   it("route: a session of A naming B (by id or slug) gets 404 problem+json", async () => {
     const cookie = await sessionCookie(a.user.id);
     for (const org of [b.orgId, b.slug]) {
-      const res = await route(new Request("http://localhost/api/x", { headers: { cookie, "x-ketwise-org": org } }));
+      const res = await route(
+        new Request("http://localhost/api/x", { headers: { cookie, "x-ketwise-org": org } }),
+      );
       expect(res.status).toBe(404);
       expect(await res.json()).toMatchObject({ type: "/problems/not-found", status: 404 });
     }
@@ -58,7 +64,9 @@ describe("cross-organisation access", () => {
   it("route: an API key of A always acts in A", async () => {
     const { key } = await createTestApiKey(a.orgId, "viewer");
     const res = await route(
-      new Request("http://localhost/api/x", { headers: { authorization: `Bearer ${key}`, "x-ketwise-org": b.orgId } }),
+      new Request("http://localhost/api/x", {
+        headers: { authorization: `Bearer ${key}`, "x-ketwise-org": b.orgId },
+      }),
     );
     expect(await res.json()).toEqual({ orgId: a.orgId });
   });

@@ -12,7 +12,12 @@ describe("problem details", () => {
     const res = problemResponse(notFound("No run with that id.").problem);
     expect(res.status).toBe(404);
     expect(res.headers.get("content-type")).toBe("application/problem+json");
-    expect(await res.json()).toEqual({ type: "/problems/not-found", title: "Not found", status: 404, detail: "No run with that id." });
+    expect(await res.json()).toEqual({
+      type: "/problems/not-found",
+      title: "Not found",
+      status: 404,
+      detail: "No run with that id.",
+    });
   });
 
   it("sends Retry-After for 429 as a header, not in the body", async () => {
@@ -22,7 +27,9 @@ describe("problem details", () => {
   });
 
   it("maps a zod failure to 422 with dotted field paths", () => {
-    const result = z.object({ observable: z.object({ terms: z.string() }) }).safeParse({ observable: { terms: 1 } });
+    const result = z
+      .object({ observable: z.object({ terms: z.string() }) })
+      .safeParse({ observable: { terms: 1 } });
     const problem = toProblem(result.error);
     expect(problem.status).toBe(422);
     expect(problem.errors?.[0].path).toBe("observable.terms");
@@ -43,13 +50,21 @@ describe("environment", () => {
 
   it("fills the documented defaults", () => {
     const env = parseEnv(base);
-    expect(env).toMatchObject({ REDIS_URL: "redis://127.0.0.1:6380/0", SMTP_PORT: 1025, MAIL_WEB_PORT: 1080, STRIPE_API_PORT: 12111, PORT: 3000 });
+    expect(env).toMatchObject({
+      REDIS_URL: "redis://127.0.0.1:6380/0",
+      SMTP_PORT: 1025,
+      MAIL_WEB_PORT: 1080,
+      STRIPE_API_PORT: 12111,
+      PORT: 3000,
+    });
     expect(env.DEMO_SEED).toBe(false);
     expect(parseEnv({ ...base, DEMO_SEED: "on" }).DEMO_SEED).toBe(true);
   });
 
   it("names every bad variable", () => {
-    expect(() => parseEnv({ DATABASE_URL: "postgres://x", AUTH_SECRET: "short", SMTP_PORT: "abc" })).toThrowError(EnvError);
+    expect(() =>
+      parseEnv({ DATABASE_URL: "postgres://x", AUTH_SECRET: "short", SMTP_PORT: "abc" }),
+    ).toThrowError(EnvError);
     try {
       parseEnv({ DATABASE_URL: "postgres://x", AUTH_SECRET: "short", SMTP_PORT: "abc" });
     } catch (error) {

@@ -16,7 +16,8 @@ afterAll(async () => {
   await closeDb();
 });
 
-const ip = () => `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
+const ip = () =>
+  `10.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}.${Math.floor(Math.random() * 250)}`;
 
 async function spend(times: number, fn: () => Promise<void>) {
   for (let i = 0; i < times; i++) await fn();
@@ -29,7 +30,9 @@ describe("sign-in rate limit by address", () => {
     const error = await consumeSignInIp(address).catch((e: unknown) => e);
     expect(isProblemError(error) && error.status).toBe(429);
     if (!isProblemError(error)) return;
-    expect(error.problem.detail).toMatch(/^Too many sign-in attempts from your network\. Try again in \d+ minutes\.$/);
+    expect(error.problem.detail).toMatch(
+      /^Too many sign-in attempts from your network\. Try again in \d+ minutes\.$/,
+    );
     expect(error.problem.retryAfter).toBeGreaterThan(800);
   });
 
@@ -42,8 +45,13 @@ describe("API rate limit in withOrg", () => {
   it("answers 429 problem+json with Retry-After once the actor's budget is spent", async () => {
     const { orgId } = await createUserWithOrg(`api-${uniqueSuffix()}`);
     const { key } = await createTestApiKey(orgId, "viewer");
-    const route = withOrg(async () => new Response(null, { status: 204 }), { rateLimit: { points: 2, duration: 60 } });
-    const call = () => route(new Request("http://localhost/api/v1/x", { headers: { authorization: `Bearer ${key}` } }));
+    const route = withOrg(async () => new Response(null, { status: 204 }), {
+      rateLimit: { points: 2, duration: 60 },
+    });
+    const call = () =>
+      route(
+        new Request("http://localhost/api/v1/x", { headers: { authorization: `Bearer ${key}` } }),
+      );
     expect((await call()).status).toBe(204);
     expect((await call()).status).toBe(204);
     const limited = await call();

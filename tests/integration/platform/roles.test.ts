@@ -11,7 +11,13 @@ import { isProblemError } from "@/lib/api/problem";
 import { withOrg } from "@/lib/api/with-org";
 import { ROLES, type Role } from "@/lib/orgs/roles";
 import { closeRedis } from "@/lib/rate-limit/redis";
-import { addMember, createTestApiKey, createTestUser, createUserWithOrg, sessionCookie } from "../../support/factories";
+import {
+  addMember,
+  createTestApiKey,
+  createTestUser,
+  createUserWithOrg,
+  sessionCookie,
+} from "../../support/factories";
 
 let orgId: string;
 const userByRole = {} as Record<Role, string>;
@@ -54,7 +60,9 @@ describe("authorizeMember (the check behind requireRole / requireMembership)", (
   for (const actor of ROLES) {
     for (const needed of ROLES) {
       it(`${actor} asking for a ${needed} action → ${matrix[actor][needed]}`, async () => {
-        expect(await statusOf(authorizeMember(userByRole[actor], orgId, needed))).toBe(matrix[actor][needed]);
+        expect(await statusOf(authorizeMember(userByRole[actor], orgId, needed))).toBe(
+          matrix[actor][needed],
+        );
       });
     }
   }
@@ -66,18 +74,28 @@ describe("authorizeMember (the check behind requireRole / requireMembership)", (
   });
 
   it("names the needed and the actual role in the 403 detail", async () => {
-    const error = await authorizeMember(userByRole.viewer, orgId, "member").catch((e: unknown) => e);
-    expect(isProblemError(error) && error.problem.detail).toMatch(/needs the Member role.*you are Viewer/);
+    const error = await authorizeMember(userByRole.viewer, orgId, "member").catch(
+      (e: unknown) => e,
+    );
+    expect(isProblemError(error) && error.problem.detail).toMatch(
+      /needs the Member role.*you are Viewer/,
+    );
   });
 });
 
 describe("withOrg enforces the route's role", () => {
-  const memberRoute = withOrg(async (_req, ctx) => Response.json({ role: ctx.role }), { role: "member" });
-  const adminRoute = withOrg(async (_req, ctx) => Response.json({ role: ctx.role }), { role: "admin" });
+  const memberRoute = withOrg(async (_req, ctx) => Response.json({ role: ctx.role }), {
+    role: "member",
+  });
+  const adminRoute = withOrg(async (_req, ctx) => Response.json({ role: ctx.role }), {
+    role: "admin",
+  });
 
   it("viewer session cannot call a member route; member can", async () => {
     const asViewer = await memberRoute(
-      new Request("http://localhost/api/x", { headers: { cookie: await sessionCookie(userByRole.viewer), "x-ketwise-org": orgId } }),
+      new Request("http://localhost/api/x", {
+        headers: { cookie: await sessionCookie(userByRole.viewer), "x-ketwise-org": orgId },
+      }),
     );
     expect(asViewer.status).toBe(403);
     expect(asViewer.headers.get("content-type")).toBe("application/problem+json");
@@ -85,7 +103,9 @@ describe("withOrg enforces the route's role", () => {
     expect(body).toMatchObject({ type: "/problems/forbidden", title: "Not allowed", status: 403 });
 
     const asMember = await memberRoute(
-      new Request("http://localhost/api/x", { headers: { cookie: await sessionCookie(userByRole.member), "x-ketwise-org": orgId } }),
+      new Request("http://localhost/api/x", {
+        headers: { cookie: await sessionCookie(userByRole.member), "x-ketwise-org": orgId },
+      }),
     );
     expect(asMember.status).toBe(200);
     expect(await asMember.json()).toEqual({ role: "member" });
@@ -95,7 +115,9 @@ describe("withOrg enforces the route's role", () => {
     const memberKey = await createTestApiKey(orgId, "member", userByRole.member);
     const adminKey = await createTestApiKey(orgId, "admin", userByRole.admin);
     const call = (key: string) =>
-      adminRoute(new Request("http://localhost/api/x", { headers: { authorization: `Bearer ${key}` } }));
+      adminRoute(
+        new Request("http://localhost/api/x", { headers: { authorization: `Bearer ${key}` } }),
+      );
     expect((await call(memberKey.key)).status).toBe(403);
     const ok = await call(adminKey.key);
     expect(ok.status).toBe(200);

@@ -22,11 +22,18 @@ afterAll(async () => {
   await closeDb();
 });
 
-const request = (ip: string) => new Request("http://localhost/api/auth/callback/credentials", { headers: { "x-forwarded-for": ip } });
+const request = (ip: string) =>
+  new Request("http://localhost/api/auth/callback/credentials", {
+    headers: { "x-forwarded-for": ip },
+  });
 
 describe("signUp", () => {
   it("creates the user with a bcrypt hash and a personal organisation they own", async () => {
-    const input = signUpSchema.parse({ name: "Ada Quant", email: uniqueEmail("ada").toUpperCase(), password: "entangled photons" });
+    const input = signUpSchema.parse({
+      name: "Ada Quant",
+      email: uniqueEmail("ada").toUpperCase(),
+      password: "entangled photons",
+    });
     const { userId, orgId } = await signUp(input);
     const [row] = await db.select().from(users).where(eq(users.id, userId));
     expect(row.email).toBe(input.email.toLowerCase());
@@ -34,13 +41,20 @@ describe("signUp", () => {
     expect(await bcrypt.compare("entangled photons", row.passwordHash!)).toBe(true);
     const memberships = await listMembershipsForUser(userId);
     expect(memberships).toHaveLength(1);
-    expect(memberships[0]).toMatchObject({ role: "owner", org: { id: orgId, name: "Ada Quant's organisation", plan: "sandbox" } });
+    expect(memberships[0]).toMatchObject({
+      role: "owner",
+      org: { id: orgId, name: "Ada Quant's organisation", plan: "sandbox" },
+    });
   });
 
   it("refuses a taken e-mail (any letter case) with 409 and a field error", async () => {
     const email = uniqueEmail("taken");
     await signUp(signUpSchema.parse({ name: "First", email, password: "first password ok" }));
-    const again = signUpSchema.parse({ name: "Second", email: email.toUpperCase(), password: "second password ok" });
+    const again = signUpSchema.parse({
+      name: "Second",
+      email: email.toUpperCase(),
+      password: "second password ok",
+    });
     const error = await signUp(again).catch((e: unknown) => e);
     expect(isProblemError(error)).toBe(true);
     if (!isProblemError(error)) return;
@@ -58,21 +72,36 @@ describe("signUp", () => {
     expect(result.error?.issues.map((i) => i.message)).toContain(message);
   });
 
-  it.each(["not-an-email", "two@@example.org", "", "spaces in@example.org"])("rejects the malformed e-mail %j", (email) => {
-    const result = signUpSchema.safeParse({ name: "M", email, password: "long enough pass" });
-    expect(result.success).toBe(false);
-    expect(result.error?.issues[0].path).toEqual(["email"]);
-  });
+  it.each(["not-an-email", "two@@example.org", "", "spaces in@example.org"])(
+    "rejects the malformed e-mail %j",
+    (email) => {
+      const result = signUpSchema.safeParse({ name: "M", email, password: "long enough pass" });
+      expect(result.success).toBe(false);
+      expect(result.error?.issues[0].path).toEqual(["email"]);
+    },
+  );
 });
 
 describe("password sign-in (Credentials authorize)", () => {
   it("accepts the right password and answers null for a wrong one or an unknown e-mail", async () => {
     const email = uniqueEmail("signin");
     await signUp(signUpSchema.parse({ name: "Sig", email, password: "right password here" }));
-    const ok = await authorizeWithPassword({ email, password: "right password here" }, request("10.9.0.1"));
+    const ok = await authorizeWithPassword(
+      { email, password: "right password here" },
+      request("10.9.0.1"),
+    );
     expect(ok).toMatchObject({ email });
-    expect(await authorizeWithPassword({ email, password: "wrong password here" }, request("10.9.0.1"))).toBeNull();
-    expect(await authorizeWithPassword({ email: uniqueEmail("nobody"), password: "whatever pass" }, request("10.9.0.1"))).toBeNull();
-    expect(await authorizeWithPassword({ email: "not an email", password: "x" }, request("10.9.0.1"))).toBeNull();
+    expect(
+      await authorizeWithPassword({ email, password: "wrong password here" }, request("10.9.0.1")),
+    ).toBeNull();
+    expect(
+      await authorizeWithPassword(
+        { email: uniqueEmail("nobody"), password: "whatever pass" },
+        request("10.9.0.1"),
+      ),
+    ).toBeNull();
+    expect(
+      await authorizeWithPassword({ email: "not an email", password: "x" }, request("10.9.0.1")),
+    ).toBeNull();
   });
 });

@@ -13,8 +13,11 @@ import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestApiKey, createUserWithOrg, sessionCookie } from "../../support/factories";
 
 let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
-const route = withOrg(async (_req, ctx) => Response.json({ actor: ctx.actor.kind, org: ctx.org.id }));
-const get = (headers: Record<string, string>) => route(new Request("http://localhost/api/v1/x", { headers }));
+const route = withOrg(async (_req, ctx) =>
+  Response.json({ actor: ctx.actor.kind, org: ctx.org.id }),
+);
+const get = (headers: Record<string, string>) =>
+  route(new Request("http://localhost/api/v1/x", { headers }));
 
 beforeAll(async () => {
   owner = await createUserWithOrg("auth");
@@ -66,6 +69,9 @@ describe("withOrg authentication", () => {
   it("401 session-expired for a session cookie past its expiry", async () => {
     const res = await get({ cookie: await sessionCookie(owner.user.id, { maxAgeSeconds: -60 }) });
     expect(res.status).toBe(401);
-    expect(await res.json()).toMatchObject({ type: "/problems/session-expired", title: "Session expired" });
+    expect(await res.json()).toMatchObject({
+      type: "/problems/session-expired",
+      title: "Session expired",
+    });
   });
 });

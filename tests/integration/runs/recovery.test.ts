@@ -37,12 +37,22 @@ afterAll(async () => {
 });
 
 const fakeJob = (runId: string, attemptsMade: number) =>
-  ({ name: "run.execute", data: { orgId: owner.orgId, runId }, attemptsMade, opts: { attempts: JOB_ATTEMPTS } }) as unknown as Job;
+  ({
+    name: "run.execute",
+    data: { orgId: owner.orgId, runId },
+    attemptsMade,
+    opts: { attempts: JOB_ATTEMPTS },
+  }) as unknown as Job;
 
 describe("final job failure", () => {
   it("leaves the run alone while retries remain, then fails it with a plain reason", async () => {
-    const runId = await insertRawRun(owner.orgId, bellRequest(), { status: "running", attempts: 1 });
-    const dbDown = Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:3307"), { code: "ECONNREFUSED" });
+    const runId = await insertRawRun(owner.orgId, bellRequest(), {
+      status: "running",
+      attempts: 1,
+    });
+    const dbDown = Object.assign(new Error("connect ECONNREFUSED 127.0.0.1:3307"), {
+      code: "ECONNREFUSED",
+    });
     await failRunAfterRetries(fakeJob(runId, JOB_ATTEMPTS - 1), dbDown);
     expect((await runRow(owner.orgId, runId)).status).toBe("running");
     await failRunAfterRetries(fakeJob(runId, JOB_ATTEMPTS), dbDown);
@@ -58,11 +68,21 @@ describe("final job failure", () => {
 
   it("names a crashed engine and a stalled worker, and never touches a finished run", async () => {
     const crashed = await insertRawRun(owner.orgId, bellRequest(), { status: "running" });
-    await failRunAfterRetries(fakeJob(crashed, JOB_ATTEMPTS), new EngineThreadError("engine thread exited with code 1"));
-    expect((await runRow(owner.orgId, crashed)).error?.detail).toContain("the simulation engine stopped unexpectedly");
+    await failRunAfterRetries(
+      fakeJob(crashed, JOB_ATTEMPTS),
+      new EngineThreadError("engine thread exited with code 1"),
+    );
+    expect((await runRow(owner.orgId, crashed)).error?.detail).toContain(
+      "the simulation engine stopped unexpectedly",
+    );
     const stalled = await insertRawRun(owner.orgId, bellRequest(), { status: "running" });
-    await failRunAfterRetries(fakeJob(stalled, 1), new Error("job stalled more than allowable limit"));
-    expect((await runRow(owner.orgId, stalled)).error?.detail).toContain("its worker stopped responding");
+    await failRunAfterRetries(
+      fakeJob(stalled, 1),
+      new Error("job stalled more than allowable limit"),
+    );
+    expect((await runRow(owner.orgId, stalled)).error?.detail).toContain(
+      "its worker stopped responding",
+    );
     const done = await insertRawRun(owner.orgId, bellRequest(), { status: "succeeded" });
     await failRunAfterRetries(fakeJob(done, JOB_ATTEMPTS), new Error("late"));
     expect((await runRow(owner.orgId, done)).status).toBe("succeeded");
@@ -73,10 +93,17 @@ describe("final job failure", () => {
 describe("sweeper", () => {
   it("re-queues a queued run whose job is missing and fails a lost running run", async () => {
     const now = Date.now();
-    const orphan = await insertRawRun(owner.orgId, bellRequest(), { queuedAt: new Date(now - 5 * 60_000) });
-    const fresh = await insertRawRun(owner.orgId, bellRequest(), { queuedAt: new Date(now - 5_000) });
+    const orphan = await insertRawRun(owner.orgId, bellRequest(), {
+      queuedAt: new Date(now - 5 * 60_000),
+    });
+    const fresh = await insertRawRun(owner.orgId, bellRequest(), {
+      queuedAt: new Date(now - 5_000),
+    });
     // Sandbox runs stop after 60 s; this one started 10 minutes ago and has no job.
-    const lost = await insertRawRun(owner.orgId, bellRequest(), { status: "running", startedAt: new Date(now - 10 * 60_000) });
+    const lost = await insertRawRun(owner.orgId, bellRequest(), {
+      status: "running",
+      startedAt: new Date(now - 10 * 60_000),
+    });
     await sweepOrphanRuns(new Date(now));
     const queue = getRunsQueue();
     expect(await queue.getJob(orphan)).toBeDefined();
@@ -97,11 +124,27 @@ describe("usage totals", () => {
     await db.transaction((tx) => recordRunUsage(tx, org.orgId, first, period, usage));
     await db.transaction((tx) => recordRunUsage(tx, org.orgId, first, period, usage));
     expect(await usageOf(org.orgId, first)).toHaveLength(3);
-    expect(await getUsageTotals(org.orgId, period)).toEqual({ runs: 1, shots: 1000, simulationSeconds: 0.25 });
+    expect(await getUsageTotals(org.orgId, period)).toEqual({
+      runs: 1,
+      shots: 1000,
+      simulationSeconds: 0.25,
+    });
     // A run whose shots event exists already: totals are rebuilt from the events.
     const second = await insertRawRun(org.orgId, bellRequest(), { status: "succeeded" });
-    await db.insert(usageEvents).values({ orgId: org.orgId, runId: second, metric: "shots", quantity: 500, period });
-    await db.transaction((tx) => recordRunUsage(tx, org.orgId, second, period, { runs: 1, shots: 500, simulationSeconds: 0.5 }));
-    expect(await getUsageTotals(org.orgId, period)).toEqual({ runs: 2, shots: 1500, simulationSeconds: 0.75 });
+    await db
+      .insert(usageEvents)
+      .values({ orgId: org.orgId, runId: second, metric: "shots", quantity: 500, period });
+    await db.transaction((tx) =>
+      recordRunUsage(tx, org.orgId, second, period, {
+        runs: 1,
+        shots: 500,
+        simulationSeconds: 0.5,
+      }),
+    );
+    expect(await getUsageTotals(org.orgId, period)).toEqual({
+      runs: 2,
+      shots: 1500,
+      simulationSeconds: 0.75,
+    });
   });
 });

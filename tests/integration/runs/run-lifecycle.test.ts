@@ -125,7 +125,9 @@ describe("concurrency slots and cancellation", () => {
     // Sandbox allows 1 concurrent run: the second waits queued although a thread is free.
     const second = await api("POST", "/api/v1/runs", { key, body: smallRequest(3) });
     await worker.waitForOutput(`run ${second.body.id}: waiting for a slot`);
-    expect((await api("GET", `/api/v1/runs/${second.body.id}`, { key })).body.status).toBe("queued");
+    expect((await api("GET", `/api/v1/runs/${second.body.id}`, { key })).body.status).toBe(
+      "queued",
+    );
     const canceledQueued = await api("POST", `/api/v1/runs/${second.body.id}/cancel`, { key });
     expect(canceledQueued.status).toBe(200);
     expect(canceledQueued.body.status).toBe("canceled");

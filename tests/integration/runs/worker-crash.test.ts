@@ -20,7 +20,11 @@ let owner: Awaited<ReturnType<typeof createUserWithOrg>>;
 let key: string;
 
 beforeAll(async () => {
-  const started = await Promise.all([startWorker({ concurrency: 1 }), startWorker({ concurrency: 1 }), createUserWithOrg("crash")]);
+  const started = await Promise.all([
+    startWorker({ concurrency: 1 }),
+    startWorker({ concurrency: 1 }),
+    createUserWithOrg("crash"),
+  ]);
   workers = [started[0], started[1]];
   owner = started[2];
   key = (await createTestApiKey(owner.orgId, "member", owner.user.id)).key;
@@ -39,7 +43,10 @@ describe("a worker killed mid-run", () => {
     const res = await api("POST", "/api/v1/runs", { key, body: request });
     expect(res.status, JSON.stringify(res.body)).toBe(202);
     const id = res.body.id;
-    await pollRun(key, id, { until: (r) => r.status === "running" && r.progress > 0, timeoutMs: 60_000 });
+    await pollRun(key, id, {
+      until: (r) => r.status === "running" && r.progress > 0,
+      timeoutMs: 60_000,
+    });
 
     const started = `run ${id}: attempt 1 started`;
     const victim = workers.find((w) => w.output().includes(started));
@@ -57,7 +64,9 @@ describe("a worker killed mid-run", () => {
     expect(usage.find((u) => u.metric === "runs")?.quantity).toBe(1);
     const direct = await estimate(request);
     expect({ ...run.result, timings: undefined }).toEqual({ ...direct, timings: undefined });
-    expect(usage.find((u) => u.metric === "shots")?.quantity).toBe(direct.sweep!.points.reduce((a, p) => a + (p.sampled?.shots ?? 0), 0));
+    expect(usage.find((u) => u.metric === "shots")?.quantity).toBe(
+      direct.sweep!.points.reduce((a, p) => a + (p.sampled?.shots ?? 0), 0),
+    );
 
     // Nothing runs it a third time: the queue has the job as completed, which it never re-runs.
     await survivor.waitForOutput(`run ${id}: succeeded`);

@@ -35,7 +35,11 @@ describe("form parser", () => {
   });
 
   it("accepts percent-encoded brackets, `[]` appends and '+' as space", () => {
-    expect(parseForm("a%5Bb%5D=1&c[]=x&c[]=y&d=hello+world")).toEqual({ a: { b: "1" }, c: ["x", "y"], d: "hello world" });
+    expect(parseForm("a%5Bb%5D=1&c[]=x&c[]=y&d=hello+world")).toEqual({
+      a: { b: "1" },
+      c: ["x", "y"],
+      d: "hello world",
+    });
   });
 
   it("keeps array order by index, not by arrival", () => {
@@ -51,8 +55,13 @@ describe("form parser", () => {
   });
 
   it("round-trips what URLSearchParams encodes", () => {
-    const params = new URLSearchParams({ "payload[stripe_customer_id]": "cus_1", "payload[value]": "12 345&=" });
-    expect(parseForm(params.toString())).toEqual({ payload: { stripe_customer_id: "cus_1", value: "12 345&=" } });
+    const params = new URLSearchParams({
+      "payload[stripe_customer_id]": "cus_1",
+      "payload[value]": "12 345&=",
+    });
+    expect(parseForm(params.toString())).toEqual({
+      payload: { stripe_customer_id: "cus_1", value: "12 345&=" },
+    });
   });
 });
 
@@ -79,7 +88,10 @@ describe("parameter errors", () => {
       code: "parameter_unknown",
       param: "items[0][colour]",
     });
-    expect(errorOf({}).toBody().error).toMatchObject({ code: "parameter_missing", message: "Missing required param: items." });
+    expect(errorOf({}).toBody().error).toMatchObject({
+      code: "parameter_missing",
+      message: "Missing required param: items.",
+    });
   });
 });
 
@@ -88,14 +100,23 @@ describe("webhook signature", () => {
     const payload = JSON.stringify({ id: "evt_1", object: "event", type: "invoice.paid" }, null, 2);
     const secret = "whsec_unit_secret";
     const timestamp = 1_700_000_000;
-    expect(signPayload(payload, secret, timestamp)).toBe(sdk.webhooks.generateTestHeaderString({ payload, secret, timestamp }));
+    expect(signPayload(payload, secret, timestamp)).toBe(
+      sdk.webhooks.generateTestHeaderString({ payload, secret, timestamp }),
+    );
   });
 
   it("verifies with constructEvent and fails for another secret", () => {
-    const payload = JSON.stringify({ id: "evt_2", object: "event", type: "customer.created", data: { object: {} } });
+    const payload = JSON.stringify({
+      id: "evt_2",
+      object: "event",
+      type: "customer.created",
+      data: { object: {} },
+    });
     const header = signPayload(payload, "whsec_a", Math.floor(Date.now() / 1000));
     expect(sdk.webhooks.constructEvent(payload, header, "whsec_a").id).toBe("evt_2");
-    expect(() => sdk.webhooks.constructEvent(payload, header, "whsec_b")).toThrow(Stripe.errors.StripeSignatureVerificationError);
+    expect(() => sdk.webhooks.constructEvent(payload, header, "whsec_b")).toThrow(
+      Stripe.errors.StripeSignatureVerificationError,
+    );
   });
 });
 
@@ -138,25 +159,37 @@ describe("test cards", () => {
 
   it("accepts only documented test numbers with a future expiry and a CVC of the right length", () => {
     const now = Date.parse("2026-06-15T00:00:00Z") / 1000;
-    expect(checkCardInput({ number: "4242 4242 4242 4242", expiry: "06 / 26", cvc: "123" }, now).ok).toBe(true);
+    expect(
+      checkCardInput({ number: "4242 4242 4242 4242", expiry: "06 / 26", cvc: "123" }, now).ok,
+    ).toBe(true);
     const past = checkCardInput({ number: "4242424242424242", expiry: "05/26", cvc: "123" }, now);
     expect(past.ok || past.field).toBe("expiry");
     const amex = checkCardInput({ number: "378282246310005", expiry: "12/30", cvc: "123" }, now);
     expect(amex.ok || amex.field).toBe("cvc");
-    const real = checkCardInput({ number: "4111 1111 1111 1111", expiry: "12/30", cvc: "123" }, now);
+    const real = checkCardInput(
+      { number: "4111 1111 1111 1111", expiry: "12/30", cvc: "123" },
+      now,
+    );
     expect(real.ok || real.decline.message).toMatch(/test payment page/);
-    const declined = checkCardInput({ number: "4000000000000002", expiry: "12/30", cvc: "123" }, now);
+    const declined = checkCardInput(
+      { number: "4000000000000002", expiry: "12/30", cvc: "123" },
+      now,
+    );
     expect(declined.ok && declined.value.card.attach?.decline_code).toBe("generic_decline");
   });
 });
 
 describe("hand-written PDF", () => {
   it("has a header, objects at the offsets the xref table lists, and a trailer", () => {
-    const pdf = buildPdf("Test (1)", [{ x: 50, y: 800, text: "Amount × 2 (net) \\ total", bold: true }]).toString("latin1");
+    const pdf = buildPdf("Test (1)", [
+      { x: 50, y: 800, text: "Amount × 2 (net) \\ total", bold: true },
+    ]).toString("latin1");
     expect(pdf.startsWith("%PDF-1.4\n")).toBe(true);
     const xrefAt = Number(/startxref\n(\d+)\n%%EOF\n$/.exec(pdf)![1]);
     expect(pdf.slice(xrefAt, xrefAt + 5)).toBe("xref\n");
-    const offsets = [...pdf.slice(xrefAt).matchAll(/^(\d{10}) 00000 n \n/gm)].map((m) => Number(m[1]));
+    const offsets = [...pdf.slice(xrefAt).matchAll(/^(\d{10}) 00000 n \n/gm)].map((m) =>
+      Number(m[1]),
+    );
     expect(offsets).toHaveLength(7);
     offsets.forEach((o, i) => expect(pdf.startsWith(`${i + 1} 0 obj\n`, o)).toBe(true));
     // Parentheses and backslashes are escaped inside PDF strings (ISO 32000-1 §7.3.4.2).

@@ -50,9 +50,10 @@ describe("plan table", () => {
       const lower = plans[i - 1];
       const higher = plans[i];
       for (const key of limitKeys) {
-        expect(higher.limits[key], `${higher.id}.${key} >= ${lower.id}.${key}`).toBeGreaterThanOrEqual(
-          lower.limits[key],
-        );
+        expect(
+          higher.limits[key],
+          `${higher.id}.${key} >= ${lower.id}.${key}`,
+        ).toBeGreaterThanOrEqual(lower.limits[key]);
       }
       expect(higher.seatPriceCents).toBeGreaterThan(lower.seatPriceCents);
     }
@@ -64,18 +65,23 @@ describe("plan table", () => {
     const lab = getPlan("lab");
     const institute = getPlan("institute");
     expect(isPaidPlan(lab) && isPaidPlan(institute)).toBe(true);
-    expect(institute.overage!.shotsPer1000Cents).toBeLessThanOrEqual(lab.overage!.shotsPer1000Cents);
+    expect(institute.overage!.shotsPer1000Cents).toBeLessThanOrEqual(
+      lab.overage!.shotsPer1000Cents,
+    );
     expect(Number(institute.overage!.simulationSecondCentsDecimal)).toBeLessThanOrEqual(
       Number(lab.overage!.simulationSecondCentsDecimal),
     );
     // The provider accepts unit_amount_decimal with at most 12 decimal places.
-    for (const p of [lab, institute]) expect(p.overage!.simulationSecondCentsDecimal).toMatch(/^\d+(\.\d{1,12})?$/);
+    for (const p of [lab, institute])
+      expect(p.overage!.simulationSecondCentsDecimal).toMatch(/^\d+(\.\d{1,12})?$/);
   });
 
   it("a density matrix needs 4^n amplitudes, so its qubit cap stays near half the statevector cap", () => {
     // Memory of a dense n-qubit density matrix equals that of a 2n-qubit statevector.
     for (const plan of plans) {
-      expect(2 * plan.limits.maxDensityMatrixQubits).toBeLessThanOrEqual(plan.limits.maxStatevectorQubits);
+      expect(2 * plan.limits.maxDensityMatrixQubits).toBeLessThanOrEqual(
+        plan.limits.maxStatevectorQubits,
+      );
     }
   });
 
@@ -99,12 +105,17 @@ describe("overageCents", () => {
   it("bills started blocks of 1,000 shots and whole seconds above quota", () => {
     // 1 shot over → one block; 1,001 over → two blocks. 0.5 s over → 1 s.
     expect(overageCents(lab, { shots: lab.limits.monthlyShots + 1, simulationSeconds: 0 })).toBe(5);
-    expect(overageCents(lab, { shots: lab.limits.monthlyShots + 1001, simulationSeconds: 0 })).toBe(10);
+    expect(overageCents(lab, { shots: lab.limits.monthlyShots + 1001, simulationSeconds: 0 })).toBe(
+      10,
+    );
     expect(
       overageCents(lab, { shots: 0, simulationSeconds: lab.limits.monthlySimulationSeconds + 0.5 }),
     ).toBeCloseTo(0.2, 12);
     expect(
-      overageCents(lab, { shots: lab.limits.monthlyShots + 3000, simulationSeconds: lab.limits.monthlySimulationSeconds + 100 }),
+      overageCents(lab, {
+        shots: lab.limits.monthlyShots + 3000,
+        simulationSeconds: lab.limits.monthlySimulationSeconds + 100,
+      }),
     ).toBeCloseTo(15 + 20, 12);
   });
 });

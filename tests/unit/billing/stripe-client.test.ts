@@ -39,7 +39,12 @@ describe("payment provider configuration", () => {
     await new Promise<void>((r) => server.listen(0, "127.0.0.1", r));
     try {
       const port = (server.address() as AddressInfo).port;
-      const stripe = createStripe({ STRIPE_SECRET_KEY: "sk_test_client_check", STRIPE_API_HOST: "127.0.0.1", STRIPE_API_PORT: port, STRIPE_API_PROTOCOL: "http" });
+      const stripe = createStripe({
+        STRIPE_SECRET_KEY: "sk_test_client_check",
+        STRIPE_API_HOST: "127.0.0.1",
+        STRIPE_API_PORT: port,
+        STRIPE_API_PROTOCOL: "http",
+      });
       const customer = await stripe.customers.retrieve("cus_1");
       expect(customer.id).toBe("cus_1");
       expect(seen.url).toBe("/v1/customers/cus_1");

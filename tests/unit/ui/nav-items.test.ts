@@ -3,7 +3,8 @@ import { defaultNavSections, isActive, type NavItem } from "@/components/shell/n
 
 const all: NavItem[] = defaultNavSections.flatMap((s) => s.items);
 const byLabel = (label: string) => all.find((i) => i.label === label)!;
-const activeLabels = (path: string) => all.filter((i) => isActive(i, path, all)).map((i) => i.label);
+const activeLabels = (path: string) =>
+  all.filter((i) => isActive(i, path, all)).map((i) => i.label);
 
 // Behaviour the sidebar promises (product rule, no outside source): exactly one entry is
 // current on every page of the signed-in area, and the most specific entry wins.
@@ -20,7 +21,9 @@ describe("sidebar active entry", () => {
     expect(activeLabels("/app/runs/run_123")).toEqual(["Runs"]);
   });
   it("does not match a sibling that merely shares a prefix", () => {
-    expect(isActive({ href: "/app/runs", label: "Runs", icon: "runs" }, "/app/runsx", all)).toBe(false);
+    expect(isActive({ href: "/app/runs", label: "Runs", icon: "runs" }, "/app/runsx", all)).toBe(
+      false,
+    );
   });
   it("lights nothing outside the signed-in area", () => {
     expect(activeLabels("/pricing")).toEqual([]);

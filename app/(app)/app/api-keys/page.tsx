@@ -17,7 +17,11 @@ import { CreateKeyForm } from "./create-key-form";
 
 export const metadata: Metadata = { title: "API keys" };
 
-const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "short", timeZone: "UTC" });
+const when = new Intl.DateTimeFormat("en-GB", {
+  dateStyle: "medium",
+  timeStyle: "short",
+  timeZone: "UTC",
+});
 
 /** The key's role, and when its creator's role limits it, what it acts as and why. */
 function KeyRole({ role, standing }: { role: Role; standing: KeyStanding | null }) {
@@ -41,7 +45,10 @@ export default async function ApiKeysPage() {
   const isAdmin = roleAtLeast(access.role, "admin");
   const canCreate = roleAtLeast(access.role, "member");
   const keys = await listVisibleKeys(access.org.id, access);
-  const roles = KEY_ROLES.filter((r) => roleAtLeast(access.role, r)).map((r) => ({ value: r, label: ROLE_LABELS[r] }));
+  const roles = KEY_ROLES.filter((r) => roleAtLeast(access.role, r)).map((r) => ({
+    value: r,
+    label: ROLE_LABELS[r],
+  }));
   const scopes = [
     { value: "personal", label: "Personal" },
     ...(isAdmin ? [{ value: "organization", label: "Organisation" }] : []),
@@ -53,8 +60,13 @@ export default async function ApiKeysPage() {
         title="API keys"
         description={
           <>
-            Keys let scripts and pipelines call the REST API as <code className="font-mono text-[13px]">Authorization: Bearer kw_…</code>. A key never
-            has more rights than the person who made it: on every request it acts with the lower of its own role and its creator&apos;s current role. {isAdmin ? "As an admin you see every key of the organisation." : "You see your own keys."}
+            Keys let scripts and pipelines call the REST API as{" "}
+            <code className="font-mono text-[13px]">Authorization: Bearer kw_…</code>. A key never
+            has more rights than the person who made it: on every request it acts with the lower of
+            its own role and its creator&apos;s current role.{" "}
+            {isAdmin
+              ? "As an admin you see every key of the organisation."
+              : "You see your own keys."}
           </>
         }
       />
@@ -75,7 +87,10 @@ export default async function ApiKeysPage() {
           </Alert>
         )}
         {keys.length === 0 ? (
-          <EmptyState title="No API keys yet" description="Create one above; the full key is shown once." />
+          <EmptyState
+            title="No API keys yet"
+            description="Create one above; the full key is shown once."
+          />
         ) : (
           <Table>
             <THead>
@@ -104,11 +119,18 @@ export default async function ApiKeysPage() {
                     <code className="font-mono text-[12.5px]">kw_{k.prefix}_••••</code>
                   </TD>
                   <TD>
-                    <KeyRole role={k.role} standing={k.revokedAt ? null : keyStanding(k.role, k.creatorRole)} />
+                    <KeyRole
+                      role={k.role}
+                      standing={k.revokedAt ? null : keyStanding(k.role, k.creatorRole)}
+                    />
                   </TD>
-                  {isAdmin ? <TD className="text-ink-2">{k.createdByName ?? k.createdByEmail ?? "—"}</TD> : null}
+                  {isAdmin ? (
+                    <TD className="text-ink-2">{k.createdByName ?? k.createdByEmail ?? "—"}</TD>
+                  ) : null}
                   <TD className="text-ink-2">{when.format(k.createdAt)}</TD>
-                  <TD className="text-ink-2">{k.lastUsedAt ? when.format(k.lastUsedAt) : "Never"}</TD>
+                  <TD className="text-ink-2">
+                    {k.lastUsedAt ? when.format(k.lastUsedAt) : "Never"}
+                  </TD>
                   <TD>
                     <div className="flex justify-end">
                       {k.revokedAt ? (
@@ -119,7 +141,10 @@ export default async function ApiKeysPage() {
                           fields={{ keyId: k.id }}
                           label="Revoke"
                           variant="danger"
-                          confirm={{ title: `Revoke "${k.name}"?`, body: `Requests with kw_${k.prefix}_… answer 401 from now on. This cannot be undone.` }}
+                          confirm={{
+                            title: `Revoke "${k.name}"?`,
+                            body: `Requests with kw_${k.prefix}_… answer 401 from now on. This cannot be undone.`,
+                          }}
                         />
                       ) : (
                         <Badge tone="ok">Active</Badge>

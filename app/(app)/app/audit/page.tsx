@@ -20,7 +20,11 @@ import { roleAtLeast } from "@/lib/orgs/roles";
 export const metadata: Metadata = { title: "Audit log" };
 
 type Search = Record<string, string | string[] | undefined>;
-const when = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeStyle: "medium", timeZone: "UTC" });
+const when = new Intl.DateTimeFormat("en-GB", {
+  dateStyle: "medium",
+  timeStyle: "medium",
+  timeZone: "UTC",
+});
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Search> }) {
   const access = await requireCurrentOrg("viewer");
@@ -34,21 +38,47 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       </>
     );
   }
-  const raw = Object.fromEntries(Object.entries(await searchParams).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v]));
+  const raw = Object.fromEntries(
+    Object.entries(await searchParams).map(([k, v]) => [k, Array.isArray(v) ? v[0] : v]),
+  );
   const parsed = auditFilterSchema.safeParse(raw);
   const filter = parsed.success ? parsed.data : {};
-  const [{ events, nextBefore }, members] = await Promise.all([listAuditLog(access.org.id, filter), listMembers(access.org.id)]);
-  const next = nextBefore ? `?${new URLSearchParams({ ...(raw as Record<string, string>), before: String(nextBefore) })}` : null;
+  const [{ events, nextBefore }, members] = await Promise.all([
+    listAuditLog(access.org.id, filter),
+    listMembers(access.org.id),
+  ]);
+  const next = nextBefore
+    ? `?${new URLSearchParams({ ...(raw as Record<string, string>), before: String(nextBefore) })}`
+    : null;
 
   return (
     <>
-      <PageHeader title="Audit log" description="Who changed members, invitations, API keys, the plan and seats — and when (times in UTC)." />
-      <form method="get" className="mb-5 grid gap-3 rounded-lg border border-line bg-surface p-4 shadow-card sm:grid-cols-2 lg:grid-cols-[1fr_1fr_10rem_10rem_auto] lg:items-end">
+      <PageHeader
+        title="Audit log"
+        description="Who changed members, invitations, API keys, the plan and seats — and when (times in UTC)."
+      />
+      <form
+        method="get"
+        className="mb-5 grid gap-3 rounded-lg border border-line bg-surface p-4 shadow-card sm:grid-cols-2 lg:grid-cols-[1fr_1fr_10rem_10rem_auto] lg:items-end"
+      >
         <Field label="What">
-          <Select name="group" defaultValue={filter.group ?? ""} placeholder="Everything" options={Object.entries(AUDIT_GROUPS).map(([value, label]) => ({ value, label }))} />
+          <Select
+            name="group"
+            defaultValue={filter.group ?? ""}
+            placeholder="Everything"
+            options={Object.entries(AUDIT_GROUPS).map(([value, label]) => ({ value, label }))}
+          />
         </Field>
         <Field label="Who">
-          <Select name="actor" defaultValue={filter.actor ?? ""} placeholder="Anyone" options={members.map((m) => ({ value: m.userId, label: m.name ?? m.email ?? m.userId }))} />
+          <Select
+            name="actor"
+            defaultValue={filter.actor ?? ""}
+            placeholder="Anyone"
+            options={members.map((m) => ({
+              value: m.userId,
+              label: m.name ?? m.email ?? m.userId,
+            }))}
+          />
         </Field>
         <Field label="From">
           <Input name="from" type="date" defaultValue={filter.from ?? ""} />
@@ -67,11 +97,15 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
       </form>
       {!parsed.success ? (
         <Alert tone="error" className="mb-4">
-          Some filters were not understood and are ignored: {parsed.error.issues.map((i) => i.message).join(" ")}
+          Some filters were not understood and are ignored:{" "}
+          {parsed.error.issues.map((i) => i.message).join(" ")}
         </Alert>
       ) : null}
       {events.length === 0 ? (
-        <EmptyState title="Nothing recorded for these filters" description="Change or clear the filters to see more." />
+        <EmptyState
+          title="Nothing recorded for these filters"
+          description="Change or clear the filters to see more."
+        />
       ) : (
         <Table>
           <THead>
@@ -85,10 +119,14 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
           <TBody>
             {events.map((e) => (
               <TR key={e.id}>
-                <TD className="figures text-[12.5px] whitespace-nowrap text-ink-2">{when.format(e.createdAt)}</TD>
+                <TD className="figures text-[12.5px] whitespace-nowrap text-ink-2">
+                  {when.format(e.createdAt)}
+                </TD>
                 <TD>
                   {e.actorUserId ? (
-                    <span title={e.actorEmail ?? undefined}>{e.actorName ?? e.actorEmail ?? "Former member"}</span>
+                    <span title={e.actorEmail ?? undefined}>
+                      {e.actorName ?? e.actorEmail ?? "Former member"}
+                    </span>
                   ) : e.apiKeyName ? (
                     <span>Key “{e.apiKeyName}”</span>
                   ) : (

@@ -6,7 +6,9 @@ import type { InvoiceRow } from "@/lib/billing/view";
 
 const day = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 export const money = (cents: number, currency = "usd") =>
-  new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(cents / 100);
+  new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(
+    cents / 100,
+  );
 
 const REASONS: Record<string, string> = {
   subscription_create: "First month",
@@ -14,10 +16,22 @@ const REASONS: Record<string, string> = {
   subscription_update: "Plan or seat change",
   manual: "Manual",
 };
-const STATUS: Record<string, BadgeTone> = { paid: "ok", open: "warn", void: "neutral", uncollectible: "danger", draft: "neutral" };
+const STATUS: Record<string, BadgeTone> = {
+  paid: "ok",
+  open: "warn",
+  void: "neutral",
+  uncollectible: "danger",
+  draft: "neutral",
+};
 
 export function InvoicesTable({ invoices }: { invoices: InvoiceRow[] }) {
-  if (invoices.length === 0) return <EmptyState title="No invoices yet" description="Invoices appear here after the first payment." />;
+  if (invoices.length === 0)
+    return (
+      <EmptyState
+        title="No invoices yet"
+        description="Invoices appear here after the first payment."
+      />
+    );
   return (
     <Table>
       <THead>
@@ -43,12 +57,22 @@ export function InvoicesTable({ invoices }: { invoices: InvoiceRow[] }) {
             <TD>
               <div className="flex justify-end gap-3 text-[13px]">
                 {i.hostedUrl ? (
-                  <a href={i.hostedUrl} target="_blank" rel="noreferrer" className="inline-flex items-center gap-1 font-medium text-accent-ink hover:underline">
+                  <a
+                    href={i.hostedUrl}
+                    target="_blank"
+                    rel="noreferrer"
+                    className="inline-flex items-center gap-1 font-medium text-accent-ink hover:underline"
+                  >
                     View <IconExternal className="size-3.5" />
                   </a>
                 ) : null}
                 {i.pdfUrl ? (
-                  <a href={i.pdfUrl} target="_blank" rel="noreferrer" className="inline-flex items-center gap-1 font-medium text-accent-ink hover:underline">
+                  <a
+                    href={i.pdfUrl}
+                    target="_blank"
+                    rel="noreferrer"
+                    className="inline-flex items-center gap-1 font-medium text-accent-ink hover:underline"
+                  >
                     PDF <IconExternal className="size-3.5" />
                   </a>
                 ) : null}

@@ -23,7 +23,12 @@ export const dynamic = "force-dynamic";
 type Search = Record<string, string | string[] | undefined>;
 const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
 const day = new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" });
-const STATUS_TONE: Record<string, "ok" | "warn" | "danger" | "neutral"> = { active: "ok", past_due: "danger", canceled: "neutral", incomplete: "warn" };
+const STATUS_TONE: Record<string, "ok" | "warn" | "danger" | "neutral"> = {
+  active: "ok",
+  past_due: "danger",
+  canceled: "neutral",
+  incomplete: "warn",
+};
 
 export default async function BillingPage({ searchParams }: { searchParams: Promise<Search> }) {
   const access = await requireCurrentOrg("viewer");
@@ -34,8 +39,18 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
     const plan = getPlan(access.org.plan);
     return (
       <>
-        <PageHeader title="Your usage" description={`Billing of ${access.org.name} is managed by its admins. Here is what your own runs used this period.`} />
-        <UsageSection plan={plan} daily={await getDailyUsage(access.org.id, period, access.userId)} period={period} title="Your runs" description="Runs you submitted, in the app or with your API keys." showQuota={false} />
+        <PageHeader
+          title="Your usage"
+          description={`Billing of ${access.org.name} is managed by its admins. Here is what your own runs used this period.`}
+        />
+        <UsageSection
+          plan={plan}
+          daily={await getDailyUsage(access.org.id, period, access.userId)}
+          period={period}
+          title="Your runs"
+          description="Runs you submitted, in the app or with your API keys."
+          showQuota={false}
+        />
       </>
     );
   }
@@ -46,38 +61,62 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
     const outcome = await confirmCheckout(access.org.id, sessionId).catch(() => "pending" as const);
     notice =
       outcome === "applied"
-        ? { tone: "success", text: "Payment received — your new plan is active. The first invoice is below." }
+        ? {
+            tone: "success",
+            text: "Payment received — your new plan is active. The first invoice is below.",
+          }
         : outcome === "pending"
-          ? { tone: "info", text: "Payment received; the plan switches as soon as the payment provider confirms it (usually seconds). Reload to see it." }
+          ? {
+              tone: "info",
+              text: "Payment received; the plan switches as soon as the payment provider confirms it (usually seconds). Reload to see it.",
+            }
           : null;
   } else if (one(params.checkout) === "canceled") {
-    notice = { tone: "warning", text: "Checkout was canceled. Nothing was charged and your plan is unchanged." };
+    notice = {
+      tone: "warning",
+      text: "Checkout was canceled. Nothing was charged and your plan is unchanged.",
+    };
   }
 
   const org = (await getOrganization(access.org.id))!;
   const plan = getPlan(org.plan);
-  const [seats, daily, provider] = await Promise.all([getSeatUsage(org), getDailyUsage(org.id, period), loadProviderView(org)]);
+  const [seats, daily, provider] = await Promise.all([
+    getSeatUsage(org),
+    getDailyUsage(org.id, period),
+    loadProviderView(org),
+  ]);
   const live = hasLiveSubscription(org);
   const sub = provider.ok ? provider.subscription : null;
 
   return (
     <>
-      <PageHeader title="Billing" description={`Plan, seats, usage and invoices of ${org.name}. Payments are handled by the payment provider; Ketwise never sees card numbers.`} />
+      <PageHeader
+        title="Billing"
+        description={`Plan, seats, usage and invoices of ${org.name}. Payments are handled by the payment provider; Ketwise never sees card numbers.`}
+      />
       <div className="grid gap-6">
-        {notice ? <Alert tone={notice.tone} role="status">{notice.text}</Alert> : null}
+        {notice ? (
+          <Alert tone={notice.tone} role="status">
+            {notice.text}
+          </Alert>
+        ) : null}
         {!provider.ok ? (
           <Alert tone="warning" role="alert" title="Payment provider unavailable">
-            {provider.message} The plan and seats below are Ketwise&apos;s last known state; invoices, the upcoming charge and changes are unavailable until it answers again.
+            {provider.message} The plan and seats below are Ketwise&apos;s last known state;
+            invoices, the upcoming charge and changes are unavailable until it answers again.
           </Alert>
         ) : null}
         {org.subscriptionStatus === "past_due" ? (
           <Alert tone="error" role="alert" title="Payment failed">
-            The last invoice could not be paid. Pay it from the invoice list below or replace the card under “Card and invoices”; the provider retries automatically.
+            The last invoice could not be paid. Pay it from the invoice list below or replace the
+            card under “Card and invoices”; the provider retries automatically.
           </Alert>
         ) : null}
         {sub?.cancelAtPeriodEnd ? (
           <Alert tone="info" title="Moving to Sandbox">
-            The {plan.name} plan ends on {sub.periodEnd ? day.format(sub.periodEnd) : "the end of the period"}; after that the organisation is on Sandbox.
+            The {plan.name} plan ends on{" "}
+            {sub.periodEnd ? day.format(sub.periodEnd) : "the end of the period"}; after that the
+            organisation is on Sandbox.
           </Alert>
         ) : null}
 
@@ -88,7 +127,13 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
               title={
                 <span className="flex items-center gap-2">
                   {plan.name}
-                  {org.subscriptionStatus ? <Badge tone={STATUS_TONE[org.subscriptionStatus] ?? "neutral"}>{org.subscriptionStatus.replace("_", " ")}</Badge> : <Badge>free</Badge>}
+                  {org.subscriptionStatus ? (
+                    <Badge tone={STATUS_TONE[org.subscriptionStatus] ?? "neutral"}>
+                      {org.subscriptionStatus.replace("_", " ")}
+                    </Badge>
+                  ) : (
+                    <Badge>free</Badge>
+                  )}
                 </span>
               }
               description={plan.description}
@@ -101,7 +146,8 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                   <dd>
                     {isPaidPlan(plan) ? (
                       <>
-                        <span className="figures">{formatUsd(plan.seatPriceCents)}</span> per seat / month
+                        <span className="figures">{formatUsd(plan.seatPriceCents)}</span> per seat /
+                        month
                       </>
                     ) : (
                       "Free"
@@ -109,26 +155,39 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                   </dd>
                 </div>
                 <div>
-                  <dt className="text-[12.5px] text-ink-2">Seats used / {seats.paid ? "paid" : "allowed"}</dt>
+                  <dt className="text-[12.5px] text-ink-2">
+                    Seats used / {seats.paid ? "paid" : "allowed"}
+                  </dt>
                   <dd className="figures">
                     {seats.used} / {seats.limit}
                   </dd>
                 </div>
                 <div>
                   <dt className="text-[12.5px] text-ink-2">Current period</dt>
-                  <dd>{sub?.periodStart && sub.periodEnd ? `${day.format(sub.periodStart)} – ${day.format(sub.periodEnd)}` : "Calendar month"}</dd>
+                  <dd>
+                    {sub?.periodStart && sub.periodEnd
+                      ? `${day.format(sub.periodStart)} – ${day.format(sub.periodEnd)}`
+                      : "Calendar month"}
+                  </dd>
                 </div>
               </dl>
               <div id="seats" className="scroll-mt-20 border-t border-line pt-4">
                 {live ? (
                   provider.ok ? (
-                    <SeatsForm seats={org.seats} min={Math.max(1, seats.used)} max={plan.limits.seats} />
+                    <SeatsForm
+                      seats={org.seats}
+                      min={Math.max(1, seats.used)}
+                      max={plan.limits.seats}
+                    />
                   ) : (
-                    <p className="text-ink-2">Seat changes are unavailable while the payment provider can&apos;t be reached.</p>
+                    <p className="text-ink-2">
+                      Seat changes are unavailable while the payment provider can&apos;t be reached.
+                    </p>
                   )
                 ) : (
                   <p className="text-ink-2">
-                    Sandbox includes {plan.limits.seats} people. A paid plan lets you buy exactly the seats you need; more seats are charged prorated for the rest of the month.
+                    Sandbox includes {plan.limits.seats} people. A paid plan lets you buy exactly
+                    the seats you need; more seats are charged prorated for the rest of the month.
                   </p>
                 )}
               </div>
@@ -136,31 +195,63 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
           </Card>
 
           <Card>
-            <CardHeader eyebrow="Next invoice" title={provider.ok && provider.upcoming ? money(provider.upcoming.total, provider.upcoming.currency) : "—"} description={provider.ok && provider.upcoming?.date ? `Due ${day.format(provider.upcoming.date)}` : live ? "No renewal scheduled." : "Nothing to pay on Sandbox."} />
+            <CardHeader
+              eyebrow="Next invoice"
+              title={
+                provider.ok && provider.upcoming
+                  ? money(provider.upcoming.total, provider.upcoming.currency)
+                  : "—"
+              }
+              description={
+                provider.ok && provider.upcoming?.date
+                  ? `Due ${day.format(provider.upcoming.date)}`
+                  : live
+                    ? "No renewal scheduled."
+                    : "Nothing to pay on Sandbox."
+              }
+            />
             <CardBody>
               {provider.ok && provider.upcoming ? (
                 <ul className="grid gap-1.5 text-[13px]">
                   {provider.upcoming.lines.map((l, i) => (
                     <li key={i} className="flex justify-between gap-4">
                       <span className="text-ink-2">{l.description}</span>
-                      <span className="figures">{money(l.amount, provider.upcoming!.currency)}</span>
+                      <span className="figures">
+                        {money(l.amount, provider.upcoming!.currency)}
+                      </span>
                     </li>
                   ))}
                 </ul>
               ) : (
-                <p className="text-[13px] text-ink-2">Usage above the included amounts is billed on the renewal after the month it happened in.</p>
+                <p className="text-[13px] text-ink-2">
+                  Usage above the included amounts is billed on the renewal after the month it
+                  happened in.
+                </p>
               )}
             </CardBody>
           </Card>
         </div>
 
-        <UsageSection plan={plan} daily={daily} period={period} title="Usage this period" description="Shots and simulation time of every run in the organisation, against the plan's monthly amounts." showQuota />
+        <UsageSection
+          plan={plan}
+          daily={daily}
+          period={period}
+          title="Usage this period"
+          description="Shots and simulation time of every run in the organisation, against the plan's monthly amounts."
+          showQuota
+        />
 
         <section aria-labelledby="invoices-heading" className="grid gap-3">
           <h2 id="invoices-heading" className="text-[15px] font-semibold text-ink">
             Invoices
           </h2>
-          {provider.ok ? <InvoicesTable invoices={provider.invoices} /> : <p className="text-sm text-ink-2">Invoices can&apos;t be listed while the payment provider is unavailable.</p>}
+          {provider.ok ? (
+            <InvoicesTable invoices={provider.invoices} />
+          ) : (
+            <p className="text-sm text-ink-2">
+              Invoices can&apos;t be listed while the payment provider is unavailable.
+            </p>
+          )}
         </section>
 
         <section aria-labelledby="plans-heading" className="grid gap-3">
@@ -171,8 +262,20 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
             {plans.map((p) => {
               const current = p.id === plan.id;
               return (
-                <Card key={p.id} className={cn("flex flex-col", current && "border-accent/60 ring-1 ring-accent/30")}>
-                  <CardHeader title={p.name} eyebrow={current ? "Current plan" : undefined} description={isPaidPlan(p) ? `${formatUsd(p.seatPriceCents)} per seat / month` : "Free"} />
+                <Card
+                  key={p.id}
+                  className={cn(
+                    "flex flex-col",
+                    current && "border-accent/60 ring-1 ring-accent/30",
+                  )}
+                >
+                  <CardHeader
+                    title={p.name}
+                    eyebrow={current ? "Current plan" : undefined}
+                    description={
+                      isPaidPlan(p) ? `${formatUsd(p.seatPriceCents)} per seat / month` : "Free"
+                    }
+                  />
                   <CardBody className="flex flex-1 flex-col gap-4">
                     <ul className="grid gap-1.5 text-[13px] text-ink-2">
                       {p.features.map((f) => (
@@ -181,9 +284,18 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                     </ul>
                     <div className="mt-auto">
                       {current || !provider.ok ? null : !live && isPaidPlan(p) ? (
-                        <CheckoutForm plan={p.id} planName={p.name} minSeats={Math.max(1, seats.used)} maxSeats={p.limits.seats} />
+                        <CheckoutForm
+                          plan={p.id}
+                          planName={p.name}
+                          minSeats={Math.max(1, seats.used)}
+                          maxSeats={p.limits.seats}
+                        />
                       ) : live && isPaidPlan(p) ? (
-                        <ChangePlanForm plan={p.id} label={`Switch to ${p.name}`} primary={p.seatPriceCents > plan.seatPriceCents} />
+                        <ChangePlanForm
+                          plan={p.id}
+                          label={`Switch to ${p.name}`}
+                          primary={p.seatPriceCents > plan.seatPriceCents}
+                        />
                       ) : live && !isPaidPlan(p) ? (
                         <DowngradeForm scheduled={!!sub?.cancelAtPeriodEnd} />
                       ) : null}
@@ -193,7 +305,10 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
               );
             })}
           </div>
-          <p className="text-xs text-ink-3">Test mode: the local payment page accepts the provider&apos;s test card 4242 4242 4242 4242 with any future expiry and CVC.</p>
+          <p className="text-xs text-ink-3">
+            Test mode: the local payment page accepts the provider&apos;s test card 4242 4242 4242
+            4242 with any future expiry and CVC.
+          </p>
         </section>
       </div>
     </>

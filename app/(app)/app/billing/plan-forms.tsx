@@ -18,14 +18,31 @@ import {
 type Act = (p: ActionState, f: FormData) => Promise<ActionState>;
 
 /** Sandbox → paid plan: seats, then the provider's hosted payment page. */
-export function CheckoutForm({ plan, planName, minSeats, maxSeats }: { plan: string; planName: string; minSeats: number; maxSeats: number }) {
+export function CheckoutForm({
+  plan,
+  planName,
+  minSeats,
+  maxSeats,
+}: {
+  plan: string;
+  planName: string;
+  minSeats: number;
+  maxSeats: number;
+}) {
   const [state, action] = useActionState(startCheckoutAction as unknown as Act, idleState);
   return (
     <form action={action} className="grid gap-2" noValidate>
       <input type="hidden" name="plan" value={plan} />
       <div className="flex items-end gap-2">
         <Field label="Seats" error={fieldError(state, "seats")} className="w-24">
-          <Input name="seats" type="number" min={minSeats} max={maxSeats} defaultValue={typedValue(state, "seats", String(minSeats))} mono />
+          <Input
+            name="seats"
+            type="number"
+            min={minSeats}
+            max={maxSeats}
+            defaultValue={typedValue(state, "seats", String(minSeats))}
+            mono
+          />
         </Field>
         <SubmitButton className="flex-1">Upgrade to {planName}</SubmitButton>
       </div>
@@ -39,8 +56,20 @@ export function SeatsForm({ seats, min, max }: { seats: number; min: number; max
   return (
     <form action={action} className="grid gap-2" noValidate>
       <div className="flex items-start gap-2">
-        <Field label="Paid seats" hint={`At least ${min} (people in the organisation), at most ${max}.`} error={fieldError(state, "seats")} className="w-72">
-          <Input name="seats" type="number" min={min} max={max} defaultValue={typedValue(state, "seats", String(seats))} mono />
+        <Field
+          label="Paid seats"
+          hint={`At least ${min} (people in the organisation), at most ${max}.`}
+          error={fieldError(state, "seats")}
+          className="w-72"
+        >
+          <Input
+            name="seats"
+            type="number"
+            min={min}
+            max={max}
+            defaultValue={typedValue(state, "seats", String(seats))}
+            mono
+          />
         </Field>
         <SubmitButton variant="secondary" className="mt-[26px]">
           Change seats
@@ -51,7 +80,15 @@ export function SeatsForm({ seats, min, max }: { seats: number; min: number; max
   );
 }
 
-export function ChangePlanForm({ plan, label, primary }: { plan: string; label: string; primary?: boolean }) {
+export function ChangePlanForm({
+  plan,
+  label,
+  primary,
+}: {
+  plan: string;
+  label: string;
+  primary?: boolean;
+}) {
   const [state, action] = useActionState(changePlanAction as Act, idleState);
   return (
     <form action={action} className="grid gap-2">
@@ -63,10 +100,15 @@ export function ChangePlanForm({ plan, label, primary }: { plan: string; label: 
 }
 
 export function DowngradeForm({ scheduled }: { scheduled: boolean }) {
-  const [state, action] = useActionState((scheduled ? withdrawDowngradeAction : scheduleDowngradeAction) as Act, idleState);
+  const [state, action] = useActionState(
+    (scheduled ? withdrawDowngradeAction : scheduleDowngradeAction) as Act,
+    idleState,
+  );
   return (
     <form action={action} className="grid gap-2">
-      <SubmitButton variant={scheduled ? "secondary" : "ghost"}>{scheduled ? "Keep the paid plan" : "Move to Sandbox at period end"}</SubmitButton>
+      <SubmitButton variant={scheduled ? "secondary" : "ghost"}>
+        {scheduled ? "Keep the paid plan" : "Move to Sandbox at period end"}
+      </SubmitButton>
       <ActionStatus state={state} />
     </form>
   );

@@ -12,12 +12,18 @@ import { previewInvitation } from "@/lib/invitations/queries";
 import { acceptInvitationSchema, acceptWithSignUpSchema } from "@/lib/invitations/schemas";
 
 /** Signed-in invitee: joins with the invited role and opens the organisation. */
-export const acceptInvitationAction = userAction(acceptInvitationSchema, async (input, { userId }) => {
-  const user = await getUserById(userId);
-  const { orgId } = await acceptInvitation(input.token, { id: userId, email: user?.email ?? null });
-  await setCurrentOrgCookie(orgId);
-  redirect("/app?joined=1");
-});
+export const acceptInvitationAction = userAction(
+  acceptInvitationSchema,
+  async (input, { userId }) => {
+    const user = await getUserById(userId);
+    const { orgId } = await acceptInvitation(input.token, {
+      id: userId,
+      email: user?.email ?? null,
+    });
+    await setCurrentOrgCookie(orgId);
+    redirect("/app?joined=1");
+  },
+);
 
 /**
  * New person: creates the account with the invited e-mail (the link came to
@@ -26,7 +32,11 @@ export const acceptInvitationAction = userAction(acceptInvitationSchema, async (
 export const joinWithNewAccountAction = formAction(acceptWithSignUpSchema, async (input) => {
   const preview = await previewInvitation(input.token);
   if (!preview.ok) throw invitationLinkProblem(preview.problem);
-  const { userId } = await signUp({ name: input.name, email: preview.email, password: input.password });
+  const { userId } = await signUp({
+    name: input.name,
+    email: preview.email,
+    password: input.password,
+  });
   const { orgId } = await acceptInvitation(input.token, { id: userId, email: preview.email });
   await signIn("credentials", { email: preview.email, password: input.password, redirect: false });
   await setCurrentOrgCookie(orgId);

@@ -19,7 +19,15 @@ export function AcceptForm({ token, orgName }: { token: string; orgName: string 
   );
 }
 
-export function SignUpAndJoinForm({ token, email, orgName }: { token: string; email: string; orgName: string }) {
+export function SignUpAndJoinForm({
+  token,
+  email,
+  orgName,
+}: {
+  token: string;
+  email: string;
+  orgName: string;
+}) {
   const [state, action] = useActionState(joinWithNewAccountAction, idleState);
   return (
     <form action={action} className="grid gap-4" noValidate>
@@ -29,9 +37,19 @@ export function SignUpAndJoinForm({ token, email, orgName }: { token: string; em
         <Input value={email} readOnly />
       </Field>
       <Field label="Your name" error={fieldError(state, "name")}>
-        <Input name="name" autoComplete="name" defaultValue={typedValue(state, "name")} required autoFocus />
+        <Input
+          name="name"
+          autoComplete="name"
+          defaultValue={typedValue(state, "name")}
+          required
+          autoFocus
+        />
       </Field>
-      <Field label="Choose a password" hint="At least 10 characters." error={fieldError(state, "password")}>
+      <Field
+        label="Choose a password"
+        hint="At least 10 characters."
+        error={fieldError(state, "password")}
+      >
         <Input name="password" type="password" autoComplete="new-password" required />
       </Field>
       <SubmitButton className="w-full">Create account and join {orgName}</SubmitButton>

@@ -41,11 +41,14 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     );
   }
   const user = await getSessionUser();
-  const inviter = invitation.inviterName ? `${invitation.inviterName} invited you` : "You are invited";
+  const inviter = invitation.inviterName
+    ? `${invitation.inviterName} invited you`
+    : "You are invited";
   const intro = (
     <Heading title={`Join ${invitation.orgName}`}>
-      {inviter} to join <strong className="font-medium text-ink">{invitation.orgName}</strong> on Ketwise as{" "}
-      <strong className="font-medium text-ink">{ROLE_LABELS[invitation.role]}</strong>: {lowerFirst(ROLE_DESCRIPTIONS[invitation.role])}
+      {inviter} to join <strong className="font-medium text-ink">{invitation.orgName}</strong> on
+      Ketwise as <strong className="font-medium text-ink">{ROLE_LABELS[invitation.role]}</strong>:{" "}
+      {lowerFirst(ROLE_DESCRIPTIONS[invitation.role])}
     </Heading>
   );
   const callback = `/invite/${token}`;
@@ -56,9 +59,13 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
         <div className="grid gap-6">
           {intro}
           <Alert tone="warning" role="alert" title="Signed in as someone else">
-            This invitation is for <strong>{invitation.email}</strong>, but you are signed in as {user.email}. Sign out, then open the link again.
+            This invitation is for <strong>{invitation.email}</strong>, but you are signed in as{" "}
+            {user.email}. Sign out, then open the link again.
           </Alert>
-          <Link href={`/sign-out?callbackUrl=${encodeURIComponent(callback)}`} className={buttonClasses({ variant: "secondary" })}>
+          <Link
+            href={`/sign-out?callbackUrl=${encodeURIComponent(callback)}`}
+            className={buttonClasses({ variant: "secondary" })}
+          >
             Sign out
           </Link>
         </div>
@@ -78,9 +85,13 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
       <div className="grid gap-6">
         {intro}
         <Alert tone="info">
-          You already have a Ketwise account as <strong>{invitation.email}</strong>. Sign in and you come back here to join.
+          You already have a Ketwise account as <strong>{invitation.email}</strong>. Sign in and you
+          come back here to join.
         </Alert>
-        <Link href={`/sign-in?${new URLSearchParams({ callbackUrl: callback, email: invitation.email })}`} className={buttonClasses({ className: "w-full" })}>
+        <Link
+          href={`/sign-in?${new URLSearchParams({ callbackUrl: callback, email: invitation.email })}`}
+          className={buttonClasses({ className: "w-full" })}
+        >
           Sign in to accept
         </Link>
       </div>
@@ -90,7 +101,13 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     <div className="grid gap-6">
       {intro}
       <SignUpAndJoinForm token={token} email={invitation.email} orgName={invitation.orgName} />
-      <p className="text-xs text-ink-3">The link expires {new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(invitation.expiresAt)}.</p>
+      <p className="text-xs text-ink-3">
+        The link expires{" "}
+        {new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(
+          invitation.expiresAt,
+        )}
+        .
+      </p>
     </div>
   );
 }

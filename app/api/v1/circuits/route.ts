@@ -19,7 +19,10 @@ export const POST = v1Route(
     const qubits = circuitQubits(input);
     const userId = actor.kind === "user" ? actor.userId : actor.createdById;
     const row = await createCircuit(org.id, userId, input, qubits);
-    return Response.json(toCircuitView(row), { status: 201, headers: { location: `/api/v1/circuits/${row.id}` } });
+    return Response.json(toCircuitView(row), {
+      status: 201,
+      headers: { location: `/api/v1/circuits/${row.id}` },
+    });
   },
   { role: "member" },
 );

@@ -9,7 +9,10 @@ import { v1Route } from "@/lib/openapi/route";
 import { MAX_BODY_BYTES } from "@/lib/runs/limits";
 
 export const GET = v1Route(async (req, { org }) => {
-  const { page, nextCursor } = await listObservables(org.id, readQuery(req, libraryListQuerySchema));
+  const { page, nextCursor } = await listObservables(
+    org.id,
+    readQuery(req, libraryListQuerySchema),
+  );
   return Response.json({ data: page.map(toSummaryView), nextCursor });
 });
 
@@ -19,7 +22,10 @@ export const POST = v1Route(
     const qubits = observableQubits(input);
     const userId = actor.kind === "user" ? actor.userId : actor.createdById;
     const row = await createObservable(org.id, userId, input, qubits);
-    return Response.json(toObservableView(row), { status: 201, headers: { location: `/api/v1/observables/${row.id}` } });
+    return Response.json(toObservableView(row), {
+      status: 201,
+      headers: { location: `/api/v1/observables/${row.id}` },
+    });
   },
   { role: "member" },
 );

@@ -3,5 +3,7 @@ import { env } from "@/lib/env";
 import { getOpenApiDocument } from "@/lib/openapi/document";
 
 export function GET(): Response {
-  return Response.json(getOpenApiDocument(env.APP_URL), { headers: { "cache-control": "public, max-age=300" } });
+  return Response.json(getOpenApiDocument(env.APP_URL), {
+    headers: { "cache-control": "public, max-age=300" },
+  });
 }

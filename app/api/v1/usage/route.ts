@@ -2,4 +2,6 @@
 import { v1Route } from "@/lib/openapi/route";
 import { getUsageReport } from "@/lib/usage/report";
 
-export const GET = v1Route(async (_req, { org }) => Response.json(await getUsageReport(org.id, org.plan)));
+export const GET = v1Route(async (_req, { org }) =>
+  Response.json(await getUsageReport(org.id, org.plan)),
+);

@@ -11,12 +11,19 @@ export async function setPlan(orgId: string, plan: "sandbox" | "lab" | "institut
 }
 
 export async function runRow(orgId: string, runId: string) {
-  const [row] = await db.select().from(runs).where(and(eq(runs.orgId, orgId), eq(runs.id, runId)));
+  const [row] = await db
+    .select()
+    .from(runs)
+    .where(and(eq(runs.orgId, orgId), eq(runs.id, runId)));
   return row;
 }
 
 /** Inserts a queued run straight into the table, bypassing the API's checks (malformed-row tests). */
-export async function insertRawRun(orgId: string, request: Record<string, unknown>, extra: Partial<typeof runs.$inferInsert> = {}) {
+export async function insertRawRun(
+  orgId: string,
+  request: Record<string, unknown>,
+  extra: Partial<typeof runs.$inferInsert> = {},
+) {
   const id = randomUUID();
   await db.insert(runs).values({
     id,
@@ -34,7 +41,10 @@ export async function insertRawRun(orgId: string, request: Record<string, unknow
 }
 
 export async function usageOf(orgId: string, runId: string) {
-  return db.select().from(usageEvents).where(and(eq(usageEvents.orgId, orgId), eq(usageEvents.runId, runId)));
+  return db
+    .select()
+    .from(usageEvents)
+    .where(and(eq(usageEvents.orgId, orgId), eq(usageEvents.runId, runId)));
 }
 
 /**
@@ -47,7 +57,15 @@ export async function cancelLeftoverRuns(orgIds: string[]): Promise<void> {
     .from(runs)
     .where(and(inArray(runs.orgId, orgIds), eq(runs.status, "queued")));
   if (left.length === 0) return;
-  await db.update(runs).set({ status: "canceled", finishedAt: new Date() }).where(inArray(runs.id, left.map((r) => r.id)));
+  await db
+    .update(runs)
+    .set({ status: "canceled", finishedAt: new Date() })
+    .where(
+      inArray(
+        runs.id,
+        left.map((r) => r.id),
+      ),
+    );
   const queue = getRunsQueue();
   await Promise.all(left.map((r) => queue.remove(r.id).catch(() => 0)));
 }

@@ -17,7 +17,11 @@ export const inProcessEngine: EngineRunner = {
     } catch (error) {
       if (signal.aborted) return { kind: "aborted", elapsedMs: elapsedMs() };
       if (isEngineError(error)) {
-        return { kind: "engine-error", error: { code: error.code, message: error.message, issues: error.issues }, elapsedMs: elapsedMs() };
+        return {
+          kind: "engine-error",
+          error: { code: error.code, message: error.message, issues: error.issues },
+          elapsedMs: elapsedMs(),
+        };
       }
       throw error;
     }

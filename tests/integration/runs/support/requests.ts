@@ -6,7 +6,8 @@
  * - longRun(): a density-matrix run with many noisy gates and sweep points —
  *   seconds of engine work, for cancellation and crash tests.
  */
-export const BELL_QASM = 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nh q[0];\ncx q[0],q[1];\n';
+export const BELL_QASM =
+  'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nh q[0];\ncx q[0],q[1];\n';
 
 export function bellRequest(extra: Record<string, unknown> = {}) {
   return {
@@ -40,7 +41,12 @@ export function smallRequest(seed = 5) {
 
 /** A run that keeps the engine busy for several seconds: 8-qubit noisy density matrix over a parameter sweep. */
 export function longRunRequest(points = 400) {
-  const lines = ["OPENQASM 3.0;", 'include "stdgates.inc";', "input float[64] theta;", "qubit[8] q;"];
+  const lines = [
+    "OPENQASM 3.0;",
+    'include "stdgates.inc";',
+    "input float[64] theta;",
+    "qubit[8] q;",
+  ];
   for (let layer = 0; layer < 6; layer++) {
     for (let i = 0; i < 8; i++) lines.push(`ry(theta) q[${i}];`);
     for (let i = 0; i < 7; i++) lines.push(`cx q[${i}], q[${i + 1}];`);

@@ -20,11 +20,22 @@ function exited(child: ChildProcess): Promise<void> {
   return new Promise((resolve) => child.once("exit", () => resolve()));
 }
 
-export async function startWorker(options: { concurrency?: number; env?: Record<string, string> } = {}): Promise<WorkerProcess> {
-  const child = spawn(process.execPath, ["--conditions=react-server", "--import", "tsx", "worker/index.ts"], {
-    env: { ...process.env, NODE_ENV: "test", WORKER_CONCURRENCY: String(options.concurrency ?? 2), ...options.env },
-    stdio: ["ignore", "pipe", "pipe"],
-  });
+export async function startWorker(
+  options: { concurrency?: number; env?: Record<string, string> } = {},
+): Promise<WorkerProcess> {
+  const child = spawn(
+    process.execPath,
+    ["--conditions=react-server", "--import", "tsx", "worker/index.ts"],
+    {
+      env: {
+        ...process.env,
+        NODE_ENV: "test",
+        WORKER_CONCURRENCY: String(options.concurrency ?? 2),
+        ...options.env,
+      },
+      stdio: ["ignore", "pipe", "pipe"],
+    },
+  );
   let out = "";
   const listeners = new Set<() => void>();
   const append = (d: Buffer) => {

@@ -64,7 +64,11 @@ export function mul(a: CMat, b: CMat): CMat {
 }
 
 export function scale(a: CMat, re: number, im: number): CMat {
-  return { d: a.d, re: a.re.map((x, k) => x * re - a.im[k] * im), im: a.im.map((y, k) => a.re[k] * im + y * re) };
+  return {
+    d: a.d,
+    re: a.re.map((x, k) => x * re - a.im[k] * im),
+    im: a.im.map((y, k) => a.re[k] * im + y * re),
+  };
 }
 
 export function dagger(a: CMat): CMat {
@@ -124,7 +128,10 @@ export function composeParts(parts: GateApplication[], n: number): CMat {
 
 /** Unitary of all gate ops of a bound circuit (measurements, resets and barriers skipped). */
 export function circuitUnitary(c: Circuit): CMat {
-  return composeParts(c.ops.flatMap((op) => (op.kind === "gate" ? op.parts : [])), c.numQubits);
+  return composeParts(
+    c.ops.flatMap((op) => (op.kind === "gate" ? op.parts : [])),
+    c.numQubits,
+  );
 }
 
 /**

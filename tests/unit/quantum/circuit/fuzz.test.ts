@@ -10,8 +10,9 @@ import { describe, expect, it } from "vitest";
 import { circuitStats, measurementCircuitQasm, parseProgram } from "@/lib/quantum/circuit";
 import { isEngineError } from "@/lib/quantum/errors";
 
-const fixture = (name: string) => readFileSync(new URL(`../../../fixtures/qasm/${name}`, import.meta.url), "utf8");
-const VALID: [("qasm2" | "qasm3"), string][] = [
+const fixture = (name: string) =>
+  readFileSync(new URL(`../../../fixtures/qasm/${name}`, import.meta.url), "utf8");
+const VALID: ["qasm2" | "qasm3", string][] = [
   ["qasm2", fixture("two-registers.qasm")],
   ["qasm3", fixture("parametrised.qasm3")],
 ];
@@ -22,7 +23,11 @@ function exercise(format: "qasm2" | "qasm3", source: string): string {
     const program = parseProgram(format, source);
     const circuit = program.bind(Object.fromEntries(program.inputs.map((i) => [i.name, 0.5])));
     circuitStats(circuit);
-    measurementCircuitQasm(program, Object.fromEntries(program.inputs.map((i) => [i.name, 0.5])), "Z".repeat(program.numQubits));
+    measurementCircuitQasm(
+      program,
+      Object.fromEntries(program.inputs.map((i) => [i.name, 0.5])),
+      "Z".repeat(program.numQubits),
+    );
     return "ok";
   } catch (e) {
     if (isEngineError(e)) {
@@ -38,11 +43,77 @@ function exercise(format: "qasm2" | "qasm3", source: string): string {
 }
 
 const TOKENS = [
-  "OPENQASM", "2.0", "3.0", "3", "include", '"qelib1.inc"', '"stdgates.inc"', "qreg", "creg", "qubit", "bit",
-  "input", "float", "angle", "gate", "opaque", "barrier", "measure", "reset", "if", "for", "ctrl", "@", "U", "CX",
-  "h", "cx", "rx", "cu3", "ccx", "swap", "g", "q", "c", "a", "theta", "pi", "π", "sin", "ln", "sqrt", "0", "1", "7",
-  "0.5", "1e3", ".5", "(", ")", "[", "]", "{", "}", ";", ",", "->", "=", "==", "+", "-", "*", "/", "^", "**", ":",
-  "$0", "//", "/*", "*/", "\n", "#pragma x",
+  "OPENQASM",
+  "2.0",
+  "3.0",
+  "3",
+  "include",
+  '"qelib1.inc"',
+  '"stdgates.inc"',
+  "qreg",
+  "creg",
+  "qubit",
+  "bit",
+  "input",
+  "float",
+  "angle",
+  "gate",
+  "opaque",
+  "barrier",
+  "measure",
+  "reset",
+  "if",
+  "for",
+  "ctrl",
+  "@",
+  "U",
+  "CX",
+  "h",
+  "cx",
+  "rx",
+  "cu3",
+  "ccx",
+  "swap",
+  "g",
+  "q",
+  "c",
+  "a",
+  "theta",
+  "pi",
+  "π",
+  "sin",
+  "ln",
+  "sqrt",
+  "0",
+  "1",
+  "7",
+  "0.5",
+  "1e3",
+  ".5",
+  "(",
+  ")",
+  "[",
+  "]",
+  "{",
+  "}",
+  ";",
+  ",",
+  "->",
+  "=",
+  "==",
+  "+",
+  "-",
+  "*",
+  "/",
+  "^",
+  "**",
+  ":",
+  "$0",
+  "//",
+  "/*",
+  "*/",
+  "\n",
+  "#pragma x",
 ];
 
 const tokenSoup = fc.array(fc.constantFrom(...TOKENS), { maxLength: 60 }).map((t) => t.join(" "));
@@ -51,7 +122,13 @@ const tokenSoup = fc.array(fc.constantFrom(...TOKENS), { maxLength: 60 }).map((t
 const mutation = fc.tuple(
   fc.constantFrom(...VALID),
   fc.array(
-    fc.tuple(fc.nat(), fc.nat({ max: 40 }), fc.constantFrom("delete", "duplicate", "token", "char"), fc.constantFrom(...TOKENS), fc.string({ maxLength: 1 })),
+    fc.tuple(
+      fc.nat(),
+      fc.nat({ max: 40 }),
+      fc.constantFrom("delete", "duplicate", "token", "char"),
+      fc.constantFrom(...TOKENS),
+      fc.string({ maxLength: 1 }),
+    ),
     { minLength: 1, maxLength: 4 },
   ),
 );
@@ -71,9 +148,13 @@ function mutate(source: string, edits: [number, number, string, string, string][
 describe("parseProgram never throws anything but an EngineError", () => {
   it("on random strings", () => {
     fc.assert(
-      fc.property(fc.constantFrom("qasm2" as const, "qasm3" as const), fc.string({ unit: "binary", maxLength: 200 }), (format, s) => {
-        exercise(format, s);
-      }),
+      fc.property(
+        fc.constantFrom("qasm2" as const, "qasm3" as const),
+        fc.string({ unit: "binary", maxLength: 200 }),
+        (format, s) => {
+          exercise(format, s);
+        },
+      ),
       { numRuns: 200, seed: 1 },
     );
   });
@@ -101,7 +182,14 @@ describe("parseProgram never throws anything but an EngineError", () => {
   });
 
   it("on pathological nesting", () => {
-    expect(exercise("qasm2", `OPENQASM 2.0;\nqreg q[1];\nU(${"(".repeat(20000)}1${")".repeat(20000)},0,0) q[0];`)).toMatch(/^(ok|qasm_syntax)$/);
-    expect(exercise("qasm2", `OPENQASM 2.0;\nqreg q[1];\nU(${"-".repeat(20000)}1,0,0) q[0];`)).toMatch(/^(ok|qasm_syntax)$/);
+    expect(
+      exercise(
+        "qasm2",
+        `OPENQASM 2.0;\nqreg q[1];\nU(${"(".repeat(20000)}1${")".repeat(20000)},0,0) q[0];`,
+      ),
+    ).toMatch(/^(ok|qasm_syntax)$/);
+    expect(
+      exercise("qasm2", `OPENQASM 2.0;\nqreg q[1];\nU(${"-".repeat(20000)}1,0,0) q[0];`),
+    ).toMatch(/^(ok|qasm_syntax)$/);
   });
 });

@@ -8,7 +8,18 @@
  */
 import { describe, expect, it } from "vitest";
 import { parseProgram } from "@/lib/quantum/circuit";
-import { circuitUnitary, controlled, dagger, embed, identity, mul, phaseDistance, scale, seededRandom, type CMat } from "./dense-composer";
+import {
+  circuitUnitary,
+  controlled,
+  dagger,
+  embed,
+  identity,
+  mul,
+  phaseDistance,
+  scale,
+  seededRandom,
+  type CMat,
+} from "./dense-composer";
 import { OPENQASM2, OPENQASM3, specUnitary, uQasm2Reference, uQasm3Reference } from "./spec-gates";
 
 const TOL = 1e-12;
@@ -27,7 +38,13 @@ function randomParams(n: number): number[] {
 }
 
 /** Unitary of one gate call through the engine, on a register of `size` qubits. */
-function engineUnitary(format: "qasm2" | "qasm3", name: string, params: number[], qubits: number[], size: number): CMat {
+function engineUnitary(
+  format: "qasm2" | "qasm3",
+  name: string,
+  params: number[],
+  qubits: number[],
+  size: number,
+): CMat {
   const p = params.length > 0 ? `(${params.map(String).join(", ")})` : "";
   const args = qubits.map((q) => `q[${q}]`).join(", ");
   const src =
@@ -39,14 +56,23 @@ function engineUnitary(format: "qasm2" | "qasm3", name: string, params: number[]
   return circuitUnitary(circuit);
 }
 
-function checkAgainst(format: "qasm2" | "qasm3", name: string, nParams: number, k: number, reference: (p: number[]) => CMat) {
+function checkAgainst(
+  format: "qasm2" | "qasm3",
+  name: string,
+  nParams: number,
+  k: number,
+  reference: (p: number[]) => CMat,
+) {
   for (let trial = 0; trial < 3; trial++) {
     const params = randomParams(nParams);
     const size = k + 1;
     const qubits = pickQubits(k, size);
     const actual = engineUnitary(format, name, params, qubits, size);
     const expected = embed(reference(params), qubits, size);
-    expect(phaseDistance(actual, expected), `${name}(${params.join(", ")}) on ${qubits.join(",")}`).toBeLessThan(TOL);
+    expect(
+      phaseDistance(actual, expected),
+      `${name}(${params.join(", ")}) on ${qubits.join(",")}`,
+    ).toBeLessThan(TOL);
   }
 }
 
@@ -58,9 +84,14 @@ describe("OpenQASM 2.0 built-ins and qelib1.inc against the paper's decompositio
   }
 
   it("without the include only U and CX exist (OpenQASM 2.0 §3)", () => {
-    const u = parseProgram("qasm2", "OPENQASM 2.0;\nqreg q[2];\nU(0.1,0.2,0.3) q[0];\nCX q[0],q[1];\n").bind();
+    const u = parseProgram(
+      "qasm2",
+      "OPENQASM 2.0;\nqreg q[2];\nU(0.1,0.2,0.3) q[0];\nCX q[0],q[1];\n",
+    ).bind();
     expect(u.ops).toHaveLength(2);
-    expect(() => parseProgram("qasm2", "OPENQASM 2.0;\nqreg q[1];\nh q[0];\n")).toThrow(/unknown gate 'h'/);
+    expect(() => parseProgram("qasm2", "OPENQASM 2.0;\nqreg q[1];\nh q[0];\n")).toThrow(
+      /unknown gate 'h'/,
+    );
   });
 
   it("the check can fail: a naive controlled-U3 is not the paper's cu3 (it differs by a phase on the control)", () => {
@@ -90,7 +121,11 @@ function expPauliPair(pauli: number[][], theta: number): CMat {
   let sum = identity(4);
   for (let k = 1; k <= 40; k++) {
     term = scale(mul(a, term), 1 / k, 0);
-    sum = { d: 4, re: sum.re.map((x, i) => x + term.re[i]), im: sum.im.map((y, i) => y + term.im[i]) };
+    sum = {
+      d: 4,
+      re: sum.re.map((x, i) => x + term.re[i]),
+      im: sum.im.map((y, i) => y + term.im[i]),
+    };
   }
   return sum;
 }
@@ -103,12 +138,30 @@ describe("later qelib1.inc additions against their documented definitions", () =
       checkAgainst("qasm2", name, def.params, def.qubits, (p) => specUnitary(OPENQASM3, name, p));
     });
   }
-  it("u is the built-in U", () => checkAgainst("qasm2", "u", 3, 1, (p) => uQasm2Reference(p[0], p[1], p[2])));
-  it("sxdg is the inverse of sx", () => checkAgainst("qasm2", "sxdg", 0, 1, () => dagger(specUnitary(OPENQASM3, "sx", []))));
+  it("u is the built-in U", () =>
+    checkAgainst("qasm2", "u", 3, 1, (p) => uQasm2Reference(p[0], p[1], p[2])));
+  it("sxdg is the inverse of sx", () =>
+    checkAgainst("qasm2", "sxdg", 0, 1, () => dagger(specUnitary(OPENQASM3, "sx", []))));
   it("rzz(θ) = exp(−iθ Z⊗Z/2) (common practice; exponential series)", () =>
-    checkAgainst("qasm2", "rzz", 1, 2, (p) => expPauliPair([[1, 0], [0, -1]], p[0])));
+    checkAgainst("qasm2", "rzz", 1, 2, (p) =>
+      expPauliPair(
+        [
+          [1, 0],
+          [0, -1],
+        ],
+        p[0],
+      ),
+    ));
   it("rxx(θ) = exp(−iθ X⊗X/2) (common practice; exponential series)", () =>
-    checkAgainst("qasm2", "rxx", 1, 2, (p) => expPauliPair([[0, 1], [1, 0]], p[0])));
+    checkAgainst("qasm2", "rxx", 1, 2, (p) =>
+      expPauliPair(
+        [
+          [0, 1],
+          [1, 0],
+        ],
+        p[0],
+      ),
+    ));
 });
 
 describe("OpenQASM 3 stdgates.inc and the built-in U against the specification's definitions", () => {
@@ -132,7 +185,13 @@ outer(${a}, ${b}) q[2], q[0], q[1];
     const circuit = parseProgram("qasm2", src).bind();
     expect(circuit.ops).toHaveLength(1);
     const op = circuit.ops[0];
-    expect(op.kind === "gate" && op.parts.map((x) => x.name)).toEqual(["rx", "crz", "h", "ccx", "u3"]);
+    expect(op.kind === "gate" && op.parts.map((x) => x.name)).toEqual([
+      "rx",
+      "crz",
+      "h",
+      "ccx",
+      "u3",
+    ]);
     // outer's formals p, q, r are q[2], q[0], q[1].
     const [P, Q, R] = [2, 0, 1];
     const steps: [string, number[], number[]][] = [

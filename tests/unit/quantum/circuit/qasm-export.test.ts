@@ -7,19 +7,79 @@
  */
 import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
-import { hadamardTestQasm, measurementCircuitQasm, parseProgram, type ParsedProgram } from "@/lib/quantum/circuit";
-import { applyToZero, circuitUnitary, embed, fromRows, identity, mul, phaseDistance, type CMat } from "./dense-composer";
+import {
+  hadamardTestQasm,
+  measurementCircuitQasm,
+  parseProgram,
+  type ParsedProgram,
+} from "@/lib/quantum/circuit";
+import {
+  applyToZero,
+  circuitUnitary,
+  embed,
+  fromRows,
+  identity,
+  mul,
+  phaseDistance,
+  type CMat,
+} from "./dense-composer";
 
-const fixture = (name: string) => readFileSync(new URL(`../../../fixtures/qasm/${name}`, import.meta.url), "utf8");
+const fixture = (name: string) =>
+  readFileSync(new URL(`../../../fixtures/qasm/${name}`, import.meta.url), "utf8");
 
 const R = Math.SQRT1_2;
-const H = fromRows([[[R, 0], [R, 0]], [[R, 0], [-R, 0]]]);
-const SDG = fromRows([[[1, 0], [0, 0]], [[0, 0], [0, -1]]]);
+const H = fromRows([
+  [
+    [R, 0],
+    [R, 0],
+  ],
+  [
+    [R, 0],
+    [-R, 0],
+  ],
+]);
+const SDG = fromRows([
+  [
+    [1, 0],
+    [0, 0],
+  ],
+  [
+    [0, 0],
+    [0, -1],
+  ],
+]);
 const PAULI: Record<string, CMat> = {
   I: identity(2),
-  X: fromRows([[[0, 0], [1, 0]], [[1, 0], [0, 0]]]),
-  Y: fromRows([[[0, 0], [0, -1]], [[0, 1], [0, 0]]]),
-  Z: fromRows([[[1, 0], [0, 0]], [[0, 0], [-1, 0]]]),
+  X: fromRows([
+    [
+      [0, 0],
+      [1, 0],
+    ],
+    [
+      [1, 0],
+      [0, 0],
+    ],
+  ]),
+  Y: fromRows([
+    [
+      [0, 0],
+      [0, -1],
+    ],
+    [
+      [0, 1],
+      [0, 0],
+    ],
+  ]),
+  Z: fromRows([
+    [
+      [1, 0],
+      [0, 0],
+    ],
+    [
+      [0, 0],
+      [-1, 0],
+    ],
+  ]),
 };
 
 /** Every gate of both libraries, including those exported through decompositions. */
@@ -55,7 +115,11 @@ function rotations(bases: string): CMat {
   return u;
 }
 
-function checkMeasurementCircuit(program: ParsedProgram, params: Record<string, number>, bases: string) {
+function checkMeasurementCircuit(
+  program: ParsedProgram,
+  params: Record<string, number>,
+  bases: string,
+) {
   const text = measurementCircuitQasm(program, params, bases);
   const reparsed = parseProgram("qasm2", text);
   expect(reparsed.numQubits).toBe(program.numQubits);
@@ -71,18 +135,49 @@ function checkMeasurementCircuit(program: ParsedProgram, params: Record<string, 
 
 describe("measurementCircuitQasm", () => {
   it("re-parses as OpenQASM 2.0 and realises circuit + rotations (user gates, broadcasting)", () => {
-    const text = checkMeasurementCircuit(parseProgram("qasm2", fixture("two-registers.qasm")), {}, "XYZIX");
+    const text = checkMeasurementCircuit(
+      parseProgram("qasm2", fixture("two-registers.qasm")),
+      {},
+      "XYZIX",
+    );
     expect(text).toMatch(/^OPENQASM 2\.0;\ninclude "qelib1\.inc";\n/);
     expect(text).not.toMatch(/measure q\[\d\] -> (out|flag)/); // original measurements dropped
   });
 
   it("exports every OpenQASM 3 standard gate with numeric parameters and qelib1.inc names", () => {
     const program = parseProgram("qasm3", ALL_GATES_3);
-    for (const bases of ["ZZZ", "XYZ", "YIX"]) checkMeasurementCircuit(program, { a: 0.83, b: -2.1 }, bases);
+    for (const bases of ["ZZZ", "XYZ", "YIX"])
+      checkMeasurementCircuit(program, { a: 0.83, b: -2.1 }, bases);
     const text = measurementCircuitQasm(program, { a: 0.83, b: -2.1 }, "ZZZ");
     // Only gates of the paper's qelib1.inc appear (arXiv:1707.03429 §3).
-    const qelib1 = new Set(["u3", "u2", "u1", "cx", "id", "x", "y", "z", "h", "s", "sdg", "t", "tdg", "rx", "ry", "rz", "cz", "cy", "ch", "ccx", "crz", "cu1", "cu3"]);
-    const used = text.split("\n").filter((l) => /^[a-z]/.test(l) && !/^(qreg|creg|include|measure|barrier|reset)\b/.test(l));
+    const qelib1 = new Set([
+      "u3",
+      "u2",
+      "u1",
+      "cx",
+      "id",
+      "x",
+      "y",
+      "z",
+      "h",
+      "s",
+      "sdg",
+      "t",
+      "tdg",
+      "rx",
+      "ry",
+      "rz",
+      "cz",
+      "cy",
+      "ch",
+      "ccx",
+      "crz",
+      "cu1",
+      "cu3",
+    ]);
+    const used = text
+      .split("\n")
+      .filter((l) => /^[a-z]/.test(l) && !/^(qreg|creg|include|measure|barrier|reset)\b/.test(l));
     for (const line of used) expect(qelib1.has(line.split(/[ (]/)[0]), line).toBe(true);
   });
 
@@ -91,7 +186,10 @@ describe("measurementCircuitQasm", () => {
   });
 
   it("keeps parameters exactly (shortest round-trip numbers, OpenQASM 2.0 real syntax)", () => {
-    const program = parseProgram("qasm2", "OPENQASM 2.0;\ninclude \"qelib1.inc\";\nqreg q[1];\nrx(0.1+0.2) q[0];\nrz(1e-7) q[0];\nry(-3) q[0];\n");
+    const program = parseProgram(
+      "qasm2",
+      'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[1];\nrx(0.1+0.2) q[0];\nrz(1e-7) q[0];\nry(-3) q[0];\n',
+    );
     const text = measurementCircuitQasm(program, {}, "Z");
     expect(text).toContain("rx(0.30000000000000004) q[0];");
     expect(text).toContain("rz(1.0e-7) q[0];");
@@ -101,22 +199,36 @@ describe("measurementCircuitQasm", () => {
   });
 
   it("measures nothing for all-identity bases and still re-parses", () => {
-    const program = parseProgram("qasm2", "OPENQASM 2.0;\ninclude \"qelib1.inc\";\nqreg q[2];\nh q[0];\n");
+    const program = parseProgram(
+      "qasm2",
+      'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\nh q[0];\n',
+    );
     const text = checkMeasurementCircuit(program, {}, "II");
     expect(text).not.toContain("creg");
   });
 
   it("rejects bad bases and circuits with mid-circuit measurements", () => {
-    const program = parseProgram("qasm2", "OPENQASM 2.0;\ninclude \"qelib1.inc\";\nqreg q[2];\ncreg c[2];\nmeasure q[0] -> c[0];\nh q[0];\n");
-    expect(() => measurementCircuitQasm(program, {}, "ZZZ")).toThrow(expect.objectContaining({ code: "invalid_request" }));
-    expect(() => measurementCircuitQasm(program, {}, "ZA")).toThrow(expect.objectContaining({ code: "invalid_request" }));
-    expect(() => measurementCircuitQasm(program, {}, "ZZ")).toThrow(expect.objectContaining({ code: "unsupported" }));
+    const program = parseProgram(
+      "qasm2",
+      'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\ncreg c[2];\nmeasure q[0] -> c[0];\nh q[0];\n',
+    );
+    expect(() => measurementCircuitQasm(program, {}, "ZZZ")).toThrow(
+      expect.objectContaining({ code: "invalid_request" }),
+    );
+    expect(() => measurementCircuitQasm(program, {}, "ZA")).toThrow(
+      expect.objectContaining({ code: "invalid_request" }),
+    );
+    expect(() => measurementCircuitQasm(program, {}, "ZZ")).toThrow(
+      expect.objectContaining({ code: "unsupported" }),
+    );
   });
 
   it("binds OpenQASM 3 inputs and rejects missing ones", () => {
     const program = parseProgram("qasm3", fixture("parametrised.qasm3"));
     checkMeasurementCircuit(program, { theta: 0.4, gamma: -0.9, beta: 1.7 }, "XZYX");
-    expect(() => measurementCircuitQasm(program, { theta: 0.4 }, "ZZZZ")).toThrow(expect.objectContaining({ code: "invalid_request" }));
+    expect(() => measurementCircuitQasm(program, { theta: 0.4 }, "ZZZZ")).toThrow(
+      expect.objectContaining({ code: "invalid_request" }),
+    );
   });
 });
 
@@ -147,21 +259,28 @@ describe("hadamardTestQasm", () => {
   const params = { theta: 0.4, gamma: -0.9, beta: 1.7 };
   const u = circuitUnitary(program.bind(params));
 
-  it.each(["XIII", "ZZII", "XXII", "IYZX", "YYYY", "IIIZ", "IIIY", "XZXI"])("⟨Z_anc⟩ = Re⟨ψ|%s|ψ⟩ and the imaginary-part variant gives Im = 0", (word) => {
-    const re = parseProgram("qasm2", hadamardTestQasm(program, params, word, "re"));
-    expect(re.qubitLabels.at(-1)).toBe("anc[0]");
-    const expected = pauliExpectation(u, word);
-    expect(Math.abs(expected.re)).toBeGreaterThan(1e-3); // a non-trivial value, so the check can fail
-    expect(ancillaZ(circuitUnitary(re.bind()))).toBeCloseTo(expected.re, 12);
-    const im = parseProgram("qasm2", hadamardTestQasm(program, params, word, "im"));
-    // P is Hermitian, so Im⟨ψ|P|ψ⟩ = 0; without the S† this would equal the real part.
-    expect(ancillaZ(circuitUnitary(im.bind()))).toBeCloseTo(expected.im, 12);
-  });
+  it.each(["XIII", "ZZII", "XXII", "IYZX", "YYYY", "IIIZ", "IIIY", "XZXI"])(
+    "⟨Z_anc⟩ = Re⟨ψ|%s|ψ⟩ and the imaginary-part variant gives Im = 0",
+    (word) => {
+      const re = parseProgram("qasm2", hadamardTestQasm(program, params, word, "re"));
+      expect(re.qubitLabels.at(-1)).toBe("anc[0]");
+      const expected = pauliExpectation(u, word);
+      expect(Math.abs(expected.re)).toBeGreaterThan(1e-3); // a non-trivial value, so the check can fail
+      expect(ancillaZ(circuitUnitary(re.bind()))).toBeCloseTo(expected.re, 12);
+      const im = parseProgram("qasm2", hadamardTestQasm(program, params, word, "im"));
+      // P is Hermitian, so Im⟨ψ|P|ψ⟩ = 0; without the S† this would equal the real part.
+      expect(ancillaZ(circuitUnitary(im.bind()))).toBeCloseTo(expected.im, 12);
+    },
+  );
 
   it("explains the estimator in a comment and validates its arguments", () => {
     const text = hadamardTestQasm(program, params, "XIZY", "re");
     expect(text).toMatch(/\/\/ .*Re<psi\|P\|psi>/);
-    expect(() => hadamardTestQasm(program, params, "XI", "re")).toThrow(expect.objectContaining({ code: "invalid_request" }));
-    expect(() => hadamardTestQasm(program, params, "XIZY", "abs" as "re")).toThrow(expect.objectContaining({ code: "invalid_request" }));
+    expect(() => hadamardTestQasm(program, params, "XI", "re")).toThrow(
+      expect.objectContaining({ code: "invalid_request" }),
+    );
+    expect(() => hadamardTestQasm(program, params, "XIZY", "abs" as "re")).toThrow(
+      expect.objectContaining({ code: "invalid_request" }),
+    );
   });
 });

@@ -15,7 +15,16 @@
  *   modifiers ctrl @ (block-diagonal [I, G]), inv @ (G†), pow(1/2) @ (principal square
  *   root) and gphase(γ) (a factor e^{iγ}) as the specification defines them (from memory).
  */
-import { controlled, dagger, embed, fromRows, identity, mul, scale, type CMat } from "./dense-composer";
+import {
+  controlled,
+  dagger,
+  embed,
+  fromRows,
+  identity,
+  mul,
+  scale,
+  type CMat,
+} from "./dense-composer";
 
 type Item =
   | { g: string; p: number[]; q: number[] } // call of another gate of the same table
@@ -55,10 +64,30 @@ export function uQasm3Reference(t: number, p: number, l: number): CMat {
 }
 
 const CX = fromRows([
-  [[1, 0], [0, 0], [0, 0], [0, 0]],
-  [[0, 0], [1, 0], [0, 0], [0, 0]],
-  [[0, 0], [0, 0], [0, 0], [1, 0]],
-  [[0, 0], [0, 0], [1, 0], [0, 0]],
+  [
+    [1, 0],
+    [0, 0],
+    [0, 0],
+    [0, 0],
+  ],
+  [
+    [0, 0],
+    [1, 0],
+    [0, 0],
+    [0, 0],
+  ],
+  [
+    [0, 0],
+    [0, 0],
+    [0, 0],
+    [1, 0],
+  ],
+  [
+    [0, 0],
+    [0, 0],
+    [1, 0],
+    [0, 0],
+  ],
 ]);
 
 const call = (g: string, p: number[], q: number[]): Item => ({ g, p, q });
@@ -83,43 +112,84 @@ export const OPENQASM2: SpecTable = {
   rx: { params: 1, qubits: 1, body: ([t]) => [call("u3", [t, -PI / 2, PI / 2], [0])] },
   ry: { params: 1, qubits: 1, body: ([t]) => [call("u3", [t, 0, 0], [0])] },
   rz: { params: 1, qubits: 1, body: ([p]) => [call("u1", [p], [0])] },
-  cz: { params: 0, qubits: 2, body: () => [call("h", [], [1]), call("cx", [], [0, 1]), call("h", [], [1])] },
-  cy: { params: 0, qubits: 2, body: () => [call("sdg", [], [1]), call("cx", [], [0, 1]), call("s", [], [1])] },
+  cz: {
+    params: 0,
+    qubits: 2,
+    body: () => [call("h", [], [1]), call("cx", [], [0, 1]), call("h", [], [1])],
+  },
+  cy: {
+    params: 0,
+    qubits: 2,
+    body: () => [call("sdg", [], [1]), call("cx", [], [0, 1]), call("s", [], [1])],
+  },
   ch: {
     params: 0,
     qubits: 2,
     body: () => [
-      call("h", [], [1]), call("sdg", [], [1]), call("cx", [], [0, 1]), call("h", [], [1]), call("t", [], [1]),
-      call("cx", [], [0, 1]), call("t", [], [1]), call("h", [], [1]), call("s", [], [1]), call("x", [], [1]), call("s", [], [0]),
+      call("h", [], [1]),
+      call("sdg", [], [1]),
+      call("cx", [], [0, 1]),
+      call("h", [], [1]),
+      call("t", [], [1]),
+      call("cx", [], [0, 1]),
+      call("t", [], [1]),
+      call("h", [], [1]),
+      call("s", [], [1]),
+      call("x", [], [1]),
+      call("s", [], [0]),
     ],
   },
   ccx: {
     params: 0,
     qubits: 3,
     body: () => [
-      call("h", [], [2]), call("cx", [], [1, 2]), call("tdg", [], [2]), call("cx", [], [0, 2]), call("t", [], [2]),
-      call("cx", [], [1, 2]), call("tdg", [], [2]), call("cx", [], [0, 2]), call("t", [], [1]), call("t", [], [2]),
-      call("h", [], [2]), call("cx", [], [0, 1]), call("t", [], [0]), call("tdg", [], [1]), call("cx", [], [0, 1]),
+      call("h", [], [2]),
+      call("cx", [], [1, 2]),
+      call("tdg", [], [2]),
+      call("cx", [], [0, 2]),
+      call("t", [], [2]),
+      call("cx", [], [1, 2]),
+      call("tdg", [], [2]),
+      call("cx", [], [0, 2]),
+      call("t", [], [1]),
+      call("t", [], [2]),
+      call("h", [], [2]),
+      call("cx", [], [0, 1]),
+      call("t", [], [0]),
+      call("tdg", [], [1]),
+      call("cx", [], [0, 1]),
     ],
   },
   crz: {
     params: 1,
     qubits: 2,
-    body: ([l]) => [call("u1", [l / 2], [1]), call("cx", [], [0, 1]), call("u1", [-l / 2], [1]), call("cx", [], [0, 1])],
+    body: ([l]) => [
+      call("u1", [l / 2], [1]),
+      call("cx", [], [0, 1]),
+      call("u1", [-l / 2], [1]),
+      call("cx", [], [0, 1]),
+    ],
   },
   cu1: {
     params: 1,
     qubits: 2,
     body: ([l]) => [
-      call("u1", [l / 2], [0]), call("cx", [], [0, 1]), call("u1", [-l / 2], [1]), call("cx", [], [0, 1]), call("u1", [l / 2], [1]),
+      call("u1", [l / 2], [0]),
+      call("cx", [], [0, 1]),
+      call("u1", [-l / 2], [1]),
+      call("cx", [], [0, 1]),
+      call("u1", [l / 2], [1]),
     ],
   },
   cu3: {
     params: 3,
     qubits: 2,
     body: ([t, p, l]) => [
-      call("u1", [(l - p) / 2], [1]), call("cx", [], [0, 1]), call("u3", [-t / 2, 0, -(p + l) / 2], [1]),
-      call("cx", [], [0, 1]), call("u3", [t / 2, p, 0], [1]),
+      call("u1", [(l - p) / 2], [1]),
+      call("cx", [], [0, 1]),
+      call("u3", [-t / 2, 0, -(p + l) / 2], [1]),
+      call("cx", [], [0, 1]),
+      call("u3", [t / 2, p, 0], [1]),
     ],
   },
 };
@@ -193,15 +263,31 @@ export const OPENQASM3: SpecTable = {
   cry: { params: 1, qubits: 2, body: ([t]) => [ctrl(G("ry", [t]), [0, 1])] },
   crz: { params: 1, qubits: 2, body: ([t]) => [ctrl(G("rz", [t]), [0, 1])] },
   ch: { params: 0, qubits: 2, body: () => [ctrl(G("h"), [0, 1])] },
-  swap: { params: 0, qubits: 2, body: () => [call("cx", [], [0, 1]), call("cx", [], [1, 0]), call("cx", [], [0, 1])] },
+  swap: {
+    params: 0,
+    qubits: 2,
+    body: () => [call("cx", [], [0, 1]), call("cx", [], [1, 0]), call("cx", [], [0, 1])],
+  },
   ccx: { params: 0, qubits: 3, body: () => [{ m: controlled(controlled(G("x"))), q: [0, 1, 2] }] },
   cswap: { params: 0, qubits: 3, body: () => [ctrl(G("swap"), [0, 1, 2])] },
-  cu: { params: 4, qubits: 2, body: ([t, p, l, g]) => [call("p", [g], [0]), ctrl(G("U", [t, p, l]), [0, 1])] },
+  cu: {
+    params: 4,
+    qubits: 2,
+    body: ([t, p, l, g]) => [call("p", [g], [0]), ctrl(G("U", [t, p, l]), [0, 1])],
+  },
   CX: { params: 0, qubits: 2, body: () => [ctrl(G("U", [PI, 0, PI]), [0, 1])] },
   phase: { params: 1, qubits: 1, body: ([l]) => [call("U", [0, 0, l], [0])] },
   cphase: { params: 1, qubits: 2, body: ([l]) => [ctrl(G("phase", [l]), [0, 1])] },
   id: { params: 0, qubits: 1, body: () => [call("U", [0, 0, 0], [0])] },
   u1: { params: 1, qubits: 1, body: ([l]) => [call("U", [0, 0, l], [0])] },
-  u2: { params: 2, qubits: 1, body: ([p, l]) => [{ phase: -(p + l) / 2 }, call("U", [PI / 2, p, l], [0])] },
-  u3: { params: 3, qubits: 1, body: ([t, p, l]) => [{ phase: -(p + l) / 2 }, call("U", [t, p, l], [0])] },
+  u2: {
+    params: 2,
+    qubits: 1,
+    body: ([p, l]) => [{ phase: -(p + l) / 2 }, call("U", [PI / 2, p, l], [0])],
+  },
+  u3: {
+    params: 3,
+    qubits: 1,
+    body: ([t, p, l]) => [{ phase: -(p + l) / 2 }, call("U", [t, p, l], [0])],
+  },
 };

@@ -7,20 +7,34 @@
 import fc from "fast-check";
 import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { describe, expect, it } from "vitest";
-import { amplitudeDamp, depolarize, measureNonSelective, phaseDamp, resetQubit } from "@/lib/quantum/noise/channels";
+import {
+  amplitudeDamp,
+  depolarize,
+  measureNonSelective,
+  phaseDamp,
+  resetQubit,
+} from "@/lib/quantum/noise/channels";
 import { simulateDensityMatrix } from "@/lib/quantum/density-matrix/simulate";
 import { densityFromState, trace } from "@/lib/quantum/density-matrix/state";
 import { applyToAmplitudes } from "@/lib/quantum/statevector/dispatch";
 import { createZeroState } from "@/lib/quantum/statevector/state";
 import type { DensityMatrix } from "@/lib/quantum/types";
-import { makeRng, randomCircuit, randomUnitary, type Rng } from "../statevector/support/random-gates";
+import {
+  makeRng,
+  randomCircuit,
+  randomUnitary,
+  type Rng,
+} from "../statevector/support/random-gates";
 
 type Bloch = [number, number, number];
 
 /** Reduced Bloch vector of qubit q of an n-qubit ρ (partial trace over the others). */
 function bloch(rho: DensityMatrix, q: number): Bloch {
   const d = 2 ** rho.n;
-  let r00 = 0, r11 = 0, re01 = 0, im01 = 0;
+  let r00 = 0,
+    r11 = 0,
+    re01 = 0,
+    im01 = 0;
   for (let i = 0; i < d; i++) {
     if ((i >> q) & 1) continue;
     const j = i | (1 << q);
@@ -44,36 +58,53 @@ function expectBloch(actual: Bloch, expected: Bloch): void {
 }
 
 describe("single-qubit channels on the Bloch vector (N&C ch. 8)", () => {
-  const cases = [0, 1, 2, 3, 4].map((seed) => ({ seed, n: 1 + (seed % 3), q: seed % (1 + (seed % 3)) }));
+  const cases = [0, 1, 2, 3, 4].map((seed) => ({
+    seed,
+    n: 1 + (seed % 3),
+    q: seed % (1 + (seed % 3)),
+  }));
 
-  it.each(cases)("depolarizing shrinks the Bloch vector by (1 − p) (§8.3.4), seed $seed", ({ seed, n, q }) => {
-    const rng = makeRng(seed);
-    const rho = randomProductState(rng, n);
-    const before = bloch(rho, q);
-    const others = Array.from({ length: n }, (_, k) => k).filter((k) => k !== q).map((k) => bloch(rho, k));
-    const p = rng.float();
-    depolarize(rho, [q], p);
-    expectBloch(bloch(rho, q), [before[0] * (1 - p), before[1] * (1 - p), before[2] * (1 - p)]);
-    Array.from({ length: n }, (_, k) => k).filter((k) => k !== q).forEach((k, j) => expectBloch(bloch(rho, k), others[j]));
-  });
+  it.each(cases)(
+    "depolarizing shrinks the Bloch vector by (1 − p) (§8.3.4), seed $seed",
+    ({ seed, n, q }) => {
+      const rng = makeRng(seed);
+      const rho = randomProductState(rng, n);
+      const before = bloch(rho, q);
+      const others = Array.from({ length: n }, (_, k) => k)
+        .filter((k) => k !== q)
+        .map((k) => bloch(rho, k));
+      const p = rng.float();
+      depolarize(rho, [q], p);
+      expectBloch(bloch(rho, q), [before[0] * (1 - p), before[1] * (1 - p), before[2] * (1 - p)]);
+      Array.from({ length: n }, (_, k) => k)
+        .filter((k) => k !== q)
+        .forEach((k, j) => expectBloch(bloch(rho, k), others[j]));
+    },
+  );
 
-  it.each(cases)("amplitude damping maps (x,y,z) → (√(1−γ)x, √(1−γ)y, γ+(1−γ)z) (§8.3.5), seed $seed", ({ seed, n, q }) => {
-    const rng = makeRng(100 + seed);
-    const rho = randomProductState(rng, n);
-    const [x, y, z] = bloch(rho, q);
-    const g = rng.float();
-    amplitudeDamp(rho, q, g);
-    expectBloch(bloch(rho, q), [Math.sqrt(1 - g) * x, Math.sqrt(1 - g) * y, g + (1 - g) * z]);
-  });
+  it.each(cases)(
+    "amplitude damping maps (x,y,z) → (√(1−γ)x, √(1−γ)y, γ+(1−γ)z) (§8.3.5), seed $seed",
+    ({ seed, n, q }) => {
+      const rng = makeRng(100 + seed);
+      const rho = randomProductState(rng, n);
+      const [x, y, z] = bloch(rho, q);
+      const g = rng.float();
+      amplitudeDamp(rho, q, g);
+      expectBloch(bloch(rho, q), [Math.sqrt(1 - g) * x, Math.sqrt(1 - g) * y, g + (1 - g) * z]);
+    },
+  );
 
-  it.each(cases)("phase damping shrinks x, y by √(1−λ) and keeps z (§8.3.6), seed $seed", ({ seed, n, q }) => {
-    const rng = makeRng(200 + seed);
-    const rho = randomProductState(rng, n);
-    const [x, y, z] = bloch(rho, q);
-    const l = rng.float();
-    phaseDamp(rho, q, l);
-    expectBloch(bloch(rho, q), [Math.sqrt(1 - l) * x, Math.sqrt(1 - l) * y, z]);
-  });
+  it.each(cases)(
+    "phase damping shrinks x, y by √(1−λ) and keeps z (§8.3.6), seed $seed",
+    ({ seed, n, q }) => {
+      const rng = makeRng(200 + seed);
+      const rho = randomProductState(rng, n);
+      const [x, y, z] = bloch(rho, q);
+      const l = rng.float();
+      phaseDamp(rho, q, l);
+      expectBloch(bloch(rho, q), [Math.sqrt(1 - l) * x, Math.sqrt(1 - l) * y, z]);
+    },
+  );
 
   it("non-selective Z measurement removes x, y; reset sends the qubit to |0⟩ (z = 1)", () => {
     const rng = makeRng(9);
@@ -94,7 +125,10 @@ describe("single-qubit channels on the Bloch vector (N&C ch. 8)", () => {
     depolarize(rho, [1, 0], p);
     for (let r = 0; r < 4; r++)
       for (let c = 0; c < 4; c++) {
-        expect(rho.re[4 * r + c]).toBeCloseTo((1 - p) * copy.re[4 * r + c] + (r === c ? p / 4 : 0), 14);
+        expect(rho.re[4 * r + c]).toBeCloseTo(
+          (1 - p) * copy.re[4 * r + c] + (r === c ? p / 4 : 0),
+          14,
+        );
         expect(rho.im[4 * r + c]).toBeCloseTo((1 - p) * copy.im[4 * r + c], 14);
       }
   });
@@ -105,7 +139,8 @@ function minEigenvalue(rho: DensityMatrix): number {
   const e = new Matrix(2 * d, 2 * d);
   for (let r = 0; r < d; r++)
     for (let c = 0; c < d; c++) {
-      const a = rho.re[r * d + c], b = rho.im[r * d + c];
+      const a = rho.re[r * d + c],
+        b = rho.im[r * d + c];
       e.set(r, c, a);
       e.set(r + d, c + d, a);
       e.set(r, c + d, -b);

@@ -49,15 +49,24 @@ function depolarizingRef(rho: Matrix, qubits: number[], p: number, n: number): M
 }
 
 function krausOn(rho: Matrix, q: number, n: number, ks: Float64Array[]): Matrix {
-  return applyKraus(rho, ks.map((k) => fullOperator(k, [q], n)));
+  return applyKraus(
+    rho,
+    ks.map((k) => fullOperator(k, [q], n)),
+  );
 }
 
 function referenceDensity(circuit: Circuit, noise: NoiseModel): Matrix {
   const n = circuit.numQubits;
   let rho = zeroDensity(n);
   const damp = (q: number, g: number, l: number) => {
-    rho = krausOn(rho, q, n, [f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - g), 0), f64(0, 0, Math.sqrt(g), 0, 0, 0, 0, 0)]);
-    rho = krausOn(rho, q, n, [f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - l), 0), f64(0, 0, 0, 0, 0, 0, Math.sqrt(l), 0)]);
+    rho = krausOn(rho, q, n, [
+      f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - g), 0),
+      f64(0, 0, Math.sqrt(g), 0, 0, 0, 0, 0),
+    ]);
+    rho = krausOn(rho, q, n, [
+      f64(1, 0, 0, 0, 0, 0, Math.sqrt(1 - l), 0),
+      f64(0, 0, 0, 0, 0, 0, Math.sqrt(l), 0),
+    ]);
   };
   circuit.ops.forEach((op, i) => {
     if (op.kind === "gate") {
@@ -67,9 +76,16 @@ function referenceDensity(circuit: Circuit, noise: NoiseModel): Matrix {
       }
       // Per-gate overrides replace the model's rates field by field (README "Noise model").
       const o = noise.gates?.[op.name] ?? {};
-      const p = o.depolarizing ?? (op.qubits.length === 1 ? (noise.depolarizing1q ?? 0) : (noise.depolarizing2q ?? 0));
+      const p =
+        o.depolarizing ??
+        (op.qubits.length === 1 ? (noise.depolarizing1q ?? 0) : (noise.depolarizing2q ?? 0));
       rho = depolarizingRef(rho, op.qubits, p, n);
-      for (const q of op.qubits) damp(q, o.amplitudeDamping ?? noise.amplitudeDamping ?? 0, o.phaseDamping ?? noise.phaseDamping ?? 0);
+      for (const q of op.qubits)
+        damp(
+          q,
+          o.amplitudeDamping ?? noise.amplitudeDamping ?? 0,
+          o.phaseDamping ?? noise.phaseDamping ?? 0,
+        );
       // Idle noise: every other qubit, 1-qubit depolarizing then damping.
       if (noise.idle) {
         for (let q = 0; q < n; q++) {
@@ -79,10 +95,17 @@ function referenceDensity(circuit: Circuit, noise: NoiseModel): Matrix {
         }
       }
     } else if (op.kind === "measure") {
-      const later = circuit.ops.slice(i + 1).some((o) =>
-        o.kind === "gate" ? o.qubits.includes(op.qubit) : o.kind === "measure" || o.kind === "reset" ? o.qubit === op.qubit : false,
-      );
-      if (later) rho = krausOn(rho, op.qubit, n, [f64(1, 0, 0, 0, 0, 0, 0, 0), f64(0, 0, 0, 0, 0, 0, 1, 0)]);
+      const later = circuit.ops
+        .slice(i + 1)
+        .some((o) =>
+          o.kind === "gate"
+            ? o.qubits.includes(op.qubit)
+            : o.kind === "measure" || o.kind === "reset"
+              ? o.qubit === op.qubit
+              : false,
+        );
+      if (later)
+        rho = krausOn(rho, op.qubit, n, [f64(1, 0, 0, 0, 0, 0, 0, 0), f64(0, 0, 0, 0, 0, 0, 1, 0)]);
     } else if (op.kind === "reset") {
       rho = krausOn(rho, op.qubit, n, [f64(1, 0, 0, 0, 0, 0, 0, 0), f64(0, 0, 1, 0, 0, 0, 0, 0)]);
     }
@@ -101,10 +124,18 @@ describe("density matrix vs mathjs Kraus reference (independent library, N&C ch.
       const rate = (): number => (rng.float() < 0.2 ? 0 : rng.float());
       const noise: NoiseModel = noiseless
         ? { readout: { p1Given0: 0.1 } }
-        : { depolarizing1q: rate(), depolarizing2q: rate(), amplitudeDamping: rate(), phaseDamping: rate() };
+        : {
+            depolarizing1q: rate(),
+            depolarizing2q: rate(),
+            amplitudeDamping: rate(),
+            phaseDamping: rate(),
+          };
       const rho = simulateDensityMatrix(circuit, noise);
       const ref = referenceDensity(circuit, noise);
-      expect({ seed, ok: densityDistance(rho.re, rho.im, ref, n) < TOL }).toEqual({ seed, ok: true });
+      expect({ seed, ok: densityDistance(rho.re, rho.im, ref, n) < TOL }).toEqual({
+        seed,
+        ok: true,
+      });
     }
   }, 60_000);
 });
@@ -117,22 +148,32 @@ describe("per-gate overrides and idle noise vs the same reference", () => {
       const n = 2 + (i % 3);
       const circuit = randomCircuit(rng, n, rng.int(2, 6), false);
       const rate = (): number => (rng.float() < 0.3 ? 0 : 0.5 * rng.float());
-      const names = [...new Set(circuit.ops.flatMap((op) => (op.kind === "gate" ? [op.name] : [])))];
+      const names = [
+        ...new Set(circuit.ops.flatMap((op) => (op.kind === "gate" ? [op.name] : []))),
+      ];
       const gates: NonNullable<NoiseModel["gates"]> = {};
       for (const name of names) {
         if (rng.float() < 0.5) continue;
-        gates[name] = rng.float() < 0.5 ? { depolarizing: rate() } : { amplitudeDamping: rate(), phaseDamping: rate() };
+        gates[name] =
+          rng.float() < 0.5
+            ? { depolarizing: rate() }
+            : { amplitudeDamping: rate(), phaseDamping: rate() };
       }
       const noise: NoiseModel = {
         depolarizing1q: rate(),
         depolarizing2q: rate(),
         amplitudeDamping: rate(),
         gates,
-        ...(i % 2 === 0 ? { idle: { depolarizing: rate(), amplitudeDamping: rate(), phaseDamping: rate() } } : {}),
+        ...(i % 2 === 0
+          ? { idle: { depolarizing: rate(), amplitudeDamping: rate(), phaseDamping: rate() } }
+          : {}),
       };
       const rho = simulateDensityMatrix(circuit, noise);
       const ref = referenceDensity(circuit, noise);
-      expect({ seed, ok: densityDistance(rho.re, rho.im, ref, n) < TOL }).toEqual({ seed, ok: true });
+      expect({ seed, ok: densityDistance(rho.re, rho.im, ref, n) < TOL }).toEqual({
+        seed,
+        ok: true,
+      });
     }
   }, 60_000);
 
@@ -141,8 +182,22 @@ describe("per-gate overrides and idle noise vs the same reference", () => {
     const x = f64(0, 0, 1, 0, 1, 0, 0, 0);
     const h = f64(Math.SQRT1_2, 0, Math.SQRT1_2, 0, Math.SQRT1_2, 0, -Math.SQRT1_2, 0);
     circuit.ops = [
-      { kind: "gate", name: "x", qubits: [1], params: [], parts: [{ name: "x", qubits: [1], matrix: x }], line: 1 },
-      ...[2, 3, 4].map((line) => ({ kind: "gate" as const, name: "h", qubits: [0], params: [], parts: [{ name: "h", qubits: [0], matrix: h }], line })),
+      {
+        kind: "gate",
+        name: "x",
+        qubits: [1],
+        params: [],
+        parts: [{ name: "x", qubits: [1], matrix: x }],
+        line: 1,
+      },
+      ...[2, 3, 4].map((line) => ({
+        kind: "gate" as const,
+        name: "h",
+        qubits: [0],
+        params: [],
+        parts: [{ name: "h", qubits: [0], matrix: h }],
+        line,
+      })),
     ];
     const gamma = 0.1;
     const rho = simulateDensityMatrix(circuit, { idle: { amplitudeDamping: gamma } });

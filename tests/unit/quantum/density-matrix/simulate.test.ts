@@ -21,10 +21,18 @@ const I2 = Float64Array.of(1, 0, 0, 0, 0, 0, 1, 0);
 function gate(name: string, qubits: number[], parts: GateApplication[], line = 1): CircuitOp {
   return { kind: "gate", name, qubits, params: [], parts, line };
 }
-const g1 = (name: string, q: number, m: Float64Array, line = 1): CircuitOp => gate(name, [q], [{ name, qubits: [q], matrix: m }], line);
+const g1 = (name: string, q: number, m: Float64Array, line = 1): CircuitOp =>
+  gate(name, [q], [{ name, qubits: [q], matrix: m }], line);
 
 function circuit(n: number, ops: CircuitOp[]): Circuit {
-  return { numQubits: n, numClbits: n, ops, qubitLabels: [], hasMidCircuitMeasurement: false, hasReset: false };
+  return {
+    numQubits: n,
+    numClbits: n,
+    ops,
+    qubitLabels: [],
+    hasMidCircuitMeasurement: false,
+    hasReset: false,
+  };
 }
 
 function engineError(fn: () => unknown): EngineError {
@@ -43,17 +51,25 @@ const xOf = (re: Float64Array): number => 2 * re[1];
 describe("simulateDensityMatrix — noise semantics", () => {
   it("applies the noise ONCE after a top-level gate, however many parts it has", () => {
     // a user gate made of h, x, x (= h): ⟨X⟩ = 1 before noise; depolarizing p → (1 − p)
-    const op = gate("mygate", [0], [
-      { name: "h", qubits: [0], matrix: H },
-      { name: "x", qubits: [0], matrix: X },
-      { name: "x", qubits: [0], matrix: X },
-    ]);
+    const op = gate(
+      "mygate",
+      [0],
+      [
+        { name: "h", qubits: [0], matrix: H },
+        { name: "x", qubits: [0], matrix: X },
+        { name: "x", qubits: [0], matrix: X },
+      ],
+    );
     const rho = simulateDensityMatrix(circuit(1, [op]), { depolarizing1q: 0.2 });
     expect(xOf(rho.re)).toBeCloseTo(0.8, 14);
   });
 
   it("treats id as a gate (noise applies) and barrier as nothing", () => {
-    const ops: CircuitOp[] = [g1("x", 0, X), { kind: "barrier", qubits: [0], line: 2 }, g1("id", 0, I2, 3)];
+    const ops: CircuitOp[] = [
+      g1("x", 0, X),
+      { kind: "barrier", qubits: [0], line: 2 },
+      g1("id", 0, I2, 3),
+    ];
     // amplitude damping γ after x and after id: P(1) = (1 − γ)² (N&C §8.3.5 population decay)
     const rho = simulateDensityMatrix(circuit(1, ops), { amplitudeDamping: 0.1 });
     expect(diagonal(rho)[1]).toBeCloseTo(0.81, 14);
@@ -61,26 +77,42 @@ describe("simulateDensityMatrix — noise semantics", () => {
 
   it("uses depolarizing2q for gates on 2 or more qubits and depolarizing1q for 1 qubit", () => {
     // Bell state then depolarizing2q p on both qubits: ρ → (1−p)ρ + p·I/4, so ⟨ZZ⟩ = 1 − p
-    const bell = [g1("h", 0, H), gate("cx", [0, 1], [{ name: "cx", qubits: [0, 1], matrix: CX }], 2)];
+    const bell = [
+      g1("h", 0, H),
+      gate("cx", [0, 1], [{ name: "cx", qubits: [0, 1], matrix: CX }], 2),
+    ];
     const rho = simulateDensityMatrix(circuit(2, bell), { depolarizing1q: 0, depolarizing2q: 0.3 });
     const p = diagonal(rho);
     expect(p[0] + p[3] - p[1] - p[2]).toBeCloseTo(0.7, 14);
     // a 3-qubit op (one part on 2 of its qubits) also takes depolarizing2q, on all 3 qubits
     const op3 = gate("g3", [0, 1, 2], [{ name: "cx", qubits: [0, 1], matrix: CX }]);
-    const rho3 = simulateDensityMatrix(circuit(3, [op3]), { depolarizing1q: 0.9, depolarizing2q: 0.4 });
+    const rho3 = simulateDensityMatrix(circuit(3, [op3]), {
+      depolarizing1q: 0.9,
+      depolarizing2q: 0.4,
+    });
     expect(diagonal(rho3)[0]).toBeCloseTo(0.6 + 0.4 / 8, 14);
   });
 
   it("ignores final measurements but dephases at mid-circuit measurements; reset → |0⟩", () => {
-    const plus = simulateDensityMatrix(circuit(1, [g1("h", 0, H), { kind: "measure", qubit: 0, clbit: 0, line: 2 }]), undefined);
+    const plus = simulateDensityMatrix(
+      circuit(1, [g1("h", 0, H), { kind: "measure", qubit: 0, clbit: 0, line: 2 }]),
+      undefined,
+    );
     expect(xOf(plus.re)).toBeCloseTo(1, 14);
     // h; measure; h  →  the measurement makes ρ = I/2, so the second h leaves P(0) = 1/2
     const mid = simulateDensityMatrix(
-      circuit(1, [g1("h", 0, H), { kind: "measure", qubit: 0, clbit: 0, line: 2 }, g1("h", 0, H, 3)]),
+      circuit(1, [
+        g1("h", 0, H),
+        { kind: "measure", qubit: 0, clbit: 0, line: 2 },
+        g1("h", 0, H, 3),
+      ]),
       undefined,
     );
     expect(diagonal(mid)[0]).toBeCloseTo(0.5, 14);
-    const reset = simulateDensityMatrix(circuit(1, [g1("x", 0, X), { kind: "reset", qubit: 0, line: 2 }]), undefined);
+    const reset = simulateDensityMatrix(
+      circuit(1, [g1("x", 0, X), { kind: "reset", qubit: 0, line: 2 }]),
+      undefined,
+    );
     expect(diagonal(reset)[0]).toBeCloseTo(1, 14);
   });
 
@@ -107,18 +139,36 @@ describe("simulateDensityMatrix — guards", () => {
 
   it("rejects noise rates outside [0, 1] naming each field", () => {
     const e = engineError(() =>
-      validateNoiseModel({ depolarizing1q: 1.5, phaseDamping: -0.1, readout: { p0Given1: Number.NaN } }),
+      validateNoiseModel({
+        depolarizing1q: 1.5,
+        phaseDamping: -0.1,
+        readout: { p0Given1: Number.NaN },
+      }),
     );
     expect(e.code).toBe("invalid_request");
-    expect(e.issues.map((i) => i.path.join("."))).toEqual(["noise.depolarizing1q", "noise.phaseDamping", "noise.readout.p0Given1"]);
-    expect(e.message).toMatch(/noise\.depolarizing1q must be a probability between 0 and 1 \(got 1\.5\)/);
-    expect(engineError(() => simulateDensityMatrix(circuit(1, []), { amplitudeDamping: 2 })).code).toBe("invalid_request");
-    expect(() => validateNoiseModel({ depolarizing1q: 0, depolarizing2q: 1, readout: { p1Given0: 0.5 } })).not.toThrow();
+    expect(e.issues.map((i) => i.path.join("."))).toEqual([
+      "noise.depolarizing1q",
+      "noise.phaseDamping",
+      "noise.readout.p0Given1",
+    ]);
+    expect(e.message).toMatch(
+      /noise\.depolarizing1q must be a probability between 0 and 1 \(got 1\.5\)/,
+    );
+    expect(
+      engineError(() => simulateDensityMatrix(circuit(1, []), { amplitudeDamping: 2 })).code,
+    ).toBe("invalid_request");
+    expect(() =>
+      validateNoiseModel({ depolarizing1q: 0, depolarizing2q: 1, readout: { p1Given0: 0.5 } }),
+    ).not.toThrow();
   });
 
   it("throws 'canceled' when aborted", () => {
     const ac = new AbortController();
     ac.abort();
-    expect(engineError(() => simulateDensityMatrix(circuit(1, [g1("h", 0, H)]), undefined, { signal: ac.signal })).code).toBe("canceled");
+    expect(
+      engineError(() =>
+        simulateDensityMatrix(circuit(1, [g1("h", 0, H)]), undefined, { signal: ac.signal }),
+      ).code,
+    ).toBe("canceled");
   });
 });

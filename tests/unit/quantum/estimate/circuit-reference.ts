@@ -16,24 +16,51 @@ import { PAULI } from "../observable/dense-reference";
 
 type M = math.Matrix;
 const C = (re: number, im = 0): math.Complex => math.complex(re, im);
-const mat = (rows: (number | math.Complex)[][]): M => math.matrix(rows.map((r) => r.map((x) => (typeof x === "number" ? C(x) : x))));
+const mat = (rows: (number | math.Complex)[][]): M =>
+  math.matrix(rows.map((r) => r.map((x) => (typeof x === "number" ? C(x) : x))));
 const expi = (a: number): math.Complex => C(Math.cos(a), Math.sin(a));
-const P0 = mat([[1, 0], [0, 0]]);
-const P1 = mat([[0, 0], [0, 1]]);
+const P0 = mat([
+  [1, 0],
+  [0, 0],
+]);
+const P1 = mat([
+  [0, 0],
+  [0, 1],
+]);
 
 function rotation(p: "X" | "Y" | "Z", theta: number): M {
   return math.expm(math.multiply(C(0, -theta / 2), PAULI[p]) as M) as M;
 }
 
 export const ONE_QUBIT: Record<string, (t: number[]) => M> = {
-  h: () => mat([[Math.SQRT1_2, Math.SQRT1_2], [Math.SQRT1_2, -Math.SQRT1_2]]),
+  h: () =>
+    mat([
+      [Math.SQRT1_2, Math.SQRT1_2],
+      [Math.SQRT1_2, -Math.SQRT1_2],
+    ]),
   x: () => PAULI.X,
   y: () => PAULI.Y,
   z: () => PAULI.Z,
-  s: () => mat([[1, 0], [0, C(0, 1)]]),
-  sdg: () => mat([[1, 0], [0, C(0, -1)]]),
-  t: () => mat([[1, 0], [0, expi(Math.PI / 4)]]),
-  tdg: () => mat([[1, 0], [0, expi(-Math.PI / 4)]]),
+  s: () =>
+    mat([
+      [1, 0],
+      [0, C(0, 1)],
+    ]),
+  sdg: () =>
+    mat([
+      [1, 0],
+      [0, C(0, -1)],
+    ]),
+  t: () =>
+    mat([
+      [1, 0],
+      [0, expi(Math.PI / 4)],
+    ]),
+  tdg: () =>
+    mat([
+      [1, 0],
+      [0, expi(-Math.PI / 4)],
+    ]),
   rx: ([a]) => rotation("X", a),
   ry: ([a]) => rotation("Y", a),
   rz: ([a]) => rotation("Z", a),
@@ -41,7 +68,10 @@ export const ONE_QUBIT: Record<string, (t: number[]) => M> = {
   u3: ([th, ph, la]) =>
     mat([
       [Math.cos(th / 2), math.multiply(-Math.sin(th / 2), expi(la)) as math.Complex],
-      [math.multiply(Math.sin(th / 2), expi(ph)) as math.Complex, math.multiply(Math.cos(th / 2), expi(ph + la)) as math.Complex],
+      [
+        math.multiply(Math.sin(th / 2), expi(ph)) as math.Complex,
+        math.multiply(Math.cos(th / 2), expi(ph + la)) as math.Complex,
+      ],
     ]),
 };
 
@@ -59,11 +89,19 @@ export function randomCircuit(n: number, length: number, rand: () => number): Ra
       const a = Math.floor(rand() * n);
       let b = Math.floor(rand() * (n - 1));
       if (b >= a) b++;
-      gates.push({ name: ["cx", "cz", "swap"][Math.floor(rand() * 3)], qubits: [a, b], params: [] });
+      gates.push({
+        name: ["cx", "cz", "swap"][Math.floor(rand() * 3)],
+        qubits: [a, b],
+        params: [],
+      });
     } else {
       const name = one[Math.floor(rand() * one.length)];
       const count = name === "u3" ? 3 : name.startsWith("r") ? 1 : 0;
-      gates.push({ name, qubits: [Math.floor(rand() * n)], params: Array.from({ length: count }, () => (rand() * 2 - 1) * Math.PI) });
+      gates.push({
+        name,
+        qubits: [Math.floor(rand() * n)],
+        params: Array.from({ length: count }, () => (rand() * 2 - 1) * Math.PI),
+      });
     }
   }
   return gates;
@@ -101,10 +139,18 @@ export function referenceState(n: number, gates: RandomGate[]): M {
   for (const g of gates) {
     const [a, b] = g.qubits;
     if (g.name === "swap") {
-      const parts = ["I", "X", "Y", "Z"].map((p) => applyProduct(n, psi, { [a]: PAULI[p], [b]: PAULI[p] }));
-      psi = math.multiply(0.5, math.add(math.add(parts[0], parts[1]), math.add(parts[2], parts[3]))) as M;
+      const parts = ["I", "X", "Y", "Z"].map((p) =>
+        applyProduct(n, psi, { [a]: PAULI[p], [b]: PAULI[p] }),
+      );
+      psi = math.multiply(
+        0.5,
+        math.add(math.add(parts[0], parts[1]), math.add(parts[2], parts[3])),
+      ) as M;
     } else if (g.name === "cx" || g.name === "cz") {
-      psi = math.add(applyProduct(n, psi, { [a]: P0 }), applyProduct(n, psi, { [a]: P1, [b]: g.name === "cx" ? PAULI.X : PAULI.Z })) as M;
+      psi = math.add(
+        applyProduct(n, psi, { [a]: P0 }),
+        applyProduct(n, psi, { [a]: P1, [b]: g.name === "cx" ? PAULI.X : PAULI.Z }),
+      ) as M;
     } else {
       psi = applyProduct(n, psi, { [a]: ONE_QUBIT[g.name](g.params) });
     }
@@ -121,7 +167,9 @@ export function pauliExpectationOf(word: string, n: number, psi: M): number {
 
 /** ⟨ψ|A|ψ⟩ for a dense A, or ⟨ψ|φ⟩ when φ = Aψ is given. */
 export function expectationOf(a: M | null, psi: M, applied?: M): number {
-  const z = (math.multiply(math.ctranspose(psi), applied ?? (math.multiply(a!, psi) as M)) as M).get([0, 0]) as math.Complex | number;
+  const z = (
+    math.multiply(math.ctranspose(psi), applied ?? (math.multiply(a!, psi) as M)) as M
+  ).get([0, 0]) as math.Complex | number;
   return typeof z === "number" ? z : z.re;
 }
 

@@ -169,7 +169,11 @@ describe("gradients see the same per-gate and idle noise", () => {
       circuit: { format: "qasm3" as const, source },
       observable: { format: "pauli" as const, terms: "Z1 + X0 Z2 + Y2" },
       method: "density_matrix" as const,
-      noise: { depolarizing1q: 0.01, gates: { cx: { depolarizing: 0.2 } }, idle: { amplitudeDamping: 0.05 } },
+      noise: {
+        depolarizing1q: 0.01,
+        gates: { cx: { depolarizing: 0.2 } },
+        idle: { amplitudeDamping: 0.05 },
+      },
     };
     const r = await estimate({ ...base, parameters: { t: 0.7 }, gradient: true });
     const h = 1e-5;

@@ -15,10 +15,22 @@ type M = math.Matrix;
 const C = (re: number, im = 0): math.Complex => math.complex(re, im);
 
 export const PAULI: Record<string, M> = {
-  I: math.matrix([[C(1), C(0)], [C(0), C(1)]]),
-  X: math.matrix([[C(0), C(1)], [C(1), C(0)]]),
-  Y: math.matrix([[C(0), C(0, -1)], [C(0, 1), C(0)]]),
-  Z: math.matrix([[C(1), C(0)], [C(0), C(-1)]]),
+  I: math.matrix([
+    [C(1), C(0)],
+    [C(0), C(1)],
+  ]),
+  X: math.matrix([
+    [C(0), C(1)],
+    [C(1), C(0)],
+  ]),
+  Y: math.matrix([
+    [C(0), C(0, -1)],
+    [C(0, 1), C(0)],
+  ]),
+  Z: math.matrix([
+    [C(1), C(0)],
+    [C(0), C(-1)],
+  ]),
 };
 
 /** Dense matrix of a dense Pauli word (qubit 0 first in the word). */
@@ -31,7 +43,8 @@ export function wordMatrix(word: string): M {
 export function sumMatrix(terms: { coefficient: number; word: string }[], n: number): M {
   const d = 2 ** n;
   let m: M = math.zeros(d, d) as M;
-  for (const t of terms) m = math.add(m, math.multiply(t.coefficient, wordMatrix(t.word.padEnd(n, "I")))) as M;
+  for (const t of terms)
+    m = math.add(m, math.multiply(t.coefficient, wordMatrix(t.word.padEnd(n, "I")))) as M;
   return m;
 }
 
@@ -42,7 +55,8 @@ export function stateColumn(s: StateVector): M {
 export function densityMatrixOf(rho: DensityMatrix): M {
   const d = 2 ** rho.n;
   const rows: math.Complex[][] = [];
-  for (let i = 0; i < d; i++) rows.push(Array.from({ length: d }, (_, j) => C(rho.re[i * d + j], rho.im[i * d + j])));
+  for (let i = 0; i < d; i++)
+    rows.push(Array.from({ length: d }, (_, j) => C(rho.re[i * d + j], rho.im[i * d + j])));
   return math.matrix(rows);
 }
 
@@ -56,7 +70,8 @@ export function denseExpectation(a: M, s: StateVector): number {
 
 /** Tr(ρA) (real part). */
 export function denseTrace(a: M, rho: DensityMatrix): number {
-  const z = math.trace(math.multiply(densityMatrixOf(rho), a) as M) as unknown as math.Complex | number;
+  const z = math.trace(math.multiply(densityMatrixOf(rho), a) as M) as unknown as
+    math.Complex | number;
   return typeof z === "number" ? z : z.re;
 }
 

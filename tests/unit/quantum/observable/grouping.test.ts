@@ -14,7 +14,7 @@ describe("groupQubitWise", () => {
   });
 
   it("bases use I for unmeasured qubits, qubit 0 first", () => {
-    const g = groupQubitWise(parsePauliSum("X0 + Y2", ));
+    const g = groupQubitWise(parsePauliSum("X0 + Y2"));
     expect(g.map((x) => x.bases)).toEqual(["XIY"]);
   });
 

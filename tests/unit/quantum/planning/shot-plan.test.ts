@@ -20,7 +20,10 @@ describe("exact setting variance", () => {
     const rand = mulberry32(17);
     for (let trial = 0; trial < 20; trial++) {
       const n = 2 + (trial % 4);
-      const sum = padPauliSum(parsePauliSum(randomPauliText(n, 4 + Math.floor(rand() * 14), rand)), n);
+      const sum = padPauliSum(
+        parsePauliSum(randomPauliText(n, 4 + Math.floor(rand() * 14), rand)),
+        n,
+      );
       const state = randomState(n, rand);
       for (const g of groupQubitWise(sum)) {
         const terms = g.terms.map((i) => sum.terms[i]);
@@ -41,22 +44,36 @@ describe("exact setting variance, large groups (Walsh–Hadamard path)", () => {
     const rand = mulberry32(23);
     const n = 4;
     // every non-identity word over {I, Y} on 4 qubits: one setting "YYYY" with 15 terms > n + 1
-    const words = Array.from({ length: 15 }, (_, k) => Array.from({ length: n }, (_, q) => (((k + 1) >> q) & 1 ? "Y" : "I")).join(""));
-    const sum = padPauliSum(parsePauliSum(words.map((w, k) => `${((k % 5) - 2.5) / 3} ${w}`).join(" + ")), n);
+    const words = Array.from({ length: 15 }, (_, k) =>
+      Array.from({ length: n }, (_, q) => (((k + 1) >> q) & 1 ? "Y" : "I")).join(""),
+    );
+    const sum = padPauliSum(
+      parsePauliSum(words.map((w, k) => `${((k % 5) - 2.5) / 3} ${w}`).join(" + ")),
+      n,
+    );
     const [g] = groupQubitWise(sum);
     expect(g.terms.length).toBe(15);
     const state = randomState(n, rand);
-    const gm = sumMatrix(g.terms.map((i) => sum.terms[i]), n);
+    const gm = sumMatrix(
+      g.terms.map((i) => sum.terms[i]),
+      n,
+    );
     const mean = denseExpectation(gm, state);
     const ref = denseExpectation(math.multiply(gm, gm) as math.Matrix, state) - mean * mean;
     const p = stateProbabilities(rotateStateCopy(state, g.bases));
-    expect(pauliSettingVariance(p, sum, g.terms, pauliSettingModel(sum, g.terms, null))).toBeCloseTo(ref, 11);
+    expect(
+      pauliSettingVariance(p, sum, g.terms, pauliSettingModel(sum, g.terms, null)),
+    ).toBeCloseTo(ref, 11);
   });
 });
 
 describe("planShots", () => {
   it("worst case is (Σ|c_i|)²/ε² split ∝ Σ_{i∈g}|c_i|; state-aware (Σ√Var_g)²/ε² is smaller", () => {
-    const plan = planShots({ targetPrecision: 0.01, stdDevBounds: [1.5, 0.5], stdDevs: [0.6, 0.2] });
+    const plan = planShots({
+      targetPrecision: 0.01,
+      stdDevBounds: [1.5, 0.5],
+      stdDevs: [0.6, 0.2],
+    });
     // (1.5 + 0.5)² / 1e-4 = 40,000 split 30,000 / 10,000
     expect(plan.worstCase).toEqual({ perSetting: [30_000, 10_000], totalShots: 40_000 });
     // (0.6 + 0.2)² / 1e-4 = 6,400 split 4,800 / 1,600
@@ -79,7 +96,9 @@ describe("planShots", () => {
   });
 
   it("chemical accuracy 1.6 mHa (1 kcal/mol = 1.5936 mHa, CODATA) on a unit-norm sum needs (1/0.0016)² ≈ 390,625 shots worst case", () => {
-    expect(planShots({ targetPrecision: 0.0016, stdDevBounds: [1], stdDevs: null }).worstCase.totalShots).toBe(390_625);
+    expect(
+      planShots({ targetPrecision: 0.0016, stdDevBounds: [1], stdDevs: null }).worstCase.totalShots,
+    ).toBe(390_625);
   });
 
   it("rejects a non-positive target", () => {

@@ -9,7 +9,11 @@
 import * as math from "mathjs";
 import { describe, expect, it } from "vitest";
 import { bitstringToIndex } from "@/lib/quantum/observable/bits";
-import { IntervalAssigner, cumulative, drawSortedOutcomes } from "@/lib/quantum/sampling/multinomial";
+import {
+  IntervalAssigner,
+  cumulative,
+  drawSortedOutcomes,
+} from "@/lib/quantum/sampling/multinomial";
 import { createRng } from "@/lib/quantum/sampling/rng";
 import { sampleObservable } from "@/lib/quantum/sampling/sample-observable";
 import { mulberry32, randomState } from "../observable/random-states";
@@ -19,8 +23,16 @@ const NIST_CRITICAL: Record<number, number> = { 1: 10.828, 3: 16.266, 7: 24.322,
 
 function rotation(letter: string): math.Matrix {
   const s = Math.SQRT1_2;
-  if (letter === "X") return math.matrix([[s, s], [s, -s]]);
-  if (letter === "Y") return math.matrix([[math.complex(s, 0), math.complex(0, -s)], [math.complex(s, 0), math.complex(0, s)]]);
+  if (letter === "X")
+    return math.matrix([
+      [s, s],
+      [s, -s],
+    ]);
+  if (letter === "Y")
+    return math.matrix([
+      [math.complex(s, 0), math.complex(0, -s)],
+      [math.complex(s, 0), math.complex(0, s)],
+    ]);
   return math.identity(2) as math.Matrix;
 }
 
@@ -47,11 +59,19 @@ describe("goodness of fit of sampled histograms (critical values above)", () => 
     const psi = math.matrix(Array.from(state.re, (r, i) => [math.complex(r, state.im[i])]));
     const phi = (math.multiply(u, psi) as math.Matrix).toArray() as unknown as math.Complex[][];
     const probs = phi.map(([z]) => (typeof z === "number" ? z * z : z.re * z.re + z.im * z.im));
-    const word = bases.split("").map((b, q) => `${b}${q}`).join(" ");
+    const word = bases
+      .split("")
+      .map((b, q) => `${b}${q}`)
+      .join(" ");
     const shots = 20_000;
-    const out = await sampleObservable({ kind: "statevector", state }, pauliObservable(word, n), options({ shots, seed }));
+    const out = await sampleObservable(
+      { kind: "statevector", state },
+      pauliObservable(word, n),
+      options({ shots, seed }),
+    );
     const counts = new Array<number>(2 ** n).fill(0);
-    for (const [bits, c] of Object.entries(out.groups[0].counts!)) counts[bitstringToIndex(bits)] = c;
+    for (const [bits, c] of Object.entries(out.groups[0].counts!))
+      counts[bitstringToIndex(bits)] = c;
     expect(out.groups[0].bases).toBe(bases);
     expect(chiSquare(counts, probs, shots)).toBeLessThan(NIST_CRITICAL[df]);
   });
@@ -68,7 +88,13 @@ describe("goodness of fit of sampled histograms (critical values above)", () => 
       counts[out[s]]++;
       if (s > 0) expect(out[s]).toBeGreaterThanOrEqual(out[s - 1]);
     }
-    expect(chiSquare(counts, Array.from(w, (x) => x / tot), shots)).toBeLessThan(NIST_CRITICAL[15]);
+    expect(
+      chiSquare(
+        counts,
+        Array.from(w, (x) => x / tot),
+        shots,
+      ),
+    ).toBeLessThan(NIST_CRITICAL[15]);
   });
 
   it("a law over 2^18 outcomes with few shots (galloping search) fits too (df 15 on 16 bins)", () => {
@@ -82,12 +108,24 @@ describe("goodness of fit of sampled histograms (critical values above)", () => 
     drawSortedOutcomes(cumulative(w), shots, createRng(99), out, new Float64Array(shots));
     const counts = new Array<number>(16).fill(0);
     out.forEach((b) => counts[b >> 14]++);
-    expect(chiSquare(counts, bins.map((x) => x / tot), shots)).toBeLessThan(NIST_CRITICAL[15]);
+    expect(
+      chiSquare(
+        counts,
+        bins.map((x) => x / tot),
+        shots,
+      ),
+    ).toBeLessThan(NIST_CRITICAL[15]);
   });
 
   it("zero-probability outcomes are never drawn", () => {
     const out = new Int32Array(10_000);
-    drawSortedOutcomes(cumulative(new Float64Array([0, 0.5, 0, 0.5, 0])), 10_000, createRng(3), out, new Float64Array(10_000));
+    drawSortedOutcomes(
+      cumulative(new Float64Array([0, 0.5, 0, 0.5, 0])),
+      10_000,
+      createRng(3),
+      out,
+      new Float64Array(10_000),
+    );
     expect([...new Set(out)].sort()).toEqual([1, 3]);
   });
 

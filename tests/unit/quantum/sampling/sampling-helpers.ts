@@ -1,10 +1,18 @@
 /** Helpers for the sampling tests: prepared observables and exact values. */
 import { createRequire } from "node:module";
 import { groupQubitWise } from "@/lib/quantum/observable/grouping";
-import { pauliExpectationsOnDensity, pauliExpectationsOnState, weightedTotal } from "@/lib/quantum/observable/pauli-expectation";
+import {
+  pauliExpectationsOnDensity,
+  pauliExpectationsOnState,
+  weightedTotal,
+} from "@/lib/quantum/observable/pauli-expectation";
 import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
 import { padPauliSum } from "@/lib/quantum/observable/pauli-word";
-import type { PreparedObservable, PreparedState, SamplingOptions } from "@/lib/quantum/sampling/sample-observable";
+import type {
+  PreparedObservable,
+  PreparedState,
+  SamplingOptions,
+} from "@/lib/quantum/sampling/sample-observable";
 
 /** jstat (statistics reference library) has no type declarations. */
 const jstat = createRequire(import.meta.url)("jstat") as {
@@ -22,13 +30,27 @@ export function pauliObservable(text: string, n: number): PreparedObservable & {
   return { kind: "pauli", sum, settings: groupQubitWise(sum) };
 }
 
-export function exactValue(prepared: PreparedState, obs: PreparedObservable & { kind: "pauli" }): number {
-  const v = prepared.kind === "statevector" ? pauliExpectationsOnState(prepared.state, obs.sum) : pauliExpectationsOnDensity(prepared.rho, obs.sum);
+export function exactValue(
+  prepared: PreparedState,
+  obs: PreparedObservable & { kind: "pauli" },
+): number {
+  const v =
+    prepared.kind === "statevector"
+      ? pauliExpectationsOnState(prepared.state, obs.sum)
+      : pauliExpectationsOnDensity(prepared.rho, obs.sum);
   return weightedTotal(obs.sum, v);
 }
 
 export function options(over: Partial<SamplingOptions>): SamplingOptions {
-  return { shots: 1000, targetPrecision: null, split: "optimal", readout: { e0: 0, e1: 0 }, mitigate: false, seed: 1, ...over };
+  return {
+    shots: 1000,
+    targetPrecision: null,
+    split: "optimal",
+    readout: { e0: 0, e1: 0 },
+    mitigate: false,
+    seed: 1,
+    ...over,
+  };
 }
 
 /** Pearson's χ² statistic of observed counts against expected probabilities. */

@@ -12,7 +12,11 @@ import type { GateApplication } from "@/lib/quantum/types";
 import { layeredAnsatz } from "../../../bench/ansatz";
 import { makeRng, randomGate } from "./support/random-gates";
 
-function run(n: number, gates: GateApplication[], seed: number): { re: Float64Array; im: Float64Array } {
+function run(
+  n: number,
+  gates: GateApplication[],
+  seed: number,
+): { re: Float64Array; im: Float64Array } {
   const rng = makeRng(seed);
   const re = new Float64Array(2 ** n).map(() => rng.float() - 0.5);
   const im = new Float64Array(2 ** n).map(() => rng.float() - 0.5);
@@ -27,7 +31,9 @@ describe("fusion", () => {
         const rng = makeRng(seed);
         const n = rng.int(1, 6);
         // few qubits + many gates: lots of pending products, merges into earlier blocks, 3q barriers
-        const gates = Array.from({ length: rng.int(1, 25) }, () => randomGate(rng, n, rng.float() < 0.1 ? 3 : 2));
+        const gates = Array.from({ length: rng.int(1, 25) }, () =>
+          randomGate(rng, n, rng.float() < 0.1 ? 3 : 2),
+        );
         const fused = fuseGates(gates);
         expect(fused.every((g) => g.qubits.length <= 3)).toBe(true);
         const a = run(n, gates, seed);
@@ -47,7 +53,9 @@ describe("fusion", () => {
     const fused = circuitGates(layeredAnsatz(n, layers));
     // per layer: cx(0,1) absorbs both rotations (dense 2q), cx(q,q+1) absorbs qubit q+1's → two-block
     expect(fused.length).toBe(layers * (n - 1));
-    const twoBlock = fused.filter((g) => g.qubits.length === 2 && classifyMatrix(g.matrix, 4).blockOperand >= 0);
+    const twoBlock = fused.filter(
+      (g) => g.qubits.length === 2 && classifyMatrix(g.matrix, 4).blockOperand >= 0,
+    );
     expect(twoBlock.length).toBe(layers * (n - 2));
   });
 
@@ -58,7 +66,11 @@ describe("fusion", () => {
     for (let i = 0; i < 6; i++) ccx.matrix[2 * (9 * i)] = 1;
     ccx.matrix[2 * (6 * 8 + 7)] = 1;
     ccx.matrix[2 * (7 * 8 + 6)] = 1;
-    const h: GateApplication = { name: "h", qubits: [g1.qubits[0]], matrix: Float64Array.of(Math.SQRT1_2, 0, Math.SQRT1_2, 0, Math.SQRT1_2, 0, -Math.SQRT1_2, 0) };
+    const h: GateApplication = {
+      name: "h",
+      qubits: [g1.qubits[0]],
+      matrix: Float64Array.of(Math.SQRT1_2, 0, Math.SQRT1_2, 0, Math.SQRT1_2, 0, -Math.SQRT1_2, 0),
+    };
     const out = fuseGates([g1, ccx, h]);
     expect(out.map((g) => g.name)).toEqual([g1.name, "ccx", "h"]);
   });

@@ -36,13 +36,32 @@ function m4(entries: [number, number, number, number][]): Float64Array {
   }
   return m;
 }
-const CX = m4([[0, 0, 1, 0], [1, 1, 1, 0], [2, 3, 1, 0], [3, 2, 1, 0]]);
-const CZ = m4([[0, 0, 1, 0], [1, 1, 1, 0], [2, 2, 1, 0], [3, 3, -1, 0]]);
-const SWAP = m4([[0, 0, 1, 0], [1, 2, 1, 0], [2, 1, 1, 0], [3, 3, 1, 0]]);
+const CX = m4([
+  [0, 0, 1, 0],
+  [1, 1, 1, 0],
+  [2, 3, 1, 0],
+  [3, 2, 1, 0],
+]);
+const CZ = m4([
+  [0, 0, 1, 0],
+  [1, 1, 1, 0],
+  [2, 2, 1, 0],
+  [3, 3, -1, 0],
+]);
+const SWAP = m4([
+  [0, 0, 1, 0],
+  [1, 2, 1, 0],
+  [2, 1, 1, 0],
+  [3, 3, 1, 0],
+]);
 
 describe("structure detection (textbook gates, N&C §4.2–4.3)", () => {
   it("classifies x, h, t, cx, cz, swap", () => {
-    expect(classifyMatrix(X, 2)).toMatchObject({ permutation: true, diagonal: false, active: [0, 1] });
+    expect(classifyMatrix(X, 2)).toMatchObject({
+      permutation: true,
+      diagonal: false,
+      active: [0, 1],
+    });
     expect(classifyMatrix(H, 2)).toMatchObject({ permutation: false, diagonal: false, real: true });
     expect(classifyMatrix(T, 2)).toMatchObject({ diagonal: true, active: [1] });
     expect(classifyMatrix(CX, 4)).toMatchObject({ permutation: true, active: [2, 3] }); // control=1 subspace only
@@ -53,14 +72,26 @@ describe("structure detection (textbook gates, N&C §4.2–4.3)", () => {
   it("recognises a cx fused with a gate on its target as block-diagonal in the control's basis", () => {
     // cx·(I ⊗ H) = |0⟩⟨0| ⊗ H + |1⟩⟨1| ⊗ XH
     const m = m4([
-      [0, 0, s, 0], [0, 1, s, 0], [1, 0, s, 0], [1, 1, -s, 0],
-      [2, 2, s, 0], [2, 3, -s, 0], [3, 2, s, 0], [3, 3, s, 0],
+      [0, 0, s, 0],
+      [0, 1, s, 0],
+      [1, 0, s, 0],
+      [1, 1, -s, 0],
+      [2, 2, s, 0],
+      [2, 3, -s, 0],
+      [3, 2, s, 0],
+      [3, 3, s, 0],
     ]);
     expect(classifyMatrix(m, 4).blockOperand).toBe(0);
     // the same with the operands swapped: block-diagonal in the SECOND operand's basis
     const swapped = m4([
-      [0, 0, s, 0], [2, 0, s, 0], [0, 2, s, 0], [2, 2, -s, 0],
-      [1, 1, s, 0], [1, 3, -s, 0], [3, 1, s, 0], [3, 3, s, 0],
+      [0, 0, s, 0],
+      [2, 0, s, 0],
+      [0, 2, s, 0],
+      [2, 2, -s, 0],
+      [1, 1, s, 0],
+      [1, 3, -s, 0],
+      [3, 1, s, 0],
+      [3, 3, s, 0],
     ]);
     expect(classifyMatrix(swapped, 4).blockOperand).toBe(1);
     expect(classifyMatrix(CX, 4).blockOperand).toBe(0);
@@ -70,45 +101,58 @@ describe("structure detection (textbook gates, N&C §4.2–4.3)", () => {
 describe("specialised kernels agree with the dense path (fast-check, seed 20240611)", () => {
   it("every gate kind, 1–3 qubits, random operand order, 1–9-qubit registers", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 2 ** 30 }), fc.constantFrom(...GATE_KINDS), (seed, kind) => {
-        const rng = makeRng(seed);
-        const n = rng.int(1, 9);
-        const k = rng.int(1, Math.min(3, n));
-        const qubits = randomQubits(rng, n, k);
-        const m = randomMatrix(rng, 1 << k, kind);
-        const a = randomAmplitudes(rng, n);
-        const b = { re: a.re.slice(), im: a.im.slice() };
-        applyToAmplitudes(a.re, a.im, qubits, m);
-        applyDense(b.re, b.im, qubits, m);
-        expect(maxDiff(a.re, b.re)).toBeLessThan(1e-12);
-        expect(maxDiff(a.im, b.im)).toBeLessThan(1e-12);
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 2 ** 30 }),
+        fc.constantFrom(...GATE_KINDS),
+        (seed, kind) => {
+          const rng = makeRng(seed);
+          const n = rng.int(1, 9);
+          const k = rng.int(1, Math.min(3, n));
+          const qubits = randomQubits(rng, n, k);
+          const m = randomMatrix(rng, 1 << k, kind);
+          const a = randomAmplitudes(rng, n);
+          const b = { re: a.re.slice(), im: a.im.slice() };
+          applyToAmplitudes(a.re, a.im, qubits, m);
+          applyDense(b.re, b.im, qubits, m);
+          expect(maxDiff(a.re, b.re)).toBeLessThan(1e-12);
+          expect(maxDiff(a.im, b.im)).toBeLessThan(1e-12);
+        },
+      ),
       { seed: 20240611, numRuns: 400 },
     );
   });
 
   it("the one-pass 1-qubit DM kernel (U ⊗ conj U) equals the two-pass form, and UρU† of a pure state is |Uψ⟩⟨Uψ|", () => {
     fc.assert(
-      fc.property(fc.integer({ min: 1, max: 2 ** 30 }), fc.constantFrom(...GATE_KINDS), (seed, kind) => {
-        const rng = makeRng(seed);
-        const n = rng.int(1, 4);
-        const k = rng.int(1, Math.min(2, n));
-        const qubits = randomQubits(rng, n, k);
-        const m = randomMatrix(rng, 1 << k, kind);
-        const psi = randomAmplitudes(rng, n);
-        const rho = densityFromState({ n, ...psi });
-        applyUnitaryDM(rho, qubits, m);
-        // two passes by hand on the vectorised ρ: U on the row bits, conj(U) on the column bits
-        const two = densityFromState({ n, ...psi });
-        applyDense(two.re, two.im, qubits.map((q) => q + n), m);
-        applyDense(two.re, two.im, qubits, conjugateMatrix(m));
-        applyDense(psi.re, psi.im, qubits, m);
-        const pure = densityFromState({ n, ...psi });
-        expect(maxDiff(rho.re, two.re)).toBeLessThan(1e-12);
-        expect(maxDiff(rho.im, two.im)).toBeLessThan(1e-12);
-        expect(maxDiff(rho.re, pure.re)).toBeLessThan(1e-12);
-        expect(maxDiff(rho.im, pure.im)).toBeLessThan(1e-12);
-      }),
+      fc.property(
+        fc.integer({ min: 1, max: 2 ** 30 }),
+        fc.constantFrom(...GATE_KINDS),
+        (seed, kind) => {
+          const rng = makeRng(seed);
+          const n = rng.int(1, 4);
+          const k = rng.int(1, Math.min(2, n));
+          const qubits = randomQubits(rng, n, k);
+          const m = randomMatrix(rng, 1 << k, kind);
+          const psi = randomAmplitudes(rng, n);
+          const rho = densityFromState({ n, ...psi });
+          applyUnitaryDM(rho, qubits, m);
+          // two passes by hand on the vectorised ρ: U on the row bits, conj(U) on the column bits
+          const two = densityFromState({ n, ...psi });
+          applyDense(
+            two.re,
+            two.im,
+            qubits.map((q) => q + n),
+            m,
+          );
+          applyDense(two.re, two.im, qubits, conjugateMatrix(m));
+          applyDense(psi.re, psi.im, qubits, m);
+          const pure = densityFromState({ n, ...psi });
+          expect(maxDiff(rho.re, two.re)).toBeLessThan(1e-12);
+          expect(maxDiff(rho.im, two.im)).toBeLessThan(1e-12);
+          expect(maxDiff(rho.re, pure.re)).toBeLessThan(1e-12);
+          expect(maxDiff(rho.im, pure.im)).toBeLessThan(1e-12);
+        },
+      ),
       { seed: 77, numRuns: 150 },
     );
   });

@@ -19,7 +19,9 @@ const TOL = 1e-10;
 function referenceState(circuit: Circuit): Matrix {
   const n = circuit.numQubits;
   const fulls: Matrix[] = [];
-  for (const op of circuit.ops) if (op.kind === "gate") for (const p of op.parts) fulls.push(fullOperator(p.matrix, p.qubits, n));
+  for (const op of circuit.ops)
+    if (op.kind === "gate")
+      for (const p of op.parts) fulls.push(fullOperator(p.matrix, p.qubits, n));
   if (n <= 4) {
     let u = math.identity(1 << n) as Matrix;
     for (const f of fulls) u = math.multiply(f, u) as Matrix;
@@ -41,8 +43,14 @@ describe("statevector vs mathjs dense reference (independent library)", () => {
         const ref = referenceState(circuit);
         const fused = simulateStatevector(circuit);
         const plain = simulateStatevector(circuit, { fuse: false });
-        expect({ seed, fused: stateDistance(fused.re, fused.im, ref, n) < TOL }).toEqual({ seed, fused: true });
-        expect({ seed, plain: stateDistance(plain.re, plain.im, ref, n) < TOL }).toEqual({ seed, plain: true });
+        expect({ seed, fused: stateDistance(fused.re, fused.im, ref, n) < TOL }).toEqual({
+          seed,
+          fused: true,
+        });
+        expect({ seed, plain: stateDistance(plain.re, plain.im, ref, n) < TOL }).toEqual({
+          seed,
+          plain: true,
+        });
         expect(Math.abs(normSquared(fused) - 1)).toBeLessThan(1e-12);
       }
     }, 60_000);

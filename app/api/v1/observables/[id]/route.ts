@@ -12,7 +12,8 @@ export const GET = v1Route<{ id: string }>(async (_req, { org, params }) =>
 export const DELETE = v1Route<{ id: string }>(
   async (_req, { org, params }) => {
     await getObservableOrThrow(org.id, params.id);
-    if (!(await deleteObservable(org.id, params.id))) throw notFound("No saved observable with this id in this organisation.");
+    if (!(await deleteObservable(org.id, params.id)))
+      throw notFound("No saved observable with this id in this organisation.");
     return new Response(null, { status: 204 });
   },
   { role: "member" },

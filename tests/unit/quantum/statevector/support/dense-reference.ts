@@ -24,7 +24,9 @@ export function reverseBits(i: number, n: number): number {
 /** An interleaved re/im Float64Array d×d as a mathjs complex matrix. */
 export function toMath(m: Float64Array, d: number): Matrix {
   return math.matrix(
-    Array.from({ length: d }, (_, r) => Array.from({ length: d }, (_, c) => math.complex(m[2 * (r * d + c)], m[2 * (r * d + c) + 1]))),
+    Array.from({ length: d }, (_, r) =>
+      Array.from({ length: d }, (_, c) => math.complex(m[2 * (r * d + c)], m[2 * (r * d + c) + 1])),
+    ),
   );
 }
 
@@ -42,7 +44,11 @@ export function fullOperator(u: Float64Array, qubits: readonly number[], n: numb
     label[T] = L;
   }
   const src = K.toArray() as unknown as Complex[][];
-  return math.matrix(Array.from({ length: D }, (_, r) => Array.from({ length: D }, (_, c) => math.complex(src[label[r]][label[c]]))));
+  return math.matrix(
+    Array.from({ length: D }, (_, r) =>
+      Array.from({ length: D }, (_, c) => math.complex(src[label[r]][label[c]])),
+    ),
+  );
 }
 
 /** |0…0⟩ as a 2^n × 1 column. */
@@ -53,7 +59,11 @@ export function zeroColumn(n: number): Matrix {
 /** |0…0⟩⟨0…0|. */
 export function zeroDensity(n: number): Matrix {
   const D = 1 << n;
-  return math.matrix(Array.from({ length: D }, (_, r) => Array.from({ length: D }, (_, c) => math.complex(r === 0 && c === 0 ? 1 : 0, 0))));
+  return math.matrix(
+    Array.from({ length: D }, (_, r) =>
+      Array.from({ length: D }, (_, c) => math.complex(r === 0 && c === 0 ? 1 : 0, 0)),
+    ),
+  );
 }
 
 export function dagger(a: Matrix): Matrix {
@@ -86,7 +96,12 @@ export function stateDistance(re: Float64Array, im: Float64Array, ref: Matrix, n
 }
 
 /** Largest |engine − reference| over a density matrix (both indices bit-reversed). */
-export function densityDistance(re: Float64Array, im: Float64Array, ref: Matrix, n: number): number {
+export function densityDistance(
+  re: Float64Array,
+  im: Float64Array,
+  ref: Matrix,
+  n: number,
+): number {
   const d = 1 << n;
   let worst = 0;
   for (let r = 0; r < d; r++)

@@ -33,7 +33,8 @@ export function randomUnitary(rng: Rng, d: number): Float64Array {
     const im = Array.from({ length: d }, () => gaussian(rng));
     for (const prev of cols) {
       // ⟨prev|v⟩ = Σ conj(prev) v
-      let pr = 0, pi = 0;
+      let pr = 0,
+        pi = 0;
       for (let i = 0; i < d; i++) {
         pr += prev.re[i] * re[i] + prev.im[i] * im[i];
         pi += prev.re[i] * im[i] - prev.im[i] * re[i];
@@ -62,8 +63,27 @@ function phase(rng: Rng): [number, number] {
   return [Math.cos(a), Math.sin(a)];
 }
 
-export type GateKind = "dense" | "real" | "diagonal" | "phase1" | "permutation" | "swap" | "controlled" | "twoBlock" | "identity";
-export const GATE_KINDS: GateKind[] = ["dense", "real", "diagonal", "phase1", "permutation", "swap", "controlled", "twoBlock", "identity"];
+export type GateKind =
+  | "dense"
+  | "real"
+  | "diagonal"
+  | "phase1"
+  | "permutation"
+  | "swap"
+  | "controlled"
+  | "twoBlock"
+  | "identity";
+export const GATE_KINDS: GateKind[] = [
+  "dense",
+  "real",
+  "diagonal",
+  "phase1",
+  "permutation",
+  "swap",
+  "controlled",
+  "twoBlock",
+  "identity",
+];
 
 /** A random d×d matrix of the given structural kind (always unitary). */
 export function randomMatrix(rng: Rng, d: number, kind: GateKind): Float64Array {
@@ -80,7 +100,8 @@ export function randomMatrix(rng: Rng, d: number, kind: GateKind): Float64Array 
       for (let i = 0; i < d; i++) set(i, i, 1, 0);
       let out = m;
       for (let s = 0; s < d; s++) {
-        const a = rng.int(0, d - 1), b = rng.int(0, d - 1);
+        const a = rng.int(0, d - 1),
+          b = rng.int(0, d - 1);
         if (a === b) continue;
         const t = 2 * Math.PI * rng.float();
         const rot = new Float64Array(2 * d * d);
@@ -132,7 +153,9 @@ export function randomMatrix(rng: Rng, d: number, kind: GateKind): Float64Array 
       // identity except a random unitary block on the last two local states (control bits = 1)
       for (let i = 0; i < d - 2; i++) set(i, i, 1, 0);
       const u = randomUnitary(rng, 2);
-      for (let r = 0; r < 2; r++) for (let c = 0; c < 2; c++) set(d - 2 + r, d - 2 + c, u[2 * (2 * r + c)], u[2 * (2 * r + c) + 1]);
+      for (let r = 0; r < 2; r++)
+        for (let c = 0; c < 2; c++)
+          set(d - 2 + r, d - 2 + c, u[2 * (2 * r + c)], u[2 * (2 * r + c) + 1]);
       return m;
     }
     case "twoBlock": {
@@ -143,8 +166,12 @@ export function randomMatrix(rng: Rng, d: number, kind: GateKind): Float64Array 
       const bit = d === 4 && rng.float() < 0.5 ? 1 : h; // local-index bit of the selector operand
       for (let sel = 0; sel < 2; sel++) {
         const u = randomUnitary(rng, h);
-        const rows = Array.from({ length: d }, (_, i) => i).filter((i) => ((i & bit) !== 0) === (sel === 1));
-        for (let r = 0; r < h; r++) for (let c = 0; c < h; c++) set(rows[r], rows[c], u[2 * (r * h + c)], u[2 * (r * h + c) + 1]);
+        const rows = Array.from({ length: d }, (_, i) => i).filter(
+          (i) => ((i & bit) !== 0) === (sel === 1),
+        );
+        for (let r = 0; r < h; r++)
+          for (let c = 0; c < h; c++)
+            set(rows[r], rows[c], u[2 * (r * h + c)], u[2 * (r * h + c) + 1]);
       }
       return m;
     }
@@ -196,7 +223,9 @@ export function randomCircuit(rng: Rng, n: number, opCount: number, nonUnitary =
     const parts: GateApplication[] = [];
     const partCount = rng.int(1, 2);
     for (let p = 0; p < partCount; p++) {
-      const sub = randomQubits(rng, opQubits.length, rng.int(1, opQubits.length)).map((j) => opQubits[j]);
+      const sub = randomQubits(rng, opQubits.length, rng.int(1, opQubits.length)).map(
+        (j) => opQubits[j],
+      );
       const kind = GATE_KINDS[rng.int(0, GATE_KINDS.length - 1)];
       parts.push({ name: kind, qubits: sub, matrix: randomMatrix(rng, 1 << sub.length, kind) });
     }

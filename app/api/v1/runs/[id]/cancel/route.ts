@@ -4,6 +4,7 @@ import { cancelRunForOrg } from "@/lib/runs/cancel-run";
 import { toRunView } from "@/lib/runs/serialize";
 
 export const POST = v1Route<{ id: string }>(
-  async (_req, { org, params }) => Response.json(toRunView(await cancelRunForOrg(org.id, params.id))),
+  async (_req, { org, params }) =>
+    Response.json(toRunView(await cancelRunForOrg(org.id, params.id))),
   { role: "member" },
 );
