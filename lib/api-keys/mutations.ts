@@ -28,18 +28,16 @@ export async function createKey(access: OrgAccess, input: CreateApiKeyInput) {
   const { key, prefix, hash } = generateApiKey();
   const id = crypto.randomUUID();
   await db.transaction(async (tx) => {
-    await tx
-      .insert(apiKeys)
-      .values({
-        id,
-        orgId: access.org.id,
-        name: input.name,
-        prefix,
-        hash,
-        role: input.role,
-        scope: input.scope,
-        createdById: access.userId,
-      });
+    await tx.insert(apiKeys).values({
+      id,
+      orgId: access.org.id,
+      name: input.name,
+      prefix,
+      hash,
+      role: input.role,
+      scope: input.scope,
+      createdById: access.userId,
+    });
     await recordAuditEvent(
       access.org.id,
       {

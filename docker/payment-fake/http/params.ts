@@ -69,11 +69,9 @@ export const int = (min = Number.MIN_SAFE_INTEGER, max = Number.MAX_SAFE_INTEGER
 
 /** A non-negative decimal number with up to 12 decimal places, kept as its string. */
 export const decimal = () =>
-  z
-    .string()
-    .refine((v) => /^\d+(\.\d{1,12})?$/.test(v), {
-      message: "Invalid decimal: must be a non-negative number with at most 12 decimal places.",
-    });
+  z.string().refine((v) => /^\d+(\.\d{1,12})?$/.test(v), {
+    message: "Invalid decimal: must be a non-negative number with at most 12 decimal places.",
+  });
 
 export const bool = () =>
   z.string().transform((v, ctx) => {
