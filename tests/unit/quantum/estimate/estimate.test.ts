@@ -323,7 +323,7 @@ describe("progress and cancellation", () => {
   it("progress starts at 0 ('parse'), is non-decreasing, throttled, and ends at 1 ('done')", async () => {
     const seen: [number, string, number][] = [];
     await estimate(
-      { ...big, shots: 2_000_000, seed: 1 },
+      { ...big, shots: 20_000_000, seed: 1 },
       { onProgress: (f, p) => seen.push([f, p, performance.now()]) },
     );
     expect(seen[0].slice(0, 2)).toEqual([0, "parse"]);
