@@ -86,7 +86,15 @@ export async function estimate(
     const span = work.span(k / grid.points.length, (k + 1) / grid.points.length, "simulate");
     const differentiate = req.gradient ? { program, params: grid.points[k] } : null;
     const ground = spectrum?.levels.ground ?? null;
-    const r = await evaluatePoint(circuit, obs, req, pointSeed(seed, k), span, differentiate, ground);
+    const r = await evaluatePoint(
+      circuit,
+      obs,
+      req,
+      pointSeed(seed, k),
+      span,
+      differentiate,
+      ground,
+    );
     if (best === null || r.exact < best.full.exact) best = { index: k, full: r };
     // Every point keeps only its summary (a 10,000-point grid must stay small).
     results.push({
@@ -125,7 +133,10 @@ async function spectrumOf(obs: PreparedObservable, progress: Progress): Promise<
 }
 
 /** The stored spectrum: extremes, the lowest levels and the top-level point's ground weight. */
-function spectrumResult(parts: SpectrumParts, weight: number | null): NonNullable<EstimateResult["spectrum"]> {
+function spectrumResult(
+  parts: SpectrumParts,
+  weight: number | null,
+): NonNullable<EstimateResult["spectrum"]> {
   const { lowest, ground } = parts.levels;
   return {
     min: parts.min,

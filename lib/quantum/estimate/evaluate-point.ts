@@ -11,12 +11,28 @@
  */
 import { simulateDensityMatrix } from "../density-matrix/simulate";
 import { hasStateNoise } from "../noise/validate";
-import { matrixExpectationOnDensity, matrixExpectationOnState } from "../observable/matrix-expectation";
-import { pauliExpectationsOnDensity, pauliExpectationsOnState, weightedTotal } from "../observable/pauli-expectation";
-import { sampleObservable, type PreparedObservable, type PreparedState, type SamplingOutcome } from "../sampling/sample-observable";
+import {
+  matrixExpectationOnDensity,
+  matrixExpectationOnState,
+} from "../observable/matrix-expectation";
+import {
+  pauliExpectationsOnDensity,
+  pauliExpectationsOnState,
+  weightedTotal,
+} from "../observable/pauli-expectation";
+import {
+  sampleObservable,
+  type PreparedObservable,
+  type PreparedState,
+  type SamplingOutcome,
+} from "../sampling/sample-observable";
 import type { ParsedProgram } from "../circuit";
 import { gradientAtPoint, type GradientResult } from "../gradient";
-import { groundWeightOnDensity, groundWeightOnState, type ComplexVector } from "../observable/lowest-levels";
+import {
+  groundWeightOnDensity,
+  groundWeightOnState,
+  type ComplexVector,
+} from "../observable/lowest-levels";
 import { simulateStatevector } from "../statevector/simulate";
 import type { Circuit } from "../types";
 import type { Progress } from "./progress";
@@ -37,12 +53,21 @@ export interface PointResult {
   sampleMs: number;
 }
 
-function valuesOf(state: PreparedState, obs: PreparedObservable): { value: number; terms: Float64Array | null } {
+function valuesOf(
+  state: PreparedState,
+  obs: PreparedObservable,
+): { value: number; terms: Float64Array | null } {
   if (obs.kind === "matrix") {
-    const value = state.kind === "statevector" ? matrixExpectationOnState(state.state, obs.matrix) : matrixExpectationOnDensity(state.rho, obs.matrix);
+    const value =
+      state.kind === "statevector"
+        ? matrixExpectationOnState(state.state, obs.matrix)
+        : matrixExpectationOnDensity(state.rho, obs.matrix);
     return { value, terms: null };
   }
-  const terms = state.kind === "statevector" ? pauliExpectationsOnState(state.state, obs.sum) : pauliExpectationsOnDensity(state.rho, obs.sum);
+  const terms =
+    state.kind === "statevector"
+      ? pauliExpectationsOnState(state.state, obs.sum)
+      : pauliExpectationsOnDensity(state.rho, obs.sum);
   return { value: weightedTotal(obs.sum, terms), terms };
 }
 
@@ -71,7 +96,10 @@ export async function evaluatePoint(
       const pure = !circuit.hasMidCircuitMeasurement && !circuit.hasReset;
       const idealState: PreparedState = pure
         ? { kind: "statevector", state: simulateStatevector(circuit, { signal: progress.signal }) }
-        : { kind: "density_matrix", rho: simulateDensityMatrix(circuit, undefined, { signal: progress.signal }) };
+        : {
+            kind: "density_matrix",
+            rho: simulateDensityMatrix(circuit, undefined, { signal: progress.signal }),
+          };
       ideal = valuesOf(idealState, obs).value;
     }
   }
@@ -96,7 +124,11 @@ export async function evaluatePoint(
   if (wantShots) {
     const smp = progress.span(0.5, differentiate ? 0.6 : 1, "sample");
     smp.report(0);
-    sampling = await sampleObservable(state, obs, { ...samplingOptions, seed, tick: (f) => smp.tick(f) });
+    sampling = await sampleObservable(state, obs, {
+      ...samplingOptions,
+      seed,
+      tick: (f) => smp.tick(f),
+    });
   }
   let gradient: GradientResult | null = null;
   let gradientShots = 0;

@@ -93,7 +93,11 @@ export function normalise(re: Float64Array, im: Float64Array): number {
 }
 
 /** w ← w − Σ_i (v_i† w) v_i over the stored basis, done twice for stability. */
-export function reorthogonalise(basis: { re: Float64Array; im: Float64Array }[], wRe: Float64Array, wIm: Float64Array): void {
+export function reorthogonalise(
+  basis: { re: Float64Array; im: Float64Array }[],
+  wRe: Float64Array,
+  wIm: Float64Array,
+): void {
   for (let pass = 0; pass < 2; pass++) {
     for (const v of basis) {
       let pr = 0;
@@ -110,14 +114,23 @@ export function reorthogonalise(basis: { re: Float64Array; im: Float64Array }[],
   }
 }
 
-export async function lanczosExtremes(sum: PauliSum, opts: LanczosOptions = {}): Promise<LanczosResult> {
+export async function lanczosExtremes(
+  sum: PauliSum,
+  opts: LanczosOptions = {},
+): Promise<LanczosResult> {
   const n = sum.numQubits;
   if (n > MAX_LANCZOS_QUBITS) {
-    throw new EngineError("too_large", `the exact spectrum is computed for at most ${MAX_LANCZOS_QUBITS} qubits (this observable has ${n})`);
+    throw new EngineError(
+      "too_large",
+      `the exact spectrum is computed for at most ${MAX_LANCZOS_QUBITS} qubits (this observable has ${n})`,
+    );
   }
   const op = new PauliOperator(sum);
   const d = op.dim;
-  const scale = Math.max(1, sum.terms.reduce((s, t) => s + Math.abs(t.coefficient), 0));
+  const scale = Math.max(
+    1,
+    sum.terms.reduce((s, t) => s + Math.abs(t.coefficient), 0),
+  );
   const tol = (opts.tol ?? 1e-9) * scale;
   const memCap = Math.max(8, Math.floor((256 * 1024 * 1024) / (16 * d)));
   const maxBasis = Math.min(d, opts.maxBasis ?? 160, memCap);
@@ -156,7 +169,14 @@ export async function lanczosExtremes(sum: PauliSum, opts: LanczosOptions = {}):
         const m = alpha.length;
         const rMin = invariant ? 0 : Math.abs(b * ritz.y.get(m - 1, 0));
         const rMax = invariant ? 0 : Math.abs(b * ritz.y.get(m - 1, m - 1));
-        best = { min: ritz.theta[0], max: ritz.theta[m - 1], iterations, converged: false, residualMin: rMin, residualMax: rMax };
+        best = {
+          min: ritz.theta[0],
+          max: ritz.theta[m - 1],
+          iterations,
+          converged: false,
+          residualMin: rMin,
+          residualMax: rMax,
+        };
         if (rMin <= tol && rMax <= tol) return { ...best, converged: true };
       }
       if (last) break;
@@ -181,5 +201,14 @@ export async function lanczosExtremes(sum: PauliSum, opts: LanczosOptions = {}):
     startRe = nRe;
     startIm = nIm;
   }
-  return best ?? { min: 0, max: 0, iterations, converged: false, residualMin: Infinity, residualMax: Infinity };
+  return (
+    best ?? {
+      min: 0,
+      max: 0,
+      iterations,
+      converged: false,
+      residualMin: Infinity,
+      residualMax: Infinity,
+    }
+  );
 }

@@ -15,7 +15,13 @@ import { EngineError } from "../errors";
 import { createRng, nextUniform } from "../sampling/rng";
 import type { PauliSum } from "../types";
 import type { HermitianEigen } from "./hermitian-eigen";
-import { MAX_LANCZOS_QUBITS, normalise, reorthogonalise, tridiagonalEigen, type Ritz } from "./lanczos";
+import {
+  MAX_LANCZOS_QUBITS,
+  normalise,
+  reorthogonalise,
+  tridiagonalEigen,
+  type Ritz,
+} from "./lanczos";
 import { PauliOperator } from "./pauli-operator";
 
 export interface ComplexVector {
@@ -94,7 +100,11 @@ async function lowestPair(
         ritz = tridiagonalEigen(alpha, beta);
         const m = alpha.length;
         const res = invariant ? 0 : Math.abs(b * ritz.y.get(m - 1, 0));
-        best = { theta: ritz.theta[0], vec: combine(basis, ritz, d), converged: res <= cfg.tol || found.length + m >= d };
+        best = {
+          theta: ritz.theta[0],
+          vec: combine(basis, ritz, d),
+          converged: res <= cfg.tol || found.length + m >= d,
+        };
         if (best.converged) return best;
       }
       if (last) break;
@@ -125,14 +135,23 @@ function combine(basis: ComplexVector[], ritz: Ritz, d: number): ComplexVector {
   return { re, im };
 }
 
-export async function lowestLevels(sum: PauliSum, opts: LowestLevelsOptions = {}): Promise<LowestLevels> {
+export async function lowestLevels(
+  sum: PauliSum,
+  opts: LowestLevelsOptions = {},
+): Promise<LowestLevels> {
   const n = sum.numQubits;
   if (n > MAX_LANCZOS_QUBITS) {
-    throw new EngineError("too_large", `the exact spectrum is computed for at most ${MAX_LANCZOS_QUBITS} qubits (this observable has ${n})`);
+    throw new EngineError(
+      "too_large",
+      `the exact spectrum is computed for at most ${MAX_LANCZOS_QUBITS} qubits (this observable has ${n})`,
+    );
   }
   const op = new PauliOperator(sum);
   const d = op.dim;
-  const scale = Math.max(1, sum.terms.reduce((s, t) => s + Math.abs(t.coefficient), 0));
+  const scale = Math.max(
+    1,
+    sum.terms.reduce((s, t) => s + Math.abs(t.coefficient), 0),
+  );
   const count = Math.min(opts.count ?? 4, d);
   const maxGround = opts.maxGround ?? 16;
   const memCap = Math.max(8, Math.floor((256 * 1024 * 1024) / (16 * d)) - maxGround);
@@ -151,7 +170,8 @@ export async function lowestLevels(sum: PauliSum, opts: LowestLevelsOptions = {}
   for (;;) {
     const k = found.length;
     const groundOpen = k > 0 && values[k - 1] <= values[0] + levelTol;
-    if (k >= d || (k >= count && !groundOpen) || (groundOpen && k >= maxGround && k >= count)) break;
+    if (k >= d || (k >= count && !groundOpen) || (groundOpen && k >= maxGround && k >= count))
+      break;
     const re = new Float64Array(d);
     const im = new Float64Array(d);
     for (let i = 0; i < d; i++) {
@@ -228,7 +248,15 @@ export function levelsOfEigen(eigen: HermitianEigen, count = 4): LowestLevels {
   const levelTol = LEVEL_TOL * scale;
   const ground: ComplexVector[] = [];
   for (let k = 0; k < d && v[k] <= v[0] + levelTol; k++) {
-    ground.push({ re: eigen.vecRe.subarray(k * d, (k + 1) * d), im: eigen.vecIm.subarray(k * d, (k + 1) * d) });
+    ground.push({
+      re: eigen.vecRe.subarray(k * d, (k + 1) * d),
+      im: eigen.vecIm.subarray(k * d, (k + 1) * d),
+    });
   }
-  return { lowest: Array.from(v.subarray(0, Math.min(count, d))), ground, levelTol, converged: true };
+  return {
+    lowest: Array.from(v.subarray(0, Math.min(count, d))),
+    ground,
+    levelTol,
+    converged: true,
+  };
 }

@@ -354,7 +354,13 @@ describe("progress and cancellation", () => {
 describe("spectrum.lowest and spectrum.groundWeight through the whole engine", () => {
   it("−Z0Z1 on |00⟩ and on H⊗I|00⟩: 2-fold ground level, weight 1 then ½ (hand-computed)", async () => {
     const run = (source: string, method: "statevector" | "density_matrix" = "statevector") =>
-      estimate({ circuit: { format: "qasm2", source }, observable: { format: "pauli", terms: "-Z0 Z1" }, shots: 0, seed: 1, method });
+      estimate({
+        circuit: { format: "qasm2", source },
+        observable: { format: "pauli", terms: "-Z0 Z1" },
+        shots: 0,
+        seed: 1,
+        method,
+      });
     const head = 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\n';
     const a = await run(head);
     expect(a.spectrum!.lowest!.map((v) => Math.round(v * 1e9) / 1e9)).toEqual([-1, -1, 1, 1]);

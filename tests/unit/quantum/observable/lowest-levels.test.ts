@@ -52,7 +52,8 @@ function denseReference(re: Float64Array, im: Float64Array, d: number, levelTol:
     weight: (s) =>
       groundCols.reduce((acc, col) => {
         let dot = 0;
-        for (let i = 0; i < d; i++) dot += vecs.get(i, col) * s.re[i] + vecs.get(i + d, col) * s.im[i];
+        for (let i = 0; i < d; i++)
+          dot += vecs.get(i, col) * s.re[i] + vecs.get(i + d, col) * s.im[i];
         return acc + dot * dot;
       }, 0),
   };
@@ -81,7 +82,11 @@ function pauliDense(sum: PauliSum): { re: Float64Array; im: Float64Array; d: num
 
 const pauli = (text: string, n: number) => padPauliSum(parsePauliSum(text), n);
 
-async function checkPauli(sum: PauliSum, states: StateVector[], opts: Parameters<typeof lowestLevels>[1] = {}) {
+async function checkPauli(
+  sum: PauliSum,
+  states: StateVector[],
+  opts: Parameters<typeof lowestLevels>[1] = {},
+) {
   const levels = await lowestLevels(sum, opts);
   const { re, im, d } = pauliDense(sum);
   const ref = denseReference(re, im, d, levels.levelTol);
@@ -97,20 +102,28 @@ async function checkPauli(sum: PauliSum, states: StateVector[], opts: Parameters
 }
 
 describe("lowest levels of Pauli sums (Lanczos with deflation) vs dense ml-matrix", () => {
-  it("random Pauli sums, n = 1…6: 4 lowest eigenvalues and ground weight to 1e-9", { timeout: 30_000 }, async () => {
-    const rand = mulberry32(2024);
-    for (let trial = 0; trial < 12; trial++) {
-      const n = 1 + (trial % 6);
-      const sum = pauli(randomPauliText(n, 2 + Math.floor(rand() * 12), rand), n);
-      await checkPauli(sum, [randomState(n, rand), randomState(n, rand)]);
-    }
-  });
+  it(
+    "random Pauli sums, n = 1…6: 4 lowest eigenvalues and ground weight to 1e-9",
+    { timeout: 30_000 },
+    async () => {
+      const rand = mulberry32(2024);
+      for (let trial = 0; trial < 12; trial++) {
+        const n = 1 + (trial % 6);
+        const sum = pauli(randomPauliText(n, 2 + Math.floor(rand() * 12), rand), n);
+        await checkPauli(sum, [randomState(n, rand), randomState(n, rand)]);
+      }
+    },
+  );
 
-  it("restarts (basis capped at 12 vectors) reach the same levels and weights", { timeout: 30_000 }, async () => {
-    const rand = mulberry32(31);
-    const sum = pauli(randomPauliText(6, 14, rand), 6);
-    await checkPauli(sum, [randomState(6, rand)], { maxBasis: 12, maxRestarts: 400 });
-  });
+  it(
+    "restarts (basis capped at 12 vectors) reach the same levels and weights",
+    { timeout: 30_000 },
+    async () => {
+      const rand = mulberry32(31);
+      const sum = pauli(randomPauliText(6, 14, rand), 6);
+      await checkPauli(sum, [randomState(6, rand)], { maxBasis: 12, maxRestarts: 400 });
+    },
+  );
 
   it("two-qubit Heisenberg X0X1 + Y0Y1 + Z0Z1: singlet −3, 3-fold triplet +1 (textbook, value from memory)", async () => {
     const rand = mulberry32(5);
@@ -124,7 +137,10 @@ describe("lowest levels of Pauli sums (Lanczos with deflation) vs dense ml-matri
 
   it("−Z0Z1 has a 2-fold ground level: weight counts the whole ground space", async () => {
     const rand = mulberry32(6);
-    const levels = await checkPauli(pauli("-Z0 Z1", 3), [randomState(3, rand), randomState(3, rand)]);
+    const levels = await checkPauli(pauli("-Z0 Z1", 3), [
+      randomState(3, rand),
+      randomState(3, rand),
+    ]);
     expect(levels.ground!.length).toBe(4); // ±1 on |00⟩, |11⟩ times the free qubit 2
     expect(levels.lowest.map((v) => Math.round(v * 1e9) / 1e9)).toEqual([-1, -1, -1, -1]);
     const zero: StateVector = { n: 3, re: new Float64Array(8), im: new Float64Array(8) };
@@ -144,14 +160,24 @@ describe("lowest levels of Pauli sums (Lanczos with deflation) vs dense ml-matri
     const b = randomState(4, rand);
     const ra = densityFromState(a);
     const rb = densityFromState(b);
-    const rho = { n: 4, re: ra.re.map((v, i) => 0.3 * v + 0.7 * rb.re[i]), im: ra.im.map((v, i) => 0.3 * v + 0.7 * rb.im[i]) };
+    const rho = {
+      n: 4,
+      re: ra.re.map((v, i) => 0.3 * v + 0.7 * rb.re[i]),
+      im: ra.im.map((v, i) => 0.3 * v + 0.7 * rb.im[i]),
+    };
     const { re, im, d } = pauliDense(sum);
     const ref = denseReference(re, im, d, levels.levelTol);
-    expect(Math.abs(groundWeightOnDensity(levels.ground!, rho) - (0.3 * ref.weight(a) + 0.7 * ref.weight(b)))).toBeLessThan(1e-9);
+    expect(
+      Math.abs(
+        groundWeightOnDensity(levels.ground!, rho) - (0.3 * ref.weight(a) + 0.7 * ref.weight(b)),
+      ),
+    ).toBeLessThan(1e-9);
   });
 
   it("periodic Heisenberg ring of 4 sites, Σ XX + YY + ZZ: ground energy −8, non-degenerate (value from memory)", async () => {
-    const bonds = [0, 1, 2, 3].map((i) => `X${i} X${(i + 1) % 4} + Y${i} Y${(i + 1) % 4} + Z${i} Z${(i + 1) % 4}`);
+    const bonds = [0, 1, 2, 3].map(
+      (i) => `X${i} X${(i + 1) % 4} + Y${i} Y${(i + 1) % 4} + Z${i} Z${(i + 1) % 4}`,
+    );
     const levels = await lowestLevels(pauli(bonds.join(" + "), 4));
     expect(levels.lowest[0]).toBeCloseTo(-8, 9);
     expect(levels.ground!.length).toBe(1);
