@@ -2,12 +2,24 @@
  * The observable's exact extreme eigenvalues (when the engine computed them) and where
  * the run's values sit between them: every expectation value lies in [λmin, λmax]
  * (Rayleigh quotient bound, textbook fact), so ⟨A⟩ − λmin ≥ 0 is the gap to the ground
- * state — zero only when the state is a ground state.
+ * state level — zero only when the state lies in the ground space. Runs stored with the lowest
+ * levels also show the gap λ₁ − λ₀ between distinct levels (degeneracy named) and the
+ * state's weight in the whole ground space, ⟨ψ|P₀|ψ⟩ (Tr(P₀ρ) under noise).
  */
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Value } from "@/components/ui/value";
 import { linear } from "@/components/charts/scale";
 import type { EstimateResult } from "@/lib/swr/types";
+import { SMALL_GROUND_WEIGHT, degeneracyLabel, groundLevels } from "./spectrum-levels";
+
+function Item({ label, children }: { label: string; children: React.ReactNode }) {
+  return (
+    <div className="grid gap-0.5">
+      <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">{label}</dt>
+      <dd>{children}</dd>
+    </div>
+  );
+}
 
 function Marker({
   x,
@@ -46,18 +58,20 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
   const x = linear([s.min, s.max], [16, W - 16]);
   const clampX = (v: number) => Math.min(W - 16, Math.max(16, x(v)));
   const span = s.max - s.min;
+  const levels = groundLevels(s);
+  const weight = s.groundWeight;
   return (
     <Card>
       <CardHeader
         eyebrow="Spectrum"
         title="Ground state and gap"
-        description="Exact extreme eigenvalues of the observable; every ⟨A⟩ lies between them."
+        description="Exact eigenvalues of the observable: every ⟨A⟩ lies between λ₀ and λ max."
       />
       <CardBody className="grid gap-4">
         <dl className="grid grid-cols-2 gap-2 text-[13px]">
           <div className="grid gap-0.5">
             <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
-              λ min (ground)
+              λ₀ (ground)
             </dt>
             <dd>
               <Value value={s.min} tone="exact" />
@@ -69,9 +83,24 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
               <Value value={s.max} tone="exact" />
             </dd>
           </div>
+          {levels ? (
+            <Item label="Gap λ₁ − λ₀">
+              {levels.gap !== null ? (
+                <Value value={levels.gap} tone="exact" />
+              ) : (
+                <span className="text-xs text-ink-3">beyond the 4 lowest eigenvalues</span>
+              )}
+              <span className="block text-xs text-ink-3">{degeneracyLabel(levels)}</span>
+            </Item>
+          ) : null}
+          {weight !== undefined ? (
+            <Item label={hasNoise ? "Ground-space weight Tr(P₀ρ)" : "Ground-space weight ⟨ψ|P₀|ψ⟩"}>
+              <Value value={weight} tone={hasNoise ? "noisy" : "exact"} />
+            </Item>
+          ) : null}
           <div className="grid gap-0.5">
             <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
-              {hasNoise ? "Ideal" : "Exact"} − λ min
+              Above ground: {hasNoise ? "ideal" : "exact"} − λ₀
             </dt>
             <dd>
               <Value value={result.ideal.value - s.min} />
@@ -80,7 +109,7 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
           {hasNoise ? (
             <div className="grid gap-0.5">
               <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
-                Noisy − λ min
+                Above ground: noisy − λ₀
               </dt>
               <dd>
                 <Value value={result.exact.value - s.min} tone="noisy" />
@@ -89,7 +118,7 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
           ) : result.sampled ? (
             <div className="grid gap-0.5">
               <dt className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">
-                Sampled − λ min
+                Above ground: sampled − λ₀
               </dt>
               <dd>
                 <Value
@@ -101,6 +130,12 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
             </div>
           ) : null}
         </dl>
+        {weight !== undefined && weight < SMALL_GROUND_WEIGHT ? (
+          <p className="text-xs text-ink-2">
+            Caution: only {(weight * 100).toFixed(1)} % of the state lies in the ground space, so it
+            is far from a ground state even if its energy looks close.
+          </p>
+        ) : null}
         {span > 0 ? (
           <svg
             viewBox={`0 0 ${W} 60`}

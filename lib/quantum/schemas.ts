@@ -405,7 +405,28 @@ export const estimateResultSchema = z
       }),
     ),
     spectrum: z
-      .object({ min: z.number(), max: z.number() })
+      .object({
+        min: z.number(),
+        max: z.number(),
+        lowest: z
+          .array(z.number())
+          .optional()
+          .describe(
+            "The 4 lowest eigenvalues with multiplicity, ascending (fewer when the dimension is smaller); absent on runs stored before this field",
+          ),
+        groundDegeneracy: z
+          .int()
+          .optional()
+          .describe(
+            "Dimension of the lowest eigenspace (eigenvalues within 1e-8·max(1, scale) of the lowest count as one level; scale = Σ|c| for Pauli sums, max |λ| for matrices); absent when it is 16 or more for a Pauli sum",
+          ),
+        groundWeight: z
+          .number()
+          .optional()
+          .describe(
+            "Weight of the top-level point's state in the whole lowest eigenspace: ⟨ψ|P₀|ψ⟩, or Tr(P₀ρ) for the density-matrix method (noise included); 1 means a ground state. Absent when groundDegeneracy is",
+          ),
+      })
       .optional()
       .describe(
         "Exact extreme eigenvalues of the observable (matrix observables; Pauli sums on ≤ 16 qubits with at most 2^22 / 2^n distinct X/Y patterns)",

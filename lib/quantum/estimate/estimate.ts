@@ -4,14 +4,17 @@
  *
  * Order: validate (zod) → parse the circuit and the observable (sizes checked before any
  * state is allocated) → for each parameter point (one, or the sweep grid): bind, simulate,
- * exact values, sampling → spectrum (Lanczos for Pauli sums with n ≤ 16 whose matrix-vector
- * product stays within SPECTRUM_STEP_BUDGET, eigenvalues of a matrix observable). The main result describes the first grid point; with a sweep,
- * `sweep.points` lists every point. The seed is the request's or a fresh one, returned.
+ * exact values, sampling. The spectrum (Lanczos for Pauli sums with n ≤ 16 whose matrix-vector
+ * product stays within SPECTRUM_STEP_BUDGET, eigenvalues of a matrix observable) comes
+ * before the points: its ground-space basis gives each point's ground weight ⟨ψ|P₀|ψ⟩.
+ * With a sweep the top level describes the point of lowest exact value and `sweep.points`
+ * lists every point. The seed is the request's or a fresh one, returned.
  */
 import { parseProgram } from "../circuit";
 import { validateNoiseModel } from "../noise/validate";
 import { EngineError } from "../errors";
 import { SPECTRUM_STEP_BUDGET, lanczosExtremes, lanczosStepCost } from "../observable/lanczos";
+import { levelsOfEigen, lowestLevels, type LowestLevels } from "../observable/lowest-levels";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { sparseLabel } from "../observable/pauli-word";
 import { chooseSeed } from "../sampling/rng";
@@ -68,7 +71,12 @@ export async function estimate(
     obs.kind === "matrix" ||
     (n <= MAX_SPECTRUM_QUBITS && lanczosStepCost(obs.sum) <= SPECTRUM_STEP_BUDGET);
   const spectrumShare = obs.kind === "pauli" && wantSpectrum ? 0.1 : 0;
-  const work = root.span(0.02, 1 - spectrumShare);
+  const t1 = performance.now();
+  const spectrum = wantSpectrum
+    ? await spectrumOf(obs, root.span(0.02, 0.02 + spectrumShare, "spectrum"))
+    : undefined;
+  const spectrumMs = performance.now() - t1;
+  const work = root.span(0.02 + spectrumShare, 1);
   const results: PointResult[] = [];
   // With several points the top level describes the point of lowest exact value (ties: the
   // earliest), named in `sweep.topLevel`; only that point keeps its terms and histograms.
@@ -77,7 +85,16 @@ export async function estimate(
     const circuit = circuits ? circuits[0] : program.bind(grid.points[k]);
     const span = work.span(k / grid.points.length, (k + 1) / grid.points.length, "simulate");
     const differentiate = req.gradient ? { program, params: grid.points[k] } : null;
-    const r = await evaluatePoint(circuit, obs, req, pointSeed(seed, k), span, differentiate);
+    const ground = spectrum?.levels.ground ?? null;
+    const r = await evaluatePoint(
+      circuit,
+      obs,
+      req,
+      pointSeed(seed, k),
+      span,
+      differentiate,
+      ground,
+    );
     if (best === null || r.exact < best.full.exact) best = { index: k, full: r };
     // Every point keeps only its summary (a 10,000-point grid must stay small).
     results.push({
@@ -87,11 +104,6 @@ export async function estimate(
     });
   }
 
-  const t1 = performance.now();
-  const spectrum = wantSpectrum
-    ? await spectrumOf(obs, n, root.span(1 - spectrumShare, 1, "spectrum"))
-    : undefined;
-  const spectrumMs = performance.now() - t1;
   root.span(0, 1, "done").report(1, true);
   return assemble(req, obs, n, seed, grid, results, best!, spectrum, {
     parseMs,
@@ -101,18 +113,38 @@ export async function estimate(
   });
 }
 
-async function spectrumOf(
-  obs: PreparedObservable,
-  n: number,
-  progress: Progress,
-): Promise<{ min: number; max: number } | undefined> {
+interface SpectrumParts {
+  min: number;
+  max: number;
+  levels: LowestLevels;
+}
+
+async function spectrumOf(obs: PreparedObservable, progress: Progress): Promise<SpectrumParts> {
   if (obs.kind === "matrix") {
     const v = obs.eigen.values;
-    return { min: v[0], max: v[v.length - 1] };
+    return { min: v[0], max: v[v.length - 1], levels: levelsOfEigen(obs.eigen) };
   }
   progress.report(0);
-  const r = await lanczosExtremes(obs.sum, { tick: (f) => progress.tick(f) });
-  return { min: r.min, max: r.max };
+  const extremes = progress.span(0, 0.3);
+  const r = await lanczosExtremes(obs.sum, { tick: (f) => extremes.tick(f) });
+  const lower = progress.span(0.3, 1);
+  const levels = await lowestLevels(obs.sum, { tick: (f) => lower.tick(f) });
+  return { min: r.min, max: r.max, levels };
+}
+
+/** The stored spectrum: extremes, the lowest levels and the top-level point's ground weight. */
+function spectrumResult(
+  parts: SpectrumParts,
+  weight: number | null,
+): NonNullable<EstimateResult["spectrum"]> {
+  const { lowest, ground } = parts.levels;
+  return {
+    min: parts.min,
+    max: parts.max,
+    lowest,
+    ...(ground ? { groundDegeneracy: ground.length } : {}),
+    ...(ground && weight !== null ? { groundWeight: Math.min(1, Math.max(0, weight)) } : {}),
+  };
 }
 
 function assemble(
@@ -123,7 +155,7 @@ function assemble(
   grid: SweepGrid,
   results: PointResult[],
   best: { index: number; full: PointResult },
-  spectrum: { min: number; max: number } | undefined,
+  spectrum: SpectrumParts | undefined,
   timings: EstimateResult["timings"],
 ): EstimateResult {
   const main = best.full;
@@ -159,7 +191,7 @@ function assemble(
     timings,
   };
   if (s?.mitigated) result.mitigated = s.mitigated;
-  if (spectrum) result.spectrum = spectrum;
+  if (spectrum) result.spectrum = spectrumResult(spectrum, main.groundWeight);
   if (s?.plan) result.shotPlan = s.plan;
   const decomposition = obs.kind === "matrix" ? pauliDecomposition(obs.matrix) : null;
   if (decomposition) result.pauliDecomposition = decomposition;

@@ -28,6 +28,11 @@ import {
 } from "../sampling/sample-observable";
 import type { ParsedProgram } from "../circuit";
 import { gradientAtPoint, type GradientResult } from "../gradient";
+import {
+  groundWeightOnDensity,
+  groundWeightOnState,
+  type ComplexVector,
+} from "../observable/lowest-levels";
 import { simulateStatevector } from "../statevector/simulate";
 import type { Circuit } from "../types";
 import type { Progress } from "./progress";
@@ -42,6 +47,8 @@ export interface PointResult {
   gradient: GradientResult | null;
   /** Shots of the parameter-shifted circuits. */
   gradientShots: number;
+  /** ⟨ψ|P₀|ψ⟩ (Tr(P₀ρ) under noise) when the ground space is known. */
+  groundWeight: number | null;
   simulateMs: number;
   sampleMs: number;
 }
@@ -71,6 +78,7 @@ export async function evaluatePoint(
   seed: number,
   progress: Progress,
   differentiate: { program: ParsedProgram; params: Record<string, number> } | null = null,
+  ground: ComplexVector[] | null = null,
 ): Promise<PointResult> {
   const t0 = performance.now();
   const sim = progress.span(0, 0.5, "simulate");
@@ -96,6 +104,11 @@ export async function evaluatePoint(
     }
   }
   const exact = valuesOf(state, obs);
+  const groundWeight = ground
+    ? state.kind === "statevector"
+      ? groundWeightOnState(ground, state.state)
+      : groundWeightOnDensity(ground, state.rho)
+    : null;
   const simulateMs = performance.now() - t0;
   await sim.tick(1);
   const wantShots = req.shots > 0 || req.targetPrecision !== null;
@@ -141,6 +154,7 @@ export async function evaluatePoint(
   return {
     gradient,
     gradientShots,
+    groundWeight,
     ideal: ideal ?? exact.value,
     exact: exact.value,
     termValues: exact.terms,

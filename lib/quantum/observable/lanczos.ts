@@ -52,13 +52,13 @@ export interface LanczosResult {
   residualMax: number;
 }
 
-interface Ritz {
+export interface Ritz {
   theta: number[];
   /** Eigenvectors of T as columns (ascending θ). */
   y: Matrix;
 }
 
-function tridiagonalEigen(alpha: number[], beta: number[]): Ritz {
+export function tridiagonalEigen(alpha: number[], beta: number[]): Ritz {
   const m = alpha.length;
   const t = new Matrix(m, m);
   for (let i = 0; i < m; i++) {
@@ -79,7 +79,7 @@ function tridiagonalEigen(alpha: number[], beta: number[]): Ritz {
   return { theta: order.map((i) => vals[i]), y };
 }
 
-function normalise(re: Float64Array, im: Float64Array): number {
+export function normalise(re: Float64Array, im: Float64Array): number {
   let s = 0;
   for (let i = 0; i < re.length; i++) s += re[i] * re[i] + im[i] * im[i];
   const nrm = Math.sqrt(s);
@@ -93,7 +93,7 @@ function normalise(re: Float64Array, im: Float64Array): number {
 }
 
 /** w ← w − Σ_i (v_i† w) v_i over the stored basis, done twice for stability. */
-function reorthogonalise(
+export function reorthogonalise(
   basis: { re: Float64Array; im: Float64Array }[],
   wRe: Float64Array,
   wIm: Float64Array,

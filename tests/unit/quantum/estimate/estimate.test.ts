@@ -350,3 +350,45 @@ describe("progress and cancellation", () => {
     expect((await rejects(estimate({ ...big }, { signal: ctrl.signal }))).code).toBe("canceled");
   });
 });
+
+describe("spectrum.lowest and spectrum.groundWeight through the whole engine", () => {
+  it("−Z0Z1 on |00⟩ and on H⊗I|00⟩: 2-fold ground level, weight 1 then ½ (hand-computed)", async () => {
+    const run = (source: string, method: "statevector" | "density_matrix" = "statevector") =>
+      estimate({
+        circuit: { format: "qasm2", source },
+        observable: { format: "pauli", terms: "-Z0 Z1" },
+        shots: 0,
+        seed: 1,
+        method,
+      });
+    const head = 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\n';
+    const a = await run(head);
+    expect(a.spectrum!.lowest!.map((v) => Math.round(v * 1e9) / 1e9)).toEqual([-1, -1, 1, 1]);
+    expect(a.spectrum!.groundDegeneracy).toBe(2);
+    expect(a.spectrum!.groundWeight).toBeCloseTo(1, 12);
+    // (|00⟩ + |10⟩)/√2: half the weight on |00⟩ (ground), half on |10⟩ (excited).
+    const b = await run(`${head}h q[0];\n`, "density_matrix");
+    expect(b.spectrum!.groundWeight).toBeCloseTo(0.5, 12);
+    expect(estimateResultSchema.parse(b).spectrum!.groundWeight).toBeCloseTo(0.5, 12);
+  });
+
+  it("matrix observable diag(−1, 0, 0, 2) on |00⟩: lowest = the diagonal, weight 1 (hand-computed)", async () => {
+    const r = await estimate({
+      circuit: { format: "qasm2", source: 'OPENQASM 2.0;\ninclude "qelib1.inc";\nqreg q[2];\n' },
+      observable: {
+        format: "matrix",
+        real: [
+          [-1, 0, 0, 0],
+          [0, 0, 0, 0],
+          [0, 0, 0, 0],
+          [0, 0, 0, 2],
+        ],
+      },
+      shots: 0,
+      seed: 1,
+    });
+    expect(r.spectrum!.lowest!.map((v) => Math.round(v * 1e9) / 1e9 + 0)).toEqual([-1, 0, 0, 2]);
+    expect(r.spectrum!.groundDegeneracy).toBe(1);
+    expect(r.spectrum!.groundWeight).toBeCloseTo(1, 12);
+  });
+});
