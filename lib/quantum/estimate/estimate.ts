@@ -70,7 +70,7 @@ export async function estimate(
   const wantSpectrum =
     obs.kind === "matrix" ||
     (n <= MAX_SPECTRUM_QUBITS && lanczosStepCost(obs.sum) <= SPECTRUM_STEP_BUDGET);
-  const spectrumShare = obs.kind === "pauli" && wantSpectrum ? 0.1 : 0;
+  const spectrumShare = obs.kind === "pauli" && wantSpectrum ? 0.25 : 0;
   const t1 = performance.now();
   const spectrum = wantSpectrum
     ? await spectrumOf(obs, root.span(0.02, 0.02 + spectrumShare, "spectrum"))
