@@ -24,6 +24,7 @@
 import { randomBytes } from "node:crypto";
 import { mkdirSync, writeFileSync } from "node:fs";
 import { join } from "node:path";
+import { longRunRequest } from "../../integration/runs/support/requests";
 import { Client, backgroundLoad, type Submitted } from "./client";
 import { createNetwork, destroyNetwork, host, setLink } from "./netns";
 import { running, stopAll, type Proc } from "./processes";
@@ -57,27 +58,6 @@ const smallRun = (seed: number) => ({
   shots: 200,
   seed,
 });
-
-/** A few seconds of engine work on one core (~4 s at 64 points here): a noisy 8-qubit density-matrix sweep. */
-function longRun(points: number) {
-  const lines = [
-    "OPENQASM 3.0;",
-    'include "stdgates.inc";',
-    "input float[64] theta;",
-    "qubit[8] q;",
-  ];
-  for (let layer = 0; layer < 6; layer++) {
-    for (let i = 0; i < 8; i++) lines.push(`ry(theta) q[${i}];`);
-    for (let i = 0; i < 7; i++) lines.push(`cx q[${i}], q[${i + 1}];`);
-  }
-  return {
-    circuit: { format: "qasm3", source: lines.join("\n") },
-    observable: { format: "pauli", terms: "Z0 Z1 + 0.5 X3" },
-    method: "density_matrix",
-    noise: { depolarizing1q: 0.001, depolarizing2q: 0.01 },
-    sweep: { theta: Array.from({ length: points }, (_, i) => (i * Math.PI) / points) },
-  };
-}
 
 async function main(): Promise<number> {
   if (process.getuid?.() !== 0)
@@ -168,10 +148,11 @@ async function main(): Promise<number> {
     const row = await waitRun(s.runId, (st) => st === "succeeded", 90_000);
     return { ok: row?.status === "succeeded", ms: Date.now() - t0 };
   };
+  // Two runs of a few seconds each (a noisy 8-qubit density-matrix sweep of 64 points).
   const longPair = async (label: string) => {
     const pair = await Promise.all([
-      client.submit(`${label}-a`, longRun(64), "long"),
-      client.submit(`${label}-b`, longRun(64), "long"),
+      client.submit(`${label}-a`, longRunRequest(64), "long"),
+      client.submit(`${label}-b`, longRunRequest(64), "long"),
     ]);
     all.push(...pair);
     const rows = await Promise.all(
