@@ -7,10 +7,9 @@
  */
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from "node:fs";
 import { createKey } from "@/lib/api-keys/mutations";
-import { authorizeMember } from "@/lib/auth/guards";
 import { findUserByEmail } from "@/lib/auth/queries";
 import { hashApiKey, looksLikeApiKey } from "@/lib/orgs/api-key-format";
-import { findActiveApiKeyByHash } from "@/lib/orgs/queries";
+import { findActiveApiKeyByHash, getMembership } from "@/lib/orgs/queries";
 import { DEMO_USERS } from "./demo-data";
 
 export const DEMO_API_KEY_FILE = ".data/demo-api-key";
@@ -25,7 +24,10 @@ export async function ensureDemoApiKey(orgId: string): Promise<{ key: string; cr
   const user = member ? await findUserByEmail(member.email) : null;
   if (!user)
     throw new Error(`the demo member ${member?.email} is missing; seed the demo users first`);
-  const access = await authorizeMember(user.id, orgId, "member");
+  // Scripts run under plain Node: read the membership directly (the page/action guards need a request).
+  const membership = await getMembership(orgId, user.id);
+  if (!membership) throw new Error(`${user.id} is not a member of organisation ${orgId}`);
+  const access = { userId: user.id, ...membership };
   const { key } = await createKey(access, {
     name: "Demo key (README example)",
     role: "member",

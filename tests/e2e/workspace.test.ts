@@ -189,6 +189,7 @@ describe("run workspace", () => {
     // tests/support/three-spin-closed-form.ts).
     const csv = parseCsv((await download("Sweep (CSV)")).bytes.toString("utf8"));
     expect(csv[0]).toEqual([
+      "point",
       "theta",
       "ideal",
       "exact",
@@ -198,7 +199,7 @@ describe("run workspace", () => {
       "ci95_low",
       "ci95_high",
     ]);
-    const points = csv.slice(1).map((r) => ({ theta: Number(r[0]), exact: Number(r[2]) }));
+    const points = csv.slice(1).map((r) => ({ theta: Number(r[1]), exact: Number(r[3]) }));
     expect(points).toHaveLength(25);
     for (const p of points) expect(p.exact).toBeCloseTo(threeSpinEnergy(p.theta), 10);
     const best = points.reduce((a, b) => (b.exact < a.exact ? b : a));

@@ -28,7 +28,7 @@ import { organizations, runs, users } from "@/db/schema";
 import { closeQueue, getRunsQueue } from "@/lib/queue/enqueue";
 import { estimate } from "@/lib/quantum";
 import { createKey } from "@/lib/api-keys/mutations";
-import { authorizeMember } from "@/lib/auth/guards";
+import { getMembership } from "@/lib/orgs/queries";
 import { createOrganization } from "@/lib/orgs/mutations";
 import { smallRequest } from "../integration/runs/support/requests";
 import { startServer, startWorker, type Proc } from "./bench-processes";
@@ -62,7 +62,10 @@ async function setupOrg(): Promise<{ orgId: string; key: string }> {
     ownerUserId: userId,
   });
   await db.update(organizations).set({ plan: "institute" }).where(eq(organizations.id, orgId));
-  const access = await authorizeMember(userId, orgId, "owner");
+  // Scripts run under plain Node: read the membership directly (the page/action guards need a request).
+  const membership = await getMembership(orgId, userId);
+  if (!membership) throw new Error(`${userId} is not a member of organisation ${orgId}`);
+  const access = { userId: userId, ...membership };
   const { key } = await createKey(access, { name: "bench", role: "member", scope: "personal" });
   return { orgId, key };
 }

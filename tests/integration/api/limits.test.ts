@@ -76,7 +76,7 @@ describe("plan limits (402)", () => {
       body: wideRequest(sandbox.maxDensityMatrixQubits + 1, { method: "density_matrix" }),
     });
     expect(dm.status).toBe(402);
-    expect(dm.body.detail).toMatch(/density-matrix/);
+    expect(dm.body.detail).toMatch(/density matrix circuits of up to 8 qubits/);
     await setPlan(org.orgId, "lab");
     const accepted = await api("POST", "/api/v1/runs", {
       key: org.key,
