@@ -13,6 +13,7 @@ import { sendRunFinishedMail } from "@/lib/runs/notify";
 import { deliverWebhook, fanOutRunFinished } from "@/lib/webhooks/deliveries";
 import { reportOverageJob } from "./jobs/billing-overage";
 import { log } from "./log";
+import { WaitingRuns } from "./waiting-runs";
 
 /** How long a run waits before trying again for one of its organisation's run slots. */
 export const SLOT_RETRY_MS = 250;
@@ -23,8 +24,7 @@ type Entry<N extends JobName> = { schema: z.ZodType<JobPayload<N>>; handler: Han
 export type Registry = { [N in JobName]: Entry<N> };
 
 export function buildRegistry(deps: { engine: EngineRunner }): Registry {
-  // Runs this process has reported as waiting for a slot (logged once, not every retry).
-  const waiting = new Set<string>();
+  const waiting = new WaitingRuns();
   return {
     "run.execute": {
       schema: JOB_SCHEMAS["run.execute"],
@@ -32,15 +32,14 @@ export function buildRegistry(deps: { engine: EngineRunner }): Registry {
         const outcome = await executeRun(payload, deps.engine, log);
         if (outcome.kind === "busy") {
           // The plan's concurrent-run slots are full: wait without spending an attempt.
-          if (!waiting.has(payload.runId))
+          if (waiting.mark(payload.runId))
             log(
               `run ${payload.runId}: waiting for a slot (${outcome.running} of ${outcome.limit} running)`,
             );
-          waiting.add(payload.runId);
           await job.moveToDelayed(Date.now() + SLOT_RETRY_MS, token);
           throw new DelayedError();
         }
-        waiting.delete(payload.runId);
+        waiting.clear(payload.runId);
         if (outcome.kind !== "missing") log(`run ${payload.runId}: ${outcome.kind}`);
         return outcome.kind;
       },

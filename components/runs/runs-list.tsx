@@ -17,7 +17,7 @@ import { IconStop } from "@/components/ui/icons";
 import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
-import type { RunStatus } from "@/lib/swr/types";
+import type { RunMethod, RunStatus } from "@/lib/swr/types";
 import { MAX_COMPARE, RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import { formatAgo, shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
@@ -75,7 +75,7 @@ export function RunsList() {
   const { data, error, isLoading, mutate } = useRuns({
     q,
     status: filters.status as RunStatus | "",
-    method: filters.method,
+    method: filters.method as RunMethod | "",
     createdBy: filters.createdBy,
     from: filters.from,
     to: filters.to,

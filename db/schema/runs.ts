@@ -25,6 +25,7 @@ import {
   uniqueIndex,
   varchar,
 } from "drizzle-orm/mysql-core";
+import type { ProblemDocument } from "@/lib/api/problem-schema";
 import { apiKeys } from "./api-keys";
 import { users } from "./auth";
 import { jsonText } from "./json-text";
@@ -33,14 +34,8 @@ import { RUN_METHODS, RUN_STATUSES, SHOT_PLAN_SOURCES } from "./run-enums";
 
 export { RUN_METHODS, RUN_STATUSES, type RunMethod, type RunStatus } from "./run-enums";
 
-/** RFC 9457 problem as stored on a failed run. */
-export type StoredProblem = {
-  type: string;
-  title: string;
-  status: number;
-  detail: string;
-  errors?: { path: string; message: string; line?: number; column?: number }[];
-};
+/** RFC 9457 problem as stored on a failed run: the document of lib/api/problem-schema.ts. */
+export type StoredProblem = ProblemDocument;
 
 const ms3 = (name: string) => datetime(name, { mode: "date", fsp: 3 });
 

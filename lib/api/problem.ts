@@ -9,15 +9,14 @@
  */
 import { ZodError } from "zod";
 import { applyRateLimitHeaders, type RateLimitState } from "@/lib/rate-limit/headers";
+import type { ProblemDocument, ProblemFieldError } from "./problem-schema";
 
-export type ProblemFieldError = { path: string; message: string; line?: number; column?: number };
+export type { ProblemDocument, ProblemFieldError } from "./problem-schema";
 
-export type Problem = {
-  type: string;
-  title: string;
-  status: number;
-  detail: string;
-  errors?: ProblemFieldError[];
+/** The document (lib/api/problem-schema.ts) plus what the response carries beside it. */
+export type Problem = ProblemDocument & {
+  /** Extension members (RFC 9457 §3.2) sent in the body beside the common fields. */
+  extensions?: Record<string, unknown>;
   /** Seconds, for 429 answers; sent as the Retry-After header, not in the body. */
   retryAfter?: number;
   /** The rate budget that refused the request (429s); sent as RateLimit-* headers, not in the body. */
@@ -122,7 +121,8 @@ export function zodFieldErrors(error: ZodError): ProblemFieldError[] {
 
 /** Serialises a problem as a Response with the right status, media type and headers. */
 export function problemResponse(problem: Problem, init?: { headers?: HeadersInit }): Response {
-  const { retryAfter, rateLimit, ...body } = problem;
+  const { retryAfter, rateLimit, extensions, ...document } = problem;
+  const body = { ...extensions, ...document };
   const headers = new Headers(init?.headers);
   headers.set("content-type", PROBLEM_CONTENT_TYPE);
   if (retryAfter !== undefined) headers.set("retry-after", String(retryAfter));

@@ -31,6 +31,7 @@ import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { env } from "@/lib/env";
 import { consume, type Budget, type RateLimitState } from "@/lib/rate-limit";
 import { applyRateLimitHeaders } from "@/lib/rate-limit/headers";
+import { editHeaders } from "./response-headers";
 import { forbidden, problemResponse, sessionExpired, toProblem, unauthorized } from "./problem";
 
 export type Actor =
@@ -136,7 +137,9 @@ export function withOrg<P = Record<string, string>>(
         rate = await consume("api", budget, actorKey, "Too many API requests.");
       }
       const params = (route ? await route.params : {}) as P;
-      return withRateLimit(await handler(req, { ...ctx, params }), rate);
+      const res = await handler(req, { ...ctx, params });
+      const spent = rate;
+      return spent ? editHeaders(res, (h) => applyRateLimitHeaders(h, spent)) : res;
     } catch (error) {
       const problem = toProblem(error, `${req.method} ${new URL(req.url).pathname}`);
       return problemResponse(
@@ -144,17 +147,4 @@ export function withOrg<P = Record<string, string>>(
       );
     }
   };
-}
-
-/** The handler's answer with the budget's RateLimit-* fields (copied into a new Response if its headers are immutable). */
-function withRateLimit(res: Response, rate: RateLimitState | undefined): Response {
-  if (!rate) return res;
-  try {
-    applyRateLimitHeaders(res.headers, rate);
-    return res;
-  } catch {
-    const headers = new Headers(res.headers);
-    applyRateLimitHeaders(headers, rate);
-    return new Response(res.body, { status: res.status, statusText: res.statusText, headers });
-  }
 }

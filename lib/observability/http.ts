@@ -5,20 +5,9 @@
  * request's latency recorded by route pattern.
  */
 import "server-only";
+import { editHeaders } from "@/lib/api/response-headers";
 import { logger, requestIdFrom, withLogContext } from "./logger";
 import { metrics, routeLabel } from "./metrics";
-
-function withHeader(res: Response, name: string, value: string): Response {
-  try {
-    res.headers.set(name, value);
-    return res;
-  } catch {
-    // Immutable headers (e.g. Response.redirect): copy the response.
-    const copy = new Response(res.body, res);
-    copy.headers.set(name, value);
-    return copy;
-  }
-}
 
 export async function observeRequest(
   req: Request,
@@ -37,6 +26,6 @@ export async function observeRequest(
     if (res.status >= 500)
       logger().error({ route, method: req.method, status: res.status, seconds }, "request failed");
     else logger().debug({ route, method: req.method, status: res.status, seconds }, "request");
-    return withHeader(res, "X-Request-Id", requestId);
+    return editHeaders(res, (h) => h.set("X-Request-Id", requestId));
   });
 }

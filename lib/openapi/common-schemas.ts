@@ -1,33 +1,15 @@
 /**
- * Schemas every API v1 resource shares: the RFC 9457 problem document and the
- * cursor-paginated list envelope. Plain zod; lib/openapi registers them.
+ * Schemas every API v1 resource shares: the RFC 9457 problem document (defined once
+ * in lib/api/problem-schema.ts) and the cursor-paginated list envelope. Plain zod;
+ * lib/openapi registers them.
  */
 import { z } from "zod";
 
-export const problemFieldErrorSchema = z.object({
-  path: z
-    .string()
-    .describe(
-      'Dotted path into the request, e.g. "observable.terms" ("(root)" for the whole body)',
-    ),
-  message: z.string(),
-  line: z.int().optional().describe("1-based line in the circuit or observable text"),
-  column: z.int().optional().describe("1-based column in the circuit or observable text"),
-});
-
-export const problemSchema = z
-  .object({
-    type: z
-      .string()
-      .describe("Relative URI naming the kind of problem, e.g. /problems/quota-exceeded"),
-    title: z.string(),
-    status: z.int(),
-    detail: z.string(),
-    errors: z.array(problemFieldErrorSchema).optional(),
-  })
-  .meta({ id: "Problem", description: "RFC 9457 problem details" });
-
-export type ProblemDocument = z.infer<typeof problemSchema>;
+export {
+  problemFieldErrorSchema,
+  problemSchema,
+  type ProblemDocument,
+} from "@/lib/api/problem-schema";
 
 /** Opaque cursor from a previous page's `nextCursor`. */
 export const cursorParamSchema = z

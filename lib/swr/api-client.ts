@@ -6,26 +6,29 @@
  * are thrown as `ApiError` with the field errors (path, message, line, column) intact.
  */
 
-export type ApiFieldError = { path: string; message: string; line?: number; column?: number };
+import {
+  problemSchema,
+  type ProblemDocument,
+  type ProblemFieldError,
+} from "@/lib/api/problem-schema";
+
+export type ApiFieldError = ProblemFieldError;
 
 export class ApiError extends Error {
   readonly status: number;
   readonly title: string;
   readonly type: string;
   readonly errors: ApiFieldError[];
-  constructor(p: {
-    status: number;
-    title: string;
-    detail: string;
-    type?: string;
-    errors?: ApiFieldError[];
-  }) {
+  /** The parsed JSON body of the answer (extension members of a problem, e.g. the preview's outline). */
+  readonly body: unknown;
+  constructor(p: Omit<ProblemDocument, "type"> & { type?: string }, body: unknown = null) {
     super(p.detail || p.title);
     this.name = "ApiError";
     this.status = p.status;
     this.title = p.title;
     this.type = p.type ?? "about:blank";
     this.errors = p.errors ?? [];
+    this.body = body;
   }
   /** Field errors whose dotted path equals `path` or lies under it. */
   errorsAt(path: string): ApiFieldError[] {
@@ -37,6 +40,7 @@ export function isApiError(e: unknown): e is ApiError {
   return e instanceof ApiError;
 }
 
+/** A failed answer as ApiError: its problem document when the body is one, else a generic message. */
 async function toApiError(res: Response): Promise<ApiError> {
   let body: unknown = null;
   try {
@@ -44,19 +48,16 @@ async function toApiError(res: Response): Promise<ApiError> {
   } catch {
     // Not JSON (proxy page, crash): fall through to a generic message.
   }
-  const b = (body ?? {}) as Partial<{
-    title: string;
-    detail: string;
-    type: string;
-    errors: ApiFieldError[];
-  }>;
-  return new ApiError({
-    status: res.status,
-    title: typeof b.title === "string" ? b.title : res.statusText || "Request failed",
-    detail: typeof b.detail === "string" ? b.detail : `The server answered ${res.status}.`,
-    type: b.type,
-    errors: Array.isArray(b.errors) ? b.errors : [],
-  });
+  const problem = problemSchema.safeParse(body);
+  if (problem.success) return new ApiError({ ...problem.data, status: res.status }, body);
+  return new ApiError(
+    {
+      status: res.status,
+      title: res.statusText || "Request failed",
+      detail: `The server answered ${res.status}.`,
+    },
+    body,
+  );
 }
 
 export type ApiInit = Omit<RequestInit, "body"> & { json?: unknown };

@@ -4,10 +4,18 @@
  * schema or engine code is pulled into the browser bundle by this module.
  */
 import type { EstimateRequest, EstimateResult, PreviewResult } from "@/lib/quantum/schemas";
-import type { ProblemDocument } from "@/lib/openapi/common-schemas";
-import type { QuotaVerdict, RunCreateInput, RunSummaryView, RunView } from "@/lib/runs/schemas";
+import type { ProblemDocument } from "@/lib/api/problem-schema";
+import type { pageSchema } from "@/lib/openapi/common-schemas";
+import type {
+  QuotaVerdict,
+  RunCreateInput,
+  RunListQuery,
+  RunSummaryView,
+  RunView,
+} from "@/lib/runs/schemas";
 import type {
   CircuitView,
+  LibraryListQuery,
   ObservableView,
   circuitSummarySchema,
   observableSummarySchema,
@@ -43,7 +51,15 @@ export type Run = RunView;
 /** A row of `GET /api/v1/runs`. */
 export type RunSummary = RunSummaryView;
 
-export type Page<T> = { data: T[]; nextCursor: string | null };
+/** A page of a list endpoint (`pageSchema` of the server). */
+export type Page<T> = z.infer<ReturnType<typeof pageSchema<z.ZodType<T>>>>;
+
+/** A list query as the client builds it: the server schema's fields, each optional; "" or null leaves one out. */
+export type ClientQuery<Q> = { [K in keyof Q]?: Q[K] | "" | null };
+/** `GET /api/v1/runs` query (runListQuerySchema). */
+export type RunsQuery = ClientQuery<RunListQuery>;
+/** `GET /api/v1/circuits` and `GET /api/v1/observables` query (libraryListQuerySchema). */
+export type LibraryQuery = ClientQuery<LibraryListQuery>;
 
 /** Library list rows (no source / terms) and full items (`GET /api/v1/circuits/:id` …). */
 export type LibraryCircuitSummary = z.infer<typeof circuitSummarySchema>;

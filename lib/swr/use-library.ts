@@ -7,10 +7,11 @@ import type {
   LibraryCircuitSummary,
   LibraryObservable,
   LibraryObservableSummary,
+  LibraryQuery,
   Page,
 } from "./types";
 
-type ListOpts = { tag?: string; cursor?: string | null; limit?: number };
+type ListOpts = LibraryQuery;
 
 /** Saved circuits of the organisation (summaries, newest first). */
 export function useCircuits(opts: ListOpts = {}) {

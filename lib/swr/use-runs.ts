@@ -2,18 +2,9 @@
 import useSWR from "swr";
 import { orgFetcher, withQuery } from "./api-client";
 import { useWorkspaceOrg } from "./org-context";
-import { isTerminal, type Page, type RunStatus, type RunSummary } from "./types";
+import { isTerminal, type Page, type RunSummary, type RunsQuery } from "./types";
 
-export type RunsQuery = {
-  status?: RunStatus | "";
-  method?: string;
-  createdBy?: string;
-  q?: string;
-  from?: string;
-  to?: string;
-  cursor?: string | null;
-  limit?: number;
-};
+export type { RunsQuery } from "./types";
 
 /** A page of runs; refreshes every 2 s while any run on it is still queued or running. */
 export function useRuns(query: RunsQuery = {}) {
