@@ -100,7 +100,7 @@ describe("sign up, sign out, sign in", () => {
     });
     await page.waitForURL(/\/check-email\?.*for=sign-up/);
     await page
-      .getByText("if the address already has an account, it tells you how to sign in")
+      .getByText("If the address already has an account, the message tells you how to sign in")
       .waitFor();
     await waitForMail(email, since, 20_000, /already have a Ketwise account/);
   });
