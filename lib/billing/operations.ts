@@ -1,9 +1,9 @@
 /**
- * Billing operations (admin and up; shape: lib/members/operation.ts). Checkout
+ * Billing operations (admin and up; shape: lib/api/operation.ts). Checkout
  * and the portal answer with a URL the server action redirects to.
  */
 import "server-only";
-import { defineOperation } from "@/lib/members/operation";
+import { defineOperation } from "@/lib/api/operation";
 import { createPortalSession, startCheckout } from "./checkout";
 import { getPlan } from "./plans";
 import { changePlanSchema, changeSeatsSchema, checkoutSchema, emptySchema } from "./schemas";
