@@ -3,7 +3,9 @@ import { StatusBadge } from "@/components/ui/badge";
 import { buttonClasses } from "@/components/ui/button";
 import { Value } from "@/components/ui/value";
 import figures from "@/lib/examples/example-figures.json";
+import { Z95 } from "@/lib/quantum/sampling/normal";
 import { AgreementFigure, agreementAxis } from "./agreement-figure";
+import { formatCount, formatFixed } from "@/lib/format";
 
 /* The invented three-spin cluster (lib/examples): every figure below is the engine's. */
 const example = {
@@ -18,14 +20,14 @@ const axis = agreementAxis(
   [
     example.exact - TOLERANCE,
     example.exact + TOLERANCE,
-    example.sampled.mean - 1.96 * example.sampled.stdErr,
-    example.sampled.mean + 1.96 * example.sampled.stdErr,
-    example.noisy.mean - 1.96 * example.noisy.stdErr,
-    example.noisy.mean + 1.96 * example.noisy.stdErr,
+    example.sampled.mean - Z95 * example.sampled.stdErr,
+    example.sampled.mean + Z95 * example.sampled.stdErr,
+    example.noisy.mean - Z95 * example.noisy.stdErr,
+    example.noisy.mean + Z95 * example.noisy.stdErr,
   ],
   0.32,
 );
-const count = (n: number) => n.toLocaleString("en-US").replace(/,/g, "\u202f");
+const count = (n: number) => formatCount(n, { group: "thin" });
 
 function Row({
   swatch,
@@ -92,7 +94,7 @@ export function Hero() {
           <div className="flex items-center justify-between gap-3 border-b border-line px-4 py-3">
             <div className="grid">
               <span className="text-[13px] font-semibold text-ink">
-                three-spin cluster · θ = {figures.theta.toFixed(2).replace("-", "\u2212")}
+                three-spin cluster · θ = {formatFixed(figures.theta, 2)}
               </span>
               <span className="figures text-2xs text-ink-3">
                 {figures.qubits} qubits · {figures.terms} terms · {figures.settings} settings ·{" "}
@@ -112,8 +114,8 @@ export function Hero() {
             <Row
               swatch={<span className="size-2.5 rounded-full bg-sampled" />}
               label="Sampled mean"
-              detail={`${count(figures.shots)} shots · z = ${zScore.toFixed(2).replace("-", "\u2212")} · ${
-                Math.abs(zScore) <= 1.96 ? "consistent" : "off by more than 1.96σ"
+              detail={`${count(figures.shots)} shots · z = ${formatFixed(zScore, 2)} · ${
+                Math.abs(zScore) <= Z95 ? "consistent" : "off by more than 1.96σ"
               }`}
             >
               <Value

@@ -1,18 +1,16 @@
 /**
- * Billing operations (admin and up; shape: lib/members/operation.ts). Checkout
+ * Billing operations (admin and up; shape: lib/api/operation.ts). Checkout
  * and the portal answer with a URL the server action redirects to.
  */
 import "server-only";
-import { defineOperation } from "@/lib/members/operation";
+import { defineOperation } from "@/lib/api/operation";
 import { createPortalSession, startCheckout } from "./checkout";
 import { getPlan } from "./plans";
 import { changePlanSchema, changeSeatsSchema, checkoutSchema, emptySchema } from "./schemas";
 import { changePlan, changeSeats, setCancelAtPeriodEnd } from "./subscription-changes";
+import { formatLongDate } from "@/lib/format";
 
-const day = (d: Date | null) =>
-  d
-    ? new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(d)
-    : "the end of the period";
+const day = (d: Date | null) => (d ? formatLongDate(d) : "the end of the period");
 
 export const startCheckoutOp = defineOperation({
   name: "billing.checkout",
