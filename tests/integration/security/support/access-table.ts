@@ -362,12 +362,6 @@ export const ACTION_TABLE: ActionRow[] = [
   },
   // Composer and run page: the organisation is the current one (cookie) or the resource's.
   {
-    file: "app/(app)/app/runs/new/actions.ts",
-    name: "circuitOutlineAction",
-    access: { min: "viewer" },
-    call: (a) => (a as Fn)(BELL),
-  },
-  {
     file: "app/(app)/app/runs/new/noise-actions.ts",
     name: "listNoiseProfilesAction",
     access: { min: "viewer" },
