@@ -12,6 +12,7 @@ const config = [
       "drizzle/**",
       "node_modules/**",
       "next-env.d.ts",
+      "lib/quantum/wasm/assembly/**",
     ],
   },
 ];

@@ -53,6 +53,8 @@ export const envSchema = z.object({
   WORKER_CONCURRENCY: z.coerce.number().int().min(1).max(64).default(2),
   /** Engine threads per run (1 = single-thread engine); unset: cores ÷ WORKER_CONCURRENCY. */
   KETWISE_ENGINE_THREADS: z.coerce.number().int().min(1).max(16).optional(),
+  /** 0 = JavaScript engine kernels only; unset or 1: WebAssembly SIMD kernels (the engine reads it). */
+  KETWISE_ENGINE_WASM: z.enum(["0", "1"]).optional(),
   /** Requests per minute per API key or user on /api/v1 (raised only for load tests). */
   API_RATE_LIMIT_PER_MINUTE: z.coerce.number().int().min(1).default(300),
   /** Run submissions per minute per person (all their keys and their session together). */

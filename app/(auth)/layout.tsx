@@ -2,13 +2,13 @@ import Link from "next/link";
 import type { ReactNode } from "react";
 import { Logo } from "@/components/ui/logo";
 import figures from "@/lib/examples/example-figures.json";
-import { formatFixed, formatPlusMinus } from "@/lib/format/uncertainty";
+import { formatCount, formatFixed, formatPlusMinus } from "@/lib/format";
 
 /** The side panel's figures: the invented three-spin cluster, as the engine computes it. */
 const panel = [
   { label: "exact", value: formatFixed(figures.exact, 6) },
   {
-    label: `${figures.shots.toLocaleString("en-US").replace(/,/g, "\u202f")} shots`,
+    label: `${formatCount(figures.shots, { group: "thin" })} shots`,
     value: formatPlusMinus(figures.sampled.mean, figures.sampled.stdErr),
   },
   {

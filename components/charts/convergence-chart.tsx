@@ -19,6 +19,7 @@ import {
 import { Z95 } from "@/components/runs/verdict";
 import { ChartFigure, LegendKey, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
 import { logTicks, niceTicks, paddedDomain, tickLabel } from "./scale";
+import { formatCompact, formatFixed, formatPlusMinus, plural } from "@/lib/format";
 
 export type ConvergencePoint = {
   shots: number;
@@ -27,8 +28,6 @@ export type ConvergencePoint = {
   /** The run's 95 % interval at this prefix (older runs: mean ± 1.96·stdErr). */
   ci95?: readonly [number, number];
 };
-
-const compact = new Intl.NumberFormat("en-US", { notation: "compact", maximumFractionDigits: 1 });
 
 export function ConvergenceChart({
   points,
@@ -49,7 +48,7 @@ export function ConvergenceChart({
   const last = points[points.length - 1];
   const yDomain = paddedDomain([exact, ...data.flatMap((d) => d.band)], 0.06);
   const summary = last
-    ? `Running estimate over ${points.length} checkpoints up to ${last.shots} shots, ending at ${last.mean.toFixed(5)} ± ${last.stdErr.toPrecision(2)}; exact value ${exact}.`
+    ? `Running estimate over ${plural(points.length, "checkpoint")} up to ${plural(last.shots, "shot")}, ending at ${formatPlusMinus(last.mean, last.stdErr)}; exact value ${formatFixed(exact, 6)}.`
     : "No checkpoints.";
   return (
     <ChartFigure
@@ -73,7 +72,7 @@ export function ConvergenceChart({
             domain={["dataMin", "dataMax"]}
             ticks={logTicks(points[0]?.shots ?? 1, last?.shots ?? 1)}
             tick={axisTick}
-            tickFormatter={(v: number) => compact.format(v)}
+            tickFormatter={(v: number) => formatCompact(v)}
             stroke="var(--color-line-strong)"
             label={{
               value: "shots",
@@ -95,11 +94,14 @@ export function ConvergenceChart({
           />
           <Tooltip
             {...tooltipStyle}
-            labelFormatter={(v) => `${Number(v).toLocaleString("en-US")} shots`}
+            labelFormatter={(v) => plural(Number(v), "shot")}
             formatter={(value, name) =>
               Array.isArray(value)
-                ? [`${Number(value[0]).toFixed(5)} … ${Number(value[1]).toFixed(5)}`, "95 % band"]
-                : [Number(value).toFixed(6), name === "mean" ? "mean" : String(name)]
+                ? [
+                    `${formatFixed(Number(value[0]), 5)} … ${formatFixed(Number(value[1]), 5)}`,
+                    "95 % band",
+                  ]
+                : [formatFixed(Number(value), 6), name === "mean" ? "mean" : String(name)]
             }
           />
           <Area

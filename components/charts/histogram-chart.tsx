@@ -6,6 +6,7 @@
  */
 import { Bar, BarChart, CartesianGrid, ResponsiveContainer, Tooltip, XAxis, YAxis } from "recharts";
 import { ChartFigure, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
+import { formatCount, formatPercent, plural } from "@/lib/format";
 
 export function topCounts(counts: Record<string, number>, maxBars: number) {
   const entries = Object.entries(counts);
@@ -46,14 +47,12 @@ export function HistogramChart({
       title={
         <span>
           <span className="font-mono tracking-[0.12em]">{bases}</span>
-          <span className="ml-2 font-normal text-ink-3">
-            {shots.toLocaleString("en-US")} shot{shots === 1 ? "" : "s"}
-          </span>
+          <span className="ml-2 font-normal text-ink-3">{plural(shots, "shot")}</span>
         </span>
       }
       description={
         otherOutcomes
-          ? `${otherOutcomes} rarer outcomes (${otherCount.toLocaleString("en-US")} shots) not drawn.`
+          ? `${plural(otherOutcomes, "rarer outcome")} (${plural(otherCount, "shot")}) not drawn.`
           : undefined
       }
       summary={summary}
@@ -81,7 +80,7 @@ export function HistogramChart({
             {...tooltipStyle}
             cursor={{ fill: "var(--color-surface-3)", opacity: 0.5 }}
             formatter={(value, _n, item) => [
-              `${Number(value).toLocaleString("en-US")} (${((item?.payload?.p ?? 0) * 100).toFixed(1)} %)`,
+              `${formatCount(Number(value))} (${formatPercent(item?.payload?.p ?? 0, 1)})`,
               "count",
             ]}
             labelFormatter={(v) => `bitstring ${v} (qubit 0 first)`}

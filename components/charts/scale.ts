@@ -6,6 +6,7 @@
  * extent of the values by a fraction on each side and never returns a zero-width range
  * (a single value gets a ±2 % window, at least ±0.001).
  */
+import { formatSignificant, withMinus } from "@/lib/format";
 
 export function paddedDomain(values: readonly number[], pad = 0.12): [number, number] {
   const finite = values.filter(Number.isFinite);
@@ -51,11 +52,9 @@ export function linear(domain: readonly [number, number], range: readonly [numbe
 /** Short tick label: up to 4 significant digits, U+2212 minus. */
 export function tickLabel(v: number): string {
   if (v === 0) return "0";
-  const t =
-    Math.abs(v) >= 1e4 || Math.abs(v) < 1e-3
-      ? v.toExponential(1)
-      : String(Number(v.toPrecision(4)));
-  return t.replace("-", "\u2212");
+  return Math.abs(v) >= 1e4 || Math.abs(v) < 1e-3
+    ? withMinus(v.toExponential(1))
+    : formatSignificant(v, 4);
 }
 
 /** Ticks of a log axis within [lo, hi]: 1, 2 and 5 × 10ᵏ (only powers of ten when that gives ≥ 3). */

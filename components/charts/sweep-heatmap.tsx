@@ -14,6 +14,7 @@ import {
   type SweepMetric,
   type SweepPoint,
 } from "./sweep-math";
+import { formatFixed, plural } from "@/lib/format";
 
 export function SweepHeatmap({
   points,
@@ -46,10 +47,10 @@ export function SweepHeatmap({
 
   const minPoint = iMin >= 0 ? points[iMin] : null;
   const summary =
-    `Heat map of the ${metric} value over ${names[0]} (rows, ${rows.length} values) and ${names[1]} (columns, ${cols.length} values); ` +
-    `values from ${lo.toFixed(5)} to ${hi.toFixed(5)}` +
+    `Heat map of the ${metric} value over ${names[0]} (rows, ${plural(rows.length, "value")}) and ${names[1]} (columns, ${plural(cols.length, "value")}); ` +
+    `values from ${formatFixed(lo, 5)} to ${formatFixed(hi, 5)}` +
     (minPoint
-      ? `; minimum ${values[iMin]!.toFixed(6)} at ${names[0]} = ${minPoint.params[names[0]]}, ${names[1]} = ${minPoint.params[names[1]]}.`
+      ? `; minimum ${formatFixed(values[iMin]!, 6)} at ${names[0]} = ${formatAngle(minPoint.params[names[0]])}, ${names[1]} = ${formatAngle(minPoint.params[names[1]])}.`
       : ".");
 
   return (
@@ -67,7 +68,7 @@ export function SweepHeatmap({
               height={cellH}
               fill={v === null ? "var(--color-surface-3)" : rampColor(t(v))}
             >
-              <title>{`${names[0]} = ${p.params[names[0]]}, ${names[1]} = ${p.params[names[1]]}: ${v === null ? "no value" : v.toFixed(6)}`}</title>
+              <title>{`${names[0]} = ${formatAngle(p.params[names[0]])}, ${names[1]} = ${formatAngle(p.params[names[1]])}: ${v === null ? "no value" : formatFixed(v, 6)}`}</title>
             </rect>
           );
         })}
@@ -157,7 +158,7 @@ export function SweepHeatmap({
         {minPoint ? (
           <>
             Ringed: lowest {metric} value{" "}
-            <span className="figures text-ink">{values[iMin]!.toFixed(6)}</span> at{" "}
+            <span className="figures text-ink">{formatFixed(values[iMin]!, 6)}</span> at{" "}
             <span className="figures text-ink">
               {names[0]} = {formatAngle(minPoint.params[names[0]])}, {names[1]} ={" "}
               {formatAngle(minPoint.params[names[1]])}

@@ -22,6 +22,7 @@ import { Z95 } from "@/components/runs/verdict";
 import { ChartFigure, LegendKey, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
 import { tickLabel } from "./scale";
 import { argMin, type SweepPoint } from "./sweep-math";
+import { formatFixed, formatSignificant, plural } from "@/lib/format";
 
 export function SweepLineChart({
   points,
@@ -55,8 +56,10 @@ export function SweepLineChart({
   const iMin = argMin(data.map((d) => d.exact));
   const min = iMin >= 0 ? data[iMin] : null;
   const summary =
-    `${data.length} values of ${name} from ${data[0]?.x} to ${data[data.length - 1]?.x}. ` +
-    (min ? `Lowest exact value ${min.exact.toFixed(6)} at ${name} = ${min.x}.` : "");
+    `${plural(data.length, "value")} of ${name} from ${formatAngle(data[0]?.x ?? 0)} to ${formatAngle(data[data.length - 1]?.x ?? 0)}. ` +
+    (min
+      ? `Lowest exact value ${formatFixed(min.exact, 6)} at ${name} = ${formatAngle(min.x)}.`
+      : "");
   return (
     <ChartFigure
       summary={summary}
@@ -108,9 +111,9 @@ export function SweepLineChart({
           />
           <Tooltip
             {...tooltipStyle}
-            labelFormatter={(v) => `${name} = ${Number(v).toPrecision(6)}`}
+            labelFormatter={(v) => `${name} = ${formatSignificant(Number(v), 6)}`}
             formatter={(value, key) => [
-              value === null ? "—" : Number(value).toFixed(6),
+              value === null ? "—" : formatFixed(Number(value), 6),
               String(key),
             ]}
           />

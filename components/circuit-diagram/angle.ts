@@ -3,7 +3,7 @@
  * (π/4, −3π/2, 2π); anything else as a decimal with up to three places.
  * The minus sign is U+2212.
  */
-const MINUS = "\u2212";
+import { MINUS } from "@/lib/format";
 const DENOMINATORS = [1, 2, 3, 4, 6, 8, 12, 16];
 
 export function formatAngle(x: number): string {

@@ -6,6 +6,7 @@
  */
 import { cn } from "@/components/ui/cn";
 import { layoutCircuit, rowY, type DiagramLayout, type DiagramOp, type PlacedOp } from "./layout";
+import { plural } from "@/lib/format";
 
 function Tile({
   x,
@@ -226,7 +227,7 @@ export function CircuitDiagram({
           role="img"
           aria-label={
             title ??
-            `Circuit diagram: ${qubits} qubit${qubits === 1 ? "" : "s"}, ${ops.length + omitted} operation${ops.length + omitted === 1 ? "" : "s"}, ${layout.columns.length} columns.`
+            `Circuit diagram: ${plural(qubits, "qubit")}, ${plural(ops.length + omitted, "operation")}, ${plural(layout.columns.length, "column")}.`
           }
           className="block"
         >

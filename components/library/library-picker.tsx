@@ -18,6 +18,7 @@ import type {
   LibraryObservable,
   LibraryObservableSummary,
 } from "@/lib/swr/types";
+import { plural } from "@/lib/format";
 
 type Item = LibraryCircuitSummary | LibraryObservableSummary;
 
@@ -106,7 +107,7 @@ function PickerList<T extends Item>({
                 <span className="flex items-center justify-between gap-3">
                   <span className="truncate text-sm font-medium text-ink">{item.name}</span>
                   <span className="figures shrink-0 text-xs text-ink-3">
-                    {item.qubits} qubit{item.qubits === 1 ? "" : "s"} · {item.format}
+                    {plural(item.qubits, "qubit")} · {item.format}
                   </span>
                 </span>
                 {item.description ? (

@@ -15,12 +15,12 @@ import { Input } from "@/components/ui/input";
 import { Skeleton } from "@/components/ui/skeleton";
 import { Tabs } from "@/components/ui/tabs";
 import { IconSearch } from "@/components/workspace/icons";
-import { formatAgo } from "@/components/runs/run-meta";
 import { apiFetch, isApiError } from "@/lib/swr/api-client";
 import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { useCircuits, useLibraryItem, useObservables } from "@/lib/swr/use-library";
 import type { LibraryCircuitSummary, LibraryObservableSummary } from "@/lib/swr/types";
 import { LibraryItemForm, type LibraryKind } from "./library-item-form";
+import { formatRelative, plural } from "@/lib/format";
 
 type Summary = LibraryCircuitSummary | LibraryObservableSummary;
 
@@ -88,7 +88,7 @@ function ItemRow({
           <p className="flex flex-wrap items-center gap-2">
             <span className="font-medium text-ink">{item.name}</span>
             <span className="figures text-xs text-ink-3">
-              {item.qubits} qubit{item.qubits === 1 ? "" : "s"} · {item.format}
+              {plural(item.qubits, "qubit")} · {item.format}
             </span>
           </p>
           {item.description ? (
@@ -101,7 +101,7 @@ function ItemRow({
             <span>
               by{" "}
               {submitterName(members, item.createdBy ? { type: "user", id: item.createdBy } : null)}{" "}
-              · {formatAgo(item.createdAt)}
+              · {formatRelative(item.createdAt)}
             </span>
           </p>
         </div>

@@ -4,6 +4,7 @@
  * noise model predicts (copper diamond with its own interval). Pure SVG, data-driven.
  * The illustration draws mean ± 1.96·stdErr (the product's intervals are the run's ci95).
  */
+import { formatFixed } from "@/lib/format";
 export type AgreementFigureProps = {
   exact: number;
   sampled: { mean: number; stdErr: number };
@@ -43,7 +44,7 @@ const L = 14;
 const R = 14;
 
 function fmt(v: number): string {
-  return v.toFixed(2).replace("-", "\u2212");
+  return formatFixed(v, 2);
 }
 
 export function AgreementFigure({
@@ -67,7 +68,7 @@ export function AgreementFigure({
       viewBox={`0 0 ${W} ${H}`}
       className={className}
       role="img"
-      aria-label={`Number line: the exact value ${fmt(exact)}; the sampled 95 % interval from ${s[0].toFixed(4)} to ${s[1].toFixed(4)} ${exact >= s[0] && exact <= s[1] ? "contains" : "misses"} it; the noise-model value sits near ${noisy.mean.toFixed(4)}, ${noisy.mean >= s[0] && noisy.mean <= s[1] ? "inside" : "outside"} that interval.`}
+      aria-label={`Number line: the exact value ${fmt(exact)}; the sampled 95 % interval from ${formatFixed(s[0], 4)} to ${formatFixed(s[1], 4)} ${exact >= s[0] && exact <= s[1] ? "contains" : "misses"} it; the noise-model value sits near ${formatFixed(noisy.mean, 4)}, ${noisy.mean >= s[0] && noisy.mean <= s[1] ? "inside" : "outside"} that interval.`}
     >
       {tolerance ? (
         <rect

@@ -4,6 +4,7 @@ import { buttonClasses } from "@/components/ui/button";
 import { Value } from "@/components/ui/value";
 import figures from "@/lib/examples/example-figures.json";
 import { AgreementFigure, agreementAxis } from "./agreement-figure";
+import { formatCount, formatFixed } from "@/lib/format";
 
 /* The invented three-spin cluster (lib/examples): every figure below is the engine's. */
 const example = {
@@ -25,7 +26,7 @@ const axis = agreementAxis(
   ],
   0.32,
 );
-const count = (n: number) => n.toLocaleString("en-US").replace(/,/g, "\u202f");
+const count = (n: number) => formatCount(n, { group: "thin" });
 
 function Row({
   swatch,
@@ -92,7 +93,7 @@ export function Hero() {
           <div className="flex items-center justify-between gap-3 border-b border-line px-4 py-3">
             <div className="grid">
               <span className="text-[13px] font-semibold text-ink">
-                three-spin cluster · θ = {figures.theta.toFixed(2).replace("-", "\u2212")}
+                three-spin cluster · θ = {formatFixed(figures.theta, 2)}
               </span>
               <span className="figures text-2xs text-ink-3">
                 {figures.qubits} qubits · {figures.terms} terms · {figures.settings} settings ·{" "}
@@ -112,7 +113,7 @@ export function Hero() {
             <Row
               swatch={<span className="size-2.5 rounded-full bg-sampled" />}
               label="Sampled mean"
-              detail={`${count(figures.shots)} shots · z = ${zScore.toFixed(2).replace("-", "\u2212")} · ${
+              detail={`${count(figures.shots)} shots · z = ${formatFixed(zScore, 2)} · ${
                 Math.abs(zScore) <= 1.96 ? "consistent" : "off by more than 1.96σ"
               }`}
             >

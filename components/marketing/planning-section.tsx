@@ -1,5 +1,6 @@
 import { Badge } from "@/components/ui/badge";
 import { Section } from "./section";
+import { formatCount } from "@/lib/format";
 
 /**
  * Shots needed for a target standard error ε when one shot of the whole estimator has
@@ -15,7 +16,6 @@ const targets = [
   { eps: 0.0016, label: "1.6 mHa", note: "chemical accuracy" },
   { eps: 0.0005, label: "0.5 mHa", note: "fine comparison" },
 ];
-const nf = new Intl.NumberFormat("en-US");
 
 /** Measurement settings and shot planning to a target precision. */
 export function PlanningSection() {
@@ -79,7 +79,7 @@ export function PlanningSection() {
                 <tr key={t.label}>
                   <td className="figures px-4 py-3 text-ink">± {t.label}</td>
                   <td className="figures px-4 py-3 text-right text-ink">
-                    {nf.format(shotsFor(SIGMA1, t.eps))}
+                    {formatCount(shotsFor(SIGMA1, t.eps))}
                   </td>
                   <td className="px-4 py-3 text-right">
                     {t.eps === 0.0016 ? (

@@ -4,27 +4,19 @@ import { buttonClasses } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { IconCheck } from "@/components/ui/icons";
 import { Section } from "./section";
+import { formatCount, formatMoney, formatNumber } from "@/lib/format";
 
-const int = new Intl.NumberFormat("en-US");
-const usd = (cents: number) =>
-  new Intl.NumberFormat("en-US", {
-    style: "currency",
-    currency: "USD",
-    maximumFractionDigits: cents % 100 ? 2 : 0,
-  }).format(cents / 100);
-const usdFine = (cents: number) =>
-  new Intl.NumberFormat("en-US", {
-    style: "currency",
-    currency: "USD",
-    maximumFractionDigits: 4,
-  }).format(cents / 100);
+const usd = (cents: number) => formatMoney(cents, "usd", { whole: true });
+const usdFine = (cents: number) => formatMoney(cents, "usd", { maxDecimals: 4 });
 
 function hours(seconds: number): string {
-  return seconds >= 3600 ? `${int.format(seconds / 3600)} h` : `${int.format(seconds / 60)} min`;
+  return seconds >= 3600
+    ? `${formatNumber(seconds / 3600, 3)} h`
+    : `${formatNumber(seconds / 60, 3)} min`;
 }
 
 function compactShots(n: number): string {
-  return n >= 1e6 ? `${int.format(n / 1e6)} M` : int.format(n);
+  return n >= 1e6 ? `${formatNumber(n / 1e6, 3)} M` : formatCount(n);
 }
 
 /** Pricing cards built from the plan table (lib/billing/plans.ts), passed in as props. */
@@ -50,8 +42,8 @@ export function PricingSection({
             ["Density matrix", `${plan.limits.maxDensityMatrixQubits} qubits`],
             ["Shots / month", compactShots(plan.limits.monthlyShots)],
             ["Simulation / month", hours(plan.limits.monthlySimulationSeconds)],
-            ["Runs at once", int.format(plan.limits.concurrentRuns)],
-            ["Seats", `up to ${int.format(plan.limits.seats)}`],
+            ["Runs at once", formatCount(plan.limits.concurrentRuns)],
+            ["Seats", `up to ${formatCount(plan.limits.seats)}`],
           ];
           return (
             <article

@@ -5,12 +5,12 @@
  */
 import figures from "@/lib/examples/example-figures.json";
 import { agreementAxis } from "./agreement-figure";
+import { formatFixed, plural, withMinus } from "@/lib/format";
 
 const W = 520;
 const H = 240;
 const M = { l: 46, r: 14, t: 14, b: 34 };
 const domainX: [number, number] = [-Math.PI, Math.PI];
-const minus = (v: string) => v.replace("-", "\u2212");
 const best = figures.curve.reduce((a, p) => (p.exact < a.exact ? p : a));
 const yAxis = agreementAxis([
   ...figures.curve.map((p) => p.exact),
@@ -38,7 +38,7 @@ export function SweepFigure({ className }: { className?: string }) {
       viewBox={`0 0 ${W} ${H}`}
       className={className}
       role="img"
-      aria-label={`Energy against the parameter θ from −π to π: a smooth exact curve with its minimum near θ = ${minus(best.theta.toFixed(2))}, and ${figures.points.length} sampled points with error bars lying on it.`}
+      aria-label={`Energy against the parameter θ from −π to π: a smooth exact curve with its minimum near θ = ${formatFixed(best.theta, 2)}, and ${plural(figures.points.length, "sampled point")} with error bars lying on it.`}
     >
       {yTicks.map((v) => (
         <g key={v}>
@@ -57,7 +57,7 @@ export function SweepFigure({ className }: { className?: string }) {
             className="fill-ink-3 figures"
             fontSize={10}
           >
-            {minus(String(v))}
+            {withMinus(String(v))}
           </text>
         </g>
       ))}
@@ -118,7 +118,7 @@ export function SweepFigure({ className }: { className?: string }) {
         fontSize={10.5}
         fontWeight={600}
       >
-        min {minus(best.exact.toFixed(3))} at θ = {minus(best.theta.toFixed(2))}
+        min {formatFixed(best.exact, 3)} at θ = {formatFixed(best.theta, 2)}
       </text>
     </svg>
   );

@@ -1,6 +1,7 @@
 import figures from "@/lib/examples/example-figures.json";
 import { Section } from "./section";
 import { SweepFigure } from "./sweep-figure";
+import { formatCount } from "@/lib/format";
 
 /** Parameter sweeps over OpenQASM 3 inputs. */
 export function SweepsSection() {
@@ -19,8 +20,7 @@ export function SweepsSection() {
             </span>
             <span className="flex items-center gap-2">
               <span aria-hidden className="size-2 rounded-full bg-sampled" />{" "}
-              {figures.points[0].shots.toLocaleString("en-US").replace(/,/g, "\u202f")} shots, 95 %
-              bars
+              {formatCount(figures.points[0].shots, { group: "thin" })} shots, 95 % bars
             </span>
             <span className="flex items-center gap-2">
               <span aria-hidden className="size-2.5 rounded-full border-[1.5px] border-accent" />{" "}

@@ -13,6 +13,7 @@ import { Value, type ValueTone } from "@/components/ui/value";
 import type { EstimateRequest, EstimateResult } from "@/lib/swr/types";
 import { FEW_SHOTS_PER_SETTING, INTERVAL_METHOD_SENTENCE } from "@/lib/quantum/sampling/interval";
 import { agreementVerdict, pickComparison, verdictSentence, type Verdict } from "./verdict";
+import { formatExponential, formatFixed, plural } from "@/lib/format";
 
 function Figure({
   label,
@@ -128,7 +129,7 @@ export function AgreementPanel({
           {sampled ? (
             <Figure
               label={mitigated ? "Sampled, raw" : "Sampled"}
-              hint={`${sampled.shots.toLocaleString("en-US")} shots, ${sampled.settings} setting${sampled.settings === 1 ? "" : "s"}`}
+              hint={`${plural(sampled.shots, "shot")}, ${plural(sampled.settings, "setting")}`}
               value={sampled.mean}
               uncertainty={sampled.stdErr}
               tone="sampled"
@@ -158,9 +159,9 @@ export function AgreementPanel({
           </p>
           {verdict.z !== null ? (
             <p className="figures text-xs text-ink-2">
-              z = {verdict.z.toFixed(2).replace("-", "−")} · two-sided p ={" "}
-              {verdict.p! < 1e-4 ? verdict.p!.toExponential(1) : verdict.p!.toFixed(3)} · verdict
-              threshold |z| ≤ 3
+              z = {formatFixed(verdict.z, 2)} · two-sided p ={" "}
+              {verdict.p! < 1e-4 ? formatExponential(verdict.p!, 1) : formatFixed(verdict.p!, 3)} ·
+              verdict threshold |z| ≤ 3
             </p>
           ) : null}
           {sampled ? (
@@ -170,9 +171,9 @@ export function AgreementPanel({
           ) : null}
           {fewShots ? (
             <p className="text-xs text-warn" role="note" data-testid="few-shots">
-              Only {fewShots} shot{fewShots === 1 ? "" : "s"} in the thinnest measurement setting:
-              fewer than {FEW_SHOTS_PER_SETTING} per setting cannot give an honest precision, so
-              read the bar as a rough range and add shots before relying on it.
+              Only {plural(fewShots, "shot")} in the thinnest measurement setting: fewer than{" "}
+              {FEW_SHOTS_PER_SETTING} per setting cannot give an honest precision, so read the bar
+              as a rough range and add shots before relying on it.
             </p>
           ) : null}
           {choice.readoutBiased ? (
@@ -180,7 +181,7 @@ export function AgreementPanel({
               The noise model includes readout error, which the exact value leaves out, so the raw
               mean is biased by design
               {rawVerdict?.z !== null && rawVerdict?.z !== undefined ? (
-                <> (raw z = {rawVerdict.z.toFixed(1).replace("-", "−")})</>
+                <> (raw z = {formatFixed(rawVerdict.z, 1)})</>
               ) : null}
               .{" "}
               {mitigated

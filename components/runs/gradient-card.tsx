@@ -6,6 +6,7 @@
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import { Value } from "@/components/ui/value";
+import { plural } from "@/lib/format";
 
 type Entry = { exact: number; sampled?: { mean: number; stdErr: number } };
 
@@ -48,7 +49,7 @@ export function GradientCard({
         description={
           `${noisy ? "Exact derivatives of the value under the noise model" : "Exact derivatives (adjoint method)"}` +
           (sampled
-            ? `; sampled by parameter-shift rules from ${(shots ?? 0).toLocaleString("en-US")} extra shots, ± one standard error`
+            ? `; sampled by parameter-shift rules from ${plural(shots ?? 0, "extra shot")}, ± one standard error`
             : "") +
           (pointLabel ? ` — at ${pointLabel}` : "") +
           "."

@@ -4,8 +4,9 @@
  * user who meant the other qubit order sees it at once (kron(Z, I) shows as Z0).
  */
 import type { EstimateResult } from "@/lib/swr/types";
+import { formatSignificant, MINUS } from "@/lib/format";
 
-const fmt = (c: number) => (c < 0 ? "−" : "+") + " " + String(Number(Math.abs(c).toPrecision(6)));
+const fmt = (c: number) => `${c < 0 ? MINUS : "+"} ${formatSignificant(Math.abs(c), 6)}`;
 
 export function PauliDecompositionList({
   decomposition,
@@ -25,11 +26,7 @@ export function PauliDecompositionList({
         <p className="font-mono text-[12.5px] leading-5 break-words text-ink">
           {shown.map((t, i) => (
             <span key={t.pauli}>
-              {i === 0
-                ? (t.coefficient < 0 ? "−" : "") +
-                  String(Number(Math.abs(t.coefficient).toPrecision(6)))
-                : fmt(t.coefficient)}{" "}
-              {t.label}{" "}
+              {i === 0 ? formatSignificant(t.coefficient, 6) : fmt(t.coefficient)} {t.label}{" "}
             </span>
           ))}
           {more > 0 ? (

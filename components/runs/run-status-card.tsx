@@ -8,7 +8,7 @@ import { Card, CardBody } from "@/components/ui/card";
 import { ProgressBar } from "@/components/ui/progress-bar";
 import { Skeleton } from "@/components/ui/skeleton";
 import type { Run } from "@/lib/swr/types";
-import { formatDuration } from "./run-meta";
+import { formatDuration } from "@/lib/format";
 
 const PHASES: Record<string, string> = {
   parse: "Reading the circuit and the observable",

@@ -24,12 +24,13 @@ import { AgreementPanel } from "./agreement-panel";
 import { PauliDecompositionList } from "./pauli-decomposition-list";
 import { ReproduceCard } from "./reproduce-card";
 import { RunDownloads } from "./run-downloads";
-import { formatDuration, formatWhen, shotsText } from "./run-meta";
+import { shotsText } from "./run-meta";
 import { RunFailure, RunProgress } from "./run-status-card";
 import { SpectrumCard } from "./spectrum-card";
 import { GradientCard } from "./gradient-card";
 import { SweepCard } from "./sweep-card";
 import { TermsTable } from "./terms-table";
+import { formatDateTime, formatDuration, formatSignificant, plural } from "@/lib/format";
 
 function Facts({ run }: { run: Run }) {
   const items: [string, React.ReactNode][] = [
@@ -42,7 +43,7 @@ function Facts({ run }: { run: Run }) {
         {run.seed}
       </span>,
     ],
-    ["Queued", formatWhen(run.queuedAt)],
+    ["Queued", formatDateTime(run.queuedAt)],
     ...(run.timings.runMs !== null
       ? ([["Took", formatDuration(run.timings.runMs)]] as [string, React.ReactNode][])
       : []),
@@ -74,7 +75,7 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
   const topIndex = result?.sweep?.topLevel?.index ?? 0;
   const topPoint = result?.sweep?.points[topIndex];
   const pointLabel = topPoint
-    ? sweepNames.map((n) => `${n} = ${Number(topPoint.params[n].toPrecision(4))}`).join(", ") +
+    ? sweepNames.map((n) => `${n} = ${formatSignificant(topPoint.params[n], 4)}`).join(", ") +
       (result?.sweep?.topLevel ? " (lowest exact value)" : "")
     : null;
 
@@ -187,7 +188,7 @@ export function RunView({ id, initial }: { id: string; initial: Run }) {
           <Card>
             <CardHeader
               eyebrow="Terms"
-              title={`${result.terms.length} Pauli term${result.terms.length === 1 ? "" : "s"} in ${result.groups.length} setting${result.groups.length === 1 ? "" : "s"}`}
+              title={`${plural(result.terms.length, "Pauli term")} in ${plural(result.groups.length, "setting")}`}
               description="Words read qubit 0 first. Click a column heading to sort."
             />
             <CardBody>

@@ -19,9 +19,10 @@ import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunMethod, RunStatus } from "@/lib/swr/types";
 import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
-import { formatAgo, shotsText } from "./run-meta";
+import { shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
+import { formatPercent, formatRelative, plural } from "@/lib/format";
 
 const PAGE_SIZE = 20;
 const MAX_COMPARE = 6;
@@ -114,7 +115,7 @@ export function RunsList() {
             tone: "error",
             text: `Canceled ${done} of ${cancellable.length}. ${failures[0].message}`,
           }
-        : { tone: "success", text: `Canceled ${done} run${done === 1 ? "" : "s"}.` },
+        : { tone: "success", text: `Canceled ${plural(done, "run")}.` },
     );
     setSelected(new Set());
     await mutate();
@@ -249,7 +250,7 @@ export function RunsList() {
                   </Link>
                   {r.status === "running" ? (
                     <span className="figures text-[11px] text-ink-3">
-                      {Math.round(r.progress * 100)} % · {r.phase ?? "running"}
+                      {formatPercent(r.progress)} · {r.phase ?? "running"}
                     </span>
                   ) : r.status === "failed" && r.error ? (
                     <span className="block truncate text-[11px] text-danger">{r.error.detail}</span>
@@ -270,7 +271,7 @@ export function RunsList() {
                 </TD>
                 <TD className="text-[12.5px] text-ink-2">{submitterName(members, r.createdBy)}</TD>
                 <TD className="text-[12.5px] whitespace-nowrap text-ink-2" title={r.queuedAt}>
-                  {formatAgo(r.queuedAt)}
+                  {formatRelative(r.queuedAt)}
                 </TD>
               </TR>
             ))}

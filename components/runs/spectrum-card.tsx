@@ -11,6 +11,7 @@ import { Value } from "@/components/ui/value";
 import { linear } from "@/components/charts/scale";
 import type { EstimateResult } from "@/lib/swr/types";
 import { SMALL_GROUND_WEIGHT, degeneracyLabel, groundLevels } from "./spectrum-levels";
+import { formatFixed, formatPercent } from "@/lib/format";
 
 function Item({ label, children }: { label: string; children: React.ReactNode }) {
   return (
@@ -132,8 +133,8 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
         </dl>
         {weight !== undefined && weight < SMALL_GROUND_WEIGHT ? (
           <p className="text-xs text-ink-2">
-            Caution: only {(weight * 100).toFixed(1)} % of the state lies in the ground space, so it
-            is far from a ground state even if its energy looks close.
+            Caution: only {formatPercent(weight, 1)} of the state lies in the ground space, so it is
+            far from a ground state even if its energy looks close.
           </p>
         ) : null}
         {span > 0 ? (
@@ -141,7 +142,7 @@ export function SpectrumCard({ result, hasNoise }: { result: EstimateResult; has
             viewBox={`0 0 ${W} 60`}
             className="w-full"
             role="img"
-            aria-label={`Spectrum from ${s.min} to ${s.max}; the exact value ${result.exact.value} sits ${(((result.exact.value - s.min) / span) * 100).toFixed(1)} % of the way up.`}
+            aria-label={`Spectrum from ${formatFixed(s.min, 6)} to ${formatFixed(s.max, 6)}; the exact value ${formatFixed(result.exact.value, 6)} sits ${formatPercent((result.exact.value - s.min) / span, 1)} of the way up.`}
           >
             <rect x={16} y={24} width={W - 32} height={8} rx={4} className="fill-surface-3" />
             {/* End labels only where no marker label below would collide with them. */}

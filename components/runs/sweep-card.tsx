@@ -19,6 +19,7 @@ import { IconDownload } from "@/components/workspace/icons";
 import { MIME, downloadBlob } from "@/lib/export/download";
 import { pointsCsv } from "@/lib/export/run-export";
 import type { EstimateResult } from "@/lib/swr/types";
+import { formatSignificant, plural } from "@/lib/format";
 
 type Sweep = NonNullable<EstimateResult["sweep"]>;
 
@@ -56,7 +57,7 @@ export function SweepCard({
               ? `Values at the listed bindings${names.length ? ` of ${names.join(", ")}` : ""}`
               : `Landscape over ${names.join(" × ")}`}{" "}
             <span className="figures font-normal text-ink-3">
-              · {sweep.points.length.toLocaleString("en-US")} points
+              · {plural(sweep.points.length, "point")}
             </span>
           </span>
         }
@@ -104,7 +105,7 @@ export function SweepCard({
             <Value value={metricOf(min, heat ? metric : "exact")} tone="exact" size="sm" /> at{" "}
             <span className="figures text-ink">
               {isList ? `point ${iMin}${names.length ? ": " : ""}` : ""}
-              {names.map((n) => `${n} = ${Number(min.params[n].toPrecision(6))}`).join(", ")}
+              {names.map((n) => `${n} = ${formatSignificant(min.params[n], 6)}`).join(", ")}
             </span>
             {min.sampled ? (
               <>
@@ -156,7 +157,7 @@ export function SweepCard({
                     {isList ? <TD numeric>{i}</TD> : null}
                     {names.map((n) => (
                       <TD key={n} numeric>
-                        {Number(p.params[n].toPrecision(6))}
+                        {formatSignificant(p.params[n], 6)}
                       </TD>
                     ))}
                     {noisy ? (

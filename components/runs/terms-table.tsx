@@ -21,6 +21,7 @@ import { Value } from "@/components/ui/value";
 import { intervalZ } from "@/lib/quantum/sampling/interval";
 import type { EstimateResult } from "@/lib/swr/types";
 import { IconSort } from "@/components/workspace/icons";
+import { formatFixed } from "@/lib/format";
 
 type Term = EstimateResult["terms"][number];
 type Row = Term & { contribution: number; bases: string | null; index: number };
@@ -87,7 +88,7 @@ const columns = helper.columns([
         const z = c.getValue();
         return Number.isFinite(z) ? (
           <span className={Math.abs(z) > 3 ? "text-danger" : "text-ink-2"}>
-            {z.toFixed(2).replace("-", "−")}
+            {formatFixed(z, 2)}
           </span>
         ) : (
           <span className="text-ink-3">—</span>

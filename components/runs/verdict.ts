@@ -15,6 +15,7 @@
  */
 
 import { intervalZ } from "@/lib/quantum/sampling/interval";
+import { formatExponential, formatFixed } from "@/lib/format";
 
 export const Z_THRESHOLD = 3;
 
@@ -127,11 +128,11 @@ export function pickComparison(opts: {
 export function verdictSentence(v: Verdict, label: string): string {
   switch (v.kind) {
     case "consistent":
-      return `The ${label} mean lies ${Math.abs(v.z ?? 0).toFixed(2)} standard errors from the exact value — consistent with shot noise.`;
+      return `The ${label} mean lies ${formatFixed(Math.abs(v.z ?? 0), 2)} standard errors from the exact value — consistent with shot noise.`;
     case "suspicious":
       return v.z === null
         ? `The ${label} mean has no spread but differs from the exact value — look at the inputs.`
-        : `The ${label} mean lies ${Math.abs(v.z).toFixed(2)} standard errors from the exact value — more than shot noise explains (p = ${v.p?.toExponential(1)}).`;
+        : `The ${label} mean lies ${formatFixed(Math.abs(v.z), 2)} standard errors from the exact value — more than shot noise explains (p = ${v.p === null ? "—" : formatExponential(v.p, 1)}).`;
     case "exact":
       return `Every shot gave the same outcome; the ${label} mean equals the exact value.`;
     default:

@@ -1,11 +1,5 @@
 import { cn } from "./cn";
-
-const compact = new Intl.NumberFormat("en-US", { notation: "compact", maximumFractionDigits: 1 });
-
-/** Default figure format: 1.2M, 600, 36K. */
-export function formatCompact(n: number): string {
-  return compact.format(n);
-}
+import { formatCompact, formatPercent } from "@/lib/format";
 
 /**
  * Usage against a quota (ARIA role "meter"). The bar turns amber from `warnAt` (default
@@ -53,7 +47,7 @@ export function Meter({
   const u = unit ? ` ${unit}` : "";
   const valueText = unlimited
     ? `${format(used)}${u} used, no limit`
-    : `${format(used)} of ${format(limit as number)}${u} (${Math.round(ratio * 100)}%)`;
+    : `${format(used)} of ${format(limit as number)}${u} (${formatPercent(ratio)})`;
   return (
     <div className={cn("grid gap-1.5", className)}>
       <div className="flex items-baseline justify-between gap-3 text-[13px]">

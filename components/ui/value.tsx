@@ -3,7 +3,7 @@ import {
   formatPlusMinus,
   formatUncertainty,
   type UncertaintyDigits,
-} from "@/lib/format/uncertainty";
+} from "@/lib/format";
 import { cn } from "./cn";
 
 export type ValueTone = "default" | "exact" | "sampled" | "noisy" | "mitigated" | "muted";

@@ -3,6 +3,7 @@
  * the extension must fit the slot, the size must be within its limit, and the content
  * must be UTF-8 text (no NUL bytes). Messages name the file and the limit.
  */
+import { formatBytes } from "@/lib/format";
 export type FileSlot = "circuit" | "observable";
 
 export const FILE_RULES: Record<
@@ -24,12 +25,6 @@ export const FILE_RULES: Record<
 export function extensionOf(name: string): string {
   const m = /\.[^./\\]+$/.exec(name.toLowerCase());
   return m ? m[0] : "";
-}
-
-function formatBytes(n: number): string {
-  return n >= 1_000_000
-    ? `${(n / 1_000_000).toFixed(n % 1_000_000 ? 1 : 0)} MB`
-    : `${Math.ceil(n / 1000)} kB`;
 }
 
 /** null when acceptable, else a message for the user. */

@@ -21,6 +21,7 @@ import { IssueList } from "./issue-list";
 import { formatQubitSet, pauliSupport } from "./pauli-support";
 import { Segmented } from "./segmented";
 import { SourceToolbar } from "./source-toolbar";
+import { plural, pluralWord } from "@/lib/format";
 
 export type ObservableSummary = { terms: number; settings: number } | null;
 
@@ -155,19 +156,19 @@ export function ObservableCard({
         <p className="figures text-xs text-ink-2" aria-live="polite">
           {summary ? (
             <>
-              {summary.terms} term{summary.terms === 1 ? "" : "s"}
+              {plural(summary.terms, "term")}
               {format === "pauli" && support.length ? (
                 <>
                   {" "}
-                  · acts on qubit{support.length === 1 ? "" : "s"} {formatQubitSet(support)}
+                  · acts on {pluralWord(support.length, "qubit")} {formatQubitSet(support)}
                 </>
               ) : null}
               {" · "}
-              {summary.settings} measurement setting{summary.settings === 1 ? "" : "s"}
+              {plural(summary.settings, "measurement setting")}
             </>
           ) : format === "pauli" && support.length ? (
             <>
-              acts on qubit{support.length === 1 ? "" : "s"} {formatQubitSet(support)}
+              acts on {pluralWord(support.length, "qubit")} {formatQubitSet(support)}
             </>
           ) : (
             <span className="font-sans text-ink-3">

@@ -14,6 +14,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { linspace, parseNumber, type ComposerValues } from "./composer-model";
+import { formatSignificant, plural } from "@/lib/format";
 
 const MAX_AXES = 2;
 
@@ -25,7 +26,7 @@ function sweepSummary(a: ComposerValues["sweepAxes"][number]): string | null {
     return null;
   const values = linspace(from, to, Math.round(n));
   const step = values.length > 1 ? values[1] - values[0] : 0;
-  return `${values.length} value${values.length === 1 ? "" : "s"}${values.length > 1 ? `, step ${Number(step.toPrecision(4))}` : ""}`;
+  return `${plural(values.length, "value")}${values.length > 1 ? `, step ${formatSignificant(step, 4)}` : ""}`;
 }
 
 export function ParametersCard({

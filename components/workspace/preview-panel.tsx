@@ -15,8 +15,7 @@ import { Spinner } from "@/components/ui/spinner";
 import type { ApiError } from "@/lib/swr/api-client";
 import type { Preview } from "@/lib/swr/types";
 import { PauliDecompositionList } from "@/components/runs/pauli-decomposition-list";
-
-const fmt = new Intl.NumberFormat("en-US");
+import { formatCount, plural } from "@/lib/format";
 
 function Stat({ label, value }: { label: string; value: React.ReactNode }) {
   return (
@@ -145,8 +144,8 @@ export function PreviewPanel({
             <dl className="grid grid-cols-2 gap-2">
               <Stat label="Qubits" value={preview.qubits} />
               <Stat label="Depth" value={preview.depth} />
-              <Stat label="Gates" value={fmt.format(preview.totalGates)} />
-              <Stat label="2-qubit gates" value={fmt.format(preview.twoQubitGates)} />
+              <Stat label="Gates" value={formatCount(preview.totalGates)} />
+              <Stat label="2-qubit gates" value={formatCount(preview.twoQubitGates)} />
             </dl>
             {gates.length ? (
               <div className="flex flex-wrap gap-1" aria-label="Gate counts">
@@ -167,9 +166,9 @@ export function PreviewPanel({
                   <li key={i} className="flex items-center justify-between gap-3 text-[12.5px]">
                     <span className="font-mono tracking-[0.12em] text-ink">{g.bases}</span>
                     <span className="figures text-ink-3">
-                      {g.terms.length} term{g.terms.length === 1 ? "" : "s"}
+                      {plural(g.terms.length, "term")}
                       {preview.shotsPerSetting
-                        ? ` · ${fmt.format(preview.shotsPerSetting[i] ?? 0)} shots`
+                        ? ` · ${formatCount(preview.shotsPerSetting[i] ?? 0)} shots`
                         : ""}
                     </span>
                   </li>
@@ -186,13 +185,13 @@ export function PreviewPanel({
               <div className="flex justify-between gap-3">
                 <span className="text-ink-2">Shots per point</span>
                 <span className="figures text-ink">
-                  {preview.shots ? fmt.format(preview.shots) : "exact only"}
+                  {preview.shots ? formatCount(preview.shots) : "exact only"}
                 </span>
               </div>
               {preview.sweepPoints > 1 ? (
                 <div className="flex justify-between gap-3">
                   <span className="text-ink-2">Parameter points</span>
-                  <span className="figures text-ink">{fmt.format(preview.sweepPoints)}</span>
+                  <span className="figures text-ink">{formatCount(preview.sweepPoints)}</span>
                 </div>
               ) : null}
               {preview.gradient && preview.gradient.shiftedCircuits > 0 ? (
@@ -201,7 +200,7 @@ export function PreviewPanel({
                     Gradient: {preview.gradient.shiftedCircuits} shifted circuits per point
                   </span>
                   <span className="figures text-ink">
-                    +{fmt.format(preview.gradient.shotsPerPoint)} shots
+                    +{formatCount(preview.gradient.shotsPerPoint)} shots
                   </span>
                 </div>
               ) : preview.gradient ? (
@@ -215,7 +214,7 @@ export function PreviewPanel({
                   For a standard error of {preview.shotPlan.targetPrecision}: planned from the
                   state’s exact variances — the shots the run will draw (any state could need up to{" "}
                   <span className="figures">
-                    {fmt.format(preview.shotPlan.worstCase.totalShots)}
+                    {formatCount(preview.shotPlan.worstCase.totalShots)}
                   </span>
                   ).
                 </p>
@@ -223,7 +222,7 @@ export function PreviewPanel({
                 <p className="text-xs leading-5 text-ink-3">
                   For a standard error of {preview.shotPlan.targetPrecision}: at most{" "}
                   <span className="figures">
-                    {fmt.format(preview.shotPlan.worstCase.totalShots)}
+                    {formatCount(preview.shotPlan.worstCase.totalShots)}
                   </span>{" "}
                   shots for any state (the state is too large to simulate for the plan); the run
                   plans from the state’s own variances, usually fewer, and is billed for the shots
@@ -233,7 +232,7 @@ export function PreviewPanel({
               <div className="mt-1 flex justify-between gap-3 border-t border-line pt-1.5">
                 <span className="text-ink-2">Counts against {preview.quota.plan.name}</span>
                 <span className="figures font-medium text-ink">
-                  {fmt.format(preview.quota.shots ?? totalShots)} shots
+                  {formatCount(preview.quota.shots ?? totalShots)} shots
                 </span>
               </div>
             </section>

@@ -1,6 +1,7 @@
 /** One plain sentence per audit event, from its action and metadata. */
 import { ROLE_LABELS, isRole } from "@/lib/orgs/roles";
 import { isPlanId, getPlan } from "@/lib/billing/plans";
+import { formatMoney } from "@/lib/format";
 
 const role = (v: unknown) => (isRole(v) ? ROLE_LABELS[v] : String(v ?? "?"));
 const plan = (v: unknown) => (isPlanId(v) ? getPlan(v).name : String(v ?? "?"));
@@ -47,7 +48,7 @@ export function describeAuditEvent(action: string, m: Record<string, unknown>): 
     case "billing.cancel_withdrawn":
       return `Withdrew the scheduled move to Sandbox.`;
     case "billing.payment_failed":
-      return `A payment of ${(Number(m.amountDue) / 100).toFixed(2)} ${str(m.currency).toUpperCase()} failed (attempt ${str(m.attempt)}).`;
+      return `A payment of ${formatMoney(Number(m.amountDue), str(m.currency) || "usd")} failed (attempt ${str(m.attempt)}).`;
     case "billing.overage_reported":
       return `Reported ${str(m.quantity)} ${m.metric === "shots" ? "shots" : "simulation-seconds"} above the included amount.`;
     default:

@@ -15,6 +15,7 @@ import { createHash, createHmac, randomUUID, timingSafeEqual } from "node:crypto
 import { tooManyRequests } from "@/lib/api/problem";
 import { env } from "@/lib/env";
 import { getRedis } from "@/lib/rate-limit/redis";
+import { formatWait } from "@/lib/format";
 
 export const FREE_FAILURES = 5;
 export const MAX_DELAY_SECONDS = 15 * 60;
@@ -81,10 +82,8 @@ export async function assertSignInAllowed(email: string, source: string): Promis
   const { until } = await read(keyOf(email, source));
   const wait = Math.ceil((until - Date.now()) / 1000);
   if (wait > 0) {
-    const when =
-      wait >= 90 ? `${Math.ceil(wait / 60)} minutes` : `${wait} second${wait === 1 ? "" : "s"}`;
     throw tooManyRequests(
-      `Too many failed sign-ins for this account from this browser or network. Wait ${when} and try again, or sign in with an e-mail link instead.`,
+      `Too many failed sign-ins for this account from this browser or network. Wait ${formatWait(wait)} and try again, or sign in with an e-mail link instead.`,
       wait,
     );
   }

@@ -5,15 +5,9 @@ import { sendMail } from "@/lib/mail/transport";
 import { invoiceAvailableMail, paymentFailedMail } from "@/lib/mail/templates";
 import { billingUrl } from "./checkout";
 import { listBillingContacts } from "./queries";
+import { formatLongDate, formatMoney } from "@/lib/format";
 
-const money = (cents: number, currency: string) =>
-  new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(
-    cents / 100,
-  );
-const date = (unix: number) =>
-  new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(
-    new Date(unix * 1000),
-  );
+const date = (unix: number) => formatLongDate(unix * 1000);
 
 async function sendToContacts(
   orgId: string,
@@ -36,7 +30,7 @@ export function mailPaymentFailed(org: { id: string; name: string }, invoice: St
   return sendToContacts(org.id, () =>
     paymentFailedMail({
       orgName: org.name,
-      amount: money(invoice.amount_due, invoice.currency),
+      amount: formatMoney(invoice.amount_due, invoice.currency),
       invoiceNumber: invoice.number ?? invoice.id ?? "",
       payUrl: invoice.hosted_invoice_url ?? billingUrl(),
       billingUrl: billingUrl(),
@@ -49,7 +43,7 @@ export function mailInvoiceAvailable(org: { id: string; name: string }, invoice:
   return sendToContacts(org.id, () =>
     invoiceAvailableMail({
       orgName: org.name,
-      amount: money(invoice.amount_paid, invoice.currency),
+      amount: formatMoney(invoice.amount_paid, invoice.currency),
       invoiceNumber: invoice.number ?? invoice.id ?? "",
       period: `${date(invoice.period_start)} – ${date(invoice.period_end)}`,
       invoiceUrl: invoice.hosted_invoice_url ?? billingUrl(),

@@ -8,11 +8,9 @@ import { createPortalSession, startCheckout } from "./checkout";
 import { getPlan } from "./plans";
 import { changePlanSchema, changeSeatsSchema, checkoutSchema, emptySchema } from "./schemas";
 import { changePlan, changeSeats, setCancelAtPeriodEnd } from "./subscription-changes";
+import { formatLongDate } from "@/lib/format";
 
-const day = (d: Date | null) =>
-  d
-    ? new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(d)
-    : "the end of the period";
+const day = (d: Date | null) => (d ? formatLongDate(d) : "the end of the period");
 
 export const startCheckoutOp = defineOperation({
   name: "billing.checkout",

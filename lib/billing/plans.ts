@@ -179,8 +179,3 @@ export function overageCents(
     extraSeconds * Number(plan.overage.simulationSecondCentsDecimal)
   );
 }
-
-/** Formats cents as a US-dollar amount, e.g. 2900 → "$29.00". */
-export function formatUsd(cents: number): string {
-  return new Intl.NumberFormat("en-US", { style: "currency", currency: "USD" }).format(cents / 100);
-}

@@ -7,11 +7,16 @@
  *
  * The archive's file times are the run's finish time, so the same run always
  * zips to the same bytes (the run page and `GET /api/v1/runs/:id/circuits.zip`
- * both serve this function's output).
+ * both serve this function's output). The circuit body is emitted once for all
+ * settings, and the text of all files together is capped at `MAX_EXPORT_CHARS`:
+ * 2,000 settings of a 100,000-gate circuit would otherwise be gigabytes.
  */
-import { measurementCircuitQasm, parseProgram } from "@/lib/quantum/circuit";
+import { measurementCircuitsQasm, parseProgram } from "@/lib/quantum/circuit";
 import type { EstimateRequest, EstimateResult } from "@/lib/quantum/schemas";
 import { zipTextFiles, type TextFile } from "./zip";
+
+/** Most text (all files together) a circuits export may hold: 20 MB. */
+export const MAX_EXPORT_CHARS = 20_000_000;
 
 /** The run's input bindings at its first point: `parameters`, then the first sweep value / first `points` entry. */
 export function firstPointParams(request: EstimateRequest): Record<string, number> {
@@ -36,9 +41,15 @@ export function measurementCircuitFiles(
   const top = result.sweep?.topLevel ? result.sweep.points[result.sweep.topLevel.index] : undefined;
   const params = top ? { ...(request.parameters ?? {}), ...top.params } : firstPointParams(request);
   const width = String(settings.length - 1).length;
-  return settings.map((g) => ({
+  const texts = measurementCircuitsQasm(
+    program,
+    params,
+    settings.map((g) => g.bases),
+    MAX_EXPORT_CHARS,
+  );
+  return settings.map((g, k) => ({
     name: `setting-${String(g.index).padStart(width, "0")}-${g.bases}.qasm`,
-    text: measurementCircuitQasm(program, params, g.bases),
+    text: texts[k],
   }));
 }
 

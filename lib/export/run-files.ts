@@ -8,8 +8,12 @@
  * has succeeded); a run that failed or was canceled, or that has no such data
  * (no shots → no counts, no sweep → no points, an eigenbasis-measured matrix →
  * no Pauli circuits), answers 404 — each with a problem naming the reason.
+ *
+ * A finished run never changes, so circuits.zip (the one export that costs real work: every
+ * setting's circuit text, deflated) is kept per run and finish time in a cache bounded by bytes.
  */
 import "server-only";
+import { LRUCache } from "lru-cache";
 import type { Run } from "@/db/schema";
 import { ProblemError } from "@/lib/api/problem";
 import { isEngineError } from "@/lib/quantum/errors";
@@ -38,6 +42,20 @@ const unavailable = (detail: string) =>
     status: 404,
     detail,
   });
+
+const zipCache = new LRUCache<string, Uint8Array>({
+  maxSize: 64 * 1024 * 1024,
+  sizeCalculation: (bytes) => Math.max(1, bytes.length),
+});
+
+function circuitsZip(run: Run, result: EstimateResult): Uint8Array | null {
+  const key = `${run.id}:${run.finishedAt?.getTime() ?? 0}`;
+  const hit = zipCache.get(key);
+  if (hit) return hit;
+  const zip = measurementCircuitsZip(run, run.request as EstimateRequest, result);
+  if (zip) zipCache.set(key, zip);
+  return zip;
+}
 
 export function buildRunFile(run: Run, file: RunFileName): RunFile {
   if (run.status === "queued" || run.status === "running") throw notYet(run);
@@ -68,8 +86,15 @@ export function buildRunFile(run: Run, file: RunFileName): RunFile {
     case "circuits.zip": {
       let zip: Uint8Array | null;
       try {
-        zip = measurementCircuitsZip(run, run.request as EstimateRequest, result);
+        zip = circuitsZip(run, result);
       } catch (error) {
+        if (isEngineError(error) && error.code === "too_large")
+          throw new ProblemError({
+            type: "/problems/export-too-large",
+            title: "Export too large",
+            status: 422,
+            detail: `The circuits cannot be exported as one archive: ${error.message}. Export fewer settings by grouping the observable's terms, or rebuild the circuits from terms.csv.`,
+          });
         if (isEngineError(error))
           throw unavailable(`The circuits could not be exported: ${error.message}`);
         throw error;

@@ -19,6 +19,8 @@
  * "-1.1372(8)" and "6.67430(15)e-11" (for CSV and clipboard).
  */
 
+import { fixedAbs, formatFixed, signed, superscript } from "./numbers";
+
 export class UncertaintyFormatError extends RangeError {
   constructor(message: string) {
     super(message);
@@ -42,21 +44,6 @@ export type RoundedUncertainty = {
   decimals: number;
   /** The rounded uncertainty as a number (digitsValue × 10^−decimals). */
   rounded: number;
-};
-
-const MINUS = "\u2212";
-const SUPERSCRIPT: Record<string, string> = {
-  "0": "⁰",
-  "1": "¹",
-  "2": "²",
-  "3": "³",
-  "4": "⁴",
-  "5": "⁵",
-  "6": "⁶",
-  "7": "⁷",
-  "8": "⁸",
-  "9": "⁹",
-  "-": "⁻",
 };
 
 function assertFinite(name: string, x: number): void {
@@ -94,30 +81,18 @@ export function roundUncertainty(u: number, digits: UncertaintyDigits = "pdg"): 
   return { digitsValue: value, decimals, rounded: value * 10 ** -decimals };
 }
 
-/** |x| rounded to `decimals` places, half away from zero, as a digit string with point. */
-function fixedAbs(x: number, decimals: number): string {
-  const scaled = Number((Math.abs(x) * 10 ** decimals).toPrecision(15));
-  const int = Math.round(scaled);
-  if (decimals <= 0) return String(int * 10 ** -decimals);
-  const s = String(int).padStart(decimals + 1, "0");
-  return `${s.slice(0, -decimals)}.${s.slice(-decimals)}`;
-}
-
 /** Plain decimals read well: last digit at or right of units, below 10⁶, not a long run of 0.000… */
 function isPlain(abs: number, decimals: number): boolean {
   return decimals >= 0 && abs < 1e6 && (abs >= 1e-3 || decimals <= 6);
 }
 
 function sign(x: number, ascii: boolean, text: string): string {
-  return x < 0 && /[1-9]/.test(text) ? (ascii ? "-" : MINUS) + text : text;
+  return signed(x, text, ascii);
 }
 
 function exponentText(e: number, ascii: boolean): string {
   if (ascii) return `e${e}`;
-  return ` × 10${String(e)
-    .split("")
-    .map((c) => SUPERSCRIPT[c])
-    .join("")}`;
+  return ` × 10${superscript(e)}`;
 }
 
 /**
@@ -172,17 +147,4 @@ export function formatPlusMinus(
   const abs = Math.abs(value);
   if (!isPlain(abs, r.decimals)) return formatUncertainty(value, u, options);
   return `${sign(value, ascii, fixedAbs(value, r.decimals))} ${ascii ? "+/-" : "±"} ${fixedAbs(r.rounded, r.decimals)}`;
-}
-
-/** A number with a fixed count of decimals and a true minus sign ("−0.500000"). */
-export function formatFixed(
-  value: number,
-  decimals: number,
-  options: { ascii?: boolean } = {},
-): string {
-  assertFinite("Value", value);
-  if (!Number.isInteger(decimals) || decimals < 0 || decimals > 20) {
-    throw new UncertaintyFormatError(`Decimals must be an integer from 0 to 20, got ${decimals}.`);
-  }
-  return sign(value, options.ascii ?? false, fixedAbs(value, decimals));
 }

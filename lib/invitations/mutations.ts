@@ -27,17 +27,13 @@ import {
   signInvitationToken,
   verifyInvitationToken,
 } from "./token";
+import { formatDateTime } from "@/lib/format";
 
 export function invitationUrl(token: string): string {
   return `${env.APP_URL.replace(/\/$/, "")}/invite/${token}`;
 }
 
-const formatExpiry = (d: Date) =>
-  new Intl.DateTimeFormat("en-GB", {
-    dateStyle: "long",
-    timeStyle: "short",
-    timeZone: "UTC",
-  }).format(d) + " UTC";
+const formatExpiry = (d: Date) => formatDateTime(d, { long: true, zone: true });
 
 async function assertSeatFree(tx: Tx, orgId: string, now: Date) {
   const org = await lockOrganization(tx, orgId);

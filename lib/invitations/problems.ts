@@ -1,10 +1,9 @@
 /** Typed failures of invitations: seats used up, and links that cannot be used (each with a plain reason). */
 import { ProblemError } from "@/lib/api/problem";
 import type { TokenProblem } from "./token";
+import { plural } from "@/lib/format";
 
 export type SeatFigures = { members: number; pending: number; used: number; limit: number };
-
-const plural = (n: number, word: string) => `${n} ${word}${n === 1 ? "" : "s"}`;
 
 /**
  * 402 when every seat is taken. The detail says how the seats are used and
@@ -18,7 +17,7 @@ export function seatsExhausted(
   const usage = `${plural(seats.members, "member")} and ${plural(seats.pending, "pending invitation")}`;
   let detail: string;
   if (!paid) {
-    detail = `The ${plan.name} plan allows ${plan.limits.seats === 1 ? "1 person" : `${plan.limits.seats} people`} and all seats are in use (${usage}). Upgrade to a paid plan on the billing page to invite more people.`;
+    detail = `The ${plan.name} plan allows ${plural(plan.limits.seats, "person", "people")} and all seats are in use (${usage}). Upgrade to a paid plan on the billing page to invite more people.`;
   } else if (seats.limit >= plan.limits.seats) {
     detail = `All ${plural(seats.limit, "seat")} of the ${plan.name} plan are in use (${usage}); that is the plan's maximum. Move to a larger plan on the billing page to invite more people.`;
   } else {

@@ -5,6 +5,7 @@ import { ROLE_LABELS } from "@/lib/orgs/roles";
 import { changeMemberRole, removeMember, transferOwnership } from "./mutations";
 import { defineOperation } from "./operation";
 import { changeRoleSchema, removeMemberSchema, transferOwnershipSchema } from "./schemas";
+import { plural } from "@/lib/format";
 
 const who = (t: { name: string | null; email: string | null }) =>
   t.name ?? t.email ?? "That member";
@@ -31,7 +32,7 @@ export const removeMemberOp = defineOperation({
   run: async (input, access) => {
     const { target, revokedKeys } = await removeMember(access, input.userId);
     const keys = revokedKeys
-      ? ` ${revokedKeys} personal API key${revokedKeys === 1 ? " was" : "s were"} revoked.`
+      ? ` ${plural(revokedKeys, "personal API key was", "personal API keys were")} revoked.`
       : "";
     return {
       status: "success",

@@ -115,7 +115,7 @@ const fileMedia: Record<string, { type: string; what: string }> = {
   },
   "circuits.zip": {
     type: "application/zip",
-    what: "One OpenQASM 2.0 measurement circuit per Pauli setting (at the first point) and a README.txt",
+    what: "One OpenQASM 2.0 measurement circuit per Pauli setting (at the point the run's main figures describe) and a README.txt; 422 `export-too-large` when all circuits together would exceed 20 MB of text",
   },
 };
 
@@ -218,7 +218,9 @@ export function registerPaths(registry: OpenAPIRegistry): void {
           description: `${file} (Content-Disposition: attachment)`,
           content: { [media.type]: { schema: z.string().describe(media.what) } },
         },
-        ...problems(404, 409, ...common),
+        ...(file === "circuits.zip"
+          ? problems(404, 409, 422, ...common)
+          : problems(404, 409, ...common)),
       },
     });
   }

@@ -9,6 +9,7 @@
  */
 import { validationFailed } from "@/lib/api/problem";
 import type { PreviewResult } from "@/lib/quantum/schemas";
+import { formatCount } from "@/lib/format";
 
 export const PREVIEW_CAPS = {
   /** Characters of OpenQASM source. */
@@ -21,7 +22,7 @@ export const PREVIEW_CAPS = {
   settings: 2_000,
 } as const;
 
-const fmt = (n: number) => n.toLocaleString("en-US");
+const fmt = formatCount;
 
 function capExceeded(path: string, what: string, actual: number, cap: number) {
   return validationFailed(`The request has ${fmt(actual)} ${what}; the limit is ${fmt(cap)}.`, [

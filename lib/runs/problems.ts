@@ -6,6 +6,7 @@
 import { formatFieldPath } from "@/lib/api/problem";
 import type { EngineError } from "@/lib/quantum/errors";
 import type { StoredProblem } from "@/db/schema";
+import { plural } from "@/lib/format";
 
 const ENGINE_TITLES: Record<string, string> = {
   qasm_syntax: "Circuit syntax error",
@@ -66,6 +67,6 @@ export function infrastructureProblem(attempts: number, cause: string): StoredPr
     type: "/problems/run-infrastructure",
     title: "Run could not be completed",
     status: 503,
-    detail: `The run could not be completed after ${attempts} attempt${attempts === 1 ? "" : "s"}, for a reason on our side (${cause}). It used no quota; submit it again.`,
+    detail: `The run could not be completed after ${plural(attempts, "attempt")}, for a reason on our side (${cause}). It used no quota; submit it again.`,
   };
 }

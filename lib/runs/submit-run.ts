@@ -24,6 +24,7 @@ import { plannedShots, previewOrThrow, shotPlanSource } from "./preview-run";
 import { findRunByIdempotencyKey } from "./queries";
 import { requestHash } from "./request-hash";
 import { engineRequestOf, type RunCreateInput } from "./schemas";
+import { plural } from "@/lib/format";
 
 export type SubmitResult = { run: Run; replayed: boolean };
 
@@ -48,7 +49,7 @@ function replay(run: Run, hash: string): SubmitResult {
 export function defaultRunName(preview: PreviewResult): string {
   const method = preview.method === "density_matrix" ? "density-matrix" : "statevector";
   const terms = preview.observable.terms;
-  return `${preview.qubits}-qubit ${method} run, ${terms} term${terms === 1 ? "" : "s"}`;
+  return `${preview.qubits}-qubit ${method} run, ${plural(terms, "term")}`;
 }
 
 export async function submitRun(

@@ -1,6 +1,7 @@
 /** Billing periods are UTC calendar months written `YYYY-MM` (lib/billing/plans.ts bills per month). */
+import { formatIsoMonth } from "@/lib/format";
 export function periodOf(date: Date): string {
-  return date.toISOString().slice(0, 7);
+  return formatIsoMonth(date);
 }
 
 export function currentPeriod(): string {

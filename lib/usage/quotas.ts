@@ -19,10 +19,11 @@ import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import type { QuotaVerdict } from "@/lib/runs/schemas";
 import { currentPeriod } from "./period";
 import { getQuotaFigures, type UnfinishedRuns, type UsageTotals } from "./queries";
+import { formatNumber } from "@/lib/format";
 
 export type RunDemand = { method: "statevector" | "density_matrix"; qubits: number; shots: number };
 
-const fmt = (n: number) => new Intl.NumberFormat("en-US", { maximumFractionDigits: 1 }).format(n);
+const fmt = (n: number) => formatNumber(n, 1);
 
 function upgradeHint(plan: Plan, ok: (p: Plan) => boolean): string {
   const better = plans.find((p) => p.seatPriceCents > plan.seatPriceCents && ok(p));

@@ -11,6 +11,7 @@ import { getPlan, isPlanId } from "@/lib/billing/plans";
 import { listCircuits, listObservables } from "@/lib/library/queries";
 import { listMembers } from "@/lib/orgs/queries";
 import { ROLE_DESCRIPTIONS, ROLE_LABELS, roleAtLeast } from "@/lib/orgs/roles";
+import { formatCount } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Dashboard" };
 
@@ -81,9 +82,7 @@ export default async function DashboardPage({
                 <>
                   Up to <span className="figures text-ink">{plan.limits.maxStatevectorQubits}</span>{" "}
                   qubits (statevector) and{" "}
-                  <span className="figures text-ink">
-                    {plan.limits.monthlyShots.toLocaleString("en-US")}
-                  </span>{" "}
+                  <span className="figures text-ink">{formatCount(plan.limits.monthlyShots)}</span>{" "}
                   shots a month.
                 </>
               ) : null}

@@ -6,6 +6,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Meter } from "@/components/ui/meter";
 import { Skeleton } from "@/components/ui/skeleton";
 import { useUsage } from "@/lib/swr/use-usage";
+import { formatCount, plural } from "@/lib/format";
 
 export function UsageMeters() {
   const { data, error, isLoading } = useUsage();
@@ -42,7 +43,7 @@ export function UsageMeters() {
               limit={data.meters.shots.included}
               hint={
                 data.meters.shots.pending
-                  ? `${data.meters.shots.pending.toLocaleString("en-US")} reserved by unfinished runs`
+                  ? `${formatCount(data.meters.shots.pending)} reserved by unfinished runs`
                   : data.meters.shots.overage
                     ? "Use above the quota is billed as overage."
                     : "A hard cap on this plan."
@@ -61,7 +62,7 @@ export function UsageMeters() {
               hint={`${data.runs.running} running, ${data.runs.queued} queued; ${data.runs.concurrentLimit} run at once`}
             />
             <p className="figures text-xs text-ink-3">
-              {data.meters.runs.used.toLocaleString("en-US")} runs this period · up to{" "}
+              {plural(data.meters.runs.used, "run")} this period · up to{" "}
               {data.limits.maxStatevectorQubits} qubits statevector,{" "}
               {data.limits.maxDensityMatrixQubits} density matrix
             </p>

@@ -6,21 +6,22 @@ export type RunFinishedMailData = {
   runName: string;
   /** "finished", "failed" or "canceled". */
   verb: string;
-  minutes: string;
+  /** How long it ran ("3 min 05 s"), null when unknown. */
+  duration: string | null;
   /** One line with the outcome (values with their uncertainty, or the error). */
   outcome: string;
   url: string;
 };
 
 const html = htmlTemplate<RunFinishedMailData>(
-  `<p ${P}>Your run <strong>{{runName}}</strong> {{verb}} after {{minutes}} minutes.</p>
+  `<p ${P}>Your run <strong>{{runName}}</strong> {{verb}}{{#if duration}} after {{duration}}{{/if}}.</p>
 <p ${P} >{{outcome}}</p>
 {{> button href=url label="Open the run"}}
 <p ${MUTED}>Simulated values are not device measurements.</p>`,
 );
 
 const text = textTemplate<RunFinishedMailData>(
-  `Your Ketwise run "{{runName}}" {{verb}} after {{minutes}} minutes.
+  `Your Ketwise run "{{runName}}" {{verb}}{{#if duration}} after {{duration}}{{/if}}.
 
 {{outcome}}
 

@@ -42,7 +42,5 @@ export function parameterError(name: string, message: string): EngineError {
   return new EngineError("invalid_request", message, [{ path: ["parameters", name], message }]);
 }
 
-/** English plural helper: plural(1, "qubit") = "1 qubit", plural(2, "qubit") = "2 qubits". */
-export function plural(n: number, word: string): string {
-  return `${n} ${word}${n === 1 ? "" : "s"}`;
-}
+/** English plural of the product's one formatting module: plural(2, "qubit") = "2 qubits". */
+export { plural } from "../../format/plural";

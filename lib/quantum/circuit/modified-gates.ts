@@ -15,6 +15,7 @@
  */
 import { EngineError } from "../errors";
 import { qasmCall, type PrimitiveGate } from "./gate-library";
+import { plural } from "./circuit-errors";
 
 export interface GateModification {
   /** The unmodified primitive (never itself modified). */
@@ -133,7 +134,7 @@ function build(mod: GateModification): PrimitiveGate {
 function notExportable(mod: GateModification, name: string): EngineError {
   return new EngineError(
     "unsupported",
-    `'${name}' (${mod.controls.length} control${mod.controls.length === 1 ? "" : "s"} on '${mod.base.name}') has no rendering with the gates of qelib1.inc, so this circuit cannot be exported as OpenQASM 2.0`,
+    `'${name}' (${plural(mod.controls.length, "control")} on '${mod.base.name}') has no rendering with the gates of qelib1.inc, so this circuit cannot be exported as OpenQASM 2.0`,
   );
 }
 

@@ -67,27 +67,58 @@ export function measurementCircuitQasm(
   params: Record<string, number>,
   bases: string,
 ): string {
+  return measurementCircuitsQasm(program, params, [bases])[0];
+}
+
+/**
+ * One measurement circuit per bases word (as `measurementCircuitQasm`), the bound body emitted
+ * once and shared by all of them. `maxChars` bounds the total text: when the circuits together
+ * would be longer, nothing is built and a `too_large` EngineError names the sizes.
+ */
+export function measurementCircuitsQasm(
+  program: ParsedProgram,
+  params: Record<string, number>,
+  basesList: readonly string[],
+  maxChars = Number.POSITIVE_INFINITY,
+): string[] {
   const p = compiledOf(program);
-  checkWord(p, bases, "bases");
-  const measured = [...bases].flatMap((b, i) => (b === "I" ? [] : [i]));
-  const lines = header(p, [
-    `Ketwise measurement circuit for bases ${bases} (qubit 0 first)`,
-    measured.length > 0
-      ? `m[j] holds the j-th measured qubit: ${measured.map((i, j) => `m[${j}] = q[${i}]`).join(", ")}`
-      : "no qubit is measured (all bases I)",
-  ]);
-  lines.push(`qreg q[${p.numQubits}];`);
-  if (measured.length > 0) lines.push(`creg m[${measured.length}];`);
-  lines.push(...body(p, params, "the measurement circuit"));
-  if (measured.length > 0) {
-    lines.push("barrier q;", "// rotate into the measurement bases (X: h; Y: sdg then h)");
-    for (const i of measured) {
-      if (bases[i] === "X") lines.push(`h q[${i}];`);
-      if (bases[i] === "Y") lines.push(`sdg q[${i}];`, `h q[${i}];`);
+  basesList.forEach((b) => checkWord(p, b, "bases"));
+  const tooLarge = (perSetting: number) => {
+    const mb = (chars: number) => (chars / 1e6).toFixed(1);
+    const total = perSetting * basesList.length;
+    return new EngineError(
+      "too_large",
+      `the measurement circuits would be at least ${mb(total)} MB of text (${basesList.length} settings × ${mb(perSetting)} MB each), more than the ${mb(maxChars)} MB an export may hold`,
+    );
+  };
+  // every operation emits at least one line of ≥ 8 characters: refuse before emitting anything
+  const fixed = 200 + 40 * p.numQubits;
+  if ((8 * p.ops.length + fixed) * basesList.length > maxChars)
+    throw tooLarge(8 * p.ops.length + fixed);
+  const bodyText = body(p, params, "the measurement circuit").join("\n");
+  if ((bodyText.length + fixed) * basesList.length > maxChars)
+    throw tooLarge(bodyText.length + fixed);
+  return basesList.map((bases) => {
+    const measured = [...bases].flatMap((b, i) => (b === "I" ? [] : [i]));
+    const lines = header(p, [
+      `Ketwise measurement circuit for bases ${bases} (qubit 0 first)`,
+      measured.length > 0
+        ? `m[j] holds the j-th measured qubit: ${measured.map((i, j) => `m[${j}] = q[${i}]`).join(", ")}`
+        : "no qubit is measured (all bases I)",
+    ]);
+    lines.push(`qreg q[${p.numQubits}];`);
+    if (measured.length > 0) lines.push(`creg m[${measured.length}];`);
+    if (bodyText) lines.push(bodyText);
+    if (measured.length > 0) {
+      lines.push("barrier q;", "// rotate into the measurement bases (X: h; Y: sdg then h)");
+      for (const i of measured) {
+        if (bases[i] === "X") lines.push(`h q[${i}];`);
+        if (bases[i] === "Y") lines.push(`sdg q[${i}];`, `h q[${i}];`);
+      }
+      measured.forEach((i, j) => lines.push(`measure q[${i}] -> m[${j}];`));
     }
-    measured.forEach((i, j) => lines.push(`measure q[${i}] -> m[${j}];`));
-  }
-  return `${lines.join("\n")}\n`;
+    return `${lines.join("\n")}\n`;
+  });
 }
 
 /** OpenQASM 2.0 Hadamard test whose ancilla has ⟨Z⟩ = Re⟨ψ|P|ψ⟩ ("re") or Im⟨ψ|P|ψ⟩ ("im"). */

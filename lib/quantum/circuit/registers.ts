@@ -49,7 +49,7 @@ export class RegisterTable {
     const ceiling = quantum
       ? ` (simulation handles at most ${MAX_STATEVECTOR_QUBITS} qubits with the statevector method, ${MAX_DENSITY_MATRIX_QUBITS} with the density matrix)`
       : "";
-    const message = `register '${name}' declares ${size.toLocaleString("en-US")} ${quantum ? "qubits" : "classical bits"}: too many; a circuit may declare at most ${limit}${ceiling}`;
+    const message = `register '${name}' declares ${plural(size, quantum ? "qubit" : "classical bit")}: too many; a circuit may declare at most ${limit}${ceiling}`;
     throw circuitError("too_large", message, pos);
   }
 

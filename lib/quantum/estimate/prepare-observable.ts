@@ -3,6 +3,7 @@
  * measurement settings, or a validated Hermitian matrix (dimension 2^n) with its
  * eigendecomposition (computed once; needed for eigenbasis sampling and the spectrum).
  */
+import { plural } from "../../format/plural";
 import { EngineError } from "../errors";
 import { groupQubitWise, type MeasurementSetting } from "../observable/grouping";
 import { hermitianEigen } from "../observable/hermitian-eigen";
@@ -31,7 +32,6 @@ export function parseObservableForCircuit(
 /** A JSON term list over the circuit's n qubits; problems point at observable.terms[i].pauli. */
 function termsForCircuit(terms: unknown, n: number): ObservableShape {
   const parsed = parsePauliTerms(terms);
-  const plural = n === 1 ? "" : "s";
   const fail = (entry: number, message: string): never => {
     throw new EngineError("observable_invalid", `observable.terms[${entry}].pauli: ${message}`, [
       {
@@ -43,7 +43,7 @@ function termsForCircuit(terms: unknown, n: number): ObservableShape {
   if (parsed.denseLength !== null && parsed.denseLength !== n) {
     fail(
       parsed.denseEntry ?? 0,
-      `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`,
+      `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${plural(n, "qubit")}`,
     );
   }
   if (parsed.numQubits > n) {
@@ -53,7 +53,7 @@ function termsForCircuit(terms: unknown, n: number): ObservableShape {
     });
     fail(
       parsed.entries[worst],
-      `observable acts on qubit ${highestQubit(parsed.terms[worst])} but the circuit has ${n} qubit${plural}`,
+      `observable acts on qubit ${highestQubit(parsed.terms[worst])} but the circuit has ${plural(n, "qubit")}`,
     );
   }
   const sum = padPauliSum(parsed, n);
@@ -71,10 +71,9 @@ export function prepareObservable(
 
 function pauliForCircuit(terms: string, n: number): ObservableShape {
   const parsed = parsePauliSum(terms);
-  const plural = n === 1 ? "" : "s";
   if (parsed.denseLength !== null && parsed.denseLength !== n) {
     const at = parsed.denseAt ?? { line: 1, column: 1 };
-    const message = `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${n} qubit${plural}`;
+    const message = `dense Pauli words need one letter per qubit: they have ${parsed.denseLength} letters but the circuit has ${plural(n, "qubit")}`;
     throw new EngineError("observable_invalid", message, [
       { path: ["observable", "terms"], message, line: at.line, column: at.column },
     ]);
@@ -86,7 +85,7 @@ function pauliForCircuit(terms: string, n: number): ObservableShape {
     });
     const q = Math.max(highestQubit(parsed.terms[worst]), parsed.numQubits - 1);
     const at = parsed.origins[worst];
-    const message = `observable acts on qubit ${q} but the circuit has ${n} qubit${plural}`;
+    const message = `observable acts on qubit ${q} but the circuit has ${plural(n, "qubit")}`;
     throw new EngineError("observable_invalid", message, [
       { path: ["observable", "terms"], message, line: at.line, column: at.column },
     ]);

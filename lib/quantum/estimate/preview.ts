@@ -24,6 +24,8 @@ import { assertDifferentiable, plannedShiftedCircuits } from "../gradient";
 import { compiledOf } from "../circuit/program";
 import { parameterPoints } from "./sweep-grid";
 import { validateRequest } from "./validate-request";
+import { formatCount } from "../../format/numbers";
+import { plural } from "../../format/plural";
 
 /** `program`: the request's circuit already parsed by the caller (it is then not parsed again). */
 export function previewRequest(
@@ -107,8 +109,8 @@ export function previewRequest(
     if (sampled && shiftedCircuits > 0) {
       notes.push(
         req.targetPrecision !== null
-          ? `The sampled gradient runs ${shiftedCircuits} parameter-shifted circuit${shiftedCircuits === 1 ? "" : "s"} per point, each planning its own shots for the target from its own state (about ${shots.toLocaleString("en-US")} each are reserved); their shots are counted and billed.`
-          : `The sampled gradient runs ${shiftedCircuits} parameter-shifted circuit${shiftedCircuits === 1 ? "" : "s"} per point with ${shots.toLocaleString("en-US")} shots each (parameter-shift rules); their shots are counted and billed.`,
+          ? `The sampled gradient runs ${plural(shiftedCircuits, "parameter-shifted circuit")} per point, each planning its own shots for the target from its own state (about ${formatCount(shots)} each are reserved); their shots are counted and billed.`
+          : `The sampled gradient runs ${plural(shiftedCircuits, "parameter-shifted circuit")} per point with ${plural(shots, "shot")} each (parameter-shift rules); their shots are counted and billed.`,
       );
     }
   }

@@ -7,6 +7,7 @@
  */
 import { EngineError, type EngineIssue } from "../errors";
 import type { NoiseModel } from "../types";
+import { plural } from "../../format/plural";
 
 const RATE_FIELDS = [
   "depolarizing1q",
@@ -45,7 +46,7 @@ export function validateNoiseModel(noise: NoiseModel | undefined, numQubits?: nu
       } else if (numQubits !== undefined && Number(key) >= numQubits) {
         issues.push({
           path,
-          message: `noise.readout.qubits names qubit ${key} but the circuit has ${numQubits} qubit${numQubits === 1 ? "" : "s"}`,
+          message: `noise.readout.qubits names qubit ${key} but the circuit has ${plural(numQubits, "qubit")}`,
         });
       }
       for (const f of READOUT_FIELDS) checkProbability(rates?.[f], [...path, f], issues);

@@ -18,6 +18,8 @@ import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { POPCOUNT16 } from "./bits";
 import { LOW_BITS, type MaskTerm, SignTables, maskPassOnState, yCount } from "./pauli-mask-pass";
 import { walshHadamardInPlace } from "./walsh-hadamard";
+import { wasmMaskPass } from "../wasm/pauli";
+import { wasmBinding } from "../wasm/runtime";
 
 /**
  * Per-term ⟨P_i⟩ on a normalised statevector: terms grouped by flip mask x, one pass over
@@ -33,8 +35,11 @@ export function pauliExpectationsOnState(
   const out = new Float64Array(sum.terms.length);
   const n = state.n;
   const signs = new SignTables(Math.min(n, lowBits));
+  // amplitudes in a kernel memory: the SIMD pass (WebAssembly), else the JavaScript one
+  const w = n >= 2 ? wasmBinding(state.re, state.im) : undefined;
   for (const [x, terms] of groupByMask(sum)) {
     if (terms.length > transformThreshold(n)) maskByTransform(state.re, state.im, x, terms, out);
+    else if (w) wasmMaskPass(w, state.re, state.im, x, terms, out);
     else maskPassOnState(state.re, state.im, x, terms, signs, out);
   }
   return out;

@@ -5,6 +5,7 @@
  */
 import { EngineError } from "../errors";
 import type { PauliSum, PauliTerm } from "../types";
+import { plural } from "../../format/plural";
 
 export type PauliLetter = "I" | "X" | "Y" | "Z";
 
@@ -55,7 +56,7 @@ export function padPauliSum(sum: PauliSum, n: number): PauliSum {
   if (sum.numQubits > n) {
     const highest = Math.max(-1, ...sum.terms.map(highestQubit));
     const named = highest >= n ? highest : sum.numQubits - 1;
-    const message = `observable acts on qubit ${named} but the circuit has ${n} qubit${n === 1 ? "" : "s"}`;
+    const message = `observable acts on qubit ${named} but the circuit has ${plural(n, "qubit")}`;
     throw new EngineError("observable_invalid", message, [
       { path: ["observable", "terms"], message },
     ]);

@@ -12,6 +12,15 @@ export const PARALLEL_MIN_QUBITS = 16;
 
 const pow2Floor = (x: number): number => (x < 1 ? 1 : 2 ** Math.floor(Math.log2(x)));
 
+/**
+ * Whether states are allocated in WebAssembly kernel memories (SIMD kernels). On unless
+ * `KETWISE_ENGINE_WASM=0`, which keeps every state in plain arrays (the JavaScript kernels,
+ * the reference path).
+ */
+export function engineWasm(): boolean {
+  return process.env.KETWISE_ENGINE_WASM?.trim() !== "0";
+}
+
 export function engineThreads(concurrentRuns = 1): number {
   const raw = process.env.KETWISE_ENGINE_THREADS;
   if (raw !== undefined && raw.trim() !== "") {

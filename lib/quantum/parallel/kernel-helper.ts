@@ -6,6 +6,7 @@
  */
 import { parentPort } from "node:worker_threads";
 import { applyToAmplitudes } from "../statevector/dispatch";
+import { bindMemory } from "../wasm/runtime";
 import {
   type AttachMessage,
   CMD_DETACH,
@@ -24,9 +25,10 @@ if (!port) throw new Error("kernel-helper.ts must run in a worker thread");
 function serve(m: AttachMessage): void {
   const ctrl = new Int32Array(m.control);
   const mat = new Float64Array(m.matrix);
-  const len = m.re.byteLength / 8 / m.parts;
-  const re = new Float64Array(m.re, m.index * len * 8, len);
-  const im = new Float64Array(m.im, m.index * len * 8, len);
+  const len = m.dim / m.parts;
+  if (m.memory) bindMemory(m.memory, m.index); // else (no SIMD here) the JavaScript kernels run
+  const re = new Float64Array(m.re, m.reAt + m.index * len * 8, len);
+  const im = new Float64Array(m.im, m.imAt + m.index * len * 8, len);
   let seen = Atomics.load(ctrl, SEQ);
   Atomics.add(ctrl, READY, 1);
   Atomics.notify(ctrl, READY);

@@ -18,6 +18,8 @@ import { join } from "node:path";
 import { pathToFileURL } from "node:url";
 import type { Worker } from "node:worker_threads";
 import { applyToAmplitudes } from "../statevector/dispatch";
+import { bindMemory, createKernelMemory, stateViews } from "../wasm/runtime";
+import { engineWasm } from "./config";
 import {
   type AttachMessage,
   CMD_DETACH,
@@ -91,11 +93,17 @@ export class ParallelState {
   ) {
     this.parts = threads;
     this.splitBit = n - Math.log2(threads);
-    const bytes = 8 * 2 ** n;
-    const reBuf = new SharedArrayBuffer(bytes);
-    const imBuf = new SharedArrayBuffer(bytes);
-    this.re = new Float64Array(reBuf);
-    this.im = new Float64Array(imBuf);
+    // amplitudes in a kernel memory (WebAssembly SIMD kernels on every thread) when enabled,
+    // else in two SharedArrayBuffers
+    const memory = engineWasm() ? createKernelMemory(n) : null;
+    if (memory && bindMemory(memory, 0)) {
+      ({ re: this.re, im: this.im } = stateViews(memory, n));
+    } else {
+      this.re = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
+      this.im = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
+    }
+    const reBuf = this.re.buffer as SharedArrayBuffer;
+    const imBuf = this.im.buffer as SharedArrayBuffer;
     const control = new SharedArrayBuffer(4 * CONTROL_INTS);
     const matrix = new SharedArrayBuffer(8 * MATRIX_DOUBLES);
     this.ctrl = new Int32Array(control);
@@ -106,6 +114,10 @@ export class ParallelState {
         type: "attach",
         re: reBuf,
         im: imBuf,
+        reAt: this.re.byteOffset,
+        imAt: this.im.byteOffset,
+        dim: this.re.length,
+        memory: memory ?? undefined,
         control,
         matrix,
         index: i,

@@ -20,11 +20,19 @@ export const MATRIX_DOUBLES = 2 * 4 ** MAX_K;
 export const CMD_GATE = 1;
 export const CMD_DETACH = 2;
 
-/** Message that attaches a helper to a state: its share is chunk `index` of `parts`. */
+/**
+ * Message that attaches a helper to a state: its share is chunk `index` of `parts` of the
+ * `dim` amplitudes at byte offsets reAt / imAt of `re` / `im`. A state in a kernel memory
+ * also sends the memory (re = im = its buffer): the helper binds the WebAssembly kernels to it.
+ */
 export interface AttachMessage {
   type: "attach";
   re: SharedArrayBuffer;
   im: SharedArrayBuffer;
+  reAt: number;
+  imAt: number;
+  dim: number;
+  memory?: WebAssembly.Memory;
   control: SharedArrayBuffer;
   matrix: SharedArrayBuffer;
   index: number;

@@ -13,6 +13,7 @@
 import { EngineError } from "../errors";
 import { MAX_SHOTS } from "../estimate/limits";
 import type { SettingLoad } from "./posterior-allocation";
+import { formatCount } from "../../format/numbers";
 
 export interface SettingPlan {
   /** Per-setting shots, in setting order. */
@@ -79,7 +80,7 @@ export function allocateShots(total: number, weights: number[]): number[] {
 
 /** A count as text: exact with thousands separators below 10^15, else "about 2.5×10^599". */
 function countText(log10: number, exact: number): string {
-  if (Number.isFinite(exact) && exact < 1e15) return Math.ceil(exact).toLocaleString("en-US");
+  if (Number.isFinite(exact) && exact < 1e15) return formatCount(Math.ceil(exact));
   const exponent = Math.floor(log10);
   return `about ${(10 ** (log10 - exponent)).toFixed(1)}×10^${exponent}`;
 }
@@ -131,6 +132,6 @@ export function unreachablePrecision(
       : "from worst-case variance bounds (the state was too large to simulate for the plan)";
   const message =
     `a standard error of ${epsilon} needs ${needed} shots (${how}), ` +
-    `more than the limit of ${MAX_SHOTS.toLocaleString("en-US")} per run; loosen targetPrecision or give shots`;
+    `more than the limit of ${formatCount(MAX_SHOTS)} per run; loosen targetPrecision or give shots`;
   return new EngineError("infeasible", message, [{ path: ["targetPrecision"], message }]);
 }

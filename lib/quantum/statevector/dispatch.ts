@@ -27,6 +27,8 @@ import {
   ZERO_TOL,
   type MatrixShape,
 } from "./matrix-classify";
+import { wasm1q, wasm2q } from "../wasm/kernels";
+import { wasmBinding } from "../wasm/runtime";
 
 /** True when every imaginary part of the interleaved matrix is exactly zero. */
 export function isRealMatrix(m: Float64Array): boolean {
@@ -36,7 +38,8 @@ export function isRealMatrix(m: Float64Array): boolean {
 
 /**
  * The dense path only (no structure detection): the reference the specialised kernels
- * are tested against.
+ * are tested against. Amplitudes in a kernel memory go through the WebAssembly kernels
+ * (1 and 2 qubits), every other array through the JavaScript ones.
  */
 export function applyDense(
   re: Float64Array,
@@ -45,6 +48,12 @@ export function applyDense(
   m: Float64Array,
 ): void {
   const k = bits.length;
+  const w = k <= 2 ? wasmBinding(re, im) : undefined;
+  if (w) {
+    if (k === 1) wasm1q(w, re, im, bits[0], m, isRealMatrix(m));
+    else wasm2q(w, re, im, bits[0], bits[1], m);
+    return;
+  }
   if (k === 1) {
     if (isRealMatrix(m)) applyReal1q(re, im, bits[0], m);
     else applyGeneral1q(re, im, bits[0], m);

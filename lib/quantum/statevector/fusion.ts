@@ -24,12 +24,22 @@ interface Block {
   qubits: number[];
   matrix: Float64Array;
   names: string[];
+  /** Indices (in `add` order) of the gates multiplied into the block, first applied first. */
+  sources: number[];
   fusable: boolean;
 }
 
 interface Pending {
   matrix: Float64Array;
   names: string[];
+  sources: number[];
+}
+
+/** A fused application and the input gates it is the product of (see GateFuser.sources). */
+export interface FusedBlock {
+  gate: GateApplication;
+  /** Indices of the input gates in an order whose product (first applied first) is the block. */
+  sources: number[];
 }
 
 /** Small per-pass overhead (loop set-up, a sweep of the state): prefers fewer passes on ties. */
@@ -39,9 +49,11 @@ export class GateFuser {
   private readonly blocks: Block[] = [];
   private readonly latest = new Map<number, number>();
   private readonly pending = new Map<number, Pending>();
+  private count = 0;
 
   add(gate: GateApplication): void {
     const k = gate.qubits.length;
+    const index = this.count++;
     if (k === 1) {
       const q = gate.qubits[0];
       const p = this.pending.get(q);
@@ -49,8 +61,9 @@ export class GateFuser {
         this.pending.set(q, {
           matrix: multiplyMatrices(gate.matrix, p.matrix, 2),
           names: [...p.names, gate.name],
+          sources: [...p.sources, index],
         });
-      else this.pending.set(q, { matrix: gate.matrix, names: [gate.name] });
+      else this.pending.set(q, { matrix: gate.matrix, names: [gate.name], sources: [index] });
       return;
     }
     if (k > 2) {
@@ -59,14 +72,15 @@ export class GateFuser {
         qubits: [...gate.qubits],
         matrix: gate.matrix,
         names: [gate.name],
+        sources: [index],
         fusable: false,
       });
       return;
     }
-    this.addTwoQubit(gate);
+    this.addTwoQubit(gate, index);
   }
 
-  private addTwoQubit(gate: GateApplication): void {
+  private addTwoQubit(gate: GateApplication, index: number): void {
     const [a, b] = gate.qubits;
     const pa = this.pending.get(a);
     const pb = this.pending.get(b);
@@ -96,7 +110,12 @@ export class GateFuser {
               ...(useB && pb ? pb.names : []),
               gate.name,
             ];
-            this.push({ qubits: [a, b], matrix: m, names, fusable: true });
+            const sources = [
+              ...(useA && pa ? pa.sources : []),
+              ...(useB && pb ? pb.sources : []),
+              index,
+            ];
+            this.push({ qubits: [a, b], matrix: m, names, sources, fusable: true });
           },
         });
       }
@@ -113,6 +132,7 @@ export class GateFuser {
           this.pending.delete(b);
           block.matrix = merged;
           block.names.push(...(pa ? pa.names : []), ...(pb ? pb.names : []), gate.name);
+          block.sources.push(...(pa ? pa.sources : []), ...(pb ? pb.sources : []), index);
         },
       });
     }
@@ -131,7 +151,7 @@ export class GateFuser {
     const p = this.pending.get(q);
     if (!p) return;
     this.pending.delete(q);
-    this.push({ qubits: [q], matrix: p.matrix, names: p.names, fusable: true });
+    this.push({ qubits: [q], matrix: p.matrix, names: p.names, sources: p.sources, fusable: true });
   }
 
   /** Places every pending product: into the latest 2-qubit block on its qubit when cheaper. */
@@ -147,6 +167,7 @@ export class GateFuser {
         ) {
           block.matrix = merged;
           block.names.push(...p.names);
+          block.sources.push(...p.sources);
           this.pending.delete(q);
           continue;
         }
@@ -157,11 +178,19 @@ export class GateFuser {
 
   /** The fused applications, in an order equivalent to the input order. */
   result(): GateApplication[] {
+    return this.blocksWithSources().map((b) => b.gate);
+  }
+
+  /** As result(), each block with the input gates it multiplies (adjoint gradients use them). */
+  blocksWithSources(): FusedBlock[] {
     this.flushPending();
     return this.blocks.map((b) => ({
-      name: b.names.length === 1 ? b.names[0] : "fused",
-      qubits: b.qubits,
-      matrix: b.matrix,
+      gate: {
+        name: b.names.length === 1 ? b.names[0] : "fused",
+        qubits: b.qubits,
+        matrix: b.matrix,
+      },
+      sources: b.sources,
     }));
   }
 }

@@ -3,15 +3,34 @@
  * length 2^n; amplitude index bit k is qubit k (little-endian in the index).
  */
 import type { StateVector } from "../types";
+import { engineWasm } from "../parallel/config";
+import { bindMemory, createKernelMemory, stateViews } from "../wasm/runtime";
+
+/**
+ * Below this many qubits states stay in plain arrays: creating a kernel memory and its instance
+ * costs more than the SIMD kernels save on a few thousand amplitudes (npm run bench, kernels).
+ */
+export const WASM_MIN_QUBITS = 10;
+
+/**
+ * Zero-filled re and im arrays of 2^n amplitudes: in a WebAssembly kernel memory (the SIMD
+ * kernels run on them) when enabled and n ≥ WASM_MIN_QUBITS, else plain Float64Arrays.
+ */
+export function allocateAmplitudes(n: number): { re: Float64Array; im: Float64Array } {
+  if (n >= WASM_MIN_QUBITS && engineWasm()) {
+    const memory = createKernelMemory(n);
+    if (memory && bindMemory(memory, 0)) return stateViews(memory, n);
+  }
+  const dim = 2 ** n;
+  return { re: new Float64Array(dim), im: new Float64Array(dim) };
+}
 
 /** |0…0⟩ on n qubits: amplitude 1 at index 0. */
 export function createZeroState(n: number): StateVector {
   if (!Number.isInteger(n) || n < 0 || n > 30) {
     throw new RangeError(`createZeroState: qubit count must be an integer in [0, 30], got ${n}`);
   }
-  const dim = 2 ** n;
-  const re = new Float64Array(dim);
-  const im = new Float64Array(dim);
+  const { re, im } = allocateAmplitudes(n);
   re[0] = 1;
   return { n, re, im };
 }

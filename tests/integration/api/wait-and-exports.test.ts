@@ -272,6 +272,33 @@ describe("run exports", () => {
     expect((await api("GET", `/api/v1/runs/${canceled}/terms.csv`, { key })).status).toBe(404);
   });
 
+  it("circuits.zip whose text would pass the export cap is a 422 problem naming the sizes", async () => {
+    // 50,000 unrolled gate applications × 40 settings (distinct full-support words never share a setting)
+    const source = `OPENQASM 3.0;
+include "stdgates.inc";
+qubit[4] q;
+for int i in [0:9999] { rx(0.01) q[0]; cx q[0], q[1]; ry(0.02) q[2]; cx q[2], q[3]; rz(0.03) q[1]; }
+`;
+    const words: string[] = [];
+    for (let k = 0; words.length < 40; k++) {
+      words.push([0, 1, 2, 3].map((i) => "XYZ"[Math.floor(k / 3 ** i) % 3]).join(""));
+    }
+    const terms = words.map(
+      (w, j) => `${(j + 1) / 10} ${[...w].map((c, i) => `${c}${i}`).join(" ")}`,
+    );
+    const id = await submit({
+      circuit: { format: "qasm3", source },
+      observable: { format: "pauli", terms: terms.join(" + ") },
+      shots: 0,
+    });
+    await run(id);
+    const zip = await api("GET", `/api/v1/runs/${id}/circuits.zip`, { key });
+    expect(zip.status).toBe(422);
+    expect(zip.body.type).toBe("/problems/export-too-large");
+    expect(zip.body.detail).toMatch(/40 settings × 0\.\d MB each\), more than the 20\.0 MB/);
+    expect((await api("GET", `/api/v1/runs/${id}/terms.csv`, { key })).status).toBe(200);
+  });
+
   it("circuits.zip of an eigenbasis-measured matrix observable is a 404 problem saying why", async () => {
     const id = await submit({
       circuit: { format: "qasm2", source: BELL_QASM },

@@ -1,7 +1,6 @@
 import { describe, expect, it } from "vitest";
 import {
   UnknownPlanError,
-  formatUsd,
   getPlan,
   isPaidPlan,
   isPlanId,
@@ -117,13 +116,5 @@ describe("overageCents", () => {
         simulationSeconds: lab.limits.monthlySimulationSeconds + 100,
       }),
     ).toBeCloseTo(15 + 20, 12);
-  });
-});
-
-describe("formatUsd", () => {
-  it("formats cents as dollars", () => {
-    expect(formatUsd(2900)).toBe("$29.00");
-    expect(formatUsd(0)).toBe("$0.00");
-    expect(formatUsd(123456)).toBe("$1,234.56");
   });
 });

@@ -14,7 +14,7 @@ import { SweepFigure } from "@/components/marketing/sweep-figure";
 import { computeExampleFigures } from "@/lib/examples/example-figures";
 import figures from "@/lib/examples/example-figures.json";
 import { CLUSTER_TERMS } from "@/lib/examples/three-spin-cluster";
-import { formatFixed, formatPlusMinus, formatUncertainty } from "@/lib/format/uncertainty";
+import { formatFixed, formatPlusMinus, formatUncertainty } from "@/lib/format";
 import { parsePauliSum } from "@/lib/quantum";
 import { threeSpinEnergy } from "../../support/three-spin-closed-form";
 

@@ -1,8 +1,8 @@
 import fc from "fast-check";
 import { describe, expect, it } from "vitest";
+import { NumberFormatError, formatFixed } from "@/lib/format/numbers";
 import {
   UncertaintyFormatError,
-  formatFixed,
   formatPlusMinus,
   formatUncertainty,
   roundUncertainty,
@@ -117,8 +117,8 @@ describe("formatFixed", () => {
     expect(formatFixed(-0.0000001, 3)).toBe("0.000");
   });
   it("rejects bad decimal counts", () => {
-    expect(() => formatFixed(1, -1)).toThrow(UncertaintyFormatError);
-    expect(() => formatFixed(1, 1.5)).toThrow(UncertaintyFormatError);
+    expect(() => formatFixed(1, -1)).toThrow(NumberFormatError);
+    expect(() => formatFixed(1, 1.5)).toThrow(NumberFormatError);
   });
 });
 

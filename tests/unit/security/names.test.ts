@@ -124,7 +124,7 @@ describe("e-mail subjects", () => {
     const mail = runFinishedMailFrom({
       runName: `Urgent\r\nReply-To: x@evil.example ${"!".repeat(300)}`,
       verb: "finished",
-      minutes: "2",
+      duration: "2 min 00 s",
       outcome: "ok",
       url: "http://localhost/app",
     });

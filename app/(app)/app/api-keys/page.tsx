@@ -14,14 +14,9 @@ import { describeStanding, keyStanding, type KeyStanding } from "@/lib/api-keys/
 import { ROLE_LABELS, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { revokeApiKeyAction } from "./actions";
 import { CreateKeyForm } from "./create-key-form";
+import { formatDateTime } from "@/lib/format";
 
 export const metadata: Metadata = { title: "API keys" };
-
-const when = new Intl.DateTimeFormat("en-GB", {
-  dateStyle: "medium",
-  timeStyle: "short",
-  timeZone: "UTC",
-});
 
 /** The key's role, and when its creator's role limits it, what it acts as and why. */
 function KeyRole({ role, standing }: { role: Role; standing: KeyStanding | null }) {
@@ -127,14 +122,14 @@ export default async function ApiKeysPage() {
                   {isAdmin ? (
                     <TD className="text-ink-2">{k.createdByName ?? k.createdByEmail ?? "—"}</TD>
                   ) : null}
-                  <TD className="text-ink-2">{when.format(k.createdAt)}</TD>
+                  <TD className="text-ink-2">{formatDateTime(k.createdAt)}</TD>
                   <TD className="text-ink-2">
-                    {k.lastUsedAt ? when.format(k.lastUsedAt) : "Never"}
+                    {k.lastUsedAt ? formatDateTime(k.lastUsedAt) : "Never"}
                   </TD>
                   <TD>
                     <div className="flex justify-end">
                       {k.revokedAt ? (
-                        <Badge tone="neutral">Revoked {when.format(k.revokedAt)}</Badge>
+                        <Badge tone="neutral">Revoked {formatDateTime(k.revokedAt)}</Badge>
                       ) : isAdmin || k.createdById === access.userId ? (
                         <RowAction
                           action={revokeApiKeyAction}

@@ -16,15 +16,12 @@ import { listAuditLog } from "@/lib/audit/queries";
 import { auditFilterSchema } from "@/lib/audit/schemas";
 import { listMembers } from "@/lib/orgs/queries";
 import { roleAtLeast } from "@/lib/orgs/roles";
+import { formatDateTime } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Audit log" };
 
 type Search = Record<string, string | string[] | undefined>;
-const when = new Intl.DateTimeFormat("en-GB", {
-  dateStyle: "medium",
-  timeStyle: "medium",
-  timeZone: "UTC",
-});
+const when = (d: Date) => formatDateTime(d, { seconds: true });
 
 export default async function AuditPage({ searchParams }: { searchParams: Promise<Search> }) {
   const access = await requireCurrentOrg("viewer");
@@ -120,7 +117,7 @@ export default async function AuditPage({ searchParams }: { searchParams: Promis
             {events.map((e) => (
               <TR key={e.id}>
                 <TD className="figures text-[12.5px] whitespace-nowrap text-ink-2">
-                  {when.format(e.createdAt)}
+                  {when(e.createdAt)}
                 </TD>
                 <TD>
                   {e.actorUserId ? (

@@ -3,12 +3,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { IconExternal } from "@/components/ui/icons";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import type { InvoiceRow } from "@/lib/billing/view";
-
-const day = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
-export const money = (cents: number, currency = "usd") =>
-  new Intl.NumberFormat("en-US", { style: "currency", currency: currency.toUpperCase() }).format(
-    cents / 100,
-  );
+import { formatDate, formatMoney } from "@/lib/format";
 
 const REASONS: Record<string, string> = {
   subscription_create: "First month",
@@ -48,9 +43,9 @@ export function InvoicesTable({ invoices }: { invoices: InvoiceRow[] }) {
         {invoices.map((i) => (
           <TR key={i.id}>
             <TD className="font-mono text-[12.5px]">{i.number ?? i.id}</TD>
-            <TD className="text-ink-2">{day.format(i.created)}</TD>
+            <TD className="text-ink-2">{formatDate(i.created)}</TD>
             <TD className="text-ink-2">{REASONS[i.reason ?? ""] ?? i.reason ?? "—"}</TD>
-            <TD numeric>{money(i.total, i.currency)}</TD>
+            <TD numeric>{formatMoney(i.total, i.currency)}</TD>
             <TD>
               <Badge tone={STATUS[i.status ?? ""] ?? "neutral"}>{i.status ?? "—"}</Badge>
             </TD>

@@ -6,14 +6,15 @@ import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { cn } from "@/components/ui/cn";
 import { requireCurrentOrg } from "@/lib/auth/guards";
 import { confirmCheckout, hasLiveSubscription } from "@/lib/billing/checkout";
-import { formatUsd, getPlan, isPaidPlan, plans } from "@/lib/billing/plans";
+import { getPlan, isPaidPlan, plans } from "@/lib/billing/plans";
+import { formatLongDate, formatMoney } from "@/lib/format";
 import { getDailyUsage } from "@/lib/billing/queries";
 import { loadProviderView } from "@/lib/billing/view";
 import { getSeatUsage } from "@/lib/members/seats";
 import { getOrganization } from "@/lib/orgs/queries";
 import { roleAtLeast } from "@/lib/orgs/roles";
 import { currentPeriod } from "@/lib/usage/period";
-import { InvoicesTable, money } from "./invoices-table";
+import { InvoicesTable } from "./invoices-table";
 import { ChangePlanForm, CheckoutForm, DowngradeForm, PortalForm, SeatsForm } from "./plan-forms";
 import { UsageSection } from "./usage-section";
 
@@ -22,7 +23,6 @@ export const dynamic = "force-dynamic";
 
 type Search = Record<string, string | string[] | undefined>;
 const one = (v: string | string[] | undefined) => (Array.isArray(v) ? v[0] : v);
-const day = new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" });
 const STATUS_TONE: Record<string, "ok" | "warn" | "danger" | "neutral"> = {
   active: "ok",
   past_due: "danger",
@@ -115,8 +115,8 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
         {sub?.cancelAtPeriodEnd ? (
           <Alert tone="info" title="Moving to Sandbox">
             The {plan.name} plan ends on{" "}
-            {sub.periodEnd ? day.format(sub.periodEnd) : "the end of the period"}; after that the
-            organisation is on Sandbox.
+            {sub.periodEnd ? formatLongDate(sub.periodEnd) : "the end of the period"}; after that
+            the organisation is on Sandbox.
           </Alert>
         ) : null}
 
@@ -146,8 +146,8 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                   <dd>
                     {isPaidPlan(plan) ? (
                       <>
-                        <span className="figures">{formatUsd(plan.seatPriceCents)}</span> per seat /
-                        month
+                        <span className="figures">{formatMoney(plan.seatPriceCents)}</span> per seat
+                        / month
                       </>
                     ) : (
                       "Free"
@@ -166,7 +166,7 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                   <dt className="text-[12.5px] text-ink-2">Current period</dt>
                   <dd>
                     {sub?.periodStart && sub.periodEnd
-                      ? `${day.format(sub.periodStart)} – ${day.format(sub.periodEnd)}`
+                      ? `${formatLongDate(sub.periodStart)} – ${formatLongDate(sub.periodEnd)}`
                       : "Calendar month"}
                   </dd>
                 </div>
@@ -199,12 +199,12 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
               eyebrow="Next invoice"
               title={
                 provider.ok && provider.upcoming
-                  ? money(provider.upcoming.total, provider.upcoming.currency)
+                  ? formatMoney(provider.upcoming.total, provider.upcoming.currency)
                   : "—"
               }
               description={
                 provider.ok && provider.upcoming?.date
-                  ? `Due ${day.format(provider.upcoming.date)}`
+                  ? `Due ${formatLongDate(provider.upcoming.date)}`
                   : live
                     ? "No renewal scheduled."
                     : "Nothing to pay on Sandbox."
@@ -217,7 +217,7 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                     <li key={i} className="flex justify-between gap-4">
                       <span className="text-ink-2">{l.description}</span>
                       <span className="figures">
-                        {money(l.amount, provider.upcoming!.currency)}
+                        {formatMoney(l.amount, provider.upcoming!.currency)}
                       </span>
                     </li>
                   ))}
@@ -273,7 +273,7 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                     title={p.name}
                     eyebrow={current ? "Current plan" : undefined}
                     description={
-                      isPaidPlan(p) ? `${formatUsd(p.seatPriceCents)} per seat / month` : "Free"
+                      isPaidPlan(p) ? `${formatMoney(p.seatPriceCents)} per seat / month` : "Free"
                     }
                   />
                   <CardBody className="flex flex-1 flex-col gap-4">

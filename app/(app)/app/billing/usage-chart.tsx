@@ -10,7 +10,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
-import { formatCompact } from "@/components/ui/meter";
+import { formatCompact } from "@/lib/format";
 
 export type ChartPoint = { day: string; value: number };
 

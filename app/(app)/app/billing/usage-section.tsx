@@ -3,6 +3,7 @@ import { Meter } from "@/components/ui/meter";
 import type { Plan } from "@/lib/billing/plans";
 import type { DailyUsage } from "@/lib/billing/queries";
 import { UsageChart, type ChartPoint } from "./usage-chart";
+import { formatCompact, formatFixed, formatIsoMonth } from "@/lib/format";
 
 /** Cumulative series from the first of the period to `today` (UTC), one point per day. */
 export function cumulative(
@@ -14,7 +15,7 @@ export function cumulative(
   const byDay = new Map(daily.map((d) => [d.day, pick(d)]));
   const points: ChartPoint[] = [];
   const last =
-    today.toISOString().slice(0, 7) === period
+    formatIsoMonth(today) === period
       ? today.getUTCDate()
       : new Date(Date.UTC(+period.slice(0, 4), +period.slice(5, 7), 0)).getUTCDate();
   let sum = 0;
@@ -67,14 +68,7 @@ export function UsageSection({
             used={total.seconds}
             limit={showQuota ? plan.limits.monthlySimulationSeconds : null}
             unit="s"
-            format={(n) =>
-              n < 100
-                ? n.toFixed(1)
-                : new Intl.NumberFormat("en-US", {
-                    notation: "compact",
-                    maximumFractionDigits: 1,
-                  }).format(n)
-            }
+            format={(n) => (n < 100 ? formatFixed(n, 1) : formatCompact(n))}
             hint={showQuota ? "Engine seconds, summed over runs." : undefined}
           />
           <Meter label="Runs" used={total.runs} limit={null} hint="Finished runs this period." />

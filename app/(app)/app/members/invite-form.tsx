@@ -8,6 +8,7 @@ import { Select } from "@/components/ui/select";
 import { SubmitButton } from "@/components/ui/submit-button";
 import { idleState } from "@/lib/api/action-state";
 import { inviteAction } from "./actions";
+import { plural } from "@/lib/format";
 
 const ROLE_OPTIONS = [
   { value: "member", label: "Member — runs, library, own API keys" },
@@ -45,7 +46,7 @@ export function InviteForm({ seatsLeft }: { seatsLeft: number }) {
       </div>
       <p className="text-[12.5px] text-ink-3">
         {seatsLeft > 0
-          ? `${seatsLeft} seat${seatsLeft === 1 ? "" : "s"} free. The link works once and expires in 7 days; a pending invitation holds a seat.`
+          ? `${plural(seatsLeft, "seat")} free. The link works once and expires in 7 days; a pending invitation holds a seat.`
           : "Every seat is in use: add seats on the billing page before inviting."}
       </p>
       <ActionStatus state={state} />

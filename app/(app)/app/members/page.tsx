@@ -16,10 +16,9 @@ import { removeMemberAction, resendInvitationAction, revokeInvitationAction } fr
 import { InviteForm } from "./invite-form";
 import { RoleForm } from "./role-form";
 import { TransferOwnership } from "./transfer-ownership";
+import { formatDate, plural } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Members" };
-
-const day = new Intl.DateTimeFormat("en-GB", { dateStyle: "medium", timeZone: "UTC" });
 
 export default async function MembersPage() {
   const access = await requireCurrentOrg("viewer");
@@ -50,7 +49,7 @@ export default async function MembersPage() {
             title="Seats"
             description={
               seats.paid
-                ? `${plan.name} plan: you pay for ${seats.limit} seat${seats.limit === 1 ? "" : "s"}.`
+                ? `${plan.name} plan: you pay for ${plural(seats.limit, "seat")}.`
                 : `${plan.name} plan: up to ${seats.limit} people, free.`
             }
             actions={
@@ -70,7 +69,7 @@ export default async function MembersPage() {
               used={seats.used}
               limit={seats.limit}
               format={(n) => String(n)}
-              hint={`${seats.members} member${seats.members === 1 ? "" : "s"} and ${seats.pending === 0 ? "no" : seats.pending} pending invitation${seats.pending === 1 ? "" : "s"}`}
+              hint={`${plural(seats.members, "member")} and ${seats.pending === 0 ? "no pending invitations" : plural(seats.pending, "pending invitation")}`}
             />
             {isAdmin ? <InviteForm seatsLeft={Math.max(0, seats.limit - seats.used)} /> : null}
           </CardBody>
@@ -78,7 +77,7 @@ export default async function MembersPage() {
 
         <section aria-labelledby="members-heading" className="grid gap-3">
           <h2 id="members-heading" className="text-[15px] font-semibold text-ink">
-            {members.length} member{members.length === 1 ? "" : "s"}
+            {plural(members.length, "member")}
           </h2>
           <Table>
             <THead>
@@ -118,7 +117,7 @@ export default async function MembersPage() {
                         </Badge>
                       )}
                     </TD>
-                    <TD className="text-ink-2">{day.format(m.joinedAt)}</TD>
+                    <TD className="text-ink-2">{formatDate(m.joinedAt)}</TD>
                     {isAdmin ? (
                       <TD>
                         <div className="flex flex-wrap items-start justify-end gap-2">
@@ -184,9 +183,9 @@ export default async function MembersPage() {
                       </TD>
                       <TD>
                         {expired ? (
-                          <Badge tone="warn">Expired {day.format(inv.expiresAt)}</Badge>
+                          <Badge tone="warn">Expired {formatDate(inv.expiresAt)}</Badge>
                         ) : (
-                          <span className="text-ink-2">Expires {day.format(inv.expiresAt)}</span>
+                          <span className="text-ink-2">Expires {formatDate(inv.expiresAt)}</span>
                         )}
                       </TD>
                       {isAdmin ? (

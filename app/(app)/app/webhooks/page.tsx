@@ -14,14 +14,11 @@ import { listEndpoints, listRecentDeliveries } from "@/lib/webhooks/queries";
 import { deleteWebhookAction, setWebhookEnabledAction } from "./actions";
 import { CreateWebhookForm } from "./create-webhook-form";
 import { VERIFY_EXAMPLE } from "./verify-example";
+import { formatDateTime, plural } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Webhooks" };
 
-const when = new Intl.DateTimeFormat("en-GB", {
-  dateStyle: "medium",
-  timeStyle: "medium",
-  timeZone: "UTC",
-});
+const when = (d: Date) => formatDateTime(d, { seconds: true });
 
 type Delivery = {
   status: "pending" | "delivered" | "failed";
@@ -47,7 +44,7 @@ function DeliveryBadge({ d }: { d: Delivery }) {
       <Badge tone={tone}>{label}</Badge>
       <span className="text-[12px] text-ink-3">
         {answer}
-        {d.attempts ? ` · ${d.attempts} attempt${d.attempts === 1 ? "" : "s"}` : ""}
+        {d.attempts ? ` · ${plural(d.attempts, "attempt")}` : ""}
       </span>
     </span>
   );
@@ -121,13 +118,13 @@ export default async function WebhooksPage() {
                     <TD>
                       <code className="font-mono text-[12.5px]">{e.secretPrefix}…</code>
                     </TD>
-                    <TD className="text-ink-2">{when.format(e.createdAt)}</TD>
+                    <TD className="text-ink-2">{when(e.createdAt)}</TD>
                     <TD>
                       {e.lastDelivery ? (
                         <div className="grid gap-0.5">
                           <DeliveryBadge d={e.lastDelivery} />
                           <span className="text-[12px] text-ink-3">
-                            {when.format(e.lastDelivery.lastAttemptAt ?? e.lastDelivery.createdAt)}
+                            {when(e.lastDelivery.lastAttemptAt ?? e.lastDelivery.createdAt)}
                           </span>
                         </div>
                       ) : (
@@ -177,7 +174,7 @@ export default async function WebhooksPage() {
                   <TBody>
                     {deliveries.map((d) => (
                       <TR key={d.id}>
-                        <TD className="text-ink-2">{when.format(d.createdAt)}</TD>
+                        <TD className="text-ink-2">{when(d.createdAt)}</TD>
                         <TD>
                           <a
                             href={`/app/runs/${d.runId}`}

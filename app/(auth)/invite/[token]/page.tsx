@@ -7,6 +7,7 @@ import { getSessionUser } from "@/lib/auth/session";
 import { previewInvitation } from "@/lib/invitations/queries";
 import { ROLE_DESCRIPTIONS, ROLE_LABELS } from "@/lib/orgs/roles";
 import { AcceptForm, SignUpAndJoinForm } from "./join-forms";
+import { formatLongDate } from "@/lib/format";
 
 export const metadata: Metadata = { title: "Invitation" };
 export const dynamic = "force-dynamic";
@@ -101,13 +102,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
     <div className="grid gap-6">
       {intro}
       <SignUpAndJoinForm token={token} email={invitation.email} orgName={invitation.orgName} />
-      <p className="text-xs text-ink-3">
-        The link expires{" "}
-        {new Intl.DateTimeFormat("en-GB", { dateStyle: "long", timeZone: "UTC" }).format(
-          invitation.expiresAt,
-        )}
-        .
-      </p>
+      <p className="text-xs text-ink-3">The link expires {formatLongDate(invitation.expiresAt)}.</p>
     </div>
   );
 }

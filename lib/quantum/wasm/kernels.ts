@@ -1,0 +1,33 @@
+/**
+ * Gate kernels on amplitudes bound to a kernel memory (runtime.ts). Same matrix convention
+ * as statevector/kernels-general.ts; the lanes evaluate the JavaScript kernels' expressions in
+ * their order, so results are bit-identical to them.
+ */
+import type { WasmBinding } from "./runtime";
+
+/** Dense 1-qubit gate on index bit q (real kernel when every imaginary part is zero). */
+export function wasm1q(
+  w: WasmBinding,
+  re: Float64Array,
+  im: Float64Array,
+  q: number,
+  m: Float64Array,
+  real: boolean,
+): void {
+  w.scratch.set(m.subarray(0, 8));
+  if (real) w.k.real1q(re.byteOffset, im.byteOffset, re.length, q, w.scratchAt);
+  else w.k.general1q(re.byteOffset, im.byteOffset, re.length, q, w.scratchAt);
+}
+
+/** Dense 2-qubit gate; `first`/`second` are the index bits of the operands. */
+export function wasm2q(
+  w: WasmBinding,
+  re: Float64Array,
+  im: Float64Array,
+  first: number,
+  second: number,
+  m: Float64Array,
+): void {
+  w.scratch.set(m.subarray(0, 32));
+  w.k.general2q(re.byteOffset, im.byteOffset, re.length, first, second, w.scratchAt);
+}

@@ -1,0 +1,121 @@
+/**
+ * The engine's WebAssembly kernels (AssemblyScript with SIMD, sources in ./assembly, bytes in
+ * ./kernels-binary.ts). A statevector whose amplitudes live in a kernel memory (a shared
+ * WebAssembly.Memory: a reserved head, then re, then im) is bound to an instance of the module
+ * on that memory; the dispatcher runs the wasm kernels on bound arrays and the JavaScript
+ * kernels (the reference) on every other array. Pure: the module is compiled synchronously
+ * from the bytes, once per thread; an instance is made per memory and thread.
+ *
+ * Memory head (RESERVED_BYTES): 16 scratch slots of SLOT_BYTES (gate matrices and the 2-qubit
+ * kernel's coefficient table; slot i belongs to engine thread i of the state), then the Pauli
+ * term tables of the owning thread.
+ */
+import { KERNELS_WASM_BASE64 } from "./kernels-binary";
+
+export interface KernelExports {
+  general1q(re: number, im: number, len: number, q: number, m: number): void;
+  real1q(re: number, im: number, len: number, q: number, m: number): void;
+  general2q(re: number, im: number, len: number, first: number, second: number, m: number): void;
+  pauliMask(
+    re: number,
+    im: number,
+    x: number,
+    run: number,
+    stride: number,
+    len: number,
+    g: number,
+    terms: number,
+    acc: number,
+    out: number,
+  ): void;
+}
+
+const PAGE = 65536;
+export const SLOT_BYTES = 2048;
+export const MAX_SLOTS = 16;
+/** Pauli term tables (48 B per term), accumulators (32 B) and results (8 B): one page. */
+export const PAULI_TERMS_AT = SLOT_BYTES * MAX_SLOTS;
+export const PAULI_BATCH = 512;
+export const PAULI_ACC_AT = PAULI_TERMS_AT + 48 * PAULI_BATCH;
+export const PAULI_OUT_AT = PAULI_ACC_AT + 32 * PAULI_BATCH;
+export const RESERVED_BYTES = 2 * PAGE;
+/** Largest state a kernel memory holds (wasm32 addresses: 16·2^n + head ≤ 4 GiB). */
+export const WASM_MAX_QUBITS = 27;
+
+/** A kernel instance on one memory, seen from one thread. */
+export interface WasmBinding {
+  readonly k: KernelExports;
+  /** Byte offset and view of this thread's scratch slot. */
+  readonly scratchAt: number;
+  readonly scratch: Float64Array;
+  /** The memory's bytes (Pauli tables are written through views of it). */
+  readonly buffer: ArrayBufferLike;
+}
+
+let compiled: WebAssembly.Module | null | undefined;
+
+/** The compiled module, or null where WebAssembly SIMD or shared memory is unavailable. */
+export function kernelModule(): WebAssembly.Module | null {
+  if (compiled === undefined) {
+    try {
+      const bin = atob(KERNELS_WASM_BASE64);
+      const bytes = new Uint8Array(bin.length);
+      for (let i = 0; i < bin.length; i++) bytes[i] = bin.charCodeAt(i);
+      compiled = new WebAssembly.Module(bytes);
+    } catch {
+      compiled = null;
+    }
+  }
+  return compiled;
+}
+
+const bindings = new WeakMap<ArrayBufferLike, WasmBinding>();
+
+/** Instantiates the kernels on `memory` for this thread (scratch slot `slot`). */
+export function bindMemory(memory: WebAssembly.Memory, slot: number): WasmBinding | null {
+  const mod = kernelModule();
+  if (!mod) return null;
+  const buffer = memory.buffer;
+  const found = bindings.get(buffer);
+  if (found) return found;
+  const inst = new WebAssembly.Instance(mod, { env: { memory } });
+  const scratchAt = slot * SLOT_BYTES;
+  const b: WasmBinding = {
+    k: inst.exports as unknown as KernelExports,
+    scratchAt,
+    scratch: new Float64Array(buffer, scratchAt, SLOT_BYTES / 8),
+    buffer,
+  };
+  bindings.set(buffer, b);
+  return b;
+}
+
+/** The binding of amplitude arrays that both live in one kernel memory, else undefined. */
+export function wasmBinding(re: Float64Array, im: Float64Array): WasmBinding | undefined {
+  const buf = re.buffer;
+  return buf === im.buffer ? bindings.get(buf) : undefined;
+}
+
+/** A kernel memory holding a 2^n-amplitude state (zero-filled), or null when it cannot exist. */
+export function createKernelMemory(n: number): WebAssembly.Memory | null {
+  if (n > WASM_MAX_QUBITS || !kernelModule()) return null;
+  const pages = Math.ceil((RESERVED_BYTES + 16 * 2 ** n) / PAGE);
+  try {
+    return new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+  } catch {
+    return null; // no address space (or no shared memory): the caller uses plain arrays
+  }
+}
+
+/** The re and im views of a kernel memory's state of 2^n amplitudes. */
+export function stateViews(
+  memory: WebAssembly.Memory,
+  n: number,
+): { re: Float64Array; im: Float64Array } {
+  const dim = 2 ** n;
+  const buf = memory.buffer;
+  return {
+    re: new Float64Array(buf, RESERVED_BYTES, dim),
+    im: new Float64Array(buf, RESERVED_BYTES + 8 * dim, dim),
+  };
+}
