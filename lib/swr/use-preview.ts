@@ -20,12 +20,20 @@ const options = {
   dedupingInterval: 30_000,
 };
 
+/** Outlines read from problems, once per error (a stable object for the same answer). */
+const problemOutlines = new WeakMap<ApiError, CircuitOutline | null>();
+
 /** The outline a preview answer carries: its own, or the one in its problem (null: none). */
 function outlineOf<T extends { outline: CircuitOutline | null }>(swr: {
   data?: T;
   error?: ApiError;
 }): CircuitOutline | null | undefined {
-  if (swr.error) return previewProblemSchema.safeParse(swr.error.body).data?.outline ?? null;
+  const { error } = swr;
+  if (error) {
+    if (!problemOutlines.has(error))
+      problemOutlines.set(error, previewProblemSchema.safeParse(error.body).data?.outline ?? null);
+    return problemOutlines.get(error) ?? null;
+  }
   return swr.data ? swr.data.outline : undefined;
 }
 
