@@ -14,7 +14,7 @@ import { EmptyState } from "@/components/ui/empty-state";
 import { Input } from "@/components/ui/input";
 import { Skeleton } from "@/components/ui/skeleton";
 import { Tabs } from "@/components/ui/tabs";
-import { IconSearch } from "@/components/workspace/icons";
+import { IconSearch } from "@/components/ui/icons";
 import { apiFetch, isApiError } from "@/lib/swr/api-client";
 import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { useCircuits, useLibraryItem, useObservables } from "@/lib/swr/use-library";

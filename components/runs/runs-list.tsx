@@ -13,19 +13,18 @@ import { Button, buttonClasses } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Skeleton } from "@/components/ui/skeleton";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
-import { IconStop } from "@/components/workspace/icons";
+import { IconStop } from "@/components/ui/icons";
 import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunMethod, RunStatus } from "@/lib/swr/types";
-import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
+import { MAX_COMPARE, RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import { shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
 import { formatPercent, formatRelative, plural } from "@/lib/format";
 
 const PAGE_SIZE = 20;
-const MAX_COMPARE = 6;
 
 function readFilters(params: URLSearchParams): RunFilters {
   const f = { ...EMPTY_FILTERS };

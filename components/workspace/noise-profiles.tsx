@@ -18,7 +18,7 @@ import { Input } from "@/components/ui/input";
 import type { NoiseProfileView } from "@/lib/noise-profiles/schemas";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";
 import { toRequest, type ComposerValues } from "./composer-model";
-import { IconSave } from "./icons";
+import { IconSave } from "@/components/ui/icons";
 import type { NoiseProfile } from "./noise-help";
 import { advancedNoiseFromRequest } from "./noise-advanced-model";
 

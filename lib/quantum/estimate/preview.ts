@@ -24,7 +24,7 @@ import { assertDifferentiable, plannedShiftedCircuits } from "../gradient";
 import { compiledOf } from "../circuit/program";
 import { parameterPoints } from "./sweep-grid";
 import { validateRequest } from "./validate-request";
-import { formatCount } from "../../format/numbers";
+import { formatCount, formatExponential } from "../../format/numbers";
 import { plural } from "../../format/plural";
 
 /** `program`: the request's circuit already parsed by the caller (it is then not parsed again). */
@@ -81,7 +81,7 @@ export function previewRequest(
     notes.push(
       planned.source === "state_aware"
         ? "The shot plan uses the state's exact variances ((Σ_g √Var_g)²/ε², McClean et al. 2016): these are the shots the run will draw."
-        : `The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016): simulating the state for an exact plan would take about ${planned.work.estimated.toExponential(1)} amplitude updates, over the preview's budget of ${planned.work.budget.toExponential(1)}. The run plans from the state's exact variances and usually draws fewer shots; quota is reserved for the bound and billed for the shots drawn.`,
+        : `The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016): simulating the state for an exact plan would take about ${formatExponential(planned.work.estimated, 1)} amplitude updates, over the preview's budget of ${formatExponential(planned.work.budget, 1)}. The run plans from the state's exact variances and usually draws fewer shots; quota is reserved for the bound and billed for the shots drawn.`,
     );
   } else if (shots > 0) {
     if (shots < groups.length) {
