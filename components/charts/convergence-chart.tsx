@@ -16,7 +16,7 @@ import {
   XAxis,
   YAxis,
 } from "recharts";
-import { Z95 } from "@/components/runs/verdict";
+import { Z95 } from "@/lib/quantum/sampling/normal";
 import { ChartFigure, LegendKey, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
 import { logTicks, niceTicks, paddedDomain, tickLabel } from "./scale";
 import { formatCompact, formatFixed, formatPlusMinus, plural } from "@/lib/format";

@@ -18,7 +18,7 @@ import {
   YAxis,
 } from "recharts";
 import { formatAngle } from "@/components/circuit-diagram/angle";
-import { Z95 } from "@/components/runs/verdict";
+import { Z95 } from "@/lib/quantum/sampling/normal";
 import { ChartFigure, LegendKey, axisTick, colors, gridStroke, tooltipStyle } from "./chart-frame";
 import { tickLabel } from "./scale";
 import { argMin, type SweepPoint } from "./sweep-math";

@@ -14,7 +14,7 @@ import { Textarea } from "@/components/ui/textarea";
 import { CodeEditor } from "@/components/workspace/code-editor";
 import { parseMatrixText } from "@/components/workspace/composer-model";
 import { IssueList } from "@/components/workspace/issue-list";
-import { Segmented } from "@/components/workspace/segmented";
+import { Segmented } from "@/components/ui/segmented";
 import { STARTER_QASM } from "@/components/workspace/composer-model";
 import { apiFetch, isApiError, type ApiError } from "@/lib/swr/api-client";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";

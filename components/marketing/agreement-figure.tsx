@@ -2,9 +2,11 @@
  * The "agreement" strip: one number line with the exact value (ink line), a tolerance
  * band around it, the sampled 95 % interval (verdigris bar, mean dot) and the value a
  * noise model predicts (copper diamond with its own interval). Pure SVG, data-driven.
- * The illustration draws mean ± 1.96·stdErr (the product's intervals are the run's ci95).
+ * The illustration draws mean ± Z95·stdErr (the product's intervals are the run's ci95).
  */
 import { formatFixed } from "@/lib/format";
+import { Z95 } from "@/lib/quantum/sampling/normal";
+
 export type AgreementFigureProps = {
   exact: number;
   sampled: { mean: number; stdErr: number };
@@ -57,7 +59,7 @@ export function AgreementFigure({
   className,
 }: AgreementFigureProps) {
   const x = (v: number) => L + ((v - domain[0]) / (domain[1] - domain[0])) * (W - L - R);
-  const z = 1.959964;
+  const z = Z95;
   const s = [sampled.mean - z * sampled.stdErr, sampled.mean + z * sampled.stdErr];
   const n = [noisy.mean - z * noisy.stdErr, noisy.mean + z * noisy.stdErr];
   const laneS = 44;

@@ -3,8 +3,9 @@ import { StatusBadge } from "@/components/ui/badge";
 import { buttonClasses } from "@/components/ui/button";
 import { Value } from "@/components/ui/value";
 import figures from "@/lib/examples/example-figures.json";
+import { Z95 } from "@/lib/quantum/sampling/normal";
 import { AgreementFigure, agreementAxis } from "./agreement-figure";
-import { formatCount, formatFixed } from "@/lib/format";
+import { formatCount, formatFixed, formatPercent } from "@/lib/format";
 
 /* The invented three-spin cluster (lib/examples): every figure below is the engine's. */
 const example = {
@@ -19,10 +20,10 @@ const axis = agreementAxis(
   [
     example.exact - TOLERANCE,
     example.exact + TOLERANCE,
-    example.sampled.mean - 1.96 * example.sampled.stdErr,
-    example.sampled.mean + 1.96 * example.sampled.stdErr,
-    example.noisy.mean - 1.96 * example.noisy.stdErr,
-    example.noisy.mean + 1.96 * example.noisy.stdErr,
+    example.sampled.mean - Z95 * example.sampled.stdErr,
+    example.sampled.mean + Z95 * example.sampled.stdErr,
+    example.noisy.mean - Z95 * example.noisy.stdErr,
+    example.noisy.mean + Z95 * example.noisy.stdErr,
   ],
   0.32,
 );
@@ -114,7 +115,7 @@ export function Hero() {
               swatch={<span className="size-2.5 rounded-full bg-sampled" />}
               label="Sampled mean"
               detail={`${count(figures.shots)} shots · z = ${formatFixed(zScore, 2)} · ${
-                Math.abs(zScore) <= 1.96 ? "consistent" : "off by more than 1.96σ"
+                Math.abs(zScore) <= Z95 ? "consistent" : "off by more than 1.96σ"
               }`}
             >
               <Value
@@ -127,7 +128,7 @@ export function Hero() {
             <Row
               swatch={<span className="size-2.5 rotate-45 bg-noisy" />}
               label="Under the noise model"
-              detail={`${figures.noise.depolarizing2q * 100} % depolarizing per two-qubit gate`}
+              detail={`${formatPercent(figures.noise.depolarizing2q, 2, { trim: true })} depolarizing per two-qubit gate`}
             >
               <Value
                 value={example.noisy.mean}

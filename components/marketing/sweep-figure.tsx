@@ -4,6 +4,7 @@
  * minimum of the grid marked. Every number is the engine's (lib/examples).
  */
 import figures from "@/lib/examples/example-figures.json";
+import { Z95 } from "@/lib/quantum/sampling/normal";
 import { agreementAxis } from "./agreement-figure";
 import { formatFixed, plural, withMinus } from "@/lib/format";
 
@@ -14,7 +15,7 @@ const domainX: [number, number] = [-Math.PI, Math.PI];
 const best = figures.curve.reduce((a, p) => (p.exact < a.exact ? p : a));
 const yAxis = agreementAxis([
   ...figures.curve.map((p) => p.exact),
-  ...figures.points.flatMap((p) => [p.mean - 1.96 * p.stdErr, p.mean + 1.96 * p.stdErr]),
+  ...figures.points.flatMap((p) => [p.mean - Z95 * p.stdErr, p.mean + Z95 * p.stdErr]),
 ]);
 const domainY = yAxis.domain;
 
@@ -82,8 +83,8 @@ export function SweepFigure({ className }: { className?: string }) {
           <line
             x1={x(p.theta)}
             x2={x(p.theta)}
-            y1={y(p.mean - 1.96 * p.stdErr)}
-            y2={y(p.mean + 1.96 * p.stdErr)}
+            y1={y(p.mean - Z95 * p.stdErr)}
+            y2={y(p.mean + Z95 * p.stdErr)}
             strokeWidth={1.3}
           />
           <circle

@@ -12,7 +12,12 @@ import { cn } from "@/components/ui/cn";
 import { Value, type ValueTone } from "@/components/ui/value";
 import type { EstimateRequest, EstimateResult } from "@/lib/swr/types";
 import { FEW_SHOTS_PER_SETTING, INTERVAL_METHOD_SENTENCE } from "@/lib/quantum/sampling/interval";
-import { agreementVerdict, pickComparison, verdictSentence, type Verdict } from "./verdict";
+import {
+  agreementVerdict,
+  pickComparison,
+  verdictSentence,
+  type Verdict,
+} from "@/lib/runs/verdict";
 import { formatExponential, formatFixed, plural } from "@/lib/format";
 
 function Figure({

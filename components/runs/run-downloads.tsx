@@ -8,7 +8,7 @@
 import { useState } from "react";
 import { Alert } from "@/components/ui/alert";
 import { Button } from "@/components/ui/button";
-import { IconDownload } from "@/components/workspace/icons";
+import { IconDownload } from "@/components/ui/icons";
 import { MIME, downloadBlob } from "@/lib/export/download";
 import { fileStem, runJson } from "@/lib/export/run-export";
 import { apiFetchFile, isApiError } from "@/lib/swr/api-client";

@@ -12,7 +12,7 @@ import { Alert, SimulationCaution } from "@/components/ui/alert";
 import { Button, buttonClasses } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { StatusBadge } from "@/components/ui/badge";
-import { IconStop } from "@/components/workspace/icons";
+import { IconStop } from "@/components/ui/icons";
 import { fileStem } from "@/lib/export/run-export";
 import { isApiError } from "@/lib/swr/api-client";
 import { canWrite, useWorkspaceOrg } from "@/lib/swr/org-context";

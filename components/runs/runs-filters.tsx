@@ -9,7 +9,7 @@ import { useEffect, useState } from "react";
 import { Button } from "@/components/ui/button";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
-import { IconSearch } from "@/components/workspace/icons";
+import { IconSearch } from "@/components/ui/icons";
 import type { WorkspaceMember } from "@/lib/swr/org-context";
 import {
   RUN_METHOD_LABELS,

@@ -13,19 +13,19 @@ import { Button, buttonClasses } from "@/components/ui/button";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Skeleton } from "@/components/ui/skeleton";
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
-import { IconStop } from "@/components/workspace/icons";
+import { IconStop } from "@/components/ui/icons";
 import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { cancelRuns } from "@/lib/swr/run-mutations";
 import { useRuns } from "@/lib/swr/use-runs";
 import type { RunMethod, RunStatus } from "@/lib/swr/types";
-import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
+import { MAX_COMPARE, RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import { shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
-import { formatPercent, formatRelative, plural } from "@/lib/format";
+import { formatPercent, plural } from "@/lib/format";
+import { RelativeTime } from "@/components/ui/relative-time";
 
 const PAGE_SIZE = 20;
-const MAX_COMPARE = 6;
 
 function readFilters(params: URLSearchParams): RunFilters {
   const f = { ...EMPTY_FILTERS };
@@ -270,8 +270,8 @@ export function RunsList() {
                   <RunValueCell run={r} />
                 </TD>
                 <TD className="text-[12.5px] text-ink-2">{submitterName(members, r.createdBy)}</TD>
-                <TD className="text-[12.5px] whitespace-nowrap text-ink-2" title={r.queuedAt}>
-                  {formatRelative(r.queuedAt)}
+                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">
+                  <RelativeTime date={r.queuedAt} />
                 </TD>
               </TR>
             ))}

@@ -20,7 +20,7 @@ import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import { Value } from "@/components/ui/value";
 import { intervalZ } from "@/lib/quantum/sampling/interval";
 import type { EstimateResult } from "@/lib/swr/types";
-import { IconSort } from "@/components/workspace/icons";
+import { IconSort } from "@/components/ui/icons";
 import { formatFixed } from "@/lib/format";
 
 type Term = EstimateResult["terms"][number];

@@ -158,3 +158,41 @@ export const IconSpark = (p: IconProps) => (
     <path d="M8 1.8v3M8 11.2v3M1.8 8h3M11.2 8h3M3.6 3.6l2 2M10.4 10.4l2 2M3.6 12.4l2-2M10.4 5.6l2-2" />
   </Svg>
 );
+/* Action glyphs (files, search, sorting, stop, save); "size-4" without shrink-0 as drawn for the workspace. */
+export const IconUpload = (p: IconProps) => (
+  <Svg className="size-4" {...p}>
+    <path d="M8 10.5V2.5M5 5.5l3-3 3 3M2.5 10.5v2a1 1 0 0 0 1 1h9a1 1 0 0 0 1-1v-2" />
+  </Svg>
+);
+export const IconDownload = (p: IconProps) => (
+  <Svg className="size-4" {...p}>
+    <path d="M8 2.5v8M5 7.5l3 3 3-3M2.5 10.5v2a1 1 0 0 0 1 1h9a1 1 0 0 0 1-1v-2" />
+  </Svg>
+);
+export const IconSearch = (p: IconProps) => (
+  <Svg className="size-4" {...p}>
+    <circle cx="7" cy="7" r="4.25" />
+    <path d="M10.2 10.2 13.5 13.5" />
+  </Svg>
+);
+export const IconBook = (p: IconProps) => (
+  <Svg className="size-4" {...p}>
+    <path d="M3 3.25A1.25 1.25 0 0 1 4.25 2H13v10H4.25A1.25 1.25 0 0 0 3 13.25zM3 13.25A1.25 1.25 0 0 0 4.25 14.5H13" />
+  </Svg>
+);
+export const IconSort = ({ dir, ...p }: IconProps & { dir: "asc" | "desc" | false }) => (
+  <Svg {...p} className="size-3.5">
+    <path d="M5 6.5 8 3.5l3 3" opacity={dir === "asc" ? 1 : 0.35} />
+    <path d="M5 9.5 8 12.5l3-3" opacity={dir === "desc" ? 1 : 0.35} />
+  </Svg>
+);
+export const IconStop = (p: IconProps) => (
+  <Svg className="size-4" {...p}>
+    <rect x="4" y="4" width="8" height="8" rx="1.5" />
+  </Svg>
+);
+export const IconSave = (p: IconProps) => (
+  <Svg className="size-4" {...p}>
+    <path d="M3 2.5h8l2.5 2.5v8.5H2.5v-11zM5 2.5v3.5h5V2.5M5 13.5V9.5h6v4" />
+  </Svg>
+);

@@ -15,7 +15,7 @@ import type { ComposerValues } from "./composer-model";
 import { FileDropZone } from "./file-drop";
 import type { SourceIssue } from "./issue-ranges";
 import { IssueList } from "./issue-list";
-import { Segmented } from "./segmented";
+import { Segmented } from "@/components/ui/segmented";
 import { SourceToolbar } from "./source-toolbar";
 
 export function CircuitCard({

@@ -12,7 +12,7 @@ import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
 import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import type { ComposerValues } from "./composer-model";
-import { Segmented } from "./segmented";
+import { Segmented } from "@/components/ui/segmented";
 
 export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
   const { control, register, watch, formState } = useFormContext<ComposerValues>();

@@ -8,7 +8,7 @@ import { useRef, useState, type ReactNode } from "react";
 import { Button } from "@/components/ui/button";
 import { cn } from "@/components/ui/cn";
 import { FILE_RULES, checkFile, checkText, type FileSlot } from "./file-rules";
-import { IconUpload } from "./icons";
+import { IconUpload } from "@/components/ui/icons";
 
 export type LoadedFile = { name: string; text: string };
 

@@ -19,7 +19,7 @@ import { FileDropZone, type LoadedFile } from "./file-drop";
 import type { SourceIssue } from "./issue-ranges";
 import { IssueList } from "./issue-list";
 import { formatQubitSet, pauliSupport } from "./pauli-support";
-import { Segmented } from "./segmented";
+import { Segmented } from "@/components/ui/segmented";
 import { SourceToolbar } from "./source-toolbar";
 import { plural, pluralWord } from "@/lib/format";
 

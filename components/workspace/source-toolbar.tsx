@@ -9,7 +9,7 @@ import type { ReactNode } from "react";
 import { Button } from "@/components/ui/button";
 import { UploadButton, type LoadedFile } from "./file-drop";
 import type { FileSlot } from "./file-rules";
-import { IconBook } from "./icons";
+import { IconBook } from "@/components/ui/icons";
 
 export function SourceToolbar({
   formatSwitch,

@@ -1,6 +1,6 @@
-/** API-key operations (shape: lib/members/operation.ts). Members make personal keys; admins also organisation keys. */
+/** API-key operations (shape: lib/api/operation.ts). Members make personal keys; admins also organisation keys. */
 import "server-only";
-import { defineOperation } from "@/lib/members/operation";
+import { defineOperation } from "@/lib/api/operation";
 import { createKey, revokeKey } from "./mutations";
 import { createApiKeySchema, revokeApiKeySchema } from "./schemas";
 

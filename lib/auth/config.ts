@@ -19,7 +19,7 @@ import { magicLinkMail } from "@/lib/mail/templates";
 import { sendMail, smtpServerOptions } from "@/lib/mail/transport";
 import { createOrganization } from "@/lib/orgs/mutations";
 import { clientIp, consumeSignInIp } from "@/lib/rate-limit";
-import { RateLimitedSignIn } from "./errors";
+import { RateLimitedSignIn, UnverifiedEmailSignIn } from "./errors";
 import { safeCallbackPath } from "./redirects";
 import {
   assertSignInAllowed,
@@ -68,6 +68,7 @@ export async function authorizeWithPassword(
     return null;
   }
   await clearSignInFailures(email, source);
+  if (!user!.emailVerified) throw new UnverifiedEmailSignIn();
   return { id: user!.id, email: user!.email, name: user!.name };
 }
 

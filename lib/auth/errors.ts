@@ -14,6 +14,18 @@ export class RateLimitedSignIn extends CredentialsSignin {
   }
 }
 
+/**
+ * The right password for an account whose address was never confirmed (its sign-up link never
+ * used): refused, so nobody can use an account opened in someone else's name before the owner of
+ * the address has confirmed it. Only someone who knows the password sees this message.
+ */
+export class UnverifiedEmailSignIn extends CredentialsSignin {
+  code = "unverified";
+}
+
+export const UNVERIFIED_EMAIL_MESSAGE =
+  "Confirm your e-mail address first: open the sign-in link we sent to it, or ask for a new link below. Your password works once the address is confirmed.";
+
 /** The single message for an unknown e-mail and a wrong password alike. */
 export const WRONG_CREDENTIALS_MESSAGE =
   "That e-mail and password don't match an account. Check both and try again.";

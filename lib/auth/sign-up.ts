@@ -26,7 +26,14 @@ function isDuplicateKey(error: unknown): boolean {
   return code === "ER_DUP_ENTRY";
 }
 
-export async function signUp(input: SignUpInput): Promise<{ userId: string; orgId: string }> {
+/**
+ * `verified`: the address is already proven (an invitation link reached it); otherwise the
+ * password works only after the sign-up link has been used (see authorizeWithPassword).
+ */
+export async function signUp(
+  input: SignUpInput,
+  options: { verified?: boolean } = {},
+): Promise<{ userId: string; orgId: string }> {
   if (await findUserByEmail(input.email)) {
     throw conflict(TAKEN_EMAIL_MESSAGE, [{ path: "email", message: TAKEN_EMAIL_MESSAGE }]);
   }
@@ -34,9 +41,13 @@ export async function signUp(input: SignUpInput): Promise<{ userId: string; orgI
   const userId = crypto.randomUUID();
   try {
     return await db.transaction(async (tx) => {
-      await tx
-        .insert(users)
-        .values({ id: userId, name: input.name, email: input.email, passwordHash });
+      await tx.insert(users).values({
+        id: userId,
+        name: input.name,
+        email: input.email,
+        passwordHash,
+        emailVerified: options.verified ? new Date() : null,
+      });
       const org = await createOrganization(
         { name: personalOrgName(input.name, input.email), ownerUserId: userId },
         tx,

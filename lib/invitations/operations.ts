@@ -1,6 +1,6 @@
-/** Invitation operations behind the members page (shape: lib/members/operation.ts). */
+/** Invitation operations behind the members page (shape: lib/api/operation.ts). */
 import "server-only";
-import { defineOperation } from "@/lib/members/operation";
+import { defineOperation } from "@/lib/api/operation";
 import { ROLE_LABELS } from "@/lib/orgs/roles";
 import { createInvitation, resendInvitation, revokeInvitation } from "./mutations";
 import { invitationIdSchema, inviteSchema } from "./schemas";

@@ -1,9 +1,9 @@
-/** The member operations behind the members page (see ./operation.ts for the shape). */
+/** The member operations behind the members page (shape: lib/api/operation.ts). */
 import "server-only";
 import { conflict } from "@/lib/api/problem";
 import { ROLE_LABELS } from "@/lib/orgs/roles";
 import { changeMemberRole, removeMember, transferOwnership } from "./mutations";
-import { defineOperation } from "./operation";
+import { defineOperation } from "@/lib/api/operation";
 import { changeRoleSchema, removeMemberSchema, transferOwnershipSchema } from "./schemas";
 import { plural } from "@/lib/format";
 

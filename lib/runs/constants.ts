@@ -40,3 +40,6 @@ export const RUN_METHOD_LABELS: Record<RunMethod, string> = {
   statevector: "Statevector",
   density_matrix: "Density matrix",
 };
+
+/** Most runs the compare page shows side by side (the runs list's selection and the page's own limit). */
+export const MAX_COMPARE = 6;

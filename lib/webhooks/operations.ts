@@ -1,6 +1,6 @@
-/** Webhook endpoint operations of the settings page (shape: lib/members/operation.ts); admins only. */
+/** Webhook endpoint operations of the settings page (shape: lib/api/operation.ts); admins only. */
 import "server-only";
-import { defineOperation } from "@/lib/members/operation";
+import { defineOperation } from "@/lib/api/operation";
 import { createEndpoint, deleteEndpoint, setEndpointEnabled } from "./mutations";
 import { createWebhookSchema, setWebhookEnabledSchema, webhookEndpointIdSchema } from "./schemas";
 

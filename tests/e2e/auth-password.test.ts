@@ -58,6 +58,12 @@ describe("sign up, sign out, sign in", () => {
     await fillSignUp(page, { name: "Grace Hopper", email, password });
     await page.waitForURL(/\/check-email\?.*for=sign-up/);
     const mail = await waitForMail(email, since, 20_000, /sign-in link/);
+    // the password works only once the address is confirmed by the link
+    await page.goto(`${E2E_URL}/sign-in`);
+    await page.getByLabel("E-mail").fill(email);
+    await page.getByLabel("Password").fill(password);
+    await page.getByRole("button", { name: "Sign in" }).click();
+    await page.getByText(/^Confirm your e-mail address first/).waitFor();
     await page.goto(linkIn(mail, `${E2E_URL}/api/auth/callback/nodemailer?`));
     await page.waitForURL(/\/app\?welcome=1$/);
     await page.getByRole("heading", { level: 1, name: "Grace Hopper's organisation" }).waitFor();
@@ -94,7 +100,7 @@ describe("sign up, sign out, sign in", () => {
     });
     await page.waitForURL(/\/check-email\?.*for=sign-up/);
     await page
-      .getByText("if the address already has an account, it tells you how to sign in")
+      .getByText("If the address already has an account, the message tells you how to sign in")
       .waitFor();
     await waitForMail(email, since, 20_000, /already have a Ketwise account/);
   });

@@ -34,7 +34,10 @@ export function uniqueEmail(label = "user"): string {
 export async function createTestUser(label = "user") {
   passwordHash ??= hashPassword(TEST_PASSWORD);
   const user = { id: crypto.randomUUID(), name: `Test ${label}`, email: uniqueEmail(label) };
-  await db.insert(users).values({ ...user, passwordHash: await passwordHash });
+  // confirmed address, like an account whose sign-up link was used
+  await db
+    .insert(users)
+    .values({ ...user, passwordHash: await passwordHash, emailVerified: new Date() });
   return user;
 }
 

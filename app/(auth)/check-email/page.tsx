@@ -25,8 +25,9 @@ export default async function CheckEmailPage({
           <p className="text-sm leading-6 text-ink-2">
             We sent a message to{" "}
             {email ? <strong className="font-medium text-ink">{email}</strong> : "that address"}.
-            For a new account it holds a sign-in link (it works once and expires in 15 minutes); if
-            the address already has an account, it tells you how to sign in.
+            For a new account it holds a sign-in link (it works once and expires in 15 minutes) that
+            confirms the address: your password works from then on. If the address already has an
+            account, the message tells you how to sign in.
           </p>
         ) : (
           <p className="text-sm leading-6 text-ink-2">

@@ -6,7 +6,12 @@ import { redirect } from "next/navigation";
 import { z } from "zod";
 import { formAction } from "@/lib/api/action";
 import { signIn } from "@/lib/auth";
-import { RateLimitedSignIn, WRONG_CREDENTIALS_MESSAGE } from "@/lib/auth/errors";
+import {
+  RateLimitedSignIn,
+  UNVERIFIED_EMAIL_MESSAGE,
+  UnverifiedEmailSignIn,
+  WRONG_CREDENTIALS_MESSAGE,
+} from "@/lib/auth/errors";
 import { setDeviceCookie } from "@/lib/auth/device-cookie";
 import { safeCallbackPath } from "@/lib/auth/redirects";
 import { magicLinkSchema, signInSchema } from "@/lib/auth/schemas";
@@ -21,6 +26,8 @@ export const signInWithPasswordAction = formAction(signInSchema.extend(callback)
   } catch (error) {
     if (error instanceof RateLimitedSignIn)
       return { status: "error", message: error.detail, code: 429 };
+    if (error instanceof UnverifiedEmailSignIn)
+      return { status: "error", message: UNVERIFIED_EMAIL_MESSAGE, code: 403 };
     if (error instanceof AuthError)
       return { status: "error", message: WRONG_CREDENTIALS_MESSAGE, code: 401 };
     throw error;

@@ -30,6 +30,7 @@
  * error once both outcomes are well represented, never 0 from a finite number of shots),
  * `ci95` as above. Cost O(settings); only (N, Σx, Σx²) per setting are needed.
  */
+import { Z95 } from "./normal";
 import { studentQuantileTwoSided } from "./student-t";
 
 /** One setting's contribution: w · (mean of its per-shot values). */
@@ -130,7 +131,7 @@ const T_CACHE = new Map<number, number>();
 /** t_{0.975, ν}: memoised; A&S 26.7.5 series in 1/ν (error < 1e-10) for ν ≥ 200. */
 export function tQuantile95(df: number): number {
   if (df >= 200) {
-    const x = 1.959963984540054;
+    const x = Z95;
     const x2 = x * x;
     const g1 = (x * (x2 + 1)) / 4;
     const g2 = (x * (5 * x2 * x2 + 16 * x2 + 3)) / 96;
@@ -149,16 +150,14 @@ export function tQuantile95(df: number): number {
 /**
  * A z-like distance of `reference` from an estimate, consistent with its (possibly
  * asymmetric) interval: (mean − reference) divided by the half-width on the reference's
- * side over 1.959964, so |z| ≤ 1.96 exactly when the reference lies inside `ci95`. Falls back
+ * side over Z95, so |z| ≤ Z95 exactly when the reference lies inside `ci95`. Falls back
  * to `stdErr` when that side has zero width; null when both are zero.
  */
 export function intervalZ(
   e: { mean: number; stdErr: number; ci95?: [number, number] | null },
   reference: number,
 ): number | null {
-  const side = e.ci95
-    ? (reference < e.mean ? e.mean - e.ci95[0] : e.ci95[1] - e.mean) / 1.959963984540054
-    : 0;
+  const side = e.ci95 ? (reference < e.mean ? e.mean - e.ci95[0] : e.ci95[1] - e.mean) / Z95 : 0;
   const scale = side > 0 ? side : e.stdErr;
   if (!(scale > 0) || !Number.isFinite(scale)) return null;
   return (e.mean - reference) / scale;

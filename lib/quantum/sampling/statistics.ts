@@ -11,9 +11,6 @@
 import type { SettingSample } from "./draw-setting";
 import { estimateLinearCombination, type IntervalEstimate, type SettingMoments } from "./interval";
 
-/** Two-sided 95 % standard-normal quantile Φ⁻¹(0.975) (the t quantile's limit for many shots). */
-export const Z95 = 1.959964;
-
 export type Estimate = IntervalEstimate;
 
 /** Per-shot value ranges of one setting, raw and (when mitigating) mitigated. */

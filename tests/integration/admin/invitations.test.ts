@@ -13,7 +13,7 @@ import { resendInvitationOp, inviteOp, revokeInvitationOp } from "@/lib/invitati
 import { acceptInvitation } from "@/lib/invitations/mutations";
 import { listOpenInvitations } from "@/lib/invitations/queries";
 import { verifyInvitationToken } from "@/lib/invitations/token";
-import { runOperation } from "@/lib/members/operation";
+import { runOperation } from "@/lib/api/operation";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { createTestUser, createUserWithOrg, uniqueEmail } from "../../support/factories";
 import { listMail, waitForMail } from "../../support/maildev";

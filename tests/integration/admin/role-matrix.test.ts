@@ -19,7 +19,7 @@ import {
   withdrawDowngradeOp,
 } from "@/lib/billing/operations";
 import { inviteOp, resendInvitationOp, revokeInvitationOp } from "@/lib/invitations/operations";
-import { runOperation, type Operation } from "@/lib/members/operation";
+import { runOperation, type Operation } from "@/lib/api/operation";
 import { changeRoleOp, removeMemberOp, transferOwnershipOp } from "@/lib/members/operations";
 import { ROLES, roleAtLeast, type Role } from "@/lib/orgs/roles";
 import { closeRedis } from "@/lib/rate-limit/redis";

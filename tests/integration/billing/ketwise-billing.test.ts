@@ -25,7 +25,7 @@ import { changeSeatsOp, startCheckoutOp } from "@/lib/billing/operations";
 import { reportOverage } from "@/lib/billing/overage";
 import { getPlan, overageCents } from "@/lib/billing/plans";
 import { getStripe } from "@/lib/billing/stripe-client";
-import { runOperation } from "@/lib/members/operation";
+import { runOperation } from "@/lib/api/operation";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { recordRunUsage } from "@/lib/usage/mutations";
 import { addMember, createTestUser, createUserWithOrg } from "../../support/factories";

@@ -11,6 +11,7 @@ import { closeDb, db } from "@/db";
 import { users } from "@/db/schema";
 import { isProblemError } from "@/lib/api/problem";
 import { authorizeWithPassword } from "@/lib/auth/config";
+import { UnverifiedEmailSignIn } from "@/lib/auth/errors";
 import { signUpSchema } from "@/lib/auth/schemas";
 import { signUp, TAKEN_EMAIL_MESSAGE } from "@/lib/auth/sign-up";
 import { listMembershipsForUser } from "@/lib/orgs/queries";
@@ -85,7 +86,9 @@ describe("signUp", () => {
 describe("password sign-in (Credentials authorize)", () => {
   it("accepts the right password and answers null for a wrong one or an unknown e-mail", async () => {
     const email = uniqueEmail("signin");
-    await signUp(signUpSchema.parse({ name: "Sig", email, password: "right password here" }));
+    await signUp(signUpSchema.parse({ name: "Sig", email, password: "right password here" }), {
+      verified: true,
+    });
     const ok = await authorizeWithPassword(
       { email, password: "right password here" },
       request("10.9.0.1"),
@@ -103,5 +106,26 @@ describe("password sign-in (Credentials authorize)", () => {
     expect(
       await authorizeWithPassword({ email: "not an email", password: "x" }, request("10.9.0.1")),
     ).toBeNull();
+  });
+
+  it("refuses the right password until the address is confirmed, and says so only to who knows it", async () => {
+    const email = uniqueEmail("unconfirmed");
+    const { userId } = await signUp(
+      signUpSchema.parse({ name: "Unc", email, password: "right password here" }),
+    );
+    const refused = await authorizeWithPassword(
+      { email, password: "right password here" },
+      request("10.9.0.2"),
+    ).catch((e: unknown) => e);
+    expect(refused).toBeInstanceOf(UnverifiedEmailSignIn);
+    // a wrong password tells nothing about the account's state
+    expect(
+      await authorizeWithPassword({ email, password: "wrong password here" }, request("10.9.0.2")),
+    ).toBeNull();
+    // using the e-mailed link sets emailVerified (Auth.js e-mail sign-in); then the password works
+    await db.update(users).set({ emailVerified: new Date() }).where(eq(users.id, userId));
+    expect(
+      await authorizeWithPassword({ email, password: "right password here" }, request("10.9.0.2")),
+    ).toMatchObject({ email });
   });
 });

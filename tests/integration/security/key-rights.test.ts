@@ -11,7 +11,7 @@ import { closeDb, db } from "@/db";
 import { auditEvents } from "@/db/schema";
 import { listVisibleKeys } from "@/lib/api-keys/queries";
 import { keyStanding } from "@/lib/api-keys/effective-role";
-import { runOperation } from "@/lib/members/operation";
+import { runOperation } from "@/lib/api/operation";
 import { changeRoleOp, removeMemberOp } from "@/lib/members/operations";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { api } from "../runs/support/api";

@@ -16,7 +16,7 @@ import { and, eq } from "drizzle-orm";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { closeDb, db } from "@/db";
 import { auditEvents, webhookAttempts, webhookDeliveries, webhookEndpoints } from "@/db/schema";
-import { runOperation } from "@/lib/members/operation";
+import { runOperation } from "@/lib/api/operation";
 import { closeQueue } from "@/lib/queue/enqueue";
 import { closeRedis } from "@/lib/rate-limit/redis";
 import { closeRunWaiters } from "@/lib/runs/run-waiter";

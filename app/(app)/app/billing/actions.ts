@@ -10,7 +10,7 @@ import {
   startCheckoutOp,
   withdrawDowngradeOp,
 } from "@/lib/billing/operations";
-import { operationAction, type Operation } from "@/lib/members/operation";
+import { operationAction, type Operation } from "@/lib/api/operation";
 import type { z } from "zod";
 
 /** An operation whose success carries a provider URL: the action sends the browser there. */

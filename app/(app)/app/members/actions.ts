@@ -1,7 +1,7 @@
 "use server";
 
 import { inviteOp, resendInvitationOp, revokeInvitationOp } from "@/lib/invitations/operations";
-import { operationAction } from "@/lib/members/operation";
+import { operationAction } from "@/lib/api/operation";
 import { changeRoleOp, removeMemberOp, transferOwnershipOp } from "@/lib/members/operations";
 
 export const changeRoleAction = operationAction(changeRoleOp, "/app/members");

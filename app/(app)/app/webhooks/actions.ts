@@ -1,6 +1,6 @@
 "use server";
 
-import { operationAction } from "@/lib/members/operation";
+import { operationAction } from "@/lib/api/operation";
 import { createWebhookOp, deleteWebhookOp, setWebhookEnabledOp } from "@/lib/webhooks/operations";
 
 export const createWebhookAction = operationAction(createWebhookOp, "/app/webhooks");

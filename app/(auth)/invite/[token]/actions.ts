@@ -32,11 +32,10 @@ export const acceptInvitationAction = userAction(
 export const joinWithNewAccountAction = formAction(acceptWithSignUpSchema, async (input) => {
   const preview = await previewInvitation(input.token);
   if (!preview.ok) throw invitationLinkProblem(preview.problem);
-  const { userId } = await signUp({
-    name: input.name,
-    email: preview.email,
-    password: input.password,
-  });
+  const { userId } = await signUp(
+    { name: input.name, email: preview.email, password: input.password },
+    { verified: true },
+  );
   const { orgId } = await acceptInvitation(input.token, { id: userId, email: preview.email });
   await signIn("credentials", { email: preview.email, password: input.password, redirect: false });
   await setCurrentOrgCookie(orgId);

@@ -11,7 +11,7 @@
  * Phys. Rev. Lett. 65, 1838 (1990) (⟨M⟩ = 4 on the GHZ state); the singlet's σ·σ = −3 (textbook).
  */
 import { describe, expect, it } from "vitest";
-import { agreementVerdict } from "@/components/runs/verdict";
+import { agreementVerdict } from "@/lib/runs/verdict";
 import { estimate } from "@/lib/quantum";
 import { coverage, coverageSe, type CoverageCase } from "../../../support/coverage-cases";
 

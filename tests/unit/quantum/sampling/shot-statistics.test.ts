@@ -11,7 +11,7 @@ import { hermitianEigen } from "@/lib/quantum/observable/hermitian-eigen";
 import { matrixExpectationOnState } from "@/lib/quantum/observable/matrix-expectation";
 import { parseMatrixObservable } from "@/lib/quantum/observable/matrix-observable";
 import { sampleObservable } from "@/lib/quantum/sampling/sample-observable";
-import { Z95 } from "@/lib/quantum/sampling/statistics";
+import { Z95 } from "@/lib/quantum/sampling/normal";
 import type { StateVector } from "@/lib/quantum/types";
 import { mulberry32, randomDensity, randomState } from "../observable/random-states";
 import { betaVariance, exactValue, options, pauliObservable } from "./sampling-helpers";

@@ -1,7 +1,7 @@
 import type { Metadata } from "next";
 import { PageHeader } from "@/components/shell/page-header";
-import { ApiDocs } from "@/components/workspace/api-docs/api-docs";
-import { GateTable } from "@/components/workspace/api-docs/gate-table";
+import { ApiDocs } from "@/components/api-docs/api-docs";
+import { GateTable } from "@/components/api-docs/gate-table";
 
 export const metadata: Metadata = { title: "API reference" };
 

@@ -15,12 +15,10 @@
  */
 
 import { intervalZ } from "@/lib/quantum/sampling/interval";
+import { twoSidedP } from "@/lib/quantum/sampling/normal";
 import { formatExponential, formatFixed } from "@/lib/format";
 
 export const Z_THRESHOLD = 3;
-
-/** Half-width multiplier of a 95 % normal interval (Φ⁻¹(0.975), common practice). */
-export const Z95 = 1.959963984540054;
 
 export type VerdictKind = "consistent" | "suspicious" | "exact" | "unavailable";
 
@@ -32,45 +30,6 @@ export type Verdict = {
   p: number | null;
   deviation: number | null;
 };
-
-/**
- * Complementary error function, fractional error < 1.2e-7 everywhere (Chebyshev fit,
- * W. H. Press et al., Numerical Recipes in C, 2nd ed., §6.2, `erfcc`).
- */
-export function erfc(x: number): number {
-  const z = Math.abs(x);
-  const t = 1 / (1 + 0.5 * z);
-  const ans =
-    t *
-    Math.exp(
-      -z * z -
-        1.26551223 +
-        t *
-          (1.00002368 +
-            t *
-              (0.37409196 +
-                t *
-                  (0.09678418 +
-                    t *
-                      (-0.18628806 +
-                        t *
-                          (0.27886807 +
-                            t *
-                              (-1.13520398 +
-                                t * (1.48851587 + t * (-0.82215223 + t * 0.17087277)))))))),
-    );
-  return x >= 0 ? ans : 2 - ans;
-}
-
-/** p = 2·(1 − Φ(|z|)) = erfc(|z|/√2). */
-export function twoSidedP(z: number): number {
-  return Math.min(1, erfc(Math.abs(z) / Math.SQRT2));
-}
-
-export function zScore(mean: number, reference: number, stdErr: number): number | null {
-  if (![mean, reference, stdErr].every(Number.isFinite) || stdErr <= 0) return null;
-  return (mean - reference) / stdErr;
-}
 
 /**
  * Verdict for a sampled mean ± stdErr against a reference. A zero standard error (every

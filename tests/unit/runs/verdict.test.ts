@@ -1,47 +1,8 @@
-import { createRequire } from "node:module";
 import { describe, expect, it } from "vitest";
-import {
-  Z95,
-  agreementVerdict,
-  erfc,
-  pickComparison,
-  twoSidedP,
-  zScore,
-} from "@/components/runs/verdict";
-/** jstat (statistics reference library) ships no type declarations. */
-const { jStat } = createRequire(import.meta.url)("jstat") as {
-  jStat: {
-    normal: {
-      cdf: (x: number, m: number, s: number) => number;
-      inv: (p: number, m: number, s: number) => number;
-    };
-  };
-};
-
-describe("erfc and the two-sided p-value", () => {
-  it("matches jStat's normal CDF: p = 2(1 − Φ(|z|)) (reference library jstat)", () => {
-    for (const z of [0, 0.3, 1, 1.959963984540054, 2.5, 3, 4, 5.5]) {
-      const ref = 2 * (1 - jStat.normal.cdf(z, 0, 1));
-      expect(twoSidedP(z)).toBeCloseTo(ref, 6);
-      expect(twoSidedP(-z)).toBeCloseTo(ref, 6);
-    }
-  });
-  it("erfc(0) = 1, erfc(1) = 0.157299207 (A&S Table 7.1, value from memory), erfc(−x) = 2 − erfc(x)", () => {
-    expect(erfc(0)).toBeCloseTo(1, 7);
-    expect(erfc(1)).toBeCloseTo(0.157299207, 7);
-    expect(erfc(-0.7)).toBeCloseTo(2 - erfc(0.7), 12);
-  });
-  it("Z95 is the 97.5 % normal quantile (jstat inverse CDF)", () => {
-    expect(Z95).toBeCloseTo(jStat.normal.inv(0.975, 0, 1), 9);
-    expect(twoSidedP(Z95)).toBeCloseTo(0.05, 6);
-  });
-});
+import { Z95 } from "@/lib/quantum/sampling/normal";
+import { agreementVerdict, pickComparison } from "@/lib/runs/verdict";
 
 describe("agreementVerdict", () => {
-  it("computes z = (mean − exact)/stdErr", () => {
-    expect(zScore(-1.1372, -1.138, 0.0008)).toBeCloseTo(1, 9);
-    expect(zScore(1, 1, 0)).toBeNull();
-  });
   it("calls |z| ≤ 3 consistent and beyond suspicious (three-sigma rule, common practice)", () => {
     expect(agreementVerdict({ mean: 0.51, stdErr: 0.01 }, 0.5).kind).toBe("consistent");
     expect(agreementVerdict({ mean: 0.529, stdErr: 0.01 }, 0.5).kind).toBe("consistent");

@@ -4,8 +4,8 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import ts from "typescript";
 import { describe, expect, it } from "vitest";
-import { operationExamples } from "@/components/workspace/api-docs/examples";
-import { schemaFields, type JsonSchema } from "@/components/workspace/api-docs/schema-fields";
+import { operationExamples } from "@/components/api-docs/examples";
+import { schemaFields, type JsonSchema } from "@/components/api-docs/schema-fields";
 import { getOpenApiDocument } from "@/lib/openapi/document";
 
 const dir = mkdtempSync(join(tmpdir(), "kw-docs-"));
