@@ -89,7 +89,11 @@ export function applyWithShape(
   const offsets = localOffsets(bits);
   const mask = offsets[d - 1];
   const count = re.length >>> k;
-  if (shape.diagonal) {
+  // In a kernel memory the SIMD dense kernels beat the scalar structured ones for full
+  // 1-qubit diagonals and every 2-qubit gate that touches all four amplitudes (a two-block
+  // or real 4×4 included): npm run bench, ansatz row.
+  const simd = active.length === d && k <= 2 && wasmBinding(re, im) !== undefined;
+  if (shape.diagonal && !(simd && k === 1)) {
     if (k === 1 && active[active.length - 1] === 1) {
       applyDiagonal1q(re, im, bits[0], m[0], m[1], m[6], m[7], active.length === 1);
       return;
@@ -127,6 +131,10 @@ export function applyWithShape(
     return;
   }
   if (active.length === d) {
+    if (simd) {
+      applyDense(re, im, bits, m);
+      return;
+    }
     if (shape.blockOperand >= 0) {
       const [A, B] = twoBlocks(m, shape.blockOperand);
       applyTwoBlock(re, im, bits[shape.blockOperand], bits[1 - shape.blockOperand], A, B);
