@@ -5,26 +5,11 @@
  * cycle prints the component's name instead); alternatives (oneOf/anyOf) are listed
  * with their discriminating constant when they have one.
  */
-export type JsonSchema = {
-  $ref?: string;
-  type?: string | string[];
-  properties?: Record<string, JsonSchema>;
-  required?: string[];
-  items?: JsonSchema;
-  additionalProperties?: boolean | JsonSchema;
-  oneOf?: JsonSchema[];
-  anyOf?: JsonSchema[];
-  allOf?: JsonSchema[];
-  enum?: unknown[];
-  const?: unknown;
-  description?: string;
-  minimum?: number;
-  maximum?: number;
-  minLength?: number;
-  maxLength?: number;
-  prefixItems?: JsonSchema[];
-  default?: unknown;
-};
+import type { JsonSchema, SchemaComponents } from "./openapi-types";
+
+/** A schema read through one shape: a reference carries only `$ref` and a description. */
+type Schema = Exclude<JsonSchema, { $ref: string }>;
+export const view = (s: JsonSchema): Schema => s as Schema;
 
 export type FieldRow = {
   path: string;
@@ -35,7 +20,7 @@ export type FieldRow = {
   depth: number;
 };
 
-type Components = Record<string, JsonSchema>;
+type Components = SchemaComponents;
 
 export function refName(ref: string): string {
   return ref.replace(/^#\/components\/schemas\//, "");
@@ -43,14 +28,15 @@ export function refName(ref: string): string {
 
 /** An alternative of a oneOf: its discriminating constant (e.g. "pauli") when it has one. */
 function alternativeLabel(alt: JsonSchema, components: Components): string {
-  const resolved = alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt;
-  const tag = Object.values(resolved.properties ?? {}).find(
-    (p) => p.const !== undefined || p.enum?.length === 1,
-  );
+  const resolved = view(alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt);
+  const tag = Object.values(resolved.properties ?? {})
+    .map(view)
+    .find((p) => p.const !== undefined || p.enum?.length === 1);
   return tag ? JSON.stringify(tag.const ?? tag.enum![0]) : typeLabel(alt, components);
 }
 
-function typeLabel(s: JsonSchema, components: Components): string {
+function typeLabel(schema: JsonSchema, components: Components): string {
+  const s = view(schema);
   if (s.$ref) return refName(s.$ref);
   if (s.const !== undefined) return JSON.stringify(s.const);
   if (s.enum) return "enum";
@@ -65,7 +51,7 @@ function typeLabel(s: JsonSchema, components: Components): string {
   return t ?? "any";
 }
 
-function bounds(s: JsonSchema): string | undefined {
+function bounds(s: Schema): string | undefined {
   const parts: string[] = [];
   if (s.minimum !== undefined) parts.push(`≥ ${s.minimum}`);
   if (s.maximum !== undefined) parts.push(`≤ ${s.maximum}`);
@@ -74,7 +60,7 @@ function bounds(s: JsonSchema): string | undefined {
   return parts.length ? parts.join(", ") : undefined;
 }
 
-function valuesOf(s: JsonSchema): string | undefined {
+function valuesOf(s: Schema): string | undefined {
   if (s.enum) return s.enum.map((v) => JSON.stringify(v)).join(", ");
   return bounds(s);
 }
@@ -88,7 +74,7 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
     depth: number,
     seen: Set<string>,
   ) => {
-    let node = s;
+    let node = view(s);
     let nextSeen = seen;
     if (node.$ref) {
       const name = refName(node.$ref);
@@ -98,7 +84,10 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
         return;
       }
       nextSeen = new Set(seen).add(name);
-      node = { ...components[name], description: s.description ?? components[name].description };
+      node = {
+        ...view(components[name]),
+        description: s.description ?? components[name].description,
+      };
     }
     if (path) {
       rows.push({
@@ -114,10 +103,10 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
     const alternatives = node.oneOf ?? node.anyOf;
     if (alternatives) {
       alternatives.forEach((alt) => {
-        const resolved = alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt;
-        const tag = Object.entries(resolved.properties ?? {}).find(
-          ([, p]) => p.const !== undefined || p.enum?.length === 1,
-        );
+        const resolved = view(alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt);
+        const tag = Object.entries(resolved.properties ?? {})
+          .map(([k, p]) => [k, view(p)] as const)
+          .find(([, p]) => p.const !== undefined || p.enum?.length === 1);
         const label = tag
           ? `${tag[0]}=${JSON.stringify(tag[1].const ?? tag[1].enum![0])}`
           : typeLabel(alt, components);
@@ -132,18 +121,19 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
       for (const [k, v] of Object.entries(node.properties))
         walk(v, path ? `${path}.${k}` : k, req.has(k), depth + 1, nextSeen);
     }
-    if (node.items && (node.items.properties || node.items.$ref || node.items.oneOf)) {
-      walk({ ...node.items, description: undefined }, `${path}[]`, true, depth + 1, nextSeen);
+    const items = node.items && view(node.items);
+    if (items && (items.properties || items.$ref || items.oneOf)) {
+      walk({ ...items, description: undefined }, `${path}[]`, true, depth + 1, nextSeen);
       // The row just added repeats the array's own line; drop it when it carries nothing new.
       const last = rows.findIndex((r) => r.path === `${path}[]`);
       if (last >= 0 && !rows[last].description) rows.splice(last, 1);
     }
-    if (
-      node.additionalProperties &&
-      typeof node.additionalProperties === "object" &&
-      (node.additionalProperties.properties || node.additionalProperties.$ref)
-    ) {
-      walk(node.additionalProperties, `${path}{key}`, true, depth + 1, nextSeen);
+    const extra =
+      node.additionalProperties && typeof node.additionalProperties === "object"
+        ? view(node.additionalProperties)
+        : undefined;
+    if (extra && (extra.properties || extra.$ref)) {
+      walk(extra, `${path}{key}`, true, depth + 1, nextSeen);
     }
   };
   walk(root, "", true, 0, new Set());
