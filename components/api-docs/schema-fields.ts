@@ -5,6 +5,7 @@
  * cycle prints the component's name instead); alternatives (oneOf/anyOf) are listed
  * with their discriminating constant when they have one.
  */
+import { formatCount, withMinus } from "@/lib/format";
 import type { JsonSchema, SchemaComponents } from "./openapi-types";
 
 /** A schema read through one shape: a reference carries only `$ref` and a description. */
@@ -51,12 +52,15 @@ function typeLabel(schema: JsonSchema, components: Components): string {
   return t ?? "any";
 }
 
+/** A schema bound: whole numbers with thousands separators, others exactly (1e-12), true minus. */
+const bound = (x: number) => (Number.isInteger(x) ? formatCount(x) : withMinus(String(x)));
+
 function bounds(s: Schema): string | undefined {
   const parts: string[] = [];
-  if (s.minimum !== undefined) parts.push(`≥ ${s.minimum}`);
-  if (s.maximum !== undefined) parts.push(`≤ ${s.maximum}`);
+  if (s.minimum !== undefined) parts.push(`≥ ${bound(s.minimum)}`);
+  if (s.maximum !== undefined) parts.push(`≤ ${bound(s.maximum)}`);
   if (s.minLength !== undefined && s.minLength > 0) parts.push(`length ≥ ${s.minLength}`);
-  if (s.maxLength !== undefined) parts.push(`length ≤ ${s.maxLength.toLocaleString("en-US")}`);
+  if (s.maxLength !== undefined) parts.push(`length ≤ ${formatCount(s.maxLength)}`);
   return parts.length ? parts.join(", ") : undefined;
 }
 

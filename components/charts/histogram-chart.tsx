@@ -39,9 +39,11 @@ export function HistogramChart({
 }) {
   const { bars, otherOutcomes, otherCount } = topCounts(counts, maxBars);
   const summary =
-    `Setting ${bases}: ${shots} shots; ` +
-    bars.map((b) => `${b.bits}: ${b.count}`).join(", ") +
-    (otherOutcomes ? `; ${otherOutcomes} other outcomes with ${otherCount} shots` : "");
+    `Setting ${bases}: ${plural(shots, "shot")}; ` +
+    bars.map((b) => `${b.bits}: ${formatCount(b.count)}`).join(", ") +
+    (otherOutcomes
+      ? `; ${plural(otherOutcomes, "other outcome")} with ${plural(otherCount, "shot")}`
+      : "");
   return (
     <ChartFigure
       title={

@@ -10,6 +10,7 @@ import { Value } from "@/components/ui/value";
 import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import type { Run } from "@/lib/swr/types";
 import { noiseSummary, verdictOf } from "./compare-figures";
+import { formatCount, formatFixed } from "@/lib/format";
 
 export function CompareTable({
   runs,
@@ -57,7 +58,7 @@ export function CompareTable({
               <TD className="text-[12.5px] text-ink-2">
                 {RUN_METHOD_LABELS[r.method]} · {noiseSummary(r)}
               </TD>
-              <TD numeric>{r.shots ? r.shots.toLocaleString("en-US") : "exact"}</TD>
+              <TD numeric>{r.shots ? formatCount(r.shots) : "exact"}</TD>
               <TD numeric>
                 {res ? <Value value={res.ideal.value} size="sm" tone="exact" /> : "—"}
               </TD>
@@ -110,7 +111,7 @@ export function CompareTable({
                     }
                   >
                     {v.kind === "unavailable" ? "exact only" : v.kind}
-                    {v.z !== null ? ` · z ${v.z.toFixed(1).replace("-", "−")}` : ""}
+                    {v.z !== null ? ` · z ${formatFixed(v.z, 1)}` : ""}
                   </Badge>
                 ) : null}
               </TD>

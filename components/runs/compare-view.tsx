@@ -18,6 +18,7 @@ import { AddRunsDialog } from "./add-runs-dialog";
 import { CompareChartCard } from "./compare-chart-card";
 import { compareChartRows } from "./compare-figures";
 import { CompareTable } from "./compare-table";
+import { plural, pluralWord } from "@/lib/format";
 
 export function CompareView() {
   const router = useRouter();
@@ -64,8 +65,8 @@ export function CompareView() {
       ) : null}
       {data?.missing.length ? (
         <Alert tone="warning" compact>
-          {data.missing.length} run{data.missing.length === 1 ? " was" : "s were"} not found in this
-          organisation and {data.missing.length === 1 ? "is" : "are"} left out.
+          {plural(data.missing.length, "run was", "runs were")} not found in this organisation and{" "}
+          {pluralWord(data.missing.length, "is", "are")} left out.
         </Alert>
       ) : null}
       {ids.length === 0 ? (

@@ -1,8 +1,5 @@
 /** The shots of a run in words (numbers through lib/format). */
-import { formatCount as count, formatRelative } from "@/lib/format";
-
-/** Kept for callers not yet moved to lib/format's formatRelative. */
-export const formatAgo = formatRelative;
+import { formatCount as count } from "@/lib/format";
 
 /**
  * Planned and drawn shots of a run, in words. `shots` is planned (what the quota check

@@ -1,7 +1,7 @@
 /** One plain sentence per audit event, from its action and metadata. */
 import { ROLE_LABELS, isRole } from "@/lib/orgs/roles";
 import { isPlanId, getPlan } from "@/lib/billing/plans";
-import { formatMoney } from "@/lib/format";
+import { formatMoney, plural } from "@/lib/format";
 
 const role = (v: unknown) => (isRole(v) ? ROLE_LABELS[v] : String(v ?? "?"));
 const plan = (v: unknown) => (isPlanId(v) ? getPlan(v).name : String(v ?? "?"));
@@ -36,7 +36,7 @@ export function describeAuditEvent(action: string, m: Record<string, unknown>): 
     case "api_key.disabled":
       return `Key "${str(m.name)}" (kw_${str(m.prefix)}…) stopped working: its creator is no longer a member.`;
     case "billing.checkout_started":
-      return `Opened checkout for ${plan(m.plan)} with ${str(m.seats)} seats.`;
+      return `Opened checkout for ${plan(m.plan)} with ${typeof m.seats === "number" ? plural(m.seats, "seat") : `${str(m.seats)} seats`}.`;
     case "billing.plan_changed":
       return `Plan ${plan(m.from)} → ${plan(m.to)}.`;
     case "billing.seats_changed":

@@ -28,6 +28,7 @@ import { withProvider } from "./provider";
 import type { CheckoutInput } from "./schemas";
 import { getStripe } from "./stripe-client";
 import { applySubscription } from "./sync";
+import { plural } from "@/lib/format";
 
 export const billingUrl = (query = "") => `${env.APP_URL.replace(/\/$/, "")}/app/billing${query}`;
 
@@ -47,12 +48,12 @@ export async function assertSeatsFit(org: Organization, planId: string, seats: n
   const usage = await getSeatUsage(org);
   if (seats < usage.used) {
     throw conflict(
-      `${usage.used} seats are in use (${usage.members} members, ${usage.pending} pending invitations); choose at least ${usage.used}, or remove people first.`,
+      `${plural(usage.used, "seat is", "seats are")} in use (${plural(usage.members, "member")}, ${plural(usage.pending, "pending invitation")}); choose at least ${usage.used}, or remove people first.`,
       [{ path: "seats", message: `At least ${usage.used}.` }],
     );
   }
   if (seats > plan.limits.seats) {
-    throw conflict(`The ${plan.name} plan has at most ${plan.limits.seats} seats.`, [
+    throw conflict(`The ${plan.name} plan has at most ${plural(plan.limits.seats, "seat")}.`, [
       { path: "seats", message: `At most ${plan.limits.seats}.` },
     ]);
   }

@@ -8,7 +8,7 @@ import { createPortalSession, startCheckout } from "./checkout";
 import { getPlan } from "./plans";
 import { changePlanSchema, changeSeatsSchema, checkoutSchema, emptySchema } from "./schemas";
 import { changePlan, changeSeats, setCancelAtPeriodEnd } from "./subscription-changes";
-import { formatLongDate } from "@/lib/format";
+import { formatLongDate, plural } from "@/lib/format";
 
 const day = (d: Date | null) => (d ? formatLongDate(d) : "the end of the period");
 
@@ -29,7 +29,7 @@ export const changeSeatsOp = defineOperation({
   run: async (input, access) => {
     const r = await changeSeats(access, input.seats);
     if (!r.changed)
-      return { status: "success", message: `You already pay for ${input.seats} seats.` };
+      return { status: "success", message: `You already pay for ${plural(input.seats, "seat")}.` };
     return {
       status: "success",
       message:

@@ -25,6 +25,7 @@ import { getPlan, type PlanId } from "./plans";
 import { withProvider } from "./provider";
 import { getStripe } from "./stripe-client";
 import { applySubscription, readSubscription } from "./sync";
+import { plural } from "@/lib/format";
 
 async function liveOrg(access: OrgAccess) {
   const org = await getOrganization(access.org.id);
@@ -63,7 +64,7 @@ export async function changePlan(access: OrgAccess, planId: PaidPlanId) {
   const target = getPlan(planId);
   if (org.seats > target.limits.seats) {
     throw conflict(
-      `The ${target.name} plan has at most ${target.limits.seats} seats and you pay for ${org.seats}; reduce seats first.`,
+      `The ${target.name} plan has at most ${plural(target.limits.seats, "seat")} and you pay for ${org.seats}; reduce seats first.`,
     );
   }
   const upgrade = target.seatPriceCents > getPlan(org.plan).seatPriceCents;
@@ -93,7 +94,7 @@ export async function setCancelAtPeriodEnd(access: OrgAccess, cancel: boolean) {
     const usage = await getSeatUsage({ ...org, plan: "sandbox" });
     if (usage.used > sandbox.limits.seats) {
       throw conflict(
-        `Sandbox allows ${sandbox.limits.seats} people and ${usage.used} seats are in use (${usage.members} members, ${usage.pending} pending invitations). Remove people or revoke invitations first.`,
+        `Sandbox allows ${plural(sandbox.limits.seats, "person", "people")} and ${plural(usage.used, "seat is", "seats are")} in use (${plural(usage.members, "member")}, ${plural(usage.pending, "pending invitation")}). Remove people or revoke invitations first.`,
       );
     }
   }

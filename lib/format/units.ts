@@ -55,10 +55,17 @@ export function formatWait(seconds: number): string {
 /**
  * A file size in decimal (SI) units, as upload limits are stated: 950 → "1 kB",
  * 2_500_000 → "2.5 MB", 5_000_000 → "5 MB". Sizes under 1 MB round up to whole kB.
+ * `binary: true` uses IEC units for memory and request-body caps: 4 × 2²⁰ → "4 MiB",
+ * 65_536 → "64 KiB" (under 1 MiB rounded to whole KiB, above to one decimal).
  */
-export function formatBytes(n: number): string {
+export function formatBytes(n: number, options: { binary?: boolean } = {}): string {
   if (!Number.isFinite(n) || n < 0)
     throw new RangeError(`Size must be a non-negative number, got ${n}.`);
+  if (options.binary) {
+    if (n >= 2 ** 30) return `${formatNumber(n / 2 ** 30, 1)} GiB`;
+    if (n >= 2 ** 20) return `${formatNumber(n / 2 ** 20, 1)} MiB`;
+    return `${formatCount(Math.round(n / 1024))} KiB`;
+  }
   if (n >= 1e9) return `${formatNumber(n / 1e9, 1)} GB`;
   if (n >= 1e6) return `${formatNumber(n / 1e6, 1)} MB`;
   return `${formatCount(Math.ceil(n / 1000))} kB`;

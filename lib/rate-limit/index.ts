@@ -18,6 +18,7 @@ import { clientIpFrom } from "./client-ip";
 import type { RateLimitState } from "./headers";
 import { metrics } from "@/lib/observability/metrics";
 import { getRedis } from "./redis";
+import { formatWait } from "@/lib/format";
 
 export type { RateLimitState } from "./headers";
 
@@ -77,8 +78,7 @@ export async function consume(
     if (error instanceof RateLimiterRes) {
       metrics().rateLimitRefusals.inc({ budget: name });
       const seconds = Math.max(1, Math.ceil(error.msBeforeNext / 1000));
-      const wait = seconds >= 90 ? `${Math.ceil(seconds / 60)} minutes` : `${seconds} seconds`;
-      const limited = tooManyRequests(`${message} Try again in ${wait}.`, seconds);
+      const limited = tooManyRequests(`${message} Try again in ${formatWait(seconds)}.`, seconds);
       limited.problem.rateLimit = {
         ...stateOf(budget, error),
         remaining: 0,

@@ -9,7 +9,7 @@
  * within MAX_SHOTS is refused ("infeasible"). The same errors as `estimate` are thrown
  * for the same bad input. Callers run it off the request thread (it may simulate).
  */
-import { circuitStats, parseProgram } from "../circuit";
+import { circuitStats, parseProgram, type ParsedProgram } from "../circuit";
 import { validateNoiseModel } from "../noise/validate";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { allocateShots } from "../planning/shot-plan";
@@ -24,12 +24,16 @@ import { assertDifferentiable, plannedShiftedCircuits } from "../gradient";
 import { compiledOf } from "../circuit/program";
 import { parameterPoints } from "./sweep-grid";
 import { validateRequest } from "./validate-request";
-import { formatCount } from "../../format/numbers";
+import { formatCount, formatExponential } from "../../format/numbers";
 import { plural } from "../../format/plural";
 
-export function previewRequest(request: unknown, options: PreviewOptions = {}): PreviewResult {
+/** `program`: the request's circuit already parsed by the caller (it is then not parsed again). */
+export function previewRequest(
+  request: unknown,
+  options: PreviewOptions & { program?: ParsedProgram } = {},
+): PreviewResult {
   const req = validateRequest(request);
-  const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
+  const program = options.program ?? parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
   validateNoiseModel(req.noise, n); // per-qubit readout keys must name qubits of this circuit
   checkQubitLimit(n, req.method);
@@ -77,7 +81,7 @@ export function previewRequest(request: unknown, options: PreviewOptions = {}): 
     notes.push(
       planned.source === "state_aware"
         ? "The shot plan uses the state's exact variances ((Σ_g √Var_g)²/ε², McClean et al. 2016): these are the shots the run will draw."
-        : `The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016): simulating the state for an exact plan would take about ${planned.work.estimated.toExponential(1)} amplitude updates, over the preview's budget of ${planned.work.budget.toExponential(1)}. The run plans from the state's exact variances and usually draws fewer shots; quota is reserved for the bound and billed for the shots drawn.`,
+        : `The shot plan uses worst-case variance bounds ((Σ|c_i|)²/ε², McClean et al. 2016): simulating the state for an exact plan would take about ${formatExponential(planned.work.estimated, 1)} amplitude updates, over the preview's budget of ${formatExponential(planned.work.budget, 1)}. The run plans from the state's exact variances and usually draws fewer shots; quota is reserved for the bound and billed for the shots drawn.`,
     );
   } else if (shots > 0) {
     if (shots < groups.length) {

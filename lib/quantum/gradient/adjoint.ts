@@ -8,12 +8,13 @@
  * (tape.ts).
  *
  * The sweep runs over the same fused blocks as the forward simulation (fusion.ts): for a
- * block B = G_m ⋯ G_1 (gates on ≤ 2 qubits), φ ← B†φ, then one read-only pass gives the
- * local cross matrix R of λ and φ on the block's qubits (local-cross.ts), and every
+ * block B = G_m ⋯ G_1, φ ← B†φ, the local cross matrix R of λ and φ on the block's
+ * qubits, λ ← B†λ — for blocks on one or two qubits all three in ONE pass over both
+ * vectors (backward-step.ts), otherwise three (kernels + local-cross.ts) — and every
  * angle θ of a member G_j costs only a small matrix product:
  *   ∂⟨A⟩/∂θ = 2·Re Σ_{a,b} (S_j · ∂G_j/∂θ · P_j)[a][b] · R[a][b],
- * P_j = G_{j−1} ⋯ G_1 and S_j = G_m ⋯ G_{j+1} embedded on the block's qubits. So the
- * cost is three passes per fused block (B† on φ, R, B† on λ) instead of three per gate.
+ * P_j = G_{j−1} ⋯ G_1 and S_j = G_m ⋯ G_{j+1} embedded on the block's qubits. Blocks
+ * without input-dependent angles just apply B† to both vectors.
  */
 import { applyToAmplitudes } from "../statevector/dispatch";
 import { GateFuser } from "../statevector/fusion";
@@ -22,6 +23,7 @@ import { RunControl, type RunOptions } from "../statevector/run-control";
 import type { PreparedObservable } from "../sampling/sample-observable";
 import type { StateVector } from "../types";
 import { applyObservable } from "./apply-observable";
+import { backwardStep, nonZeroPattern } from "./backward-step";
 import { crossLocal } from "./local-cross";
 import { matrixDerivative } from "./shift-rules";
 import { dagger, type Tape, type TapeAngle, type TapePart } from "./tape";
@@ -45,18 +47,26 @@ export function adjointGradient(
   for (let i = blocks.length - 1; i >= 0; i--) {
     const { gate, sources } = blocks[i];
     const udag = dagger(gate.matrix);
-    applyToAmplitudes(phi.re, phi.im, gate.qubits, udag);
     const derivatives = blockDerivatives(parts, sources, gate.qubits);
-    if (derivatives.length > 0) {
-      let needed = 0;
-      for (const { m } of derivatives) needed |= nonZeroPattern(m);
-      const r = crossLocal(lambda.re, lambda.im, phi.re, phi.im, gate.qubits, needed);
+    if (derivatives.length === 0) {
+      applyToAmplitudes(phi.re, phi.im, gate.qubits, udag);
+      if (i > 0) applyToAmplitudes(lambda.re, lambda.im, gate.qubits, udag);
+    } else {
+      let r: Float64Array;
+      if (gate.qubits.length <= 2) {
+        let needed = 0;
+        for (const { m } of derivatives) needed |= nonZeroPattern(m);
+        r = backwardStep(lambda.re, lambda.im, phi.re, phi.im, gate.qubits, udag, needed, i > 0);
+      } else {
+        applyToAmplitudes(phi.re, phi.im, gate.qubits, udag);
+        r = crossLocal(lambda.re, lambda.im, phi.re, phi.im, gate.qubits);
+        if (i > 0) applyToAmplitudes(lambda.re, lambda.im, gate.qubits, udag);
+      }
       for (const { angle, m } of derivatives) {
         const value = realTrace(m, r);
         if (value !== 0) angle.expr.grad(tape.x, grad, value);
       }
     }
-    if (i > 0) applyToAmplitudes(lambda.re, lambda.im, gate.qubits, udag);
     control.tick(blocks.length - i);
   }
   return grad;
@@ -67,14 +77,6 @@ function realTrace(m: Float64Array, r: Float64Array): number {
   let acc = 0;
   for (let w = 0; w < m.length; w += 2) acc += m[w] * r[w] - m[w + 1] * r[w + 1];
   return 2 * acc;
-}
-
-/** Bit a·d + b set when M[a][b] ≠ 0 (exactly: skipped entries contribute nothing). */
-function nonZeroPattern(m: Float64Array): number {
-  let bits = 0;
-  for (let e = 0; 2 * e < m.length && e < 31; e++)
-    if (m[2 * e] !== 0 || m[2 * e + 1] !== 0) bits |= 1 << e;
-  return m.length > 62 ? -1 : bits;
 }
 
 /** S_j · ∂G_j/∂θ · P_j for every input-dependent angle θ of the block's members (module comment). */

@@ -39,29 +39,74 @@ export function applyObservable(obs: PreparedObservable, psi: StateVector): Stat
     list.push({ cr, ci, z: t.zMask });
     groups.set(t.xMask, list);
   }
+  // f splits into terms on the low L bits (a table over b's low bits), terms on the high
+  // bits (a table over b >> L; z = 0 counts as low) and the few terms with z on both sides (evaluated per
+  // amplitude), so a group costs two lookups per amplitude whatever its size.
+  const lowBits = Math.ceil(psi.n / 2);
+  const loMask = (1 << lowBits) - 1;
+  const run = 1 << lowBits;
   for (const [x, terms] of groups) {
-    const m = terms.length;
-    const zs = Int32Array.from(terms, (t) => t.z);
-    const crs = Float64Array.from(terms, (t) => t.cr);
-    const cis = Float64Array.from(terms, (t) => t.ci);
-    for (let b = 0; b < len; b++) {
-      let fr = 0;
-      let fi = 0;
-      for (let t = 0; t < m; t++) {
-        if (parity(b & zs[t])) {
-          fr -= crs[t];
-          fi -= cis[t];
-        } else {
-          fr += crs[t];
-          fi += cis[t];
+    const lo = termTable(
+      terms.filter((t) => (t.z & ~loMask) === 0),
+      lowBits,
+      0,
+    );
+    const hi = termTable(
+      terms.filter((t) => t.z !== 0 && (t.z & loMask) === 0),
+      psi.n - lowBits,
+      lowBits,
+    );
+    const across = terms.filter((t) => (t.z & loMask) !== 0 && (t.z & ~loMask) !== 0);
+    const m = across.length;
+    const zs = Int32Array.from(across, (t) => t.z);
+    const crs = Float64Array.from(across, (t) => t.cr);
+    const cis = Float64Array.from(across, (t) => t.ci);
+    for (let start = 0, h = 0; start < len; start += run, h++) {
+      const hiRe = hi.re[h];
+      const hiIm = hi.im[h];
+      for (let l = 0, b = start; l < run && b < len; l++, b++) {
+        let fr = lo.re[l] + hiRe;
+        let fi = lo.im[l] + hiIm;
+        for (let t = 0; t < m; t++) {
+          if (parity(b & zs[t])) {
+            fr -= crs[t];
+            fi -= cis[t];
+          } else {
+            fr += crs[t];
+            fi += cis[t];
+          }
         }
+        const ar = psi.re[b];
+        const ai = psi.im[b];
+        const o = b ^ x;
+        re[o] += fr * ar - fi * ai;
+        im[o] += fr * ai + fi * ar;
       }
-      const ar = psi.re[b];
-      const ai = psi.im[b];
-      const o = b ^ x;
-      re[o] += fr * ar - fi * ai;
-      im[o] += fr * ai + fi * ar;
     }
   }
   return { n: psi.n, re, im };
+}
+
+/** Σ_t c_t·(−1)^{|v & (z_t >> shift)|} for every v < 2^bits (split re/im). */
+function termTable(
+  terms: readonly { cr: number; ci: number; z: number }[],
+  bits: number,
+  shift: number,
+): { re: Float64Array; im: Float64Array } {
+  const size = 1 << bits;
+  const re = new Float64Array(size);
+  const im = new Float64Array(size);
+  for (const t of terms) {
+    const z = t.z >>> shift;
+    for (let v = 0; v < size; v++) {
+      if (parity(v & z)) {
+        re[v] -= t.cr;
+        im[v] -= t.ci;
+      } else {
+        re[v] += t.cr;
+        im[v] += t.ci;
+      }
+    }
+  }
+  return { re, im };
 }

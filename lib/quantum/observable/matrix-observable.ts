@@ -13,6 +13,7 @@
 import Complex from "complex.js";
 import { EngineError } from "../errors";
 import { MAX_MATRIX_QUBITS } from "../estimate/limits";
+import { plural } from "../../format/plural";
 
 /**
  * Hermitian matrix, row-major d×d, split re/im (symmetrised (H + H†)/2 after the check),
@@ -107,7 +108,7 @@ export function parseMatrixObservable(
   const n = Math.log2(dim);
   if (numQubits !== undefined && n !== numQubits) {
     invalid(
-      `the matrix is ${dim}×${dim} (${n} qubits) but the circuit has ${numQubits} qubits; it must be ${2 ** numQubits}×${2 ** numQubits}`,
+      `the matrix is ${dim}×${dim} (${plural(n, "qubit")}) but the circuit has ${plural(numQubits, "qubit")}; it must be ${2 ** numQubits}×${2 ** numQubits}`,
       ["observable", "real"],
     );
   }

@@ -45,6 +45,7 @@ import {
   type Estimate,
   type SettingRanges,
 } from "./statistics";
+import { plural } from "../../format/plural";
 
 export type PreparedState =
   { kind: "statevector"; state: StateVector } | { kind: "density_matrix"; rho: DensityMatrix };
@@ -229,7 +230,7 @@ export async function sampleObservable(
     const total = opts.shots ?? 0;
     if (total < g)
       shotsError(
-        `at least one shot per measurement setting is needed: ${g} settings need shots ≥ ${g}`,
+        `at least one shot per measurement setting is needed: ${plural(g, "setting needs", "settings need")} shots ≥ ${g}`,
         "shots",
       );
     perSetting = allocateShots(

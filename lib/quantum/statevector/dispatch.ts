@@ -27,7 +27,7 @@ import {
   ZERO_TOL,
   type MatrixShape,
 } from "./matrix-classify";
-import { wasm1q, wasm2q } from "../wasm/kernels";
+import { wasm1q, wasm2q, wasmTwoBlock } from "../wasm/kernels";
 import { wasmBinding } from "../wasm/runtime";
 
 /** True when every imaginary part of the interleaved matrix is exactly zero. */
@@ -127,13 +127,19 @@ export function applyWithShape(
     return;
   }
   if (active.length === d) {
+    const w = k === 2 ? wasmBinding(re, im) : undefined;
     if (shape.blockOperand >= 0) {
       const [A, B] = twoBlocks(m, shape.blockOperand);
-      applyTwoBlock(re, im, bits[shape.blockOperand], bits[1 - shape.blockOperand], A, B);
+      const ctrl = bits[shape.blockOperand];
+      const tgt = bits[1 - shape.blockOperand];
+      if (w) wasmTwoBlock(w, re, im, ctrl, tgt, A, B);
+      else applyTwoBlock(re, im, ctrl, tgt, A, B);
       return;
     }
     if (k === 2 && shape.real) {
-      applyReal2q(re, im, bits[0], bits[1], m);
+      // the dense wasm kernel gives the real kernel's results (zero imaginary parts add ±0)
+      if (w) wasm2q(w, re, im, bits[0], bits[1], m);
+      else applyReal2q(re, im, bits[0], bits[1], m);
       return;
     }
     applyDense(re, im, bits, m);

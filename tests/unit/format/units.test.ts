@@ -44,4 +44,11 @@ describe("formatBytes (decimal SI prefixes, as upload limits are stated)", () =>
     expect(formatBytes(2_500_000)).toBe("2.5 MB");
     expect(formatBytes(5_000_000)).toBe("5 MB");
   });
+  // IEC 80000-13 binary prefixes: 1 KiB = 1024 B, 1 MiB = 2²⁰ B
+  it("uses binary prefixes on request", () => {
+    expect(formatBytes(65_536, { binary: true })).toBe("64 KiB");
+    expect(formatBytes(4 * 2 ** 20, { binary: true })).toBe("4 MiB");
+    expect(formatBytes(1.5 * 2 ** 20, { binary: true })).toBe("1.5 MiB");
+    expect(formatBytes(2 ** 31, { binary: true })).toBe("2 GiB");
+  });
 });

@@ -4,8 +4,10 @@
  * here (Jones & Gacon 2020, arXiv:2009.02823, Algorithm 1: φ ← U†φ, ∂θ = 2·Re⟨λ|∂U|φ⟩,
  * λ ← U†λ, gate by gate with the dense reference kernel and a plain inner product), on
  * random circuits that mix rotations, controlled rotations, phases, swaps, 3-qubit gates
- * and constant gates, to 1e-10.
+ * and constant gates, to 1e-10. λ = A·ψ (apply-observable.ts, split term tables) against
+ * the dense mathjs matrix of the Pauli sum (../observable/dense-reference.ts) to 1e-12.
  */
+import * as math from "mathjs";
 import { describe, expect, it } from "vitest";
 import { parseProgram } from "@/lib/quantum/circuit";
 import { prepareObservable } from "@/lib/quantum/estimate/prepare-observable";
@@ -17,7 +19,8 @@ import { applyDense } from "@/lib/quantum/statevector/dispatch";
 import { simulateStatevector } from "@/lib/quantum/statevector/simulate";
 import type { PreparedObservable } from "@/lib/quantum/sampling/sample-observable";
 import type { StateVector } from "@/lib/quantum/types";
-import { mulberry32 } from "../observable/random-states";
+import { stateColumn, sumMatrix } from "../observable/dense-reference";
+import { mulberry32, randomState } from "../observable/random-states";
 
 /** Re⟨λ|(D on bits)|φ⟩ by building D·φ on a copy (no shortcuts). */
 function realInner(l: StateVector, phi: StateVector, bits: number[], d: Float64Array): number {
@@ -97,6 +100,35 @@ describe("fused adjoint gradient", () => {
       const got = adjointGradient(tape, simulateStatevector(program.bind(params)), obs);
       expect(got.length).toBe(inputs);
       for (let i = 0; i < inputs; i++) expect(Math.abs(got[i] - want[i])).toBeLessThan(1e-10);
+    }
+  });
+});
+
+describe("λ = A·ψ", () => {
+  it("equals the dense mathjs product for random Pauli sums on 1–7 qubits (seed 77)", () => {
+    const rand = mulberry32(77);
+    for (let n = 1; n <= 7; n++) {
+      const terms: { coefficient: number; word: string }[] = [];
+      for (let t = 0; t < 12; t++) {
+        // half the words diagonal (one shared flip mask), the rest random
+        const letters = t % 2 === 0 ? "IZ" : "IXYZ";
+        let word = "";
+        for (let q = 0; q < n; q++) word += letters[Math.floor(rand() * letters.length)];
+        terms.push({ coefficient: Number((rand() * 2 - 1).toFixed(6)), word });
+      }
+      const text = terms
+        .map((t) => `${t.coefficient} ${t.word}`)
+        .join(" + ")
+        .replace(/\+ -/g, "- ");
+      const obs = prepareObservable({ format: "pauli", terms: text }, n);
+      const psi = randomState(n, rand);
+      const got = applyObservable(obs, psi);
+      const want = math.multiply(sumMatrix(terms, n), stateColumn(psi)) as math.Matrix;
+      for (let i = 0; i < 2 ** n; i++) {
+        const z = want.get([i, 0]) as math.Complex;
+        expect(Math.abs(got.re[i] - z.re)).toBeLessThan(1e-12);
+        expect(Math.abs(got.im[i] - z.im)).toBeLessThan(1e-12);
+      }
     }
   });
 });

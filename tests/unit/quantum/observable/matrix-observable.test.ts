@@ -151,7 +151,7 @@ describe("matrix observable validation", () => {
           3,
         ),
       ).message,
-    ).toBe("the matrix is 2×2 (1 qubits) but the circuit has 3 qubits; it must be 8×8");
+    ).toBe("the matrix is 2×2 (1 qubit) but the circuit has 3 qubits; it must be 8×8");
     expect(
       errorOf(() =>
         parseMatrixObservable({ real: Array.from({ length: 512 }, () => new Array(512).fill(0)) }),
