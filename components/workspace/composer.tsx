@@ -23,7 +23,6 @@ import { ParametersCard } from "./parameters-card";
 import { PreviewPanel } from "./preview-panel";
 import { RestoreNotice } from "./restore-notice";
 import { SubmitPanel } from "./submit-panel";
-import { useCircuitOutline } from "./use-circuit-outline";
 import { useComposerStart } from "./use-composer-start";
 import { useDraftSaver } from "./use-draft-saver";
 import { useInputDefaults } from "./use-input-defaults";
@@ -44,15 +43,17 @@ export function Composer() {
   const { loaded, restored, startOver } = useComposerStart(orgId, search, form.reset);
   useDraftSaver(orgId, form.subscribe, loaded);
 
-  // The whole form, as the preview and the outline need it (a fresh object per change).
+  // The whole form, as the preview needs it (a fresh object per change).
   const values = useWatch({ control: form.control }) as ComposerValues;
   const built = useMemo(() => toRequest(values, inputNames), [values, inputNames]);
-  const numericParams = built.request.parameters ?? {};
-  const { outline, stale } = useCircuitOutline(
-    values.circuit.format,
-    values.circuit.source,
-    numericParams,
+  // One preview request per typing pause: the whole request, or the circuit alone while the
+  // form has issues of its own; either answer carries the circuit's outline for the diagram.
+  const { format, source } = values.circuit;
+  const preview = usePreview(
+    built.issues.length ? null : { ...built.request },
+    source.trim() ? { circuit: { format, source }, parameters: built.request.parameters } : null,
   );
+  const { outline, outlineStale: stale } = preview;
 
   // The circuit's inputs follow its latest outline (adjusted in render, not in an effect).
   const outlineNames = outline?.inputs.map((i) => i.name);
@@ -60,7 +61,6 @@ export function Composer() {
     setInputNames(outlineNames);
   useInputDefaults(outline, form);
 
-  const preview = usePreview(built.issues.length ? null : { ...built.request });
   const previewError = preview.error;
 
   // Engine issues → inline markers for the editors, field errors for the rest.

@@ -1,8 +1,8 @@
 "use client";
 /**
  * The organisation's saved noise profiles on the new-run page: loaded through a server
- * action (SWR key includes the org id), applied from the profile picker, saved from the
- * current fields (same name = edit), deleted.
+ * action (SWR key includes the org id, which every call names), applied from the profile
+ * picker, saved from the current fields (same name = edit), deleted.
  */
 import { useState } from "react";
 import { useFormContext } from "react-hook-form";
@@ -13,6 +13,7 @@ import {
   saveNoiseProfileAction,
 } from "@/app/(app)/app/runs/new/noise-actions";
 import { Button } from "@/components/ui/button";
+import { actionData, actionText } from "@/lib/api/action-state";
 import { Input } from "@/components/ui/input";
 import type { NoiseProfileView } from "@/lib/noise-profiles/schemas";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";
@@ -43,13 +44,16 @@ export function toPickerProfile(p: NoiseProfileView): NoiseProfile {
 
 export function useNoiseProfiles() {
   const { orgId } = useWorkspaceOrg();
-  const swr = useSWR([orgId, "noise-profiles"] as const, () => listNoiseProfilesAction(), {
-    revalidateOnFocus: false,
-  });
+  const swr = useSWR(
+    [orgId, "noise-profiles"] as const,
+    async () => actionData(await listNoiseProfilesAction({ orgId })),
+    { revalidateOnFocus: false },
+  );
   return { ...swr, profiles: (swr.data ?? []).map(toPickerProfile) };
 }
 
 export function NoiseProfileControls({ state }: { state: ReturnType<typeof useNoiseProfiles> }) {
+  const { orgId } = useWorkspaceOrg();
   const { getValues } = useFormContext<ComposerValues>();
   const [naming, setNaming] = useState(false);
   const [name, setName] = useState("");
@@ -64,18 +68,23 @@ export function NoiseProfileControls({ state }: { state: ReturnType<typeof useNo
       return;
     }
     setBusy(true);
-    const answer = await saveNoiseProfileAction({ name, noise: built.request.noise ?? {} });
+    const answer = await saveNoiseProfileAction({
+      orgId,
+      name,
+      noise: built.request.noise ?? {},
+    });
     setBusy(false);
-    setMessage({ ok: answer.ok, text: answer.message });
-    if (answer.ok) {
+    const ok = answer.status === "success";
+    setMessage({ ok, text: actionText(answer) });
+    if (ok) {
       setNaming(false);
       await state.mutate();
     }
   };
 
   const remove = async (id: string) => {
-    const answer = await deleteNoiseProfileAction(id);
-    setMessage({ ok: answer.ok, text: answer.message });
+    const answer = await deleteNoiseProfileAction({ orgId, id });
+    setMessage({ ok: answer.status === "success", text: actionText(answer) });
     await state.mutate();
   };
 

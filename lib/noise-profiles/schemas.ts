@@ -22,6 +22,9 @@ export const noiseProfileInputSchema = z.strictObject({
 
 export type NoiseProfileInput = z.infer<typeof noiseProfileInputSchema>;
 
+/** Which profile to delete. */
+export const noiseProfileIdSchema = z.strictObject({ id: z.uuid("not a profile id") });
+
 export type NoiseProfileView = {
   id: string;
   name: string;

@@ -15,6 +15,10 @@ import {
 } from "@/lib/library/schemas";
 import { RUN_FILES } from "@/lib/export/run-files";
 import {
+  circuitPreviewRequestSchema,
+  circuitPreviewSchema,
+  previewProblemSchema,
+  previewQuerySchema,
   runCreateSchema,
   runGetQuerySchema,
   runListQuerySchema,
@@ -40,16 +44,21 @@ const PROBLEM_TEXT: Record<number, string> = {
   503: "The job queue is unavailable; nothing was created",
 };
 
-function problems(...codes: number[]): RouteConfig["responses"] {
+/** Problem answers whose document is `schema` (problemSchema with extension members). */
+function problemsAs(schema: z.ZodType, ...codes: number[]): RouteConfig["responses"] {
   return Object.fromEntries(
     codes.map((code) => [
       code,
       {
         description: PROBLEM_TEXT[code],
-        content: { "application/problem+json": { schema: problemSchema } },
+        content: { "application/problem+json": { schema } },
       },
     ]),
   );
+}
+
+function problems(...codes: number[]): RouteConfig["responses"] {
+  return problemsAs(problemSchema, ...codes);
 }
 
 const json = <T extends z.ZodType>(schema: T, description: string) => ({
@@ -157,16 +166,28 @@ export function registerPaths(registry: OpenAPIRegistry): void {
     tags: ["Runs"],
     summary: "Preview a run without simulating it",
     description:
-      "Parses the circuit and observable and answers at once: qubits, gate counts, depth, measurement settings, the shot plan for `targetPrecision`, and whether the plan would accept the run now.",
+      "Parses the circuit and observable and answers at once: qubits, gate counts, depth, measurement settings, the shot plan for `targetPrecision`, whether the plan would accept the run now, and the circuit's `outline` (qubits, labels, inputs, the first 400 operations) for drawing it. " +
+      "A failed preview's problem carries `outline` too whenever the circuit itself could be read, so a client can draw the circuit while the observable or the settings are still being written. " +
+      "With `?only=circuit` the body is `{ circuit, parameters? }` and the answer is `{ outline }` alone; the circuit's errors answer 400 with line and column.",
     request: {
+      query: previewQuerySchema,
       body: {
         required: true,
-        content: { "application/json": { schema: runCreateSchema, example: bellRunExample } },
+        content: {
+          "application/json": {
+            schema: z.union([runCreateSchema, circuitPreviewRequestSchema]),
+            example: bellRunExample,
+          },
+        },
       },
     },
     responses: {
-      200: json(runPreviewSchema, "The preview"),
-      ...problems(400, 413, 415, 422, ...common),
+      200: json(
+        z.union([runPreviewSchema, circuitPreviewSchema]),
+        "The preview (with `?only=circuit`: the outline alone)",
+      ),
+      ...problemsAs(previewProblemSchema, 400, 422),
+      ...problems(413, 415, ...common),
     },
   });
   route(registry, {

@@ -7,13 +7,14 @@
  */
 import type { z } from "zod";
 import { badRequest, ProblemError, validationFailed, zodFieldErrors } from "@/lib/api/problem";
+import { formatBytes } from "@/lib/format";
 
 const tooLarge = (max: number) =>
   new ProblemError({
     type: "/problems/body-too-large",
     title: "Request body too large",
     status: 413,
-    detail: `The request body is larger than ${max >= 1024 * 1024 ? `${Math.round(max / 1024 / 1024)} MiB` : `${Math.round(max / 1024)} KiB`}.`,
+    detail: `The request body is larger than ${formatBytes(max, { binary: true })}.`,
   });
 
 /**
@@ -50,11 +51,8 @@ export async function readText(req: Request, maxBytes: number): Promise<string> 
   return Buffer.concat(chunks).toString("utf8");
 }
 
-export async function readJsonBody<S extends z.ZodType>(
-  req: Request,
-  schema: S,
-  maxBytes: number,
-): Promise<z.output<S>> {
+/** The JSON body under `maxBytes`, not yet checked against a schema (415 / 413 / 400 problems). */
+export async function readJson(req: Request, maxBytes: number): Promise<unknown> {
   const type = req.headers.get("content-type") ?? "";
   if (!/^application\/(?:[\w.+-]+\+)?json\b/i.test(type)) {
     throw new ProblemError({
@@ -65,14 +63,17 @@ export async function readJsonBody<S extends z.ZodType>(
     });
   }
   const text = await readText(req, maxBytes);
-  let value: unknown;
   try {
-    value = JSON.parse(text);
+    return JSON.parse(text) as unknown;
   } catch (error) {
     throw badRequest(
       `The body is not valid JSON (${error instanceof Error ? error.message : "parse error"}).`,
     );
   }
+}
+
+/** A body read by readJson, checked against its schema (422 with each field's issue). */
+export function parseBody<S extends z.ZodType>(schema: S, value: unknown): z.output<S> {
   const parsed = schema.safeParse(value);
   if (!parsed.success)
     throw validationFailed(
@@ -80,6 +81,14 @@ export async function readJsonBody<S extends z.ZodType>(
       zodFieldErrors(parsed.error),
     );
   return parsed.data;
+}
+
+export async function readJsonBody<S extends z.ZodType>(
+  req: Request,
+  schema: S,
+  maxBytes: number,
+): Promise<z.output<S>> {
+  return parseBody(schema, await readJson(req, maxBytes));
 }
 
 export function readQuery<S extends z.ZodType>(req: Request, schema: S): z.output<S> {

@@ -10,6 +10,8 @@ export {
   estimateRequestSchema,
   estimateResultSchema,
   previewResultSchema,
+  circuitOutlineSchema,
+  MAX_OUTLINE_OPS,
   shotPlanSchema,
   convergencePointSchema,
   circuitInputSchema,
@@ -21,13 +23,15 @@ export {
   type EstimateRequest,
   type EstimateResult,
   type PreviewResult,
+  type CircuitOutline,
 } from "./schemas";
 export { EngineError, isEngineError, type EngineErrorCode, type EngineIssue } from "./errors";
 
-// Circuits: parsing, statistics, OpenQASM 2.0 export of measurement / Hadamard-test circuits.
+// Circuits: parsing, statistics, outlines for diagrams, OpenQASM 2.0 export of measurement / Hadamard-test circuits.
 export {
   parseProgram,
   circuitStats,
+  circuitOutline,
   measurementCircuitQasm,
   hadamardTestQasm,
   CIRCUIT_LIMITS,

@@ -544,3 +544,46 @@ export const previewResultSchema = z
   );
 
 export type PreviewResult = z.infer<typeof previewResultSchema>;
+
+/** Operations an outline lists at most (the rest are counted in `omitted`). */
+export const MAX_OUTLINE_OPS = 400;
+
+const outlineOpSchema = z.discriminatedUnion("kind", [
+  z.object({
+    kind: z.literal("gate"),
+    name: z.string().describe('Gate name as written, e.g. "cx", "rz", a user gate'),
+    qubits: z.array(z.int()).describe("Operand qubits, in operand order"),
+    params: z.array(z.number()).describe("Bound angle parameters (radians)"),
+  }),
+  z.object({ kind: z.literal("measure"), qubit: z.int(), clbit: z.int() }),
+  z.object({ kind: z.literal("reset"), qubit: z.int() }),
+  z.object({ kind: z.literal("barrier"), qubits: z.array(z.int()) }),
+]);
+
+export const circuitOutlineSchema = z
+  .object({
+    qubits: z.int().describe("Qubits of the circuit"),
+    qubitLabels: z
+      .array(z.string())
+      .describe('Display label of each qubit, qubit 0 first (e.g. "q[0]", "anc[0]")'),
+    inputs: z
+      .array(z.object({ name: z.string(), type: z.enum(["float", "angle"]) }))
+      .describe("The circuit's OpenQASM 3 inputs, in declaration order"),
+    ops: z
+      .array(outlineOpSchema)
+      .max(MAX_OUTLINE_OPS)
+      .describe(
+        `The first top-level operations (at most ${MAX_OUTLINE_OPS}) with their parameters bound: a call of a user gate or ccx is one operation`,
+      ),
+    omitted: z.int().describe("Top-level operations beyond `ops`"),
+    placeholders: z
+      .array(z.string())
+      .describe("Inputs without a value in `parameters` (or swept), drawn with 0"),
+  })
+  .meta({
+    id: "CircuitOutline",
+    description:
+      "What a circuit diagram needs: qubits and their labels, the inputs, and the first operations with bound parameters",
+  });
+
+export type CircuitOutline = z.infer<typeof circuitOutlineSchema>;

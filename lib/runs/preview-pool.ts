@@ -1,6 +1,7 @@
 /**
  * A small pool of worker threads in the web process that run the engine's
- * preview (parse, grouping, shot plan) for POST /runs/preview and POST /runs,
+ * preview (parse, grouping, shot plan) and the circuit's outline (what the
+ * new-run page draws) for POST /runs/preview and POST /runs,
  * so no request's parsing runs on the event loop that serves everyone else.
  *
  * Each task has a time budget: past it the thread is terminated (the engine
@@ -22,8 +23,17 @@ import type { Worker } from "node:worker_threads";
 import { ProblemError } from "@/lib/api/problem";
 import { env } from "@/lib/env";
 import { EngineError } from "@/lib/quantum/errors";
-import type { PreviewResult } from "@/lib/quantum/schemas";
-import type { PreviewReply } from "./preview-protocol";
+import type { CircuitOutline, PreviewResult } from "@/lib/quantum/schemas";
+import type { PreviewReply, PreviewRequestMessage, PreviewWant } from "./preview-protocol";
+
+export type { PreviewWant } from "./preview-protocol";
+
+/** A thread's answer: what was asked (null when not asked or not computable) and the engine's error. */
+export type PreviewAnswer = {
+  preview: PreviewResult | null;
+  outline: CircuitOutline | null;
+  error: EngineError | null;
+};
 
 export type PreviewPoolOptions = { size: number; budgetMs: number; maxQueue: number };
 
@@ -165,8 +175,20 @@ export class PreviewPool {
     return fresh;
   }
 
-  /** The engine's preview of `request`, computed on a pool thread within the budget. */
+  /** The engine's preview of `request` on a pool thread within the budget; engine errors are thrown. */
   async run(request: unknown): Promise<PreviewResult> {
+    const answer = await this.check(request, "preview");
+    if (answer.error) throw answer.error;
+    if (!answer.preview) throw new Error("preview thread answered without a preview");
+    return answer.preview;
+  }
+
+  /**
+   * What `want` asks of `request` (preview, circuit outline or both, from one parse), on a
+   * pool thread within the budget. Engine errors are part of the answer, beside the outline
+   * computed before them; the budget, memory and a full pool are thrown as problems.
+   */
+  async check(request: unknown, want: PreviewWant): Promise<PreviewAnswer> {
     if (this.closed) throw new Error("the preview pool is closed");
     let slot = await this.acquire();
     try {
@@ -178,7 +200,7 @@ export class PreviewPool {
       );
     }
     const id = this.nextId++;
-    return new Promise<PreviewResult>((resolve, reject) => {
+    return new Promise<PreviewAnswer>((resolve, reject) => {
       const { worker } = slot;
       const done = (replaceThread: boolean) => {
         clearTimeout(timer);
@@ -191,10 +213,14 @@ export class PreviewPool {
       const onMessage = (m: PreviewReply) => {
         if (m.type === "ready" || m.id !== id) return;
         done(false);
-        if (m.type === "result") resolve(m.preview);
-        else if (m.type === "engine-error")
-          reject(new EngineError(m.error.code, m.error.message, m.error.issues));
-        else if (/^RangeError: Maximum call stack/.test(m.message)) {
+        if (m.type === "result") {
+          const { preview, outline, error } = m;
+          resolve({
+            preview,
+            outline,
+            error: error ? new EngineError(error.code, error.message, error.issues) : null,
+          });
+        } else if (/^RangeError: Maximum call stack/.test(m.message)) {
           reject(
             new ProblemError({
               type: "/problems/preview-too-large",
@@ -225,7 +251,7 @@ export class PreviewPool {
       worker.on("message", onMessage);
       worker.once("error", onError);
       worker.once("exit", onExit);
-      worker.postMessage({ type: "preview", id, request });
+      worker.postMessage({ type: "preview", id, request, want } satisfies PreviewRequestMessage);
     });
   }
 

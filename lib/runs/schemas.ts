@@ -11,8 +11,10 @@ import {
   estimateRequestSchema,
   estimateResultSchema,
   previewResultSchema,
+  circuitOutlineSchema,
   type EstimateRequest,
 } from "@/lib/quantum/schemas";
+import { problemWith } from "@/lib/api/problem-schema";
 import {
   cursorParamSchema,
   limitParamSchema,
@@ -186,5 +188,51 @@ export const quotaVerdictSchema = z
 export type QuotaVerdict = z.infer<typeof quotaVerdictSchema>;
 
 export const runPreviewSchema = previewResultSchema
-  .extend({ quota: quotaVerdictSchema })
-  .describe("Preview of a run (state-aware shot plan within a work budget) with the quota verdict");
+  .extend({
+    quota: quotaVerdictSchema,
+    outline: circuitOutlineSchema
+      .nullable()
+      .describe(
+        "The circuit's outline, for drawing it (null when the circuit cannot be bound with its inputs that have no value set to 0)",
+      ),
+  })
+  .describe(
+    "Preview of a run (state-aware shot plan within a work budget) with the quota verdict and the circuit's outline",
+  );
+export type RunPreview = z.infer<typeof runPreviewSchema>;
+
+/** `POST /api/v1/runs/preview?only=circuit`: check and outline the circuit alone. */
+export const previewQuerySchema = z.strictObject({
+  only: z
+    .enum(["circuit"])
+    .optional()
+    .describe(
+      'With "circuit": the body is `{ circuit, parameters? }` and the answer is the circuit\'s outline alone (for drawing a circuit before the rest of the run is written)',
+    ),
+});
+
+export const circuitPreviewRequestSchema = z
+  .strictObject({
+    circuit: estimateRequestSchema.shape.circuit,
+    parameters: estimateRequestSchema.shape.parameters,
+  })
+  .describe("A circuit to outline, with values for (some of) its inputs");
+export type CircuitPreviewRequest = z.infer<typeof circuitPreviewRequestSchema>;
+
+export const circuitPreviewSchema = z
+  .object({ outline: circuitOutlineSchema })
+  .describe("The circuit's outline (answer of ?only=circuit)");
+export type CircuitPreview = z.infer<typeof circuitPreviewSchema>;
+
+/** A failed preview: the problem, plus the outline whenever the circuit itself could be read. */
+export const previewProblemSchema = problemWith({
+  outline: circuitOutlineSchema
+    .optional()
+    .describe(
+      "The circuit's outline, when the circuit itself is fine and the problem lies elsewhere (the observable, the shots, …)",
+    ),
+}).meta({
+  id: "PreviewProblem",
+  description:
+    "RFC 9457 problem details of a preview, with the circuit's outline when it could be read",
+});

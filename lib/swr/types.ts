@@ -7,8 +7,11 @@ import type { EstimateRequest, EstimateResult, PreviewResult } from "@/lib/quant
 import type { ProblemDocument } from "@/lib/api/problem-schema";
 import type { pageSchema } from "@/lib/openapi/common-schemas";
 import type {
+  CircuitPreview,
+  CircuitPreviewRequest,
   QuotaVerdict,
   RunCreateInput,
+  RunPreview,
   RunListQuery,
   RunSummaryView,
   RunView,
@@ -67,7 +70,9 @@ export type LibraryCircuit = CircuitView;
 export type LibraryObservableSummary = z.infer<typeof observableSummarySchema>;
 export type LibraryObservable = ObservableView;
 
-/** `POST /api/v1/runs/preview`: the engine's preview plus the plan's verdict. */
-export type Preview = PreviewResult & { quota: QuotaVerdict };
+/** `POST /api/v1/runs/preview`: the engine's preview, the plan's verdict and the circuit's outline. */
+export type Preview = RunPreview;
+/** `POST /api/v1/runs/preview?only=circuit`: the body and the answer. */
+export type { CircuitPreview, CircuitPreviewRequest };
 
 export type Usage = UsageReport;

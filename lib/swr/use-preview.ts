@@ -1,30 +1,90 @@
 "use client";
+import { useState } from "react";
 import useSWR from "swr";
+import type { CircuitOutline } from "@/lib/quantum/schemas";
+import { previewProblemSchema } from "@/lib/runs/schemas";
 import { apiFetch, type ApiError } from "./api-client";
 import { useDebounced } from "./use-debounced";
 import { useWorkspaceOrg } from "./org-context";
-import type { Preview } from "./types";
+import type { CircuitPreview, CircuitPreviewRequest, Preview } from "./types";
+
+const PATH = "/api/v1/runs/preview";
+
+const post = <T>([orgId, path, body]: readonly [string, string, string]) =>
+  apiFetch<T>(orgId, path, { method: "POST", json: JSON.parse(body) });
+
+const options = {
+  keepPreviousData: true,
+  revalidateOnFocus: false,
+  shouldRetryOnError: false,
+  dedupingInterval: 30_000,
+};
+
+/** Outlines read from problems, once per error (a stable object for the same answer). */
+const problemOutlines = new WeakMap<ApiError, CircuitOutline | null>();
+
+/** The outline a preview answer carries: its own, or the one in its problem (null: none). */
+function outlineOf<T extends { outline: CircuitOutline | null }>(swr: {
+  data?: T;
+  error?: ApiError;
+}): CircuitOutline | null | undefined {
+  const { error } = swr;
+  if (error) {
+    if (!problemOutlines.has(error))
+      problemOutlines.set(error, previewProblemSchema.safeParse(error.body).data?.outline ?? null);
+    return problemOutlines.get(error) ?? null;
+  }
+  return swr.data ? swr.data.outline : undefined;
+}
 
 /**
- * Live preview of a draft request (`POST /api/v1/runs/preview`), debounced while the
- * user types. The key holds the serialised body, so identical drafts share one answer;
- * the previous answer stays visible while the next one loads. A 400 answer carries the
- * engine's field errors (with line/column for the circuit and the observable).
+ * Live preview of the new-run draft (`POST /api/v1/runs/preview`), debounced while the
+ * user types: the whole `request` when the form has no issues of its own, else only its
+ * `circuit` (`?only=circuit`) — one request per pause either way. Every answer carries the
+ * circuit's outline (a failed full preview in its problem, when the circuit itself is
+ * fine), so the diagram and the input fields follow the circuit while the observable or
+ * the settings are still being written; a failed parse keeps the last good outline,
+ * marked `outlineStale`. `data` / `error` are the full preview's: the previous answer
+ * stays visible while the next one loads, and a 400 carries the engine's field errors
+ * (with line/column for the circuit and the observable).
  */
-export function usePreview(request: object | null, delay = 450) {
+export function usePreview(
+  request: object | null,
+  circuit: CircuitPreviewRequest | null,
+  delay = 450,
+) {
   const { orgId } = useWorkspaceOrg();
-  const body = useDebounced(request ? JSON.stringify(request) : null, delay);
-  const swr = useSWR<Preview, ApiError>(
-    body ? ([orgId, "/api/v1/runs/preview", body] as const) : null,
-    ([o, path, b]: readonly [string, string, string]) =>
-      apiFetch<Preview>(o, path, { method: "POST", json: JSON.parse(b) }),
-    {
-      keepPreviousData: true,
-      revalidateOnFocus: false,
-      shouldRetryOnError: false,
-      dedupingInterval: 30_000,
-    },
+  const wanted = request
+    ? `full\n${JSON.stringify(request)}`
+    : circuit
+      ? `circuit\n${JSON.stringify(circuit)}`
+      : null;
+  const settled = useDebounced(wanted, delay);
+  const [mode, body] = settled ? [settled.slice(0, settled.indexOf("\n")), settled] : [null, ""];
+  const json = body.slice(body.indexOf("\n") + 1);
+  const full = useSWR<Preview, ApiError, readonly [string, string, string] | null>(
+    mode === "full" ? [orgId, PATH, json] : null,
+    post<Preview>,
+    options,
   );
-  const pending = (request ? JSON.stringify(request) : null) !== body || swr.isValidating;
-  return { ...swr, pending };
+  const outlineOnly = useSWR<CircuitPreview, ApiError, readonly [string, string, string] | null>(
+    mode === "circuit" ? [orgId, `${PATH}?only=circuit`, json] : null,
+    post<CircuitPreview>,
+    options,
+  );
+
+  const answer =
+    mode === "full" ? outlineOf(full) : mode === "circuit" ? outlineOf(outlineOnly) : undefined;
+  const [kept, setKept] = useState<CircuitOutline | null>(null);
+  if (answer && answer !== kept) setKept(answer);
+
+  return {
+    data: full.data,
+    error: full.error,
+    pending: wanted !== settled || full.isValidating || outlineOnly.isValidating,
+    /** The circuit's latest outline (null without a circuit). */
+    outline: circuit ? (answer ?? kept) : null,
+    /** The latest answer could not outline the circuit: `outline` is the last good one. */
+    outlineStale: answer === null,
+  };
 }

@@ -237,6 +237,30 @@ describe("run workspace", () => {
     await screenshot(page, "workspace-noise-profile");
   });
 
+  it("draws the circuit while it is typed, before the observable or the shots are written", async () => {
+    await page.goto(`${E2E_URL}/app/runs/new`);
+    await page.getByRole("button", { name: "Start over" }).click(); // the starter: h, cx, ry on 2 qubits
+    const diagram = (ops: number) =>
+      page.getByRole("img", { name: new RegExp(`^Circuit diagram: 2 qubits, ${ops} operations`) });
+    await diagram(3).waitFor();
+    // No observable yet: the preview's problem carries the outline.
+    await page.getByRole("textbox", { name: "Observable, Pauli sum" }).click();
+    await page.keyboard.press("Control+A");
+    await page.keyboard.press("Backspace");
+    const circuit = page.getByRole("textbox", { name: "Circuit source, OpenQASM 2.0" });
+    await circuit.click();
+    await page.keyboard.press("Control+End");
+    await page.keyboard.type("x q[1];");
+    await diagram(4).waitFor();
+    // A form issue of its own (no shots): the circuit alone is outlined.
+    await page.getByLabel("Total shots").fill("");
+    await circuit.click();
+    await page.keyboard.press("Control+End");
+    await page.keyboard.type("\nh q[0];");
+    await diagram(5).waitFor();
+    await screenshot(page, "workspace-new-run-outline-while-typing");
+  });
+
   it("compares the two runs from the runs list", async () => {
     await page.goto(`${E2E_URL}/app/runs`);
     await page.getByRole("table", { name: "Runs" }).waitFor();

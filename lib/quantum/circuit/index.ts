@@ -6,5 +6,6 @@
  */
 export { parseProgram, type ParsedProgram, type ProgramInput, type QasmFormat } from "./program";
 export { circuitStats, type CircuitStats } from "./stats";
+export { circuitOutline } from "./outline";
 export { measurementCircuitQasm, measurementCircuitsQasm, hadamardTestQasm } from "./qasm-export";
 export { LIMITS as CIRCUIT_LIMITS } from "./program-ir";

@@ -9,7 +9,7 @@
  * within MAX_SHOTS is refused ("infeasible"). The same errors as `estimate` are thrown
  * for the same bad input. Callers run it off the request thread (it may simulate).
  */
-import { circuitStats, parseProgram } from "../circuit";
+import { circuitStats, parseProgram, type ParsedProgram } from "../circuit";
 import { validateNoiseModel } from "../noise/validate";
 import { pauliDecomposition } from "../observable/pauli-decomposition";
 import { allocateShots } from "../planning/shot-plan";
@@ -27,9 +27,13 @@ import { validateRequest } from "./validate-request";
 import { formatCount, formatExponential } from "../../format/numbers";
 import { plural } from "../../format/plural";
 
-export function previewRequest(request: unknown, options: PreviewOptions = {}): PreviewResult {
+/** `program`: the request's circuit already parsed by the caller (it is then not parsed again). */
+export function previewRequest(
+  request: unknown,
+  options: PreviewOptions & { program?: ParsedProgram } = {},
+): PreviewResult {
   const req = validateRequest(request);
-  const program = parseProgram(req.raw.circuit.format, req.raw.circuit.source);
+  const program = options.program ?? parseProgram(req.raw.circuit.format, req.raw.circuit.source);
   const n = program.numQubits;
   validateNoiseModel(req.noise, n); // per-qubit readout keys must name qubits of this circuit
   checkQubitLimit(n, req.method);

@@ -95,6 +95,18 @@ async function exercise(): Promise<void> {
     body: { ...bellRequest(), shots: undefined, targetPrecision: 0.05 },
   });
   await api("POST", "/api/v1/runs/preview", { key, body: { ...bellRequest(), shots: "many" } }); // 422
+  await api("POST", "/api/v1/runs/preview", {
+    key,
+    body: bellRequest({ observable: { format: "pauli", terms: "Z0 Q1" } }),
+  }); // 400 with the outline
+  await api("POST", "/api/v1/runs/preview?only=circuit", {
+    key,
+    body: { circuit: { format: "qasm2", source: BELL_QASM } },
+  }); // the outline alone
+  await api("POST", "/api/v1/runs/preview?only=circuit", {
+    key,
+    body: { circuit: { format: "qasm2", source: "OPENQASM 2.0;\nqreg q[1];\nfoo q[0];\n" } },
+  }); // 400
 
   // A succeeded, a failed (engine) and a canceled run, executed in-process.
   await executeRun({ orgId: org.orgId, runId: created.body.id }, inProcessEngine, () => {});

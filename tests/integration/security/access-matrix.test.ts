@@ -39,7 +39,6 @@ const HTTP_METHODS = ["GET", "POST", "PUT", "PATCH", "DELETE", "HEAD", "OPTIONS"
 const NOT_MEMBER =
   /No such organisation, or you are not a member of it|don't belong to any organisation/;
 const NEEDS_ROLE = /role or higher/;
-const SIGNED_OUT = /Sign in|session has expired/i;
 
 function walk(dir: string, keep: (file: string) => boolean): string[] {
   return readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
@@ -315,17 +314,11 @@ function verdictOf(result: unknown, thrown: unknown): Verdict {
       return 404;
     return 500;
   }
-  const r = result as
-    { status?: string; code?: number; message?: string; ok?: boolean } | undefined;
+  // Every action answers ActionState (lib/api/action-state.ts), FormData and JSON ones alike.
+  const r = result as { status?: string; code?: number; message?: string } | undefined;
   if (r?.status === "error") {
     if (r.code === 401 || r.code === 403 || r.code === 500) return r.code;
     return NOT_MEMBER.test(r.message ?? "") ? 404 : "body";
-  }
-  if (r?.ok === false) {
-    if (NEEDS_ROLE.test(r.message ?? "")) return 403;
-    if (NOT_MEMBER.test(r.message ?? "") || /^No such/.test(r.message ?? "")) return 404;
-    if (SIGNED_OUT.test(r.message ?? "")) return 401;
-    return "body";
   }
   return 200;
 }

@@ -202,6 +202,11 @@ const viaForm =
   (fields: Record<string, string>) => (action: unknown, _fx: Fixtures, orgId: string) =>
     (action as FormActionFn)({ status: "idle" }, form({ orgId, ...fields }));
 
+/** A JSON action (client code calls it with an object), with the organisation id in the input. */
+const viaJson =
+  (fields: Record<string, unknown>) => (action: unknown, _fx: Fixtures, orgId: string) =>
+    (action as Fn)({ orgId, ...fields });
+
 const ADMIN_ONLY: Access = { min: "admin" };
 
 export const ACTION_TABLE: ActionRow[] = [
@@ -360,30 +365,30 @@ export const ACTION_TABLE: ActionRow[] = [
     access: ADMIN_ONLY,
     call: viaForm({ endpointId: unknownId }),
   },
-  // Composer and run page: the organisation is the current one (cookie) or the resource's.
-  {
-    file: "app/(app)/app/runs/new/actions.ts",
-    name: "circuitOutlineAction",
-    access: { min: "viewer" },
-    call: (a) => (a as Fn)(BELL),
-  },
+  // New-run page: JSON actions, called with the organisation id like the page does (its own; the
+  // other organisation's for the cross-organisation check).
   {
     file: "app/(app)/app/runs/new/noise-actions.ts",
     name: "listNoiseProfilesAction",
     access: { min: "viewer" },
-    call: (a) => (a as Fn)(),
+    call: viaJson({}),
   },
   {
     file: "app/(app)/app/runs/new/noise-actions.ts",
     name: "saveNoiseProfileAction",
     access: { min: "member" },
-    call: (a) => (a as Fn)({ name: `matrix ${Math.random().toString(36).slice(2, 8)}`, noise: {} }),
+    call: (a, fx, orgId) =>
+      viaJson({ name: `matrix ${Math.random().toString(36).slice(2, 8)}`, noise: {} })(
+        a,
+        fx,
+        orgId,
+      ),
   },
   {
     file: "app/(app)/app/runs/new/noise-actions.ts",
     name: "deleteNoiseProfileAction",
     access: { min: "member" },
     call: async (a, fx, orgId) =>
-      (a as Fn)(orgId === fx.orgA ? await fx.fresh("profile") : fx.profileB),
+      viaJson({ id: orgId === fx.orgA ? await fx.fresh("profile") : fx.profileB })(a, fx, orgId),
   },
 ];

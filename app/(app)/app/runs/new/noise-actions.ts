@@ -1,56 +1,44 @@
 "use server";
 /**
  * Noise profiles of the current organisation for the new-run page: list (any role), save
- * and delete (members and above). Inputs are checked with the engine's noise schema.
+ * and delete (members and above). JSON actions through the one action wrapper; inputs
+ * are checked with the noise-profile schemas (the engine's noise schema inside).
  */
-import { requireCurrentOrg } from "@/lib/auth/guards";
-import { isProblemError } from "@/lib/api/problem";
+import { z } from "zod";
+import { orgAction } from "@/lib/api/action";
+import { notFound } from "@/lib/api/problem";
 import { deleteNoiseProfile, saveNoiseProfile } from "@/lib/noise-profiles/mutations";
 import { listNoiseProfiles } from "@/lib/noise-profiles/queries";
-import { noiseProfileInputSchema, type NoiseProfileView } from "@/lib/noise-profiles/schemas";
+import {
+  noiseProfileIdSchema,
+  noiseProfileInputSchema,
+  type NoiseProfileView,
+} from "@/lib/noise-profiles/schemas";
 
-export type NoiseActionAnswer = { ok: true; message: string } | { ok: false; message: string };
+export const listNoiseProfilesAction = orgAction<z.ZodObject, NoiseProfileView[]>(
+  z.strictObject({}),
+  { role: "viewer", input: "json" },
+  async (_input, access) => ({ status: "success", data: await listNoiseProfiles(access.org.id) }),
+);
 
-function failure(error: unknown, what: string): NoiseActionAnswer {
-  if (isProblemError(error)) return { ok: false, message: error.problem.detail };
-  console.error(`[ketwise] noise profile ${what} failed`, error);
-  return { ok: false, message: `The profile could not be ${what}.` };
-}
-
-export async function listNoiseProfilesAction(): Promise<NoiseProfileView[]> {
-  const access = await requireCurrentOrg("viewer");
-  return listNoiseProfiles(access.org.id);
-}
-
-export async function saveNoiseProfileAction(input: unknown): Promise<NoiseActionAnswer> {
-  const parsed = noiseProfileInputSchema.safeParse(input);
-  if (!parsed.success)
+export const saveNoiseProfileAction = orgAction(
+  noiseProfileInputSchema,
+  { role: "member", input: "json" },
+  async (input, access) => {
+    const { created } = await saveNoiseProfile(access.org.id, access.userId, input);
     return {
-      ok: false,
-      message: parsed.error.issues
-        .map((i) => `${i.path.join(".") || "profile"}: ${i.message}`)
-        .join("; "),
+      status: "success",
+      message: created ? `Saved “${input.name}”.` : `Updated “${input.name}”.`,
     };
-  try {
-    const access = await requireCurrentOrg("member");
-    const { created } = await saveNoiseProfile(access.org.id, access.userId, parsed.data);
-    return {
-      ok: true,
-      message: created ? `Saved “${parsed.data.name}”.` : `Updated “${parsed.data.name}”.`,
-    };
-  } catch (error) {
-    return failure(error, "saved");
-  }
-}
+  },
+);
 
-export async function deleteNoiseProfileAction(id: string): Promise<NoiseActionAnswer> {
-  try {
-    const access = await requireCurrentOrg("member");
-    const gone = await deleteNoiseProfile(access.org.id, String(id));
-    return gone
-      ? { ok: true, message: "Deleted." }
-      : { ok: false, message: "No such profile in this organisation." };
-  } catch (error) {
-    return failure(error, "deleted");
-  }
-}
+export const deleteNoiseProfileAction = orgAction(
+  noiseProfileIdSchema,
+  { role: "member", input: "json" },
+  async ({ id }, access) => {
+    if (!(await deleteNoiseProfile(access.org.id, id)))
+      throw notFound("No such profile in this organisation.");
+    return { status: "success", message: "Deleted." };
+  },
+);
