@@ -20,7 +20,8 @@ import { canWrite, submitterName, useWorkspaceOrg } from "@/lib/swr/org-context"
 import { useCircuits, useLibraryItem, useObservables } from "@/lib/swr/use-library";
 import type { LibraryCircuitSummary, LibraryObservableSummary } from "@/lib/swr/types";
 import { LibraryItemForm, type LibraryKind } from "./library-item-form";
-import { formatRelative, plural } from "@/lib/format";
+import { plural } from "@/lib/format";
+import { RelativeTime } from "@/components/ui/relative-time";
 
 type Summary = LibraryCircuitSummary | LibraryObservableSummary;
 
@@ -101,7 +102,7 @@ function ItemRow({
             <span>
               by{" "}
               {submitterName(members, item.createdBy ? { type: "user", id: item.createdBy } : null)}{" "}
-              · {formatRelative(item.createdAt)}
+              · <RelativeTime date={item.createdAt} />
             </span>
           </p>
         </div>

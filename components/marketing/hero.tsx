@@ -5,7 +5,7 @@ import { Value } from "@/components/ui/value";
 import figures from "@/lib/examples/example-figures.json";
 import { Z95 } from "@/lib/quantum/sampling/normal";
 import { AgreementFigure, agreementAxis } from "./agreement-figure";
-import { formatCount, formatFixed } from "@/lib/format";
+import { formatCount, formatFixed, formatPercent } from "@/lib/format";
 
 /* The invented three-spin cluster (lib/examples): every figure below is the engine's. */
 const example = {
@@ -128,7 +128,7 @@ export function Hero() {
             <Row
               swatch={<span className="size-2.5 rotate-45 bg-noisy" />}
               label="Under the noise model"
-              detail={`${figures.noise.depolarizing2q * 100} % depolarizing per two-qubit gate`}
+              detail={`${formatPercent(figures.noise.depolarizing2q, 2, { trim: true })} depolarizing per two-qubit gate`}
             >
               <Value
                 value={example.noisy.mean}

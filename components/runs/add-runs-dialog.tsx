@@ -6,7 +6,7 @@ import { Dialog } from "@/components/ui/dialog";
 import { Skeleton } from "@/components/ui/skeleton";
 import { MAX_COMPARE } from "@/lib/runs/constants";
 import { useRuns } from "@/lib/swr/use-runs";
-import { formatRelative } from "@/lib/format";
+import { RelativeTime } from "@/components/ui/relative-time";
 
 export function AddRunsDialog({
   open,
@@ -60,7 +60,7 @@ export function AddRunsDialog({
                     }
                   />
                   <span className="min-w-0 flex-1 truncate text-sm text-ink">{r.name}</span>
-                  <span className="figures text-xs text-ink-3">{formatRelative(r.queuedAt)}</span>
+                  <RelativeTime date={r.queuedAt} className="figures text-xs text-ink-3" />
                 </label>
               </li>
             );

@@ -22,7 +22,8 @@ import { MAX_COMPARE, RUN_METHOD_LABELS } from "@/lib/runs/constants";
 import { shotsText } from "./run-meta";
 import { EMPTY_FILTERS, RunsFilters, type RunFilters } from "./runs-filters";
 import { RunValueCell } from "./run-value-cell";
-import { formatPercent, formatRelative, plural } from "@/lib/format";
+import { formatPercent, plural } from "@/lib/format";
+import { RelativeTime } from "@/components/ui/relative-time";
 
 const PAGE_SIZE = 20;
 
@@ -269,8 +270,8 @@ export function RunsList() {
                   <RunValueCell run={r} />
                 </TD>
                 <TD className="text-[12.5px] text-ink-2">{submitterName(members, r.createdBy)}</TD>
-                <TD className="text-[12.5px] whitespace-nowrap text-ink-2" title={r.queuedAt}>
-                  {formatRelative(r.queuedAt)}
+                <TD className="text-[12.5px] whitespace-nowrap text-ink-2">
+                  <RelativeTime date={r.queuedAt} />
                 </TD>
               </TR>
             ))}

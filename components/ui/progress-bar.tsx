@@ -1,4 +1,5 @@
 import { cn } from "./cn";
+import { formatPercent } from "@/lib/format";
 
 /**
  * Progress of a task. `value` in [0, 1]; omit it (or pass null) for an indeterminate bar.
@@ -25,7 +26,9 @@ export function ProgressBar({
       {showValue ? (
         <div className="flex items-baseline justify-between text-[13px]">
           <span className="text-ink-2">{label}</span>
-          <span className="figures text-xs text-ink-2">{pct === null ? "…" : `${pct}%`}</span>
+          <span className="figures text-xs text-ink-2">
+            {pct === null ? "…" : formatPercent(pct / 100)}
+          </span>
         </div>
       ) : null}
       <div

@@ -163,8 +163,16 @@ export function formatExponential(value: number, decimals = 1): string {
 
 /**
  * A fraction as a percentage with a space before the sign, as everywhere in the product:
- * formatPercent(0.125, 1) → "12.5 %", formatPercent(0.4567) → "46 %".
+ * formatPercent(0.125, 1) → "12.5 %", formatPercent(0.4567) → "46 %". `trim` drops trailing
+ * zeros (formatPercent(0.01, 2, { trim: true }) → "1 %", 0.005 → "0.5 %").
  */
-export function formatPercent(ratio: number, decimals = 0): string {
-  return `${formatFixed(ratio * 100, decimals)} %`;
+export function formatPercent(
+  ratio: number,
+  decimals = 0,
+  options: { trim?: boolean } = {},
+): string {
+  const text = options.trim
+    ? formatNumber(ratio * 100, decimals)
+    : formatFixed(ratio * 100, decimals);
+  return `${text} %`;
 }

@@ -7,13 +7,14 @@
  */
 import type { z } from "zod";
 import { badRequest, ProblemError, validationFailed, zodFieldErrors } from "@/lib/api/problem";
+import { formatBytes } from "@/lib/format";
 
 const tooLarge = (max: number) =>
   new ProblemError({
     type: "/problems/body-too-large",
     title: "Request body too large",
     status: 413,
-    detail: `The request body is larger than ${max >= 1024 * 1024 ? `${Math.round(max / 1024 / 1024)} MiB` : `${Math.round(max / 1024)} KiB`}.`,
+    detail: `The request body is larger than ${formatBytes(max, { binary: true })}.`,
   });
 
 /**

@@ -8,7 +8,7 @@ import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { EmptyState } from "@/components/ui/empty-state";
 import { Skeleton } from "@/components/ui/skeleton";
 import { RunValueCell } from "@/components/runs/run-value-cell";
-import { formatRelative } from "@/lib/format";
+import { RelativeTime } from "@/components/ui/relative-time";
 import { submitterName, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { useRuns } from "@/lib/swr/use-runs";
 
@@ -63,7 +63,7 @@ export function RecentRuns() {
                     {r.name}
                   </Link>
                   <span className="text-xs text-ink-3">
-                    {submitterName(members, r.createdBy)} · {formatRelative(r.queuedAt)}
+                    {submitterName(members, r.createdBy)} · <RelativeTime date={r.queuedAt} />
                   </span>
                 </div>
                 <RunValueCell run={r} />

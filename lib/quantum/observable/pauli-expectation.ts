@@ -36,7 +36,7 @@ export function pauliExpectationsOnState(
   const n = state.n;
   const signs = new SignTables(Math.min(n, lowBits));
   // amplitudes in a kernel memory: the SIMD pass (WebAssembly), else the JavaScript one
-  const w = n >= 2 ? wasmBinding(state.re, state.im) : undefined;
+  const w = n >= 3 ? wasmBinding(state.re, state.im) : undefined;
   for (const [x, terms] of groupByMask(sum)) {
     if (terms.length > transformThreshold(n)) maskByTransform(state.re, state.im, x, terms, out);
     else if (w) wasmMaskPass(w, state.re, state.im, x, terms, out);

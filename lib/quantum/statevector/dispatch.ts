@@ -27,7 +27,7 @@ import {
   ZERO_TOL,
   type MatrixShape,
 } from "./matrix-classify";
-import { wasm1q, wasm2q } from "../wasm/kernels";
+import { wasm1q, wasm2q, wasmTwoBlock } from "../wasm/kernels";
 import { wasmBinding } from "../wasm/runtime";
 
 /** True when every imaginary part of the interleaved matrix is exactly zero. */
@@ -89,7 +89,14 @@ export function applyWithShape(
   const offsets = localOffsets(bits);
   const mask = offsets[d - 1];
   const count = re.length >>> k;
+  // In a kernel memory the SIMD dense 1-qubit kernel beats the scalar diagonal one on a
+  // full 1-qubit diagonal (rz): npm run bench, ansatz row.
+  const simd1q = k === 1 && active.length === 2 && wasmBinding(re, im) !== undefined;
   if (shape.diagonal) {
+    if (simd1q) {
+      applyDense(re, im, bits, m);
+      return;
+    }
     if (k === 1 && active[active.length - 1] === 1) {
       applyDiagonal1q(re, im, bits[0], m[0], m[1], m[6], m[7], active.length === 1);
       return;
@@ -127,13 +134,19 @@ export function applyWithShape(
     return;
   }
   if (active.length === d) {
+    const w = k === 2 ? wasmBinding(re, im) : undefined;
     if (shape.blockOperand >= 0) {
       const [A, B] = twoBlocks(m, shape.blockOperand);
-      applyTwoBlock(re, im, bits[shape.blockOperand], bits[1 - shape.blockOperand], A, B);
+      const ctrl = bits[shape.blockOperand];
+      const tgt = bits[1 - shape.blockOperand];
+      if (w) wasmTwoBlock(w, re, im, ctrl, tgt, A, B);
+      else applyTwoBlock(re, im, ctrl, tgt, A, B);
       return;
     }
     if (k === 2 && shape.real) {
-      applyReal2q(re, im, bits[0], bits[1], m);
+      // the dense wasm kernel gives the real kernel's results (zero imaginary parts add ±0)
+      if (w) wasm2q(w, re, im, bits[0], bits[1], m);
+      else applyReal2q(re, im, bits[0], bits[1], m);
       return;
     }
     applyDense(re, im, bits, m);

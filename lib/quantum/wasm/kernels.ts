@@ -31,3 +31,18 @@ export function wasm2q(
   w.scratch.set(m.subarray(0, 32));
   w.k.general2q(re.byteOffset, im.byteOffset, re.length, first, second, w.scratchAt);
 }
+
+/** Two-block 2-qubit gate |0⟩⟨0|_ctrl ⊗ A + |1⟩⟨1|_ctrl ⊗ B on index bits ctrl, tgt. */
+export function wasmTwoBlock(
+  w: WasmBinding,
+  re: Float64Array,
+  im: Float64Array,
+  ctrl: number,
+  tgt: number,
+  A: Float64Array,
+  B: Float64Array,
+): void {
+  w.scratch.set(A.subarray(0, 8));
+  w.scratch.set(B.subarray(0, 8), 8);
+  w.k.twoBlock(re.byteOffset, im.byteOffset, re.length, ctrl, tgt, w.scratchAt);
+}

@@ -1,21 +1,31 @@
 /**
  * The Pauli flip-mask pass (observable/pauli-mask-pass.ts) on amplitudes bound to a kernel
- * memory: one SIMD pass over the state per mask x and batch of up to PAULI_BATCH terms,
- * signs from i32.popcnt parities. Terms are written into the memory's Pauli table
- * (runtime.ts) and the per-term sums read back.
+ * memory: SIMD passes with signs from i32.popcnt parities, one pass per mask for a single
+ * term and one per four terms sharing a mask (pauliTerms4 computes f = conj(ψ_c) ψ_b once
+ * for all four). Terms go through the memory's Pauli table (runtime.ts).
  */
 import type { MaskTerm } from "../observable/pauli-mask-pass";
-import {
-  PAULI_ACC_AT,
-  PAULI_BATCH,
-  PAULI_OUT_AT,
-  PAULI_TERMS_AT,
-  type WasmBinding,
-} from "./runtime";
+import { PAULI_OUT_AT, PAULI_SIGNS_AT, PAULI_TABLE_AT, type WasmBinding } from "./runtime";
 
-const SIGN = -2147483648; // the high word of an f64 with only the sign bit set
+interface PauliViews {
+  table: Int32Array;
+  sums: Float64Array;
+}
+const views = new WeakMap<WasmBinding, PauliViews>();
 
-/** Writes ⟨P_t⟩ into out[t.index] for every term t with flip mask x (state of ≥ 4 amplitudes). */
+function viewsOf(w: WasmBinding): PauliViews {
+  let v = views.get(w);
+  if (!v) {
+    v = {
+      table: new Int32Array(w.buffer, PAULI_TABLE_AT, 8),
+      sums: new Float64Array(w.buffer, PAULI_OUT_AT, 4),
+    };
+    views.set(w, v);
+  }
+  return v;
+}
+
+/** Writes ⟨P_t⟩ into out[t.index] for every term t with flip mask x (state of ≥ 8 amplitudes). */
 export function wasmMaskPass(
   w: WasmBinding,
   re: Float64Array,
@@ -26,42 +36,36 @@ export function wasmMaskPass(
 ): void {
   const len = re.length;
   const h = x === 0 ? -1 : 31 - Math.clz32(x);
-  // h ≥ 2: visit the half with bit h clear (each pair once, doubled at the end); else all of b
-  const half = h >= 2;
+  // h ≥ 3: visit the half with bit h clear (each pair once, doubled below); else every b
+  const half = h >= 3;
   const run = half ? 2 ** h : len;
   const stride = half ? 2 ** (h + 1) : len;
-  const factor = half ? 2 : 1;
-  const table = new Int32Array(w.buffer, PAULI_TERMS_AT, 12 * PAULI_BATCH);
-  const sums = new Float64Array(w.buffer, PAULI_OUT_AT, PAULI_BATCH);
-  for (let from = 0; from < terms.length; from += PAULI_BATCH) {
-    const g = Math.min(PAULI_BATCH, terms.length - from);
-    table.fill(0, 0, 12 * g);
-    for (let t = 0; t < g; t++) {
-      const { z, k } = terms[from + t];
-      const o = 12 * t;
-      table[o] = z;
-      table[o + 1] = k & 1;
-      // lane j's sign (−1)^{|j & z|} for j = 1, 2, 3 (lane 0: +1)
-      if (z & 1) table[o + 7] = SIGN;
-      if (z & 2) table[o + 9] = SIGN;
-      if (((z & 1) ^ ((z >> 1) & 1)) === 1) table[o + 11] = SIGN;
+  const put = (t: MaskTerm, sum: number): void => {
+    const sign = x === 0 || t.k === 0 || t.k === 3 ? 1 : -1;
+    out[t.index] = (half ? 2 : 1) * sign * sum;
+  };
+  const a = re.byteOffset;
+  const b = im.byteOffset;
+  const { table, sums } = viewsOf(w);
+  let i = 0;
+  while (terms.length - i >= 2) {
+    const g = Math.min(4, terms.length - i);
+    for (let t = 0; t < 4; t++) {
+      const term = terms[i + Math.min(t, g - 1)]; // 2 or 3 terms: the last one repeated
+      table[2 * t] = term.z;
+      table[2 * t + 1] = term.k & 1;
     }
-    w.k.pauliMask(
-      re.byteOffset,
-      im.byteOffset,
-      x,
-      run,
-      stride,
-      len,
-      g,
-      PAULI_TERMS_AT,
-      PAULI_ACC_AT,
-      PAULI_OUT_AT,
+    w.k.pauliTerms4(a, b, x, run, stride, len, PAULI_TABLE_AT, PAULI_OUT_AT);
+    for (let t = 0; t < g; t++) put(terms[i + t], sums[t]);
+    i += g;
+  }
+  if (i < terms.length) {
+    const t = terms[i];
+    put(
+      t,
+      x === 0
+        ? w.k.pauliDiagonal(a, b, len, t.z)
+        : w.k.pauliTerm(a, b, x, run, stride, len, t.z, t.k & 1, PAULI_SIGNS_AT),
     );
-    for (let t = 0; t < g; t++) {
-      const { index, k } = terms[from + t];
-      const sign = x === 0 || k === 0 || k === 3 ? 1 : -1;
-      out[index] = factor * sign * sums[t];
-    }
   }
 }

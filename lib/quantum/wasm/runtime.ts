@@ -8,7 +8,7 @@
  *
  * Memory head (RESERVED_BYTES): 16 scratch slots of SLOT_BYTES (gate matrices and the 2-qubit
  * kernel's coefficient table; slot i belongs to engine thread i of the state), then the Pauli
- * term tables of the owning thread.
+ * term table of the owning thread.
  */
 import { KERNELS_WASM_BASE64 } from "./kernels-binary";
 
@@ -16,16 +16,27 @@ export interface KernelExports {
   general1q(re: number, im: number, len: number, q: number, m: number): void;
   real1q(re: number, im: number, len: number, q: number, m: number): void;
   general2q(re: number, im: number, len: number, first: number, second: number, m: number): void;
-  pauliMask(
+  twoBlock(re: number, im: number, len: number, ctrl: number, tgt: number, m: number): void;
+  pauliDiagonal(re: number, im: number, len: number, z: number): number;
+  pauliTerm(
     re: number,
     im: number,
     x: number,
     run: number,
     stride: number,
     len: number,
-    g: number,
-    terms: number,
-    acc: number,
+    z: number,
+    odd: number,
+    tbl: number,
+  ): number;
+  pauliTerms4(
+    re: number,
+    im: number,
+    x: number,
+    run: number,
+    stride: number,
+    len: number,
+    table: number,
     out: number,
   ): void;
 }
@@ -33,11 +44,11 @@ export interface KernelExports {
 const PAGE = 65536;
 export const SLOT_BYTES = 2048;
 export const MAX_SLOTS = 16;
-/** Pauli term tables (48 B per term), accumulators (32 B) and results (8 B): one page. */
-export const PAULI_TERMS_AT = SLOT_BYTES * MAX_SLOTS;
-export const PAULI_BATCH = 512;
-export const PAULI_ACC_AT = PAULI_TERMS_AT + 48 * PAULI_BATCH;
-export const PAULI_OUT_AT = PAULI_ACC_AT + 32 * PAULI_BATCH;
+/** Pauli tables of the owning thread: four (z, odd) pairs and their lane patterns, then four sums. */
+export const PAULI_TABLE_AT = SLOT_BYTES * MAX_SLOTS;
+export const PAULI_OUT_AT = PAULI_TABLE_AT + 512;
+/** Room for a single term's sign table (8 KiB). */
+export const PAULI_SIGNS_AT = PAULI_TABLE_AT + 1024;
 export const RESERVED_BYTES = 2 * PAGE;
 /** Largest state a kernel memory holds (wasm32 addresses: 16·2^n + head ≤ 4 GiB). */
 export const WASM_MAX_QUBITS = 27;

@@ -1,7 +1,9 @@
 /**
  * Kernel bandwidth rows: one dense 1-qubit and one dense 2-qubit gate applied to a 22-qubit
  * state on low / middle / high qubits. Each pass reads and writes the whole state
- * (2 × 64 MiB), so the ratio to the copy baseline is t_copy / t_kernel.
+ * (2 × 64 MiB), so the ratio to the copy baseline is t_copy / t_kernel. The state comes from
+ * createZeroState, so the rows measure the default path (WebAssembly SIMD kernels unless
+ * KETWISE_ENGINE_WASM=0); two rows repeat the middle positions on plain arrays (JavaScript).
  */
 import { applyToAmplitudes } from "@/lib/quantum/statevector/dispatch";
 import { createZeroState } from "@/lib/quantum/statevector/state";
@@ -120,6 +122,25 @@ export const kernelRows: BenchRow = (ctx) => {
         measured,
         "≥ 0.5",
         (r) => r >= 0.5,
+        true,
+      ),
+    );
+  }
+  // the JavaScript kernels (the reference path, KETWISE_ENGINE_WASM=0) on plain arrays
+  const js = { re: state.re.slice(), im: state.im.slice() };
+  for (const [label, qs, m] of [
+    ["1q dense kernel", [11], u1],
+    ["2q dense kernel", [11, 10], u2],
+  ] as const) {
+    const p = paired(() => applyToAmplitudes(js.re, js.im, [...qs], m), copy, { reps: 7 });
+    const measured = `${fmtClocks(p.row)} (${gbPerS(bytes, p.row.cpu.median)})`;
+    out.push(
+      ratioResult(
+        p,
+        `${label} n=${N}, JavaScript path, qubit(s) ${qs.join(",")}`,
+        measured,
+        "",
+        undefined,
         true,
       ),
     );

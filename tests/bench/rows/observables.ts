@@ -15,6 +15,7 @@ import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
 import { padPauliSum } from "@/lib/quantum/observable/pauli-word";
 import { drawSetting } from "@/lib/quantum/sampling/draw-setting";
 import { createRng } from "@/lib/quantum/sampling/rng";
+import { allocateAmplitudes } from "@/lib/quantum/statevector/state";
 import { pauliSettingModel } from "@/lib/quantum/sampling/setting-model";
 import type { StateVector } from "@/lib/quantum/types";
 import {
@@ -33,11 +34,11 @@ import {
   stats,
 } from "../bench-kit";
 
+/** A random state, allocated as the engine allocates states (a kernel memory unless KETWISE_ENGINE_WASM=0). */
 function randomState(n: number, seed: number): StateVector {
   const rng = createRng(seed);
   const d = 2 ** n;
-  const re = new Float64Array(d);
-  const im = new Float64Array(d);
+  const { re, im } = allocateAmplitudes(n);
   let s = 0;
   for (let i = 0; i < d; i++) {
     re[i] = (rng.next() >>> 0) / 2 ** 32 - 0.5;

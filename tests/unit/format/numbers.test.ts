@@ -106,5 +106,8 @@ describe("significant digits, powers of ten, percentages", () => {
     expect(formatPercent(0.4567)).toBe("46 %");
     expect(formatPercent(1)).toBe("100 %");
     expect(formatPercent(-0.001)).toBe("0 %");
+    // 0.07 × 100 = 7.000000000000001 in binary floating point
+    expect(formatPercent(0.07, 2, { trim: true })).toBe("7 %");
+    expect(formatPercent(0.005, 2, { trim: true })).toBe("0.5 %");
   });
 });

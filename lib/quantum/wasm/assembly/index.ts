@@ -1,4 +1,5 @@
 // AssemblyScript entry of the engine's WebAssembly kernels (`npm run build:wasm`).
 export { general1q, real1q } from "./kernels-1q";
 export { general2q } from "./kernels-2q";
-export { pauliMask } from "./pauli-mask";
+export { twoBlock } from "./kernels-two-block";
+export { pauliDiagonal, pauliTerm, pauliTerms4 } from "./pauli-mask";

@@ -59,6 +59,28 @@ describe("WebAssembly kernels", () => {
     });
   }
 
+  it("two-block gates (|0⟩⟨0| ⊗ A + |1⟩⟨1| ⊗ B), every ordered pair, n = 8", () => {
+    const n = 8;
+    const rng = makeRng(47);
+    const w = randomKernelState(n, 9);
+    const js = { re: w.re.slice(), im: w.im.slice() };
+    for (let a = 0; a < n; a++) {
+      for (let b = 0; b < n; b++) {
+        if (a === b) continue;
+        const A = randomMatrix(rng, 1, false);
+        const B = randomMatrix(rng, 1, false);
+        const m = new Float64Array(32); // block-diagonal in the first operand
+        m.set(A.subarray(0, 4), 0);
+        m.set(A.subarray(4, 8), 8);
+        m.set(B.subarray(0, 4), 20);
+        m.set(B.subarray(4, 8), 28);
+        applyToAmplitudes(w.re, w.im, [a, b], m);
+        applyToAmplitudes(js.re, js.im, [a, b], m);
+        expectSame(w, js);
+      }
+    }
+  });
+
   it("the structured dispatch (two-block, real 2-qubit, diagonal) agrees as well", () => {
     const n = 9;
     const rng = makeRng(31);
