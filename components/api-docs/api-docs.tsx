@@ -1,38 +1,24 @@
-"use client";
 /**
- * The API reference page: renders the live OpenAPI 3.1 document (`GET /api/v1/openapi.json`)
- * — every operation with its parameters, request fields, responses and examples in curl,
- * Python and TypeScript — plus the conventions that hold for all of them.
+ * The API reference: the OpenAPI 3.1 document the API serves at `/api/v1/openapi.json`,
+ * taken from its generator on the server and rendered here — every operation with its
+ * parameters, request fields, responses and examples in curl, Python and TypeScript —
+ * plus the conventions that hold for all of them. A server component; only the example
+ * tabs and the copy buttons run in the browser. Examples address the app's public URL
+ * (`APP_URL`), the same the document lists as its server.
  */
-import useSWR from "swr";
-import { useOrigin } from "@/lib/hooks/use-origin";
-import { Alert } from "@/components/ui/alert";
-import { Skeleton } from "@/components/ui/skeleton";
+import { env } from "@/lib/env";
+import { getOpenApiDocument } from "@/lib/openapi/document";
 import { Conventions } from "./conventions";
-import { listOperations, groupOf, type OpenApiDoc } from "./openapi-types";
+import { groupOf, listOperations } from "./openapi-types";
 import { OperationCard } from "./operation-card";
 import { OperationsNav } from "./operations-nav";
 import { PythonClientCard } from "./python-client-card";
 
 export function ApiDocs() {
-  const { data, error, isLoading } = useSWR<OpenApiDoc>(
-    "/api/v1/openapi.json",
-    async (url: string) => {
-      const res = await fetch(url);
-      if (!res.ok) throw new Error(`The API description answered ${res.status}.`);
-      return res.json();
-    },
-  );
-  const origin = useOrigin();
-  if (error)
-    return (
-      <Alert tone="error" role="alert" title="The API description could not be loaded">
-        {error.message}
-      </Alert>
-    );
-  if (isLoading || !data) return <Skeleton className="h-[40rem]" />;
-  const baseUrl = origin || data.servers?.[0]?.url || "http://localhost:3000";
-  const ops = listOperations(data);
+  const doc = getOpenApiDocument(env.APP_URL);
+  const baseUrl = new URL(env.APP_URL).origin;
+  const components = doc.components?.schemas ?? {};
+  const ops = listOperations(doc);
   const groups = [...new Set(ops.map(groupOf))];
   return (
     <div className="grid gap-6 xl:grid-cols-[14rem_minmax(0,1fr)]">
@@ -53,7 +39,7 @@ export function ApiDocs() {
                   method={o.method}
                   path={o.path}
                   op={o.op}
-                  doc={data}
+                  components={components}
                   baseUrl={baseUrl}
                 />
               ))}

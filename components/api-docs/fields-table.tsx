@@ -1,6 +1,7 @@
 /** The request fields of an operation as a table (nested fields indented). */
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
-import { refName, schemaFields, type JsonSchema } from "./schema-fields";
+import type { JsonSchema, SchemaComponents } from "./openapi-types";
+import { refName, schemaFields } from "./schema-fields";
 
 export function FieldsTable({
   schema,
@@ -8,7 +9,7 @@ export function FieldsTable({
   label,
 }: {
   schema: JsonSchema;
-  components: Record<string, JsonSchema>;
+  components: SchemaComponents;
   label: string;
 }) {
   const rows = schemaFields(schema, components);

@@ -9,7 +9,15 @@ import { Tabs } from "@/components/ui/tabs";
 import { operationExamples } from "./examples";
 import { FieldsTable } from "./fields-table";
 import { MethodTag } from "./method-tag";
-import { anchor, isFileAnswer, type OpenApiDoc, type Operation } from "./openapi-types";
+import {
+  anchor,
+  isFileAnswer,
+  parametersOf,
+  requestBody,
+  responsesOf,
+  type Operation,
+  type SchemaComponents,
+} from "./openapi-types";
 import { ParametersTable } from "./parameters-table";
 import { ResponsesList } from "./responses-list";
 
@@ -17,18 +25,17 @@ export function OperationCard({
   method,
   path,
   op,
-  doc,
+  components,
   baseUrl,
 }: {
   method: string;
   path: string;
   op: Operation;
-  doc: OpenApiDoc;
+  components: SchemaComponents;
   baseUrl: string;
 }) {
-  const components = doc.components?.schemas ?? {};
-  const body = op.requestBody?.content["application/json"];
-  const idem = op.parameters?.find(
+  const body = requestBody(op)?.content["application/json"];
+  const idem = parametersOf(op).find(
     (p) => p.in === "header" && p.name.toLowerCase() === "idempotency-key",
   );
   const ex = operationExamples({
@@ -39,7 +46,7 @@ export function OperationCard({
     headers: idem ? { "Idempotency-Key": "my-retry-key-1" } : undefined,
     download: isFileAnswer(op) ? path.split("/").pop() : undefined,
   });
-  const params = (op.parameters ?? []).filter(
+  const params = parametersOf(op).filter(
     (p) => p.in !== "header" || p.name.toLowerCase() === "idempotency-key",
   );
   const isPublic = Array.isArray(op.security) && op.security.length === 0;
@@ -70,7 +77,7 @@ export function OperationCard({
             />
           </section>
         ) : null}
-        <ResponsesList responses={op.responses} />
+        <ResponsesList responses={responsesOf(op)} />
         <Tabs
           label={`Examples for ${method.toUpperCase()} ${path}`}
           variant="segmented"

@@ -1,6 +1,15 @@
 /** An operation's query, path and idempotency parameters as a table. */
 import { Table, TBody, TD, TH, THead, TR } from "@/components/ui/table";
 import type { Parameter } from "./openapi-types";
+import { view } from "./schema-fields";
+
+/** A parameter's allowed values, or its type. */
+function typeOf(p: Parameter): string {
+  if (!p.schema) return "";
+  const s = view(p.schema);
+  if (s.enum) return s.enum.join(" | ");
+  return (Array.isArray(s.type) ? s.type.join(" | ") : s.type) ?? "";
+}
 
 export function ParametersTable({ params }: { params: Parameter[] }) {
   return (
@@ -25,14 +34,7 @@ export function ParametersTable({ params }: { params: Parameter[] }) {
                 ) : null}
               </TD>
               <TD className="text-[12.5px] text-ink-2">{p.in}</TD>
-              <TD className="font-mono text-[12px] text-ink-2">
-                {p.schema
-                  ? p.schema.enum
-                    ? p.schema.enum.join(" | ")
-                    : ((Array.isArray(p.schema.type) ? p.schema.type.join(" | ") : p.schema.type) ??
-                      "")
-                  : ""}
-              </TD>
+              <TD className="font-mono text-[12px] text-ink-2">{typeOf(p)}</TD>
               <TD className="text-[12.5px] text-ink-2">{p.description}</TD>
             </TR>
           ))}

@@ -1,14 +1,14 @@
 /** An operation's answers: status, description, media type and schema name. */
 import { cn } from "@/components/ui/cn";
-import type { Operation } from "./openapi-types";
+import type { Response } from "./openapi-types";
 import { refName } from "./schema-fields";
 
-export function ResponsesList({ responses }: { responses: Operation["responses"] }) {
+export function ResponsesList({ responses }: { responses: [string, Response][] }) {
   return (
     <section className="grid gap-2" aria-label="Responses">
       <h4 className="text-2xs font-semibold tracking-[0.06em] text-ink-3 uppercase">Responses</h4>
       <ul className="grid gap-1 text-[13px]">
-        {Object.entries(responses).map(([status, r]) => {
+        {responses.map(([status, r]) => {
           const media = r.content ? Object.entries(r.content)[0] : undefined;
           const ref = media?.[1].schema?.$ref;
           return (

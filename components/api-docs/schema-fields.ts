@@ -6,26 +6,11 @@
  * with their discriminating constant when they have one.
  */
 import { formatCount, withMinus } from "@/lib/format";
-export type JsonSchema = {
-  $ref?: string;
-  type?: string | string[];
-  properties?: Record<string, JsonSchema>;
-  required?: string[];
-  items?: JsonSchema;
-  additionalProperties?: boolean | JsonSchema;
-  oneOf?: JsonSchema[];
-  anyOf?: JsonSchema[];
-  allOf?: JsonSchema[];
-  enum?: unknown[];
-  const?: unknown;
-  description?: string;
-  minimum?: number;
-  maximum?: number;
-  minLength?: number;
-  maxLength?: number;
-  prefixItems?: JsonSchema[];
-  default?: unknown;
-};
+import type { JsonSchema, SchemaComponents } from "./openapi-types";
+
+/** A schema read through one shape: a reference carries only `$ref` and a description. */
+type Schema = Exclude<JsonSchema, { $ref: string }>;
+export const view = (s: JsonSchema): Schema => s as Schema;
 
 export type FieldRow = {
   path: string;
@@ -36,7 +21,7 @@ export type FieldRow = {
   depth: number;
 };
 
-type Components = Record<string, JsonSchema>;
+type Components = SchemaComponents;
 
 export function refName(ref: string): string {
   return ref.replace(/^#\/components\/schemas\//, "");
@@ -44,14 +29,15 @@ export function refName(ref: string): string {
 
 /** An alternative of a oneOf: its discriminating constant (e.g. "pauli") when it has one. */
 function alternativeLabel(alt: JsonSchema, components: Components): string {
-  const resolved = alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt;
-  const tag = Object.values(resolved.properties ?? {}).find(
-    (p) => p.const !== undefined || p.enum?.length === 1,
-  );
+  const resolved = view(alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt);
+  const tag = Object.values(resolved.properties ?? {})
+    .map(view)
+    .find((p) => p.const !== undefined || p.enum?.length === 1);
   return tag ? JSON.stringify(tag.const ?? tag.enum![0]) : typeLabel(alt, components);
 }
 
-function typeLabel(s: JsonSchema, components: Components): string {
+function typeLabel(schema: JsonSchema, components: Components): string {
+  const s = view(schema);
   if (s.$ref) return refName(s.$ref);
   if (s.const !== undefined) return JSON.stringify(s.const);
   if (s.enum) return "enum";
@@ -69,7 +55,7 @@ function typeLabel(s: JsonSchema, components: Components): string {
 /** A schema bound: whole numbers with thousands separators, others exactly (1e-12), true minus. */
 const bound = (x: number) => (Number.isInteger(x) ? formatCount(x) : withMinus(String(x)));
 
-function bounds(s: JsonSchema): string | undefined {
+function bounds(s: Schema): string | undefined {
   const parts: string[] = [];
   if (s.minimum !== undefined) parts.push(`≥ ${bound(s.minimum)}`);
   if (s.maximum !== undefined) parts.push(`≤ ${bound(s.maximum)}`);
@@ -78,7 +64,7 @@ function bounds(s: JsonSchema): string | undefined {
   return parts.length ? parts.join(", ") : undefined;
 }
 
-function valuesOf(s: JsonSchema): string | undefined {
+function valuesOf(s: Schema): string | undefined {
   if (s.enum) return s.enum.map((v) => JSON.stringify(v)).join(", ");
   return bounds(s);
 }
@@ -92,7 +78,7 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
     depth: number,
     seen: Set<string>,
   ) => {
-    let node = s;
+    let node = view(s);
     let nextSeen = seen;
     if (node.$ref) {
       const name = refName(node.$ref);
@@ -102,7 +88,10 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
         return;
       }
       nextSeen = new Set(seen).add(name);
-      node = { ...components[name], description: s.description ?? components[name].description };
+      node = {
+        ...view(components[name]),
+        description: s.description ?? components[name].description,
+      };
     }
     if (path) {
       rows.push({
@@ -118,10 +107,10 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
     const alternatives = node.oneOf ?? node.anyOf;
     if (alternatives) {
       alternatives.forEach((alt) => {
-        const resolved = alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt;
-        const tag = Object.entries(resolved.properties ?? {}).find(
-          ([, p]) => p.const !== undefined || p.enum?.length === 1,
-        );
+        const resolved = view(alt.$ref ? (components[refName(alt.$ref)] ?? alt) : alt);
+        const tag = Object.entries(resolved.properties ?? {})
+          .map(([k, p]) => [k, view(p)] as const)
+          .find(([, p]) => p.const !== undefined || p.enum?.length === 1);
         const label = tag
           ? `${tag[0]}=${JSON.stringify(tag[1].const ?? tag[1].enum![0])}`
           : typeLabel(alt, components);
@@ -136,18 +125,19 @@ export function schemaFields(root: JsonSchema, components: Components, maxDepth 
       for (const [k, v] of Object.entries(node.properties))
         walk(v, path ? `${path}.${k}` : k, req.has(k), depth + 1, nextSeen);
     }
-    if (node.items && (node.items.properties || node.items.$ref || node.items.oneOf)) {
-      walk({ ...node.items, description: undefined }, `${path}[]`, true, depth + 1, nextSeen);
+    const items = node.items && view(node.items);
+    if (items && (items.properties || items.$ref || items.oneOf)) {
+      walk({ ...items, description: undefined }, `${path}[]`, true, depth + 1, nextSeen);
       // The row just added repeats the array's own line; drop it when it carries nothing new.
       const last = rows.findIndex((r) => r.path === `${path}[]`);
       if (last >= 0 && !rows[last].description) rows.splice(last, 1);
     }
-    if (
-      node.additionalProperties &&
-      typeof node.additionalProperties === "object" &&
-      (node.additionalProperties.properties || node.additionalProperties.$ref)
-    ) {
-      walk(node.additionalProperties, `${path}{key}`, true, depth + 1, nextSeen);
+    const extra =
+      node.additionalProperties && typeof node.additionalProperties === "object"
+        ? view(node.additionalProperties)
+        : undefined;
+    if (extra && (extra.properties || extra.$ref)) {
+      walk(extra, `${path}{key}`, true, depth + 1, nextSeen);
     }
   };
   walk(root, "", true, 0, new Set());

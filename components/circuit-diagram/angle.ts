@@ -3,7 +3,7 @@
  * (π/4, −3π/2, 2π); anything else as a decimal with up to three places.
  * The minus sign is U+2212.
  */
-import { MINUS } from "@/lib/format";
+import { formatFixed, MINUS } from "@/lib/format";
 const DENOMINATORS = [1, 2, 3, 4, 6, 8, 12, 16];
 
 export function formatAngle(x: number): string {
@@ -21,10 +21,8 @@ export function formatAngle(x: number): string {
       return `${sign}${den === 1 ? top : `${top}/${den}`}`;
     }
   }
-  const text = Math.abs(x)
-    .toFixed(3)
-    .replace(/\.?0+$/, "");
-  return `${sign}${text}`;
+  // a value that rounds to zero prints without a sign ("0", never "−0")
+  return formatFixed(x, 3).replace(/\.?0+$/, "");
 }
 
 function gcd(a: number, b: number): number {

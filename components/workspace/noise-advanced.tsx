@@ -4,7 +4,13 @@
  * rate overrides by gate name, and idle noise (off unless set). Form ⇄ request in
  * noise-advanced-model.ts; help texts in noise-help.ts.
  */
-import { useFieldArray, useFormContext } from "react-hook-form";
+import {
+  useFieldArray,
+  useFormContext,
+  type FieldArray,
+  type FieldArrayPath,
+  type Path,
+} from "react-hook-form";
 import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { IconClose, IconPlus } from "@/components/ui/icons";
@@ -72,125 +78,143 @@ function RemoveButton({
   );
 }
 
-export function NoiseAdvanced({ readOnly }: { readOnly?: boolean }) {
+/** A column of a row editor: the row's key (qubit, gate name) or one of its rates. */
+type Column =
+  | { field: string; label: string; kind: "rate" }
+  | {
+      field: string;
+      label: string;
+      kind: "key";
+      className: string;
+      inputMode?: "numeric";
+      placeholder?: string;
+    };
+
+type RowList = Extract<FieldArrayPath<ComposerValues>, `noise.${string}`>;
+
+/**
+ * One list of noise rows (readout per qubit, overrides per gate): heading, help, the
+ * list's own error, a row of inputs per entry with its remove button, and an add button.
+ */
+function RowEditor<N extends RowList>({
+  name,
+  title,
+  help,
+  columns,
+  removeLabel,
+  addLabel,
+  newRow,
+  readOnly,
+}: {
+  name: N;
+  title: string;
+  help: string;
+  columns: Column[];
+  removeLabel: (row: number) => string;
+  addLabel: string;
+  /** The appended row; `count` is the number of rows before it. */
+  newRow: (count: number) => FieldArray<ComposerValues, N>;
+  readOnly?: boolean;
+}) {
   const { control, register, formState } = useFormContext<ComposerValues>();
   const errors = formState.errors.noise as NoiseErrors;
-  const perQubit = useFieldArray({ control, name: "noise.perQubit" });
-  const gates = useFieldArray({ control, name: "noise.gates" });
+  const rows = useFieldArray<ComposerValues, N>({ control, name });
+  const list = name.slice("noise.".length);
+  return (
+    <section className="grid gap-2" aria-label={title}>
+      <div>
+        <h3 className="text-[13px] font-semibold text-ink">{title}</h3>
+        <p className="text-xs text-ink-3">{help}</p>
+        {errorAt(errors, [list]) ? (
+          <p className="text-xs text-danger">{errorAt(errors, [list])}</p>
+        ) : null}
+      </div>
+      {rows.fields.map((f, i) => (
+        <div key={f.id} className="flex flex-wrap items-end gap-2">
+          {columns.map((c) =>
+            c.kind === "key" ? (
+              <Field
+                key={c.field}
+                label={c.label}
+                error={errorAt(errors, [list, i, c.field])}
+                className={c.className}
+              >
+                <Input
+                  mono
+                  inputMode={c.inputMode}
+                  autoComplete="off"
+                  placeholder={c.placeholder}
+                  readOnly={readOnly}
+                  {...register(`${name}.${i}.${c.field}` as Path<ComposerValues>)}
+                />
+              </Field>
+            ) : (
+              <Rate
+                key={c.field}
+                label={c.label}
+                name={`${name}.${i}.${c.field}` as `noise.${string}`}
+                readOnly={readOnly}
+                error={errorAt(errors, [list, i, c.field])}
+              />
+            ),
+          )}
+          <RemoveButton
+            label={removeLabel(i + 1)}
+            disabled={readOnly}
+            onClick={() => rows.remove(i)}
+          />
+        </div>
+      ))}
+      <div>
+        <Button
+          variant="secondary"
+          size="sm"
+          disabled={readOnly}
+          icon={<IconPlus className="size-4" />}
+          onClick={() => rows.append(newRow(rows.fields.length))}
+        >
+          {addLabel}
+        </Button>
+      </div>
+    </section>
+  );
+}
+
+export function NoiseAdvanced({ readOnly }: { readOnly?: boolean }) {
+  const { formState } = useFormContext<ComposerValues>();
+  const errors = formState.errors.noise as NoiseErrors;
 
   return (
     <div className="grid gap-5 border-t border-line pt-4">
-      <section className="grid gap-2" aria-label="Readout per qubit">
-        <div>
-          <h3 className="text-[13px] font-semibold text-ink">Readout per qubit</h3>
-          <p className="text-xs text-ink-3">{ADVANCED_NOISE_HELP.perQubit}</p>
-          {errorAt(errors, ["perQubit"]) ? (
-            <p className="text-xs text-danger">{errorAt(errors, ["perQubit"])}</p>
-          ) : null}
-        </div>
-        {perQubit.fields.map((f, i) => (
-          <div key={f.id} className="flex flex-wrap items-end gap-2">
-            <Field label="Qubit" error={errorAt(errors, ["perQubit", i, "qubit"])} className="w-20">
-              <Input
-                mono
-                inputMode="numeric"
-                autoComplete="off"
-                readOnly={readOnly}
-                {...register(`noise.perQubit.${i}.qubit`)}
-              />
-            </Field>
-            <Rate
-              label="Read 1 from 0"
-              name={`noise.perQubit.${i}.p1Given0`}
-              readOnly={readOnly}
-              error={errorAt(errors, ["perQubit", i, "p1Given0"])}
-            />
-            <Rate
-              label="Read 0 from 1"
-              name={`noise.perQubit.${i}.p0Given1`}
-              readOnly={readOnly}
-              error={errorAt(errors, ["perQubit", i, "p0Given1"])}
-            />
-            <RemoveButton
-              label={`Remove the readout rates of row ${i + 1}`}
-              disabled={readOnly}
-              onClick={() => perQubit.remove(i)}
-            />
-          </div>
-        ))}
-        <div>
-          <Button
-            variant="secondary"
-            size="sm"
-            disabled={readOnly}
-            icon={<IconPlus className="size-4" />}
-            onClick={() =>
-              perQubit.append({ qubit: String(perQubit.fields.length), p1Given0: "", p0Given1: "" })
-            }
-          >
-            Add a qubit
-          </Button>
-        </div>
-      </section>
-
-      <section className="grid gap-2" aria-label="Noise per gate">
-        <div>
-          <h3 className="text-[13px] font-semibold text-ink">Noise per gate</h3>
-          <p className="text-xs text-ink-3">{ADVANCED_NOISE_HELP.gates}</p>
-          {errorAt(errors, ["gates"]) ? (
-            <p className="text-xs text-danger">{errorAt(errors, ["gates"])}</p>
-          ) : null}
-        </div>
-        {gates.fields.map((f, i) => (
-          <div key={f.id} className="flex flex-wrap items-end gap-2">
-            <Field label="Gate" error={errorAt(errors, ["gates", i, "name"])} className="w-32">
-              <Input
-                mono
-                autoComplete="off"
-                placeholder="cx"
-                readOnly={readOnly}
-                {...register(`noise.gates.${i}.name`)}
-              />
-            </Field>
-            <Rate
-              label="Depolarizing"
-              name={`noise.gates.${i}.depolarizing`}
-              readOnly={readOnly}
-              error={errorAt(errors, ["gates", i, "depolarizing"])}
-            />
-            <Rate
-              label="Amplitude damping"
-              name={`noise.gates.${i}.amplitudeDamping`}
-              readOnly={readOnly}
-              error={errorAt(errors, ["gates", i, "amplitudeDamping"])}
-            />
-            <Rate
-              label="Phase damping"
-              name={`noise.gates.${i}.phaseDamping`}
-              readOnly={readOnly}
-              error={errorAt(errors, ["gates", i, "phaseDamping"])}
-            />
-            <RemoveButton
-              label={`Remove the override of row ${i + 1}`}
-              disabled={readOnly}
-              onClick={() => gates.remove(i)}
-            />
-          </div>
-        ))}
-        <div>
-          <Button
-            variant="secondary"
-            size="sm"
-            disabled={readOnly}
-            icon={<IconPlus className="size-4" />}
-            onClick={() =>
-              gates.append({ name: "", depolarizing: "", amplitudeDamping: "", phaseDamping: "" })
-            }
-          >
-            Add a gate
-          </Button>
-        </div>
-      </section>
+      <RowEditor
+        name="noise.perQubit"
+        title="Readout per qubit"
+        help={ADVANCED_NOISE_HELP.perQubit}
+        columns={[
+          { field: "qubit", label: "Qubit", kind: "key", className: "w-20", inputMode: "numeric" },
+          { field: "p1Given0", label: "Read 1 from 0", kind: "rate" },
+          { field: "p0Given1", label: "Read 0 from 1", kind: "rate" },
+        ]}
+        removeLabel={(row) => `Remove the readout rates of row ${row}`}
+        addLabel="Add a qubit"
+        newRow={(count) => ({ qubit: String(count), p1Given0: "", p0Given1: "" })}
+        readOnly={readOnly}
+      />
+      <RowEditor
+        name="noise.gates"
+        title="Noise per gate"
+        help={ADVANCED_NOISE_HELP.gates}
+        columns={[
+          { field: "name", label: "Gate", kind: "key", className: "w-32", placeholder: "cx" },
+          { field: "depolarizing", label: "Depolarizing", kind: "rate" },
+          { field: "amplitudeDamping", label: "Amplitude damping", kind: "rate" },
+          { field: "phaseDamping", label: "Phase damping", kind: "rate" },
+        ]}
+        removeLabel={(row) => `Remove the override of row ${row}`}
+        addLabel="Add a gate"
+        newRow={() => ({ name: "", depolarizing: "", amplitudeDamping: "", phaseDamping: "" })}
+        readOnly={readOnly}
+      />
 
       <section className="grid gap-2" aria-label="Idle noise">
         <div>

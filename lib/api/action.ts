@@ -90,7 +90,8 @@ function formDataOf(prevOrData: unknown, formData: unknown): FormData {
   return prevOrData instanceof FormData ? prevOrData : new FormData();
 }
 
-const invalid = (error: z.ZodError): ActionState<never> => ({
+/** The answer to an input its schema refuses: 422 with each field's messages. */
+export const invalidInput = (error: z.ZodError): ActionState<never> => ({
   status: "error",
   message: "Check the highlighted fields.",
   fieldErrors: toFieldErrors(zodFieldErrors(error)),
@@ -132,7 +133,7 @@ function serverAction<S extends z.ZodType, C, T>(
     try {
       const ctx = await gate(orgId);
       const parsed = schema.safeParse(fields);
-      if (!parsed.success) return invalid(parsed.error);
+      if (!parsed.success) return invalidInput(parsed.error);
       return (await body(parsed.data, ctx, formData)) ?? { status: "success" };
     } catch (error) {
       return errorState(error);

@@ -16,8 +16,7 @@
 import "server-only";
 import { revalidatePath } from "next/cache";
 import type { z } from "zod";
-import { errorState, orgAction, type ActionState } from "@/lib/api/action";
-import { zodFieldErrors } from "@/lib/api/problem";
+import { errorState, invalidInput, orgAction, type ActionState } from "@/lib/api/action";
 import { authorizeMember, type OrgAccess } from "@/lib/auth/guards";
 import type { Role } from "@/lib/orgs/roles";
 
@@ -59,12 +58,7 @@ export async function runOperation<S extends z.ZodType, T>(
   try {
     const access = await authorizeMember(userId, orgId, op.role);
     const parsed = op.schema.safeParse(fields);
-    if (!parsed.success) {
-      const fieldErrors: Record<string, string[]> = {};
-      for (const { path, message } of zodFieldErrors(parsed.error))
-        (fieldErrors[path] ??= []).push(message);
-      return { status: "error", message: "Check the highlighted fields.", fieldErrors, code: 422 };
-    }
+    if (!parsed.success) return invalidInput(parsed.error);
     return await op.run(parsed.data, access);
   } catch (error) {
     return errorState(error);

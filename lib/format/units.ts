@@ -1,5 +1,5 @@
 /** Money, durations and sizes for people. */
-import { formatCount, formatNumber, MINUS, NUMBER_LOCALE } from "./numbers";
+import { fixedAbs, formatCount, formatNumber, MINUS, NUMBER_LOCALE } from "./numbers";
 import { plural } from "./plural";
 
 const money = new Map<string, Intl.NumberFormat>();
@@ -55,18 +55,28 @@ export function formatWait(seconds: number): string {
 /**
  * A file size in decimal (SI) units, as upload limits are stated: 950 → "1 kB",
  * 2_500_000 → "2.5 MB", 5_000_000 → "5 MB". Sizes under 1 MB round up to whole kB.
- * `binary: true` uses IEC units for memory and request-body caps: 4 × 2²⁰ → "4 MiB",
- * 65_536 → "64 KiB" (under 1 MiB rounded to whole KiB, above to one decimal).
+ * `binary: true` uses IEC units for memory and request-body caps, with one decimal from GiB
+ * up and below 10 of a unit: 512 → "512 B", 65_536 → "64 KiB", 256 × 2²⁰ → "256 MiB",
+ * 4 × 2²⁰ → "4.0 MiB", 2³² → "4.0 GiB".
  */
 export function formatBytes(n: number, options: { binary?: boolean } = {}): string {
   if (!Number.isFinite(n) || n < 0)
     throw new RangeError(`Size must be a non-negative number, got ${n}.`);
-  if (options.binary) {
-    if (n >= 2 ** 30) return `${formatNumber(n / 2 ** 30, 1)} GiB`;
-    if (n >= 2 ** 20) return `${formatNumber(n / 2 ** 20, 1)} MiB`;
-    return `${formatCount(Math.round(n / 1024))} KiB`;
-  }
+  if (options.binary) return binaryBytes(n);
   if (n >= 1e9) return `${formatNumber(n / 1e9, 1)} GB`;
   if (n >= 1e6) return `${formatNumber(n / 1e6, 1)} MB`;
   return `${formatCount(Math.ceil(n / 1000))} kB`;
+}
+
+const BINARY_UNITS = ["B", "KiB", "MiB", "GiB", "TiB", "PiB", "EiB"];
+
+function binaryBytes(bytes: number): string {
+  let v = bytes;
+  let u = 0;
+  while (v >= 1024 && u < BINARY_UNITS.length - 1) {
+    v /= 1024;
+    u++;
+  }
+  if (u === 0) return `${formatCount(v)} B`;
+  return `${u >= 3 || v < 10 ? fixedAbs(v, 1) : formatCount(v)} ${BINARY_UNITS[u]}`;
 }

@@ -7,10 +7,11 @@
 import { OpenAPIRegistry, OpenApiGeneratorV31 } from "@asteasolutions/zod-to-openapi";
 import { registerPaths } from "./paths";
 
-type Document = ReturnType<OpenApiGeneratorV31["generateDocument"]>;
-let cached: Document | undefined;
+/** The generated document's type (openapi3-ts's OpenAPI 3.1 model, as the generator returns it). */
+export type OpenApiDocument = ReturnType<OpenApiGeneratorV31["generateDocument"]>;
+let cached: OpenApiDocument | undefined;
 
-export function buildOpenApiDocument(serverUrl?: string): Document {
+export function buildOpenApiDocument(serverUrl?: string): OpenApiDocument {
   const registry = new OpenAPIRegistry();
   registry.registerComponent("securitySchemes", "bearerKey", {
     type: "http",
@@ -39,7 +40,7 @@ export function buildOpenApiDocument(serverUrl?: string): Document {
 }
 
 /** The document, generated on first use. */
-export function getOpenApiDocument(serverUrl?: string): Document {
+export function getOpenApiDocument(serverUrl?: string): OpenApiDocument {
   cached ??= buildOpenApiDocument(serverUrl);
   return cached;
 }

@@ -10,8 +10,12 @@ import type { CircuitPreview, CircuitPreviewRequest, Preview } from "./types";
 
 const PATH = "/api/v1/runs/preview";
 
-const post = <T>([orgId, path, body]: readonly [string, string, string]) =>
-  apiFetch<T>(orgId, path, { method: "POST", json: JSON.parse(body) });
+/** An answer with the body it answers (SWR keeps the previous key's data while the next loads). */
+type Tagged<T> = { body: string; answer: T };
+
+const post = async <T>([orgId, path, body]: readonly [string, string, string]): Promise<
+  Tagged<T>
+> => ({ body, answer: await apiFetch<T>(orgId, path, { method: "POST", json: JSON.parse(body) }) });
 
 const options = {
   keepPreviousData: true,
@@ -23,18 +27,21 @@ const options = {
 /** Outlines read from problems, once per error (a stable object for the same answer). */
 const problemOutlines = new WeakMap<ApiError, CircuitOutline | null>();
 
-/** The outline a preview answer carries: its own, or the one in its problem (null: none). */
-function outlineOf<T extends { outline: CircuitOutline | null }>(swr: {
-  data?: T;
-  error?: ApiError;
-}): CircuitOutline | null | undefined {
+/**
+ * The outline the answer to `body` carries: its own, or the one in its problem (null: none;
+ * undefined: not answered yet — an earlier draft's answer, kept on screen, never counts).
+ */
+function outlineOf<T extends { outline: CircuitOutline | null }>(
+  swr: { data?: Tagged<T>; error?: ApiError },
+  body: string,
+): CircuitOutline | null | undefined {
   const { error } = swr;
   if (error) {
     if (!problemOutlines.has(error))
       problemOutlines.set(error, previewProblemSchema.safeParse(error.body).data?.outline ?? null);
     return problemOutlines.get(error) ?? null;
   }
-  return swr.data ? swr.data.outline : undefined;
+  return swr.data?.body === body ? swr.data.answer.outline : undefined;
 }
 
 /**
@@ -62,24 +69,32 @@ export function usePreview(
   const settled = useDebounced(wanted, delay);
   const [mode, body] = settled ? [settled.slice(0, settled.indexOf("\n")), settled] : [null, ""];
   const json = body.slice(body.indexOf("\n") + 1);
-  const full = useSWR<Preview, ApiError, readonly [string, string, string] | null>(
+  const full = useSWR<Tagged<Preview>, ApiError, readonly [string, string, string] | null>(
     mode === "full" ? [orgId, PATH, json] : null,
     post<Preview>,
     options,
   );
-  const outlineOnly = useSWR<CircuitPreview, ApiError, readonly [string, string, string] | null>(
+  const outlineOnly = useSWR<
+    Tagged<CircuitPreview>,
+    ApiError,
+    readonly [string, string, string] | null
+  >(
     mode === "circuit" ? [orgId, `${PATH}?only=circuit`, json] : null,
     post<CircuitPreview>,
     options,
   );
 
   const answer =
-    mode === "full" ? outlineOf(full) : mode === "circuit" ? outlineOf(outlineOnly) : undefined;
+    mode === "full"
+      ? outlineOf(full, json)
+      : mode === "circuit"
+        ? outlineOf(outlineOnly, json)
+        : undefined;
   const [kept, setKept] = useState<CircuitOutline | null>(null);
   if (answer && answer !== kept) setKept(answer);
 
   return {
-    data: full.data,
+    data: full.data?.answer,
     error: full.error,
     pending: wanted !== settled || full.isValidating || outlineOnly.isValidating,
     /** The circuit's latest outline (null without a circuit). */

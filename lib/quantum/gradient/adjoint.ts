@@ -10,7 +10,8 @@
  * The sweep runs over the same fused blocks as the forward simulation (fusion.ts): for a
  * block B = G_m ⋯ G_1, φ ← B†φ, the local cross matrix R of λ and φ on the block's
  * qubits, λ ← B†λ — for blocks on one or two qubits all three in ONE pass over both
- * vectors (backward-step.ts), otherwise three (kernels + local-cross.ts) — and every
+ * vectors (backward-step.ts), except in kernel memories (WebAssembly), where B† goes
+ * through the SIMD kernels and R is a separate pass; otherwise three (local-cross.ts) — and every
  * angle θ of a member G_j costs only a small matrix product:
  *   ∂⟨A⟩/∂θ = 2·Re Σ_{a,b} (S_j · ∂G_j/∂θ · P_j)[a][b] · R[a][b],
  * P_j = G_{j−1} ⋯ G_1 and S_j = G_m ⋯ G_{j+1} embedded on the block's qubits. Blocks
@@ -22,8 +23,9 @@ import { embedMatrix, multiplyMatrices } from "../statevector/matrix-ops";
 import { RunControl, type RunOptions } from "../statevector/run-control";
 import type { PreparedObservable } from "../sampling/sample-observable";
 import type { StateVector } from "../types";
+import { wasmBinding } from "../wasm/runtime";
 import { applyObservable } from "./apply-observable";
-import { backwardStep, nonZeroPattern } from "./backward-step";
+import { backwardStep, crossOnly, nonZeroPattern } from "./backward-step";
 import { crossLocal } from "./local-cross";
 import { matrixDerivative } from "./shift-rules";
 import { dagger, type Tape, type TapeAngle, type TapePart } from "./tape";
@@ -44,6 +46,8 @@ export function adjointGradient(
   for (const p of parts) fuser.add({ name: p.gate.name, qubits: p.qubits, matrix: p.matrix });
   const blocks = fuser.blocksWithSources();
   const control = new RunControl(opts, blocks.length, "gradient");
+  const simd =
+    wasmBinding(phi.re, phi.im) !== undefined && wasmBinding(lambda.re, lambda.im) !== undefined;
   for (let i = blocks.length - 1; i >= 0; i--) {
     const { gate, sources } = blocks[i];
     const udag = dagger(gate.matrix);
@@ -56,7 +60,13 @@ export function adjointGradient(
       if (gate.qubits.length <= 2) {
         let needed = 0;
         for (const { m } of derivatives) needed |= nonZeroPattern(m);
-        r = backwardStep(lambda.re, lambda.im, phi.re, phi.im, gate.qubits, udag, needed, i > 0);
+        if (simd) {
+          applyToAmplitudes(phi.re, phi.im, gate.qubits, udag);
+          r = crossOnly(lambda.re, lambda.im, phi.re, phi.im, gate.qubits, needed);
+          if (i > 0) applyToAmplitudes(lambda.re, lambda.im, gate.qubits, udag);
+        } else {
+          r = backwardStep(lambda.re, lambda.im, phi.re, phi.im, gate.qubits, udag, needed, i > 0);
+        }
       } else {
         applyToAmplitudes(phi.re, phi.im, gate.qubits, udag);
         r = crossLocal(lambda.re, lambda.im, phi.re, phi.im, gate.qubits);

@@ -8,11 +8,12 @@
 import { parity, popcount } from "../observable/bits";
 import type { PreparedObservable } from "../sampling/sample-observable";
 import type { StateVector } from "../types";
+import { allocateAmplitudes } from "../statevector/state";
 
 export function applyObservable(obs: PreparedObservable, psi: StateVector): StateVector {
   const len = psi.re.length;
-  const re = new Float64Array(len);
-  const im = new Float64Array(len);
+  // like the state: in a kernel memory when the engine uses them (the sweep's SIMD kernels)
+  const { re, im } = allocateAmplitudes(psi.n);
   if (obs.kind === "matrix") {
     const { dim: d, re: hr, im: hi } = obs.matrix;
     for (let i = 0; i < d; i++) {

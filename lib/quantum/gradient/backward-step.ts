@@ -37,7 +37,7 @@ function product(v: string, pattern: number, r: number): { re: string; im: strin
   return { re: re.join(" + ") || "0", im: im.join(" + ") || "0" };
 }
 
-function compile2q(pattern: number, needed: number): Step2q {
+function compile2q(pattern: number, needed: number, transform: boolean): Step2q {
   const entries: number[] = [];
   for (let e = 0; e < 16; e++) if ((pattern >> e) & 1) entries.push(e);
   const used: number[] = [];
@@ -51,6 +51,10 @@ function compile2q(pattern: number, needed: number): Step2q {
   L.push("const b1 = b0 | o1, b2 = b0 | o2, b3 = b0 | mask;");
   for (let a = 0; a < 4; a++) L.push(`const pr${a} = pre[b${a}], pi${a} = pim[b${a}];`);
   for (let r = 0; r < 4; r++) {
+    if (!transform) {
+      L.push(`const qr${r} = pr${r}, qi${r} = pi${r};`);
+      continue;
+    }
     const p = product("p", pattern, r);
     L.push(`const qr${r} = ${p.re}, qi${r} = ${p.im};`);
     L.push(`pre[b${r}] = qr${r}; pim[b${r}] = qi${r};`);
@@ -62,12 +66,14 @@ function compile2q(pattern: number, needed: number): Step2q {
     L.push(`s${e}r += lr${a} * qr${b} + li${a} * qi${b};`);
     L.push(`s${e}i += lr${a} * qi${b} - li${a} * qr${b};`);
   }
-  L.push("if (updateLambda) {");
-  for (let r = 0; r < 4; r++) {
-    const p = product("l", pattern, r);
-    L.push(`lre[b${r}] = ${p.re}; lim[b${r}] = ${p.im};`);
+  if (transform) {
+    L.push("if (updateLambda) {");
+    for (let r = 0; r < 4; r++) {
+      const p = product("l", pattern, r);
+      L.push(`lre[b${r}] = ${p.re}; lim[b${r}] = ${p.im};`);
+    }
+    L.push("}");
   }
-  L.push("}");
   L.push("}");
   for (const e of used) L.push(`out[${2 * e}] = s${e}r; out[${2 * e + 1}] = s${e}i;`);
   return new Function(
@@ -106,11 +112,42 @@ export function backwardStep(
   updateLambda: boolean,
 ): Float64Array {
   if (bits.length === 1) return step1q(lre, lim, pre, pim, bits[0], u, updateLambda);
-  const pattern = nonZeroPattern(u);
-  const key = `${pattern}:${needed}`;
+  return run2q(lre, lim, pre, pim, bits, u, needed, updateLambda, true);
+}
+
+/**
+ * R alone (no update), for vectors in a kernel memory: there B† runs faster through the
+ * SIMD kernels (two extra passes) than inside the scalar one-pass step.
+ */
+export function crossOnly(
+  lre: Float64Array,
+  lim: Float64Array,
+  pre: Float64Array,
+  pim: Float64Array,
+  bits: readonly number[],
+  needed: number,
+): Float64Array {
+  if (bits.length === 1)
+    return step1q(lre, lim, pre, pim, bits[0], Float64Array.of(1, 0, 0, 0, 0, 0, 1, 0), false);
+  return run2q(lre, lim, pre, pim, bits, new Float64Array(32), needed, false, false);
+}
+
+function run2q(
+  lre: Float64Array,
+  lim: Float64Array,
+  pre: Float64Array,
+  pim: Float64Array,
+  bits: readonly number[],
+  u: Float64Array,
+  needed: number,
+  updateLambda: boolean,
+  transform: boolean,
+): Float64Array {
+  const pattern = transform ? nonZeroPattern(u) : 0;
+  const key = `${pattern}:${needed}:${transform}`;
   let step = cache.get(key);
   if (!step) {
-    step = compile2q(pattern, needed);
+    step = compile2q(pattern, needed, transform);
     if (cache.size < MAX_CACHED) cache.set(key, step);
   }
   const out = new Float64Array(32);

@@ -16,7 +16,7 @@ import { EigenvalueDecomposition, Matrix } from "ml-matrix";
 import { EngineError } from "../errors";
 import { MAX_SPECTRUM_QUBITS } from "../estimate/limits";
 import type { PauliSum } from "../types";
-import { createRng, nextUniform } from "../sampling/rng";
+import { createRng, nextUniform, type Rng } from "../sampling/rng";
 import { PauliOperator } from "./pauli-operator";
 
 export const MAX_LANCZOS_QUBITS = MAX_SPECTRUM_QUBITS;
@@ -92,9 +92,15 @@ export function normalise(re: Float64Array, im: Float64Array): number {
   return nrm;
 }
 
+/** A complex vector as two real arrays (state order). */
+export interface ComplexVector {
+  re: Float64Array;
+  im: Float64Array;
+}
+
 /** w ← w − Σ_i (v_i† w) v_i over the stored basis, done twice for stability. */
 export function reorthogonalise(
-  basis: { re: Float64Array; im: Float64Array }[],
+  basis: ComplexVector[],
   wRe: Float64Array,
   wIm: Float64Array,
 ): void {
@@ -112,6 +118,57 @@ export function reorthogonalise(
       }
     }
   }
+}
+
+/** A start vector with real and imaginary parts uniform in [−½, ½) (not normalised). */
+export function randomVector(rng: Rng, d: number): ComplexVector {
+  const re = new Float64Array(d);
+  const im = new Float64Array(d);
+  for (let i = 0; i < d; i++) {
+    re[i] = nextUniform(rng) - 0.5;
+    im[i] = nextUniform(rng) - 0.5;
+  }
+  return { re, im };
+}
+
+/**
+ * One Lanczos step from the basis vector v: w = H v, α = Re(v†w), w re-orthogonalised
+ * against `against` (twice) and normalised; β = ‖w‖ before normalising.
+ */
+export function lanczosStep(
+  op: PauliOperator,
+  v: ComplexVector,
+  against: ComplexVector[],
+): { alpha: number; beta: number; w: ComplexVector } {
+  const d = op.dim;
+  const wRe = new Float64Array(d);
+  const wIm = new Float64Array(d);
+  op.apply(v.re, v.im, wRe, wIm);
+  let alpha = 0;
+  for (let i = 0; i < d; i++) alpha += v.re[i] * wRe[i] + v.im[i] * wIm[i];
+  reorthogonalise(against, wRe, wIm);
+  const beta = normalise(wRe, wIm);
+  return { alpha, beta, w: { re: wRe, im: wIm } };
+}
+
+/** Σ_k weight(k)·v_k over the first `m` basis vectors (a Ritz vector; not normalised). */
+export function combineBasis(
+  basis: ComplexVector[],
+  m: number,
+  weight: (k: number) => number,
+  d: number,
+): ComplexVector {
+  const re = new Float64Array(d);
+  const im = new Float64Array(d);
+  for (let k = 0; k < m; k++) {
+    const w = weight(k);
+    const v = basis[k];
+    for (let i = 0; i < d; i++) {
+      re[i] += w * v.re[i];
+      im[i] += w * v.im[i];
+    }
+  }
+  return { re, im };
 }
 
 export async function lanczosExtremes(
@@ -136,32 +193,20 @@ export async function lanczosExtremes(
   const maxBasis = Math.min(d, opts.maxBasis ?? 160, memCap);
   const maxRestarts = opts.maxRestarts ?? 30;
   const rng = createRng(opts.seed ?? 20160211);
-  let startRe = new Float64Array(d);
-  let startIm = new Float64Array(d);
-  for (let i = 0; i < d; i++) {
-    startRe[i] = nextUniform(rng) - 0.5;
-    startIm[i] = nextUniform(rng) - 0.5;
-  }
-  normalise(startRe, startIm);
+  let start = randomVector(rng, d);
+  normalise(start.re, start.im);
   let iterations = 0;
   let best: LanczosResult | null = null;
   for (let restart = 0; restart <= maxRestarts; restart++) {
-    const basis: { re: Float64Array; im: Float64Array }[] = [{ re: startRe, im: startIm }];
+    const basis: ComplexVector[] = [start];
     const alpha: number[] = [];
     const beta: number[] = [];
     let ritz: Ritz | null = null;
     let invariant = false;
     for (let j = 0; j < maxBasis; j++) {
-      const v = basis[j];
-      const wRe = new Float64Array(d);
-      const wIm = new Float64Array(d);
-      op.apply(v.re, v.im, wRe, wIm);
+      const { alpha: a, beta: b, w } = lanczosStep(op, basis[j], basis);
       iterations++;
-      let a = 0;
-      for (let i = 0; i < d; i++) a += v.re[i] * wRe[i] + v.im[i] * wIm[i];
       alpha.push(a);
-      reorthogonalise(basis, wRe, wIm);
-      const b = normalise(wRe, wIm);
       invariant = b <= 1e-12 * scale;
       const last = j + 1 === maxBasis || invariant;
       if (last || j % 4 === 3) {
@@ -181,25 +226,16 @@ export async function lanczosExtremes(
       }
       if (last) break;
       beta.push(b);
-      basis.push({ re: wRe, im: wIm });
+      basis.push(w);
       await opts.tick?.(Math.min(0.99, (restart * maxBasis + j) / ((maxRestarts + 1) * maxBasis)));
     }
     if (!ritz) break;
     // restart from u_min + u_max (both Ritz vectors in the current basis)
     const m = alpha.length;
-    const nRe = new Float64Array(d);
-    const nIm = new Float64Array(d);
-    for (let k = 0; k < m; k++) {
-      const w = ritz.y.get(k, 0) + ritz.y.get(k, m - 1);
-      const v = basis[k];
-      for (let i = 0; i < d; i++) {
-        nRe[i] += w * v.re[i];
-        nIm[i] += w * v.im[i];
-      }
-    }
-    if (normalise(nRe, nIm) === 0) break;
-    startRe = nRe;
-    startIm = nIm;
+    const y = ritz.y;
+    const next = combineBasis(basis, m, (k) => y.get(k, 0) + y.get(k, m - 1), d);
+    if (normalise(next.re, next.im) === 0) break;
+    start = next;
   }
   return (
     best ?? {

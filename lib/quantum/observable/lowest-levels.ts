@@ -12,22 +12,23 @@
  * reported as unknown (`ground: null`) rather than truncated.
  */
 import { EngineError } from "../errors";
-import { createRng, nextUniform } from "../sampling/rng";
+import { createRng } from "../sampling/rng";
 import type { PauliSum } from "../types";
 import type { HermitianEigen } from "./hermitian-eigen";
 import {
   MAX_LANCZOS_QUBITS,
+  combineBasis,
+  lanczosStep,
   normalise,
+  randomVector,
   reorthogonalise,
   tridiagonalEigen,
+  type ComplexVector,
   type Ritz,
 } from "./lanczos";
 import { PauliOperator } from "./pauli-operator";
 
-export interface ComplexVector {
-  re: Float64Array;
-  im: Float64Array;
-}
+export type { ComplexVector };
 
 export interface LowestLevels {
   /** The `count` lowest eigenvalues with multiplicity, ascending (fewer if the dimension is smaller). */
@@ -53,11 +54,6 @@ export interface LowestLevelsOptions {
 /** Relative tolerance for "the same level": |λ − λ₀| ≤ LEVEL_TOL·max(1, scale). */
 export const LEVEL_TOL = 1e-8;
 
-/** Project out the found vectors, twice (classical Gram–Schmidt, twice is enough). */
-function deflate(found: ComplexVector[], re: Float64Array, im: Float64Array): void {
-  reorthogonalise(found, re, im);
-}
-
 interface Pair {
   theta: number;
   vec: ComplexVector;
@@ -74,7 +70,7 @@ async function lowestPair(
   const d = op.dim;
   let startRe = start.re;
   let startIm = start.im;
-  deflate(found, startRe, startIm);
+  reorthogonalise(found, startRe, startIm); // deflation: project out the found vectors
   if (normalise(startRe, startIm) <= 1e-12) return null;
   let best: Pair | null = null;
   for (let restart = 0; restart <= cfg.maxRestarts; restart++) {
@@ -83,17 +79,11 @@ async function lowestPair(
     const beta: number[] = [];
     let ritz: Ritz | null = null;
     for (let j = 0; j < cfg.maxBasis; j++) {
-      const v = basis[j];
-      const wRe = new Float64Array(d);
-      const wIm = new Float64Array(d);
-      op.apply(v.re, v.im, wRe, wIm);
-      let a = 0;
-      for (let i = 0; i < d; i++) a += v.re[i] * wRe[i] + v.im[i] * wIm[i];
-      alpha.push(a);
       // Against the found vectors and the basis together, twice: when the space is nearly
       // exhausted w is tiny, and separate passes would let rounding reintroduce found directions.
-      reorthogonalise(found.length ? [...found, ...basis] : basis, wRe, wIm);
-      const b = normalise(wRe, wIm);
+      const against = found.length ? [...found, ...basis] : basis;
+      const { alpha: a, beta: b, w } = lanczosStep(op, basis[j], against);
+      alpha.push(a);
       const invariant = b <= 1e-12 * cfg.scale;
       const last = j + 1 === cfg.maxBasis || invariant || found.length + basis.length >= d;
       if (last || j % 4 === 3) {
@@ -109,7 +99,7 @@ async function lowestPair(
       }
       if (last) break;
       beta.push(b);
-      basis.push({ re: wRe, im: wIm });
+      basis.push(w);
       await tick((restart * cfg.maxBasis + j) / ((cfg.maxRestarts + 1) * cfg.maxBasis));
     }
     if (!best) break;
@@ -121,18 +111,10 @@ async function lowestPair(
 
 /** The lowest Ritz vector Σ_k y_k0 v_k, normalised. */
 function combine(basis: ComplexVector[], ritz: Ritz, d: number): ComplexVector {
-  const re = new Float64Array(d);
-  const im = new Float64Array(d);
-  for (let k = 0; k < basis.length && k < ritz.y.rows; k++) {
-    const w = ritz.y.get(k, 0);
-    const v = basis[k];
-    for (let i = 0; i < d; i++) {
-      re[i] += w * v.re[i];
-      im[i] += w * v.im[i];
-    }
-  }
-  normalise(re, im);
-  return { re, im };
+  const y = ritz.y;
+  const v = combineBasis(basis, Math.min(basis.length, y.rows), (k) => y.get(k, 0), d);
+  normalise(v.re, v.im);
+  return v;
 }
 
 export async function lowestLevels(
@@ -172,19 +154,13 @@ export async function lowestLevels(
     const groundOpen = k > 0 && values[k - 1] <= values[0] + levelTol;
     if (k >= d || (k >= count && !groundOpen) || (groundOpen && k >= maxGround && k >= count))
       break;
-    const re = new Float64Array(d);
-    const im = new Float64Array(d);
-    for (let i = 0; i < d; i++) {
-      re[i] = nextUniform(rng) - 0.5;
-      im[i] = nextUniform(rng) - 0.5;
-    }
-    const pair = await lowestPair(op, found, { re, im }, cfg, (f) =>
+    const pair = await lowestPair(op, found, randomVector(rng, d), cfg, (f) =>
       Promise.resolve(opts.tick?.(Math.min(0.99, (Math.min(k, runs - 1) + f) / runs))),
     );
     if (!pair) break;
     converged &&= pair.converged;
     // Re-orthogonalise the new vector against the found ones (it is already, up to rounding).
-    deflate(found, pair.vec.re, pair.vec.im);
+    reorthogonalise(found, pair.vec.re, pair.vec.im);
     normalise(pair.vec.re, pair.vec.im);
     found.push(pair.vec);
     values.push(pair.theta);

@@ -89,7 +89,14 @@ export function applyWithShape(
   const offsets = localOffsets(bits);
   const mask = offsets[d - 1];
   const count = re.length >>> k;
+  // In a kernel memory the SIMD dense 1-qubit kernel beats the scalar diagonal one on a
+  // full 1-qubit diagonal (rz): npm run bench, ansatz row.
+  const simd1q = k === 1 && active.length === 2 && wasmBinding(re, im) !== undefined;
   if (shape.diagonal) {
+    if (simd1q) {
+      applyDense(re, im, bits, m);
+      return;
+    }
     if (k === 1 && active[active.length - 1] === 1) {
       applyDiagonal1q(re, im, bits[0], m[0], m[1], m[6], m[7], active.length === 1);
       return;

@@ -3,6 +3,7 @@
  * 16·2^n bytes. A density matrix holds 4^n complex entries: 16·4^n bytes.
  */
 import { EngineError } from "../errors";
+import { formatBytes as formatSize } from "../../format/units";
 
 /** Default qubit ceiling of the statevector method (1 GiB of amplitudes). */
 export const MAX_STATEVECTOR_QUBITS = 26;
@@ -28,15 +29,7 @@ export function densityMatrixBytes(n: number): number {
 
 /** Binary-prefixed size with one decimal for GiB/TiB ("4.0 GiB", "256 MiB", "512 B"). */
 export function formatBytes(bytes: number): string {
-  const units = ["B", "KiB", "MiB", "GiB", "TiB", "PiB", "EiB"];
-  let v = bytes;
-  let u = 0;
-  while (v >= 1024 && u < units.length - 1) {
-    v /= 1024;
-    u++;
-  }
-  if (u === 0) return `${v} B`;
-  return u >= 3 || v < 10 ? `${v.toFixed(1)} ${units[u]}` : `${Math.round(v)} ${units[u]}`;
+  return formatSize(bytes, { binary: true });
 }
 
 function assertFits(

@@ -46,9 +46,11 @@ describe("formatBytes (decimal SI prefixes, as upload limits are stated)", () =>
   });
   // IEC 80000-13 binary prefixes: 1 KiB = 1024 B, 1 MiB = 2²⁰ B
   it("uses binary prefixes on request", () => {
+    expect(formatBytes(512, { binary: true })).toBe("512 B");
     expect(formatBytes(65_536, { binary: true })).toBe("64 KiB");
-    expect(formatBytes(4 * 2 ** 20, { binary: true })).toBe("4 MiB");
+    expect(formatBytes(256 * 2 ** 20, { binary: true })).toBe("256 MiB");
+    expect(formatBytes(4 * 2 ** 20, { binary: true })).toBe("4.0 MiB");
     expect(formatBytes(1.5 * 2 ** 20, { binary: true })).toBe("1.5 MiB");
-    expect(formatBytes(2 ** 31, { binary: true })).toBe("2 GiB");
+    expect(formatBytes(2 ** 32, { binary: true })).toBe("4.0 GiB");
   });
 });

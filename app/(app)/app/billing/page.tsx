@@ -7,7 +7,7 @@ import { cn } from "@/components/ui/cn";
 import { requireCurrentOrg } from "@/lib/auth/guards";
 import { confirmCheckout, hasLiveSubscription } from "@/lib/billing/checkout";
 import { getPlan, isPaidPlan, plans } from "@/lib/billing/plans";
-import { formatLongDate, formatMoney } from "@/lib/format";
+import { formatLongDate, formatMoney, plural } from "@/lib/format";
 import { getDailyUsage } from "@/lib/billing/queries";
 import { loadProviderView } from "@/lib/billing/view";
 import { getSeatUsage } from "@/lib/members/seats";
@@ -186,8 +186,9 @@ export default async function BillingPage({ searchParams }: { searchParams: Prom
                   )
                 ) : (
                   <p className="text-ink-2">
-                    Sandbox includes {plan.limits.seats} people. A paid plan lets you buy exactly
-                    the seats you need; more seats are charged prorated for the rest of the month.
+                    Sandbox includes {plural(plan.limits.seats, "person", "people")}. A paid plan
+                    lets you buy exactly the seats you need; more seats are charged prorated for the
+                    rest of the month.
                   </p>
                 )}
               </div>

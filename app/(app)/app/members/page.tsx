@@ -50,7 +50,7 @@ export default async function MembersPage() {
             description={
               seats.paid
                 ? `${plan.name} plan: you pay for ${plural(seats.limit, "seat")}.`
-                : `${plan.name} plan: up to ${seats.limit} people, free.`
+                : `${plan.name} plan: up to ${plural(seats.limit, "person", "people")}, free.`
             }
             actions={
               isAdmin ? (

@@ -5,7 +5,12 @@ import { join } from "node:path";
 import ts from "typescript";
 import { describe, expect, it } from "vitest";
 import { operationExamples } from "@/components/api-docs/examples";
-import { schemaFields, type JsonSchema } from "@/components/api-docs/schema-fields";
+import {
+  listOperations,
+  requestBody,
+  type SchemaComponents,
+} from "@/components/api-docs/openapi-types";
+import { schemaFields } from "@/components/api-docs/schema-fields";
 import { getOpenApiDocument } from "@/lib/openapi/document";
 
 const dir = mkdtempSync(join(tmpdir(), "kw-docs-"));
@@ -51,16 +56,11 @@ describe("operationExamples", () => {
 });
 
 describe("schemaFields on the generated OpenAPI document (lib/openapi)", () => {
-  const doc = getOpenApiDocument("http://localhost:3000") as unknown as {
-    paths: Record<
-      string,
-      Record<string, { requestBody?: { content: Record<string, { schema: JsonSchema }> } }>
-    >;
-    components: { schemas: Record<string, JsonSchema> };
-  };
+  const doc = getOpenApiDocument("http://localhost:3000");
   it("lists the run request's fields with their required flags and the observable alternatives", () => {
-    const schema = doc.paths["/api/v1/runs"].post.requestBody!.content["application/json"].schema;
-    const rows = schemaFields(schema, doc.components.schemas);
+    const runs = listOperations(doc).find((o) => o.method === "post" && o.path === "/api/v1/runs");
+    const schema = requestBody(runs!.op)!.content["application/json"].schema!;
+    const rows = schemaFields(schema, doc.components!.schemas!);
     const byPath = new Map(rows.map((r) => [r.path, r]));
     expect(byPath.get("circuit")?.required).toBe(true);
     expect(byPath.get("circuit.source")?.type).toBe("string");
@@ -70,7 +70,7 @@ describe("schemaFields on the generated OpenAPI document (lib/openapi)", () => {
     expect(byPath.get("method")?.values).toContain('"density_matrix"');
   });
   it("follows $ref once and stops on cycles", () => {
-    const components: Record<string, JsonSchema> = {
+    const components: SchemaComponents = {
       Node: {
         type: "object",
         properties: { child: { $ref: "#/components/schemas/Node" }, v: { type: "number" } },

@@ -100,5 +100,9 @@ describe("formatAngle", () => {
     expect(formatAngle(0.3)).toBe("0.3");
     expect(formatAngle(1.23456)).toBe("1.235");
     expect(formatAngle(-0.1)).toBe("\u22120.1");
+    expect(formatAngle(2.5)).toBe("2.5");
+    expect(formatAngle(10)).toBe("10");
+    // rounds to zero: no minus sign on a zero
+    expect(formatAngle(-0.0001)).toBe("0");
   });
 });

@@ -82,26 +82,32 @@ function randomSource(n: number, length: number, inputs: number, rand: () => num
 }
 
 describe("fused adjoint gradient", () => {
-  it("equals the per-gate sweep on 30 random 5-qubit circuits to 1e-10 (seed 1207)", () => {
-    const rand = mulberry32(1207);
-    const n = 5;
-    const obs = prepareObservable(
-      { format: "pauli", terms: "0.8 Z0 Z1 + 0.5 X2 - 0.3 Y3 Y4 + 0.2 X0 Y1 Z4" },
-      n,
-    );
-    for (let k = 0; k < 30; k++) {
-      const inputs = 1 + Math.floor(rand() * 4);
-      const program = parseProgram("qasm3", randomSource(n, 40, inputs, rand));
-      const params = Object.fromEntries(
-        Array.from({ length: inputs }, (_, i) => [`t${i}`, rand() * 4 - 2]),
+  // n = 11: states in a WebAssembly kernel memory when the engine uses them (other sweep path)
+  it.each([
+    [5, 30],
+    [11, 4],
+  ])(
+    "equals the per-gate sweep on random %i-qubit circuits (%i) to 1e-10 (seed 1207)",
+    (n, circuits) => {
+      const rand = mulberry32(1207);
+      const obs = prepareObservable(
+        { format: "pauli", terms: "0.8 Z0 Z1 + 0.5 X2 - 0.3 Y3 Y4 + 0.2 X0 Y1 Z4" },
+        n,
       );
-      const tape = buildTape(program, params);
-      const want = perGateGradient(tape, simulateStatevector(program.bind(params)), obs);
-      const got = adjointGradient(tape, simulateStatevector(program.bind(params)), obs);
-      expect(got.length).toBe(inputs);
-      for (let i = 0; i < inputs; i++) expect(Math.abs(got[i] - want[i])).toBeLessThan(1e-10);
-    }
-  });
+      for (let k = 0; k < circuits; k++) {
+        const inputs = 1 + Math.floor(rand() * 4);
+        const program = parseProgram("qasm3", randomSource(n, 40, inputs, rand));
+        const params = Object.fromEntries(
+          Array.from({ length: inputs }, (_, i) => [`t${i}`, rand() * 4 - 2]),
+        );
+        const tape = buildTape(program, params);
+        const want = perGateGradient(tape, simulateStatevector(program.bind(params)), obs);
+        const got = adjointGradient(tape, simulateStatevector(program.bind(params)), obs);
+        expect(got.length).toBe(inputs);
+        for (let i = 0; i < inputs; i++) expect(Math.abs(got[i] - want[i])).toBeLessThan(1e-10);
+      }
+    },
+  );
 });
 
 describe("λ = A·ψ", () => {
