@@ -9,6 +9,7 @@
  * inverts the tail by bisection on t in a bracket that always contains it (monotone, ~60
  * steps, exact to double round-off); ν = ∞ (or very large) falls back to the normal.
  */
+import { erfc } from "./normal";
 
 const LANCZOS = [
   0.99999999999980993, 676.5203681218851, -1259.1392167224028, 771.32342877765313,
@@ -72,37 +73,8 @@ export function incompleteBeta(x: number, a: number, b: number): number {
 /** Degrees of freedom beyond which the t distribution is taken as the standard normal. */
 const NORMAL_DF = 1e7;
 
-/** Complementary error function to ~1e-15 relative (via the incomplete gamma of ½; common practice). */
-function normalTwoSided(z: number): number {
-  // P(|Z| > z) = I_{1/(1+z²/ν)} as ν → ∞ is unstable; use erfc by its continued fraction.
-  const x = Math.abs(z) / Math.SQRT2;
-  if (x < 0.5) {
-    // erf series
-    let sum = x;
-    let term = x;
-    for (let n = 1; n < 60; n++) {
-      term *= (-x * x) / n;
-      sum += term / (2 * n + 1);
-    }
-    return 1 - (2 / Math.sqrt(Math.PI)) * sum;
-  }
-  // Lentz continued fraction for erfc (Numerical Recipes §6.2 form)
-  const tiny = 1e-300;
-  let f = x;
-  let c = x;
-  let d = 0;
-  for (let n = 1; n < 500; n++) {
-    const an = n / 2;
-    d = x + an * d;
-    d = Math.abs(d) < tiny ? 1 / tiny : 1 / d;
-    c = x + an / c;
-    if (Math.abs(c) < tiny) c = tiny;
-    const del = c * d;
-    f *= del;
-    if (Math.abs(del - 1) < 1e-16) break;
-  }
-  return Math.exp(-x * x) / (f * Math.sqrt(Math.PI));
-}
+/** P(|Z| > |z|) for the standard normal (the t distribution's limit for huge ν). */
+const normalTwoSided = (z: number): number => erfc(Math.abs(z) / Math.SQRT2);
 
 /** P(|T_ν| > |t|), the two-sided p-value of a t statistic with ν > 0 degrees of freedom. */
 export function studentTwoSidedP(t: number, df: number): number {
