@@ -12,10 +12,10 @@ import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Textarea } from "@/components/ui/textarea";
 import { CodeEditor } from "@/components/workspace/code-editor";
-import { parseMatrixText } from "@/components/workspace/composer-model";
+import { parseMatrixText } from "@/components/workspace/run-builder-model";
 import { IssueList } from "@/components/workspace/issue-list";
 import { Segmented } from "@/components/ui/segmented";
-import { STARTER_QASM } from "@/components/workspace/composer-model";
+import { STARTER_QASM } from "@/components/workspace/run-builder-model";
 import { apiFetch, isApiError, type ApiError } from "@/lib/swr/api-client";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";
 

@@ -11,7 +11,7 @@ import { CircuitPicker } from "@/components/library/library-picker";
 import { Alert } from "@/components/ui/alert";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { CodeEditor } from "./code-editor";
-import type { ComposerValues } from "./composer-model";
+import type { RunBuilderValues } from "./run-builder-model";
 import { FileDropZone } from "./file-drop";
 import type { SourceIssue } from "./issue-ranges";
 import { IssueList } from "./issue-list";
@@ -31,7 +31,7 @@ export function CircuitCard({
   onSubmit: () => void;
   readOnly?: boolean;
 }) {
-  const { control, setValue, watch, formState } = useFormContext<ComposerValues>();
+  const { control, setValue, watch, formState } = useFormContext<RunBuilderValues>();
   const [picking, setPicking] = useState(false);
   const [notice, setNotice] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const format = watch("circuit.format");

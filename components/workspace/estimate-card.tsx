@@ -11,11 +11,11 @@ import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
 import { RUN_METHOD_LABELS } from "@/lib/runs/constants";
-import type { ComposerValues } from "./composer-model";
+import type { RunBuilderValues } from "./run-builder-model";
 import { Segmented } from "@/components/ui/segmented";
 
 export function EstimateCard({ readOnly }: { readOnly?: boolean }) {
-  const { control, register, watch, formState } = useFormContext<ComposerValues>();
+  const { control, register, watch, formState } = useFormContext<RunBuilderValues>();
   const budget = watch("budget");
   const e = formState.errors;
   return (

@@ -1,7 +1,7 @@
 /**
  * Form ⇄ request for the per-qubit and per-gate parts of the noise model
  * (`noise.readout.qubits`, `noise.gates`, `noise.idle`; semantics in README "Noise model").
- * Text fields like the rest of the composer; blank means "not set".
+ * Text fields like the rest of the run builder; blank means "not set".
  */
 import type { EstimateRequest } from "@/lib/quantum/schemas";
 

@@ -15,7 +15,7 @@ import { Button } from "@/components/ui/button";
 import { Field } from "@/components/ui/field";
 import { IconClose, IconPlus } from "@/components/ui/icons";
 import { Input } from "@/components/ui/input";
-import type { ComposerValues } from "./composer-model";
+import type { RunBuilderValues } from "./run-builder-model";
 import { ADVANCED_NOISE_HELP } from "./noise-help";
 
 type NoiseErrors = Record<string, unknown> | undefined;
@@ -40,7 +40,7 @@ function Rate({
   readOnly?: boolean;
   error?: string;
 }) {
-  const { register } = useFormContext<ComposerValues>();
+  const { register } = useFormContext<RunBuilderValues>();
   return (
     <Field label={label} error={error} className="min-w-24 flex-1">
       <Input
@@ -90,7 +90,7 @@ type Column =
       placeholder?: string;
     };
 
-type RowList = Extract<FieldArrayPath<ComposerValues>, `noise.${string}`>;
+type RowList = Extract<FieldArrayPath<RunBuilderValues>, `noise.${string}`>;
 
 /**
  * One list of noise rows (readout per qubit, overrides per gate): heading, help, the
@@ -113,12 +113,12 @@ function RowEditor<N extends RowList>({
   removeLabel: (row: number) => string;
   addLabel: string;
   /** The appended row; `count` is the number of rows before it. */
-  newRow: (count: number) => FieldArray<ComposerValues, N>;
+  newRow: (count: number) => FieldArray<RunBuilderValues, N>;
   readOnly?: boolean;
 }) {
-  const { control, register, formState } = useFormContext<ComposerValues>();
+  const { control, register, formState } = useFormContext<RunBuilderValues>();
   const errors = formState.errors.noise as NoiseErrors;
-  const rows = useFieldArray<ComposerValues, N>({ control, name });
+  const rows = useFieldArray<RunBuilderValues, N>({ control, name });
   const list = name.slice("noise.".length);
   return (
     <section className="grid gap-2" aria-label={title}>
@@ -145,7 +145,7 @@ function RowEditor<N extends RowList>({
                   autoComplete="off"
                   placeholder={c.placeholder}
                   readOnly={readOnly}
-                  {...register(`${name}.${i}.${c.field}` as Path<ComposerValues>)}
+                  {...register(`${name}.${i}.${c.field}` as Path<RunBuilderValues>)}
                 />
               </Field>
             ) : (
@@ -181,7 +181,7 @@ function RowEditor<N extends RowList>({
 }
 
 export function NoiseAdvanced({ readOnly }: { readOnly?: boolean }) {
-  const { formState } = useFormContext<ComposerValues>();
+  const { formState } = useFormContext<RunBuilderValues>();
   const errors = formState.errors.noise as NoiseErrors;
 
   return (

@@ -11,7 +11,7 @@ import { Checkbox } from "@/components/ui/checkbox";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Select } from "@/components/ui/select";
-import type { ComposerValues } from "./composer-model";
+import type { RunBuilderValues } from "./run-builder-model";
 import { NoiseAdvanced } from "./noise-advanced";
 import { advancedStateNoise, EMPTY_ADVANCED_NOISE } from "./noise-advanced-model";
 import {
@@ -26,7 +26,7 @@ const path = (k: NoiseKey) =>
   (k === "p1Given0" || k === "p0Given1" ? `noise.readout.${k}` : `noise.${k}`) as
     "noise.depolarizing1q" | "noise.readout.p1Given0";
 
-export function currentNoiseValues(v: ComposerValues["noise"]): NoiseProfileValues {
+export function currentNoiseValues(v: RunBuilderValues["noise"]): NoiseProfileValues {
   return {
     depolarizing1q: v.depolarizing1q,
     depolarizing2q: v.depolarizing2q,
@@ -48,7 +48,7 @@ export function NoiseCard({
   /** Save / manage controls for saved profiles. */
   profilesSlot?: React.ReactNode;
 }) {
-  const { control, register, watch, setValue, formState } = useFormContext<ComposerValues>();
+  const { control, register, watch, setValue, formState } = useFormContext<RunBuilderValues>();
   const enabled = watch("noiseEnabled");
   const method = watch("method");
   const noise = watch("noise");

@@ -17,7 +17,7 @@ import { actionData, actionText } from "@/lib/api/action-state";
 import { Input } from "@/components/ui/input";
 import type { NoiseProfileView } from "@/lib/noise-profiles/schemas";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";
-import { toRequest, type ComposerValues } from "./composer-model";
+import { toRequest, type RunBuilderValues } from "./run-builder-model";
 import { IconSave } from "@/components/ui/icons";
 import type { NoiseProfile } from "./noise-help";
 import { advancedNoiseFromRequest } from "./noise-advanced-model";
@@ -54,7 +54,7 @@ export function useNoiseProfiles() {
 
 export function NoiseProfileControls({ state }: { state: ReturnType<typeof useNoiseProfiles> }) {
   const { orgId } = useWorkspaceOrg();
-  const { getValues } = useFormContext<ComposerValues>();
+  const { getValues } = useFormContext<RunBuilderValues>();
   const [naming, setNaming] = useState(false);
   const [name, setName] = useState("");
   const [busy, setBusy] = useState(false);

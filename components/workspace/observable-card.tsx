@@ -13,7 +13,7 @@ import { Textarea } from "@/components/ui/textarea";
 import { CLUSTER_TERMS } from "@/lib/examples/three-spin-cluster";
 import type { LibraryObservable } from "@/lib/swr/types";
 import { CodeEditor } from "./code-editor";
-import type { ComposerValues } from "./composer-model";
+import type { RunBuilderValues } from "./run-builder-model";
 import { extensionOf } from "./file-rules";
 import { FileDropZone, type LoadedFile } from "./file-drop";
 import type { SourceIssue } from "./issue-ranges";
@@ -36,7 +36,7 @@ export function ObservableCard({
   onSubmit: () => void;
   readOnly?: boolean;
 }) {
-  const { control, setValue, watch, formState, register } = useFormContext<ComposerValues>();
+  const { control, setValue, watch, formState, register } = useFormContext<RunBuilderValues>();
   const [picking, setPicking] = useState(false);
   const [notice, setNotice] = useState<{ tone: "error" | "success"; text: string } | null>(null);
   const format = watch("observable.format");

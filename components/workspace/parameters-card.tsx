@@ -13,12 +13,12 @@ import { Button } from "@/components/ui/button";
 import { Card, CardBody, CardHeader } from "@/components/ui/card";
 import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
-import { linspace, parseNumber, type ComposerValues } from "./composer-model";
+import { linspace, parseNumber, type RunBuilderValues } from "./run-builder-model";
 import { formatSignificant, plural } from "@/lib/format";
 
 const MAX_AXES = 2;
 
-function sweepSummary(a: ComposerValues["sweepAxes"][number]): string | null {
+function sweepSummary(a: RunBuilderValues["sweepAxes"][number]): string | null {
   const from = parseNumber(a.from);
   const to = parseNumber(a.to);
   const n = parseNumber(a.points);
@@ -36,7 +36,7 @@ export function ParametersCard({
   inputs: { name: string; type: string }[];
   readOnly?: boolean;
 }) {
-  const { register, watch, setValue, formState, control } = useFormContext<ComposerValues>();
+  const { register, watch, setValue, formState, control } = useFormContext<RunBuilderValues>();
   const axes = watch("sweepAxes");
   const errors = formState.errors;
   const sweptIndex = (name: string) => axes.findIndex((a) => a.name === name);

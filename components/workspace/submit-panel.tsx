@@ -7,7 +7,7 @@ import { Field } from "@/components/ui/field";
 import { Input } from "@/components/ui/input";
 import { Kbd } from "@/components/ui/kbd";
 import type { ApiError } from "@/lib/swr/api-client";
-import type { ComposerValues } from "./composer-model";
+import type { RunBuilderValues } from "./run-builder-model";
 
 export function SubmitPanel({
   submitError,
@@ -16,7 +16,7 @@ export function SubmitPanel({
   submitError: ApiError | null;
   readOnly: boolean;
 }) {
-  const { formState, register } = useFormContext<ComposerValues>();
+  const { formState, register } = useFormContext<RunBuilderValues>();
   const hasErrors = Object.keys(formState.errors).length > 0;
   return (
     <div className="grid gap-3 rounded-lg border border-line bg-surface p-4 shadow-card">

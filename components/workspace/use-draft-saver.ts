@@ -5,18 +5,18 @@
  */
 import { useEffect, type RefObject } from "react";
 import type { UseFormSubscribe } from "react-hook-form";
-import { draftKey, writeDraft } from "./composer-draft";
-import type { ComposerValues } from "./composer-model";
+import { draftKey, writeDraft } from "./run-builder-draft";
+import type { RunBuilderValues } from "./run-builder-model";
 
 export function useDraftSaver(
   orgId: string,
-  subscribe: UseFormSubscribe<ComposerValues>,
+  subscribe: UseFormSubscribe<RunBuilderValues>,
   /** False until the form holds its start (the defaults must not overwrite a draft). */
   loaded: RefObject<boolean>,
 ) {
   useEffect(() => {
     let t: ReturnType<typeof setTimeout> | undefined;
-    let pending: ComposerValues | null = null;
+    let pending: RunBuilderValues | null = null;
     const flush = () => {
       clearTimeout(t);
       if (pending) window.localStorage.setItem(draftKey(orgId), writeDraft(pending));

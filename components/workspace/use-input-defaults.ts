@@ -5,12 +5,12 @@
  */
 import { useEffect, useRef } from "react";
 import type { UseFormReturn } from "react-hook-form";
-import type { ComposerValues } from "./composer-model";
-import type { ComposerContext, ComposerOutput } from "./composer-resolver";
+import type { RunBuilderValues } from "./run-builder-model";
+import type { RunBuilderContext, RunBuilderOutput } from "./run-builder-resolver";
 
 export function useInputDefaults(
   outline: { inputs: readonly { name: string }[] } | null,
-  form: UseFormReturn<ComposerValues, ComposerContext, ComposerOutput>,
+  form: UseFormReturn<RunBuilderValues, RunBuilderContext, RunBuilderOutput>,
 ) {
   const { setValue } = form;
   const seenInputs = useRef(new Set<string>());

@@ -9,12 +9,12 @@ import { apiFetch } from "@/lib/swr/api-client";
 import { useWorkspaceOrg } from "@/lib/swr/org-context";
 import type { Run } from "@/lib/swr/types";
 import { fetchCircuit, fetchObservable } from "@/lib/swr/use-library";
-import { DEFAULT_VALUES, fromRequest, type ComposerValues } from "./composer-model";
+import { DEFAULT_VALUES, fromRequest, type RunBuilderValues } from "./run-builder-model";
 
 export type Prefill =
   | { state: "none" }
   | { state: "loading" }
-  | { state: "ready"; values: ComposerValues }
+  | { state: "ready"; values: RunBuilderValues }
   | { state: "failed"; message: string };
 
 export function usePrefill(search: ReadonlyURLSearchParams): Prefill {
@@ -33,7 +33,7 @@ export function usePrefill(search: ReadonlyURLSearchParams): Prefill {
         const run = await apiFetch<Run>(orgId, `/api/v1/runs/${encodeURIComponent(from)}`);
         return fromRequest(run.request, `${run.name} (again)`);
       }
-      const v: ComposerValues = structuredClone(DEFAULT_VALUES);
+      const v: RunBuilderValues = structuredClone(DEFAULT_VALUES);
       if (circuitId) {
         const c = await fetchCircuit(orgId, circuitId);
         v.circuit = { format: c.format, source: c.source };

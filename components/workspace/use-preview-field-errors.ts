@@ -7,8 +7,8 @@
 import { useEffect, useRef } from "react";
 import type { Path, UseFormReturn } from "react-hook-form";
 import type { ApiError } from "@/lib/swr/api-client";
-import { formPath, type ComposerValues } from "./composer-model";
-import type { ComposerContext, ComposerOutput } from "./composer-resolver";
+import { formPath, type RunBuilderValues } from "./run-builder-model";
+import type { RunBuilderContext, RunBuilderOutput } from "./run-builder-resolver";
 
 /** Form paths whose issues the code editors show inline (never as field errors). */
 export const EDITOR_PATHS = ["circuit.source", "observable.terms"];
@@ -16,12 +16,12 @@ export const EDITOR_PATHS = ["circuit.source", "observable.terms"];
 export function usePreviewFieldErrors(
   previewError: ApiError | null | undefined,
   swept: string[],
-  form: UseFormReturn<ComposerValues, ComposerContext, ComposerOutput>,
+  form: UseFormReturn<RunBuilderValues, RunBuilderContext, RunBuilderOutput>,
 ) {
   const { setError, clearErrors } = form;
   const serverPaths = useRef<string[]>([]);
   useEffect(() => {
-    for (const p of serverPaths.current) clearErrors(p as Path<ComposerValues>);
+    for (const p of serverPaths.current) clearErrors(p as Path<RunBuilderValues>);
     serverPaths.current = [];
     if (!previewError) return;
     for (const e of previewError.errors) {
@@ -33,7 +33,7 @@ export function usePreviewFieldErrors(
         p === "root"
       )
         continue;
-      setError(p as Path<ComposerValues>, { type: "server", message: e.message });
+      setError(p as Path<RunBuilderValues>, { type: "server", message: e.message });
       serverPaths.current.push(p);
     }
     // eslint-disable-next-line react-hooks/exhaustive-deps -- swept names are read with the error they belong to

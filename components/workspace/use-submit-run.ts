@@ -9,14 +9,14 @@ import { useCallback, useState } from "react";
 import type { Path, UseFormReturn } from "react-hook-form";
 import { apiFetch, isApiError, type ApiError } from "@/lib/swr/api-client";
 import type { Run } from "@/lib/swr/types";
-import { formPath, type ComposerValues } from "./composer-model";
-import type { ComposerContext, ComposerOutput } from "./composer-resolver";
+import { formPath, type RunBuilderValues } from "./run-builder-model";
+import type { RunBuilderContext, RunBuilderOutput } from "./run-builder-resolver";
 import { EDITOR_PATHS } from "./use-preview-field-errors";
 
 export function useSubmitRun(
   orgId: string,
   swept: string[],
-  form: UseFormReturn<ComposerValues, ComposerContext, ComposerOutput>,
+  form: UseFormReturn<RunBuilderValues, RunBuilderContext, RunBuilderOutput>,
 ) {
   const router = useRouter();
   const { handleSubmit, setError } = form;
@@ -38,7 +38,7 @@ export function useSubmitRun(
           for (const e of error.errors) {
             const p = formPath(e.path, swept);
             if (!EDITOR_PATHS.includes(p) && p !== "root")
-              setError(p as Path<ComposerValues>, { type: "server", message: e.message });
+              setError(p as Path<RunBuilderValues>, { type: "server", message: e.message });
           }
         }
       })(),

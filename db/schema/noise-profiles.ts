@@ -1,5 +1,5 @@
 /**
- * Noise profiles saved by an organisation for the composer: a named noise model
+ * Noise profiles saved by an organisation for the run builder: a named noise model
  * (semantics as in DEVELOPERS.md, "Noise model"; probabilities in [0, 1]). Names are unique per organisation.
  */
 import { sql } from "drizzle-orm";

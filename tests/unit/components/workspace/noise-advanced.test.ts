@@ -7,18 +7,18 @@ import {
   DEFAULT_VALUES,
   fromRequest,
   toRequest,
-  type ComposerValues,
-} from "@/components/workspace/composer-model";
+  type RunBuilderValues,
+} from "@/components/workspace/run-builder-model";
 import { estimateRequestSchema } from "@/lib/quantum/schemas";
 
-const base = (noise: Partial<ComposerValues["noise"]>): ComposerValues => ({
+const base = (noise: Partial<RunBuilderValues["noise"]>): RunBuilderValues => ({
   ...DEFAULT_VALUES,
   method: "density_matrix",
   noiseEnabled: true,
   noise: { ...DEFAULT_VALUES.noise, ...noise },
 });
 
-describe("per-qubit and per-gate noise in the composer", () => {
+describe("per-qubit and per-gate noise in the run builder", () => {
   it("builds readout.qubits, gates and idle, which the request schema accepts, and reads them back", () => {
     const v = base({
       depolarizing1q: "0.01",

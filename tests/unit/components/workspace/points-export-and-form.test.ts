@@ -1,6 +1,6 @@
 /**
  * The points CSV (run page download and `GET /runs/:id/points.csv`) read back with
- * Python's csv module (an outside RFC 4180 reader), and the composer's points list and
+ * Python's csv module (an outside RFC 4180 reader), and the run builder's points list and
  * gradient toggle: form → request → form round trip, bad JSON as a field message.
  */
 import { execFileSync } from "node:child_process";
@@ -13,7 +13,7 @@ import {
   formPath,
   fromRequest,
   toRequest,
-} from "@/components/workspace/composer-model";
+} from "@/components/workspace/run-builder-model";
 import { pointsCsv } from "@/lib/export/run-export";
 
 function pythonReadCsv(text: string): string[][] {
@@ -120,7 +120,7 @@ describe("pointsCsv", () => {
   });
 });
 
-describe("composer: points and gradient", () => {
+describe("run builder: points and gradient", () => {
   const q3 = {
     format: "qasm3" as const,
     source: 'OPENQASM 3.0;\ninclude "stdgates.inc";\nqubit[1] q;\ninput float t;\nrx(t) q[0];\n',

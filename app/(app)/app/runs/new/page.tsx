@@ -2,7 +2,7 @@ import type { Metadata } from "next";
 import { Suspense } from "react";
 import { PageHeader } from "@/components/shell/page-header";
 import { Skeleton } from "@/components/ui/skeleton";
-import { Composer } from "@/components/workspace/composer";
+import { RunBuilder } from "@/components/workspace/run-builder";
 import { WorkspaceFrame } from "@/components/workspace/workspace-frame";
 
 export const metadata: Metadata = { title: "New run" };
@@ -16,7 +16,7 @@ export default function NewRunPage() {
         crumbs={[{ label: "Runs", href: "/app/runs" }, { label: "New run" }]}
       />
       <Suspense fallback={<Skeleton className="h-[32rem]" />}>
-        <Composer />
+        <RunBuilder />
       </Suspense>
     </WorkspaceFrame>
   );

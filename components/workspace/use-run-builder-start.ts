@@ -9,17 +9,17 @@
 import type { ReadonlyURLSearchParams } from "next/navigation";
 import { useEffect, useRef, useState, useSyncExternalStore } from "react";
 import type { UseFormReset } from "react-hook-form";
-import { draftKey, readDraft } from "./composer-draft";
-import { DEFAULT_VALUES, type ComposerValues } from "./composer-model";
+import { draftKey, readDraft } from "./run-builder-draft";
+import { DEFAULT_VALUES, type RunBuilderValues } from "./run-builder-model";
 import { usePrefill } from "./use-prefill";
 
-type Start = { from: "none" } | { from: "draft" | "prefill"; values: ComposerValues };
+type Start = { from: "none" } | { from: "draft" | "prefill"; values: RunBuilderValues };
 const noSubscription = () => () => {};
 
-export function useComposerStart(
+export function useRunBuilderStart(
   orgId: string,
   search: ReadonlyURLSearchParams,
-  reset: UseFormReset<ComposerValues>,
+  reset: UseFormReset<RunBuilderValues>,
 ) {
   const loaded = useRef(false);
   const prefill = usePrefill(search);

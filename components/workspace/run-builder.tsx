@@ -2,8 +2,8 @@
 /**
  * The new-run form: circuit, observable, parameters, estimate settings and noise on
  * the left, the live preview on the right. One react-hook-form form validated by the
- * shared run schema (composer-resolver); the draft is saved per organisation and
- * restored after a reload (use-composer-start, use-draft-saver); submit with the button
+ * shared run schema (run-builder-resolver); the draft is saved per organisation and
+ * restored after a reload (use-run-builder-start, use-draft-saver); submit with the button
  * or Ctrl/Cmd+Enter from anywhere in it (use-submit-run).
  */
 import { useSearchParams } from "next/navigation";
@@ -13,8 +13,12 @@ import { Alert, SimulationCaution } from "@/components/ui/alert";
 import { canWrite, useWorkspaceOrg } from "@/lib/swr/org-context";
 import { usePreview } from "@/lib/swr/use-preview";
 import { CircuitCard } from "./circuit-card";
-import { DEFAULT_VALUES, toRequest, type ComposerValues } from "./composer-model";
-import { composerResolver, type ComposerContext, type ComposerOutput } from "./composer-resolver";
+import { DEFAULT_VALUES, toRequest, type RunBuilderValues } from "./run-builder-model";
+import {
+  runBuilderResolver,
+  type RunBuilderContext,
+  type RunBuilderOutput,
+} from "./run-builder-resolver";
 import { EstimateCard } from "./estimate-card";
 import { NoiseCard } from "./noise-card";
 import { NoiseProfileControls, useNoiseProfiles } from "./noise-profiles";
@@ -23,28 +27,28 @@ import { ParametersCard } from "./parameters-card";
 import { PreviewPanel } from "./preview-panel";
 import { RestoreNotice } from "./restore-notice";
 import { SubmitPanel } from "./submit-panel";
-import { useComposerStart } from "./use-composer-start";
+import { useRunBuilderStart } from "./use-run-builder-start";
 import { useDraftSaver } from "./use-draft-saver";
 import { useInputDefaults } from "./use-input-defaults";
 import { usePreviewFieldErrors } from "./use-preview-field-errors";
 import { useSubmitRun } from "./use-submit-run";
 
-export function Composer() {
+export function RunBuilder() {
   const { orgId, role } = useWorkspaceOrg();
   const readOnly = !canWrite(role);
   const search = useSearchParams();
   const [inputNames, setInputNames] = useState<readonly string[] | undefined>(undefined);
-  const form = useForm<ComposerValues, ComposerContext, ComposerOutput>({
+  const form = useForm<RunBuilderValues, RunBuilderContext, RunBuilderOutput>({
     defaultValues: DEFAULT_VALUES,
-    resolver: composerResolver,
+    resolver: runBuilderResolver,
     context: { inputNames },
   });
 
-  const { loaded, restored, startOver } = useComposerStart(orgId, search, form.reset);
+  const { loaded, restored, startOver } = useRunBuilderStart(orgId, search, form.reset);
   useDraftSaver(orgId, form.subscribe, loaded);
 
   // The whole form, as the preview needs it (a fresh object per change).
-  const values = useWatch({ control: form.control }) as ComposerValues;
+  const values = useWatch({ control: form.control }) as RunBuilderValues;
   const built = useMemo(() => toRequest(values, inputNames), [values, inputNames]);
   // One preview request per typing pause: the whole request, or the circuit alone while the
   // form has issues of its own; either answer carries the circuit's outline for the diagram.

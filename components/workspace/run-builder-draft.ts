@@ -1,9 +1,9 @@
 /**
- * Drafts of the composer in localStorage, one per organisation, so nothing typed is lost
+ * Drafts of the run builder in localStorage, one per organisation, so nothing typed is lost
  * on a reload or an error. A stored draft is merged field by field onto the defaults:
  * fields of the wrong type (an older or tampered draft) fall back to the default.
  */
-import { DEFAULT_VALUES, type ComposerValues } from "./composer-model";
+import { DEFAULT_VALUES, type RunBuilderValues } from "./run-builder-model";
 
 const VERSION = 1;
 
@@ -21,7 +21,7 @@ function mergeInto(defaults: unknown, stored: unknown): unknown {
   return typeof stored === typeof defaults ? stored : defaults;
 }
 
-function cleanAxes(axes: unknown): ComposerValues["sweepAxes"] {
+function cleanAxes(axes: unknown): RunBuilderValues["sweepAxes"] {
   if (!Array.isArray(axes)) return [];
   return axes
     .slice(0, 2)
@@ -43,7 +43,7 @@ function cleanParams(p: unknown): Record<string, string> {
 }
 
 /** Parses stored draft text; null when absent or unreadable. */
-export function readDraft(text: string | null): ComposerValues | null {
+export function readDraft(text: string | null): RunBuilderValues | null {
   if (!text) return null;
   let data: unknown;
   try {
@@ -53,7 +53,7 @@ export function readDraft(text: string | null): ComposerValues | null {
   }
   if (!data || typeof data !== "object" || (data as { v?: unknown }).v !== VERSION) return null;
   const values = (data as { values?: unknown }).values;
-  const merged = mergeInto(DEFAULT_VALUES, values) as ComposerValues;
+  const merged = mergeInto(DEFAULT_VALUES, values) as RunBuilderValues;
   const raw = (values ?? {}) as Record<string, unknown>;
   return {
     ...merged,
@@ -62,6 +62,6 @@ export function readDraft(text: string | null): ComposerValues | null {
   };
 }
 
-export function writeDraft(values: ComposerValues): string {
+export function writeDraft(values: RunBuilderValues): string {
   return JSON.stringify({ v: VERSION, savedAt: new Date().toISOString(), values });
 }

@@ -1,16 +1,16 @@
 /**
- * react-hook-form resolver of the composer: form text → request (composer-model), then
+ * react-hook-form resolver of the run builder: form text → request (run-builder-model), then
  * the ONE shared schema of `POST /api/v1/runs` (runCreateSchema, the same zod schema the
  * API and the OpenAPI document use). Issues are put on the fields that show them.
  */
 import { toNestErrors } from "@hookform/resolvers";
 import type { FieldError, Resolver } from "react-hook-form";
 import { runCreateSchema, type RunCreateInput } from "@/lib/runs/schemas";
-import { formPath, toRequest, type ComposerValues, type FormIssue } from "./composer-model";
+import { formPath, toRequest, type RunBuilderValues, type FormIssue } from "./run-builder-model";
 
-export type ComposerContext = { inputNames: readonly string[] | undefined };
+export type RunBuilderContext = { inputNames: readonly string[] | undefined };
 
-export type ComposerOutput = { body: RunCreateInput };
+export type RunBuilderOutput = { body: RunCreateInput };
 
 /** Issues (request or form paths) → a flat `{ path: FieldError }` record, first message per field. */
 export function issuesToFlat(
@@ -25,11 +25,11 @@ export function issuesToFlat(
   return flat;
 }
 
-export const composerResolver: Resolver<ComposerValues, ComposerContext, ComposerOutput> = async (
-  values,
-  context,
-  options,
-) => {
+export const runBuilderResolver: Resolver<
+  RunBuilderValues,
+  RunBuilderContext,
+  RunBuilderOutput
+> = async (values, context, options) => {
   const { request, name, issues } = toRequest(values, context?.inputNames);
   const swept = values.sweepAxes.map((a) => a.name);
   const all: FormIssue[] = [...issues];

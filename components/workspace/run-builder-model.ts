@@ -1,5 +1,5 @@
 /**
- * The composer's form values and their translation into an engine request.
+ * The run builder's form values and their translation into an engine request.
  *
  * Numbers stay text while the user types (so "0." or an empty field are not lost and
  * drafts round-trip exactly); `toRequest` converts them and reports a field-level issue
@@ -20,7 +20,7 @@ export type Budget = "exact" | "shots" | "precision";
 
 export type SweepAxis = { name: string; from: string; to: string; points: string };
 
-export type ComposerValues = {
+export type RunBuilderValues = {
   name: string;
   circuit: { format: "qasm2" | "qasm3"; source: string };
   observable: { format: "pauli" | "matrix"; terms: string; matrixText: string };
@@ -54,7 +54,7 @@ cx q[0], q[1];
 ry(0.6) q[1];
 `;
 
-export const DEFAULT_VALUES: ComposerValues = {
+export const DEFAULT_VALUES: RunBuilderValues = {
   name: "",
   circuit: { format: "qasm2", source: STARTER_QASM },
   observable: { format: "pauli", terms: "Z0 Z1 + 0.5 X0 X1", matrixText: "" },
@@ -135,7 +135,7 @@ export function parseMatrixText(text: string): { real: number[][]; imag?: number
  * converting text to numbers. Fields that do not apply (noise when off, the budget not
  * chosen, swept parameters) are left out.
  */
-export function toRequest(v: ComposerValues, inputNames?: readonly string[]): Build {
+export function toRequest(v: RunBuilderValues, inputNames?: readonly string[]): Build {
   const issues: FormIssue[] = [];
   const num = (path: string, text: string, kind: "int" | "real" = "real"): number | undefined => {
     const x = parseNumber(text);
@@ -296,7 +296,7 @@ const str = (x: number | undefined | null) =>
  * A sweep becomes ranges when its values are evenly spaced; otherwise its first and last
  * values with the same number of points.
  */
-export function fromRequest(req: EstimateRequest, name = ""): ComposerValues {
+export function fromRequest(req: EstimateRequest, name = ""): RunBuilderValues {
   const noise = req.noise;
   const sweepAxes: SweepAxis[] = Object.entries(req.sweep ?? {})
     .slice(0, 2)
