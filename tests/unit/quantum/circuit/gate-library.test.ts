@@ -19,7 +19,7 @@ import {
   scale,
   seededRandom,
   type CMat,
-} from "./dense-composer";
+} from "./dense-reference";
 import { OPENQASM2, OPENQASM3, specUnitary, uQasm2Reference, uQasm3Reference } from "./spec-gates";
 
 const TOL = 1e-12;

@@ -21,7 +21,7 @@ import {
   mul,
   phaseDistance,
   type CMat,
-} from "./dense-composer";
+} from "./dense-reference";
 import { OPENQASM3, specUnitary } from "./spec-gates";
 
 const H3 = 'OPENQASM 3.0;\ninclude "stdgates.inc";\n';

@@ -8,7 +8,7 @@ import { readFileSync } from "node:fs";
 import { describe, expect, it } from "vitest";
 import { circuitStats, parseProgram } from "@/lib/quantum/circuit";
 import type { CircuitOp } from "@/lib/quantum/types";
-import { fromInterleaved, phaseDistance } from "./dense-composer";
+import { fromInterleaved, phaseDistance } from "./dense-reference";
 import { OPENQASM2, OPENQASM3, specUnitary } from "./spec-gates";
 
 const fixture = (name: string) =>

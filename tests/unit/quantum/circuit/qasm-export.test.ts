@@ -1,7 +1,7 @@
 /**
  * OpenQASM 2.0 export. Checks: the text re-parses with parseProgram("qasm2", …); its
  * unitary equals (basis rotations) × (original unitary) up to one global phase, using the
- * test-only dense composer; rotations are the usual ones (X: H; Y: S† then H); the
+ * test-only dense reference; rotations are the usual ones (X: H; Y: S† then H); the
  * Hadamard test's ancilla gives ⟨Z⟩ = Re⟨ψ|P|ψ⟩ (common practice; the Hadamard test as
  * in Nielsen & Chuang's phase-estimation chapter, from memory).
  */
@@ -22,7 +22,7 @@ import {
   mul,
   phaseDistance,
   type CMat,
-} from "./dense-composer";
+} from "./dense-reference";
 
 const fixture = (name: string) =>
   readFileSync(new URL(`../../../fixtures/qasm/${name}`, import.meta.url), "utf8");

@@ -24,7 +24,7 @@ import {
   mul,
   scale,
   type CMat,
-} from "./dense-composer";
+} from "./dense-reference";
 
 type Item =
   | { g: string; p: number[]; q: number[] } // call of another gate of the same table
