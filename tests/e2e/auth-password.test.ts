@@ -122,6 +122,8 @@ describe("sign up, sign out, sign in", () => {
 
   it("signs in with the password", async () => {
     await page.goto(`${E2E_URL}/sign-in`);
+    // the route streams: picture the form, not the loading bar
+    await page.getByRole("heading", { name: "Sign in to Ketwise" }).waitFor();
     await screenshot(page, "sign-in");
     await page.getByLabel("E-mail").fill(email);
     await page.getByLabel("Password").fill(password);
