@@ -1,27 +1,7 @@
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import { csvField, toCsv } from "@/lib/export/csv";
 import { countsCsv, fileStem, runJson, termsCsv, type ExportResult } from "@/lib/export/run-export";
-
-/** Reads CSV text with Python's csv module (an outside RFC 4180 reader). */
-function pythonReadCsv(text: string): string[][] {
-  const dir = mkdtempSync(join(tmpdir(), "kw-csv-"));
-  const file = join(dir, "t.csv");
-  writeFileSync(file, text, "utf8");
-  const out = execFileSync(
-    "python3",
-    [
-      "-c",
-      "import csv,json,sys; print(json.dumps(list(csv.reader(open(sys.argv[1], newline='', encoding='utf-8')))))",
-      file,
-    ],
-    { encoding: "utf8" },
-  );
-  return JSON.parse(out) as string[][];
-}
+import { pythonReadCsv } from "../../support/python-csv";
 
 describe("csvField — RFC 4180 §2 quoting rules", () => {
   it("leaves plain fields alone and quotes fields with comma, quote, CR or LF", () => {

@@ -3,10 +3,6 @@
  * Python's csv module (an outside RFC 4180 reader), and the run builder's points list and
  * gradient toggle: form → request → form round trip, bad JSON as a field message.
  */
-import { execFileSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
-import { tmpdir } from "node:os";
-import { join } from "node:path";
 import { describe, expect, it } from "vitest";
 import {
   DEFAULT_VALUES,
@@ -15,22 +11,7 @@ import {
   toRequest,
 } from "@/components/workspace/run-builder-model";
 import { pointsCsv } from "@/lib/export/run-export";
-
-function pythonReadCsv(text: string): string[][] {
-  const dir = mkdtempSync(join(tmpdir(), "kw-points-"));
-  const file = join(dir, "p.csv");
-  writeFileSync(file, text, "utf8");
-  const out = execFileSync(
-    "python3",
-    [
-      "-c",
-      "import csv,json,sys; print(json.dumps(list(csv.reader(open(sys.argv[1], newline='', encoding='utf-8')))))",
-      file,
-    ],
-    { encoding: "utf8" },
-  );
-  return JSON.parse(out) as string[][];
-}
+import { pythonReadCsv } from "../../../support/python-csv";
 
 describe("pointsCsv", () => {
   it("one row per point in request order, gradient columns per input", () => {
