@@ -171,10 +171,11 @@ export function combineBasis(
   return { re, im };
 }
 
-export async function lanczosExtremes(
-  sum: PauliSum,
-  opts: LanczosOptions = {},
-): Promise<LanczosResult> {
+/**
+ * What every Lanczos run over a Pauli sum starts from: the sum's operator (refused above
+ * MAX_LANCZOS_QUBITS), its dimension and the scale Σ|c| that tolerances are relative to.
+ */
+export function lanczosSetup(sum: PauliSum): { op: PauliOperator; d: number; scale: number } {
   const n = sum.numQubits;
   if (n > MAX_LANCZOS_QUBITS) {
     throw new EngineError(
@@ -183,11 +184,18 @@ export async function lanczosExtremes(
     );
   }
   const op = new PauliOperator(sum);
-  const d = op.dim;
   const scale = Math.max(
     1,
     sum.terms.reduce((s, t) => s + Math.abs(t.coefficient), 0),
   );
+  return { op, d: op.dim, scale };
+}
+
+export async function lanczosExtremes(
+  sum: PauliSum,
+  opts: LanczosOptions = {},
+): Promise<LanczosResult> {
+  const { op, d, scale } = lanczosSetup(sum);
   const tol = (opts.tol ?? 1e-9) * scale;
   const memCap = Math.max(8, Math.floor((256 * 1024 * 1024) / (16 * d)));
   const maxBasis = Math.min(d, opts.maxBasis ?? 160, memCap);

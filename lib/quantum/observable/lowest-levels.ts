@@ -11,13 +11,12 @@
  * spanned; when the ground level holds `maxGround` vectors or more, the ground space is
  * reported as unknown (`ground: null`) rather than truncated.
  */
-import { EngineError } from "../errors";
 import { createRng } from "../sampling/rng";
 import type { PauliSum } from "../types";
 import type { HermitianEigen } from "./hermitian-eigen";
 import {
-  MAX_LANCZOS_QUBITS,
   combineBasis,
+  lanczosSetup,
   lanczosStep,
   normalise,
   randomVector,
@@ -121,19 +120,7 @@ export async function lowestLevels(
   sum: PauliSum,
   opts: LowestLevelsOptions = {},
 ): Promise<LowestLevels> {
-  const n = sum.numQubits;
-  if (n > MAX_LANCZOS_QUBITS) {
-    throw new EngineError(
-      "too_large",
-      `the exact spectrum is computed for at most ${MAX_LANCZOS_QUBITS} qubits (this observable has ${n})`,
-    );
-  }
-  const op = new PauliOperator(sum);
-  const d = op.dim;
-  const scale = Math.max(
-    1,
-    sum.terms.reduce((s, t) => s + Math.abs(t.coefficient), 0),
-  );
+  const { op, d, scale } = lanczosSetup(sum);
   const count = Math.min(opts.count ?? 4, d);
   const maxGround = opts.maxGround ?? 16;
   const memCap = Math.max(8, Math.floor((256 * 1024 * 1024) / (16 * d)) - maxGround);
