@@ -4,7 +4,8 @@
  * - SEQ: bumped by the coordinator for every command; helpers wait on it (Atomics.wait).
  * - DONE: helpers add 1 when their share of the command is finished; the coordinator waits.
  * - READY: helpers add 1 once attached to a state.
- * - KIND, K, Q0…: the command (apply a gate on k ≤ MAX_K qubits, or detach).
+ * - KIND, K, Q0…: the command (apply a gate on k ≤ MAX_K qubits, apply the tiling stage in
+ *   the stage buffer (stage-codec.ts) to this thread's share of its tiles, or detach).
  */
 export const SEQ = 0;
 export const DONE = 1;
@@ -19,10 +20,11 @@ export const MATRIX_DOUBLES = 2 * 4 ** MAX_K;
 
 export const CMD_GATE = 1;
 export const CMD_DETACH = 2;
+export const CMD_STAGE = 3;
 
 /**
  * Message that attaches a helper to a state: its share is chunk `index` of `parts` of the
- * `dim` amplitudes at byte offsets reAt / imAt of `re` / `im`. A state in a kernel memory
+ * `dim` amplitudes (for gates) and part `index` of every stage's tiles at byte offsets reAt / imAt of `re` / `im`. A state in a kernel memory
  * also sends the memory (re = im = its buffer): the helper binds the WebAssembly kernels to it.
  */
 export interface AttachMessage {
@@ -35,6 +37,10 @@ export interface AttachMessage {
   memory?: WebAssembly.Memory;
   control: SharedArrayBuffer;
   matrix: SharedArrayBuffer;
+  /** Command buffer of tiling stages (STAGE_DOUBLES doubles). */
+  stage: SharedArrayBuffer;
+  /** Qubits of the state (dim = 2^n). */
+  n: number;
   index: number;
   parts: number;
 }

@@ -15,6 +15,7 @@ import { GateFuser } from "./fusion";
 import { assertStatevectorFits, type MemoryLimits } from "./memory";
 import { RunControl, type RunOptions } from "./run-control";
 import { createZeroState } from "./state";
+import { applyStageTiles, planSteps, TILE_MIN_QUBITS_ONE_THREAD, tileCount } from "./tiling";
 import { engineThreads, threadsFor } from "../parallel/config";
 import { ParallelState } from "../parallel/kernel-pool";
 
@@ -83,13 +84,16 @@ export function simulateStatevector(circuit: Circuit, opts: StatevectorOptions =
   const control = new RunControl(opts, gates.length, "simulate");
   const n = circuit.numQubits;
   const threads = threadsFor(n, opts.threads ?? engineThreads());
+  const steps = planSteps(gates, n, threads > 1 || n >= TILE_MIN_QUBITS_ONE_THREAD);
+  let done = 0;
   if (threads > 1) {
     const shared = new ParallelState(n, threads);
     shared.re[0] = 1;
     try {
-      for (let i = 0; i < gates.length; i++) {
-        shared.apply(gates[i].qubits, gates[i].matrix);
-        control.tick(i + 1);
+      for (const step of steps) {
+        if ("gate" in step) shared.apply(step.gate.qubits, step.gate.matrix);
+        else shared.applyStage(step.stage);
+        control.tick((done += step.count));
       }
     } finally {
       shared.detach();
@@ -98,9 +102,10 @@ export function simulateStatevector(circuit: Circuit, opts: StatevectorOptions =
     return { n, re: shared.re, im: shared.im };
   }
   const state = createZeroState(n);
-  for (let i = 0; i < gates.length; i++) {
-    applyToAmplitudes(state.re, state.im, gates[i].qubits, gates[i].matrix);
-    control.tick(i + 1);
+  for (const step of steps) {
+    if ("gate" in step) applyToAmplitudes(state.re, state.im, step.gate.qubits, step.gate.matrix);
+    else applyStageTiles(state.re, state.im, n, step.stage, 0, tileCount(n, step.stage));
+    control.tick((done += step.count));
   }
   control.finish();
   return state;

@@ -5,6 +5,7 @@
 import type { StateVector } from "../types";
 import { engineWasm } from "../parallel/config";
 import { bindMemory, createKernelMemory, stateViews } from "../wasm/runtime";
+import { tileTailBytes } from "./tiling";
 
 /**
  * Below this many qubits states stay in plain arrays. Measured (CPU time, loaded 2-core VM):
@@ -21,8 +22,15 @@ export const WASM_MIN_QUBITS = 10;
  */
 export function allocateAmplitudes(n: number): { re: Float64Array; im: Float64Array } {
   if (n >= WASM_MIN_QUBITS && engineWasm()) {
-    const memory = createKernelMemory(n);
-    if (memory && bindMemory(memory, 0)) return stateViews(memory, n);
+    const memory = createKernelMemory(n, tileTailBytes(n, 1));
+    if (memory && bindMemory(memory, 0)) {
+      const views = stateViews(memory, n);
+      // write every page once: a kernel's first read would map the shared zero page and its
+      // store then replace it (a TLB flush per page, sent to every thread of the process)
+      views.re.fill(0);
+      views.im.fill(0);
+      return views;
+    }
   }
   const dim = 2 ** n;
   return { re: new Float64Array(dim), im: new Float64Array(dim) };

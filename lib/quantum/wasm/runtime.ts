@@ -39,6 +39,24 @@ export interface KernelExports {
     table: number,
     out: number,
   ): void;
+  gatherTile(
+    re: number,
+    im: number,
+    tileRe: number,
+    tileIm: number,
+    runAt: number,
+    runs: number,
+    runBytes: number,
+  ): void;
+  scatterTile(
+    re: number,
+    im: number,
+    tileRe: number,
+    tileIm: number,
+    runAt: number,
+    runs: number,
+    runBytes: number,
+  ): void;
 }
 
 const PAGE = 65536;
@@ -113,10 +131,20 @@ export function wasmBinding(re: Float64Array, im: Float64Array): WasmBinding | u
   return buf === im.buffer ? bindings.get(buf) : undefined;
 }
 
-/** A kernel memory holding a 2^n-amplitude state (zero-filled), or null when it cannot exist. */
-export function createKernelMemory(n: number): WebAssembly.Memory | null {
+/** End (bytes) of the state part of a kernel memory of 2^n amplitudes: the tail starts here. */
+export function stateEndByte(n: number): number {
+  return RESERVED_BYTES + 16 * 2 ** n + IM_GAP_BYTES;
+}
+
+/**
+ * A kernel memory holding a 2^n-amplitude state (zero-filled) and `tailBytes` more after it
+ * (the per-thread tile buffers of statevector/tiling.ts), or null when it cannot exist.
+ */
+export function createKernelMemory(n: number, tailBytes = 0): WebAssembly.Memory | null {
   if (n > WASM_MAX_QUBITS || !kernelModule()) return null;
-  const pages = Math.ceil((RESERVED_BYTES + 16 * 2 ** n + IM_GAP_BYTES) / PAGE);
+  const bytes = stateEndByte(n) + tailBytes;
+  if (bytes > 2 ** 32) return null;
+  const pages = Math.ceil(bytes / PAGE);
   try {
     return new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
   } catch {

@@ -3,3 +3,4 @@ export { general1q, real1q } from "./kernels-1q";
 export { general2q } from "./kernels-2q";
 export { twoBlock } from "./kernels-two-block";
 export { pauliDiagonal, pauliTerm, pauliTerms4 } from "./pauli-mask";
+export { gatherTile, scatterTile } from "./tile-copy";
