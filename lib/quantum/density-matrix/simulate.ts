@@ -21,23 +21,23 @@ import { checkCircuit } from "../statevector/circuit-check";
 import { GateFuser, fuseGates } from "../statevector/fusion";
 import { assertDensityMatrixFits, type MemoryLimits } from "../statevector/memory";
 import { RunControl, type RunOptions } from "../statevector/run-control";
-import { measureNonSelective, resetQubit } from "../noise/channels";
-import { applyIdleNoise, applyOpNoise, NoisePlan, type OpNoise } from "../noise/gate-noise";
+import { NoisePlan } from "../noise/gate-noise";
 import { hasStateNoise, validateNoiseModel } from "../noise/validate";
 import { embedMatrix, multiplyMatrices } from "../statevector/matrix-ops";
-import { applyUnitaryDMUnchecked } from "./kernels";
-import { applyNoisyGate } from "./noisy-gate";
-import { createZeroDensity } from "./state";
+import { engineThreads, threadsFor } from "../parallel/config";
+import { ParallelState } from "../parallel/kernel-pool";
+import { applyDensityStep, type DensityStep, splitForSlices } from "./steps";
+import { createZeroDensity, densitySlice } from "./state";
 
-export type DensityOptions = RunOptions & MemoryLimits;
+export interface DensityOptions extends RunOptions, MemoryLimits {
+  /**
+   * Engine threads (default engineThreads()); 1 = the single-thread path. ρ of n qubits is a
+   * vectorised 2n-bit state: threads from 2n ≥ PARALLEL_MIN_QUBITS.
+   */
+  threads?: number;
+}
 
-type Step =
-  | { kind: "unitary"; gate: GateApplication }
-  | { kind: "noise"; noise: OpNoise }
-  /** A gate on ≤ 2 qubits and its noise in one pass (noisy-gate.ts); matrix on `qubits`, null = identity. */
-  | { kind: "noisy-gate"; qubits: readonly number[]; matrix: Float64Array | null; noise: OpNoise }
-  | { kind: "measure"; qubit: number }
-  | { kind: "reset"; qubit: number };
+type Step = DensityStep;
 
 /** For each op index, whether it is a measurement that nothing follows on its qubit. */
 function finalMeasurements(circuit: Circuit): boolean[] {
@@ -122,22 +122,30 @@ export function simulateDensityMatrix(
   const noisy = hasStateNoise(noise);
   const steps = densitySteps(circuit, noisy, new NoisePlan(noise, circuit.numQubits));
   const control = new RunControl(opts, steps.length, "simulate");
-  const rho = createZeroDensity(circuit.numQubits);
-  for (let i = 0; i < steps.length; i++) {
-    const step = steps[i];
-    if (step.kind === "unitary") {
-      applyUnitaryDMUnchecked(rho, step.gate.qubits, step.gate.matrix);
-    } else if (step.kind === "noisy-gate") {
-      applyNoisyGate(rho, step.qubits, step.matrix, step.noise.gate);
-      if (step.noise.idle) applyIdleNoise(rho, step.noise.idle);
-    } else if (step.kind === "noise") {
-      applyOpNoise(rho, step.noise);
-    } else if (step.kind === "measure") {
-      measureNonSelective(rho, step.qubit);
-    } else {
-      resetQubit(rho, step.qubit);
+  const n = circuit.numQubits;
+  const threads = threadsFor(2 * n, opts.threads ?? engineThreads());
+  const rho = createZeroDensity(n, threads > 1);
+  const shared = threads > 1 ? new ParallelState(2 * n, threads, rho) : null;
+  try {
+    // slices of ρ: the top log2(threads) row bits select the thread; steps on lower qubits
+    // act inside every slice
+    const limit = n - Math.log2(threads);
+    for (let i = 0; i < steps.length; i++) {
+      if (shared?.parallel) {
+        for (const part of splitForSlices(steps[i], limit)) {
+          if (!part.low) applyDensityStep(rho, part.step);
+          else {
+            const payloads = new Array<DensityStep>(threads - 1).fill(part.step);
+            shared.runJobs("density", payloads, () =>
+              applyDensityStep(densitySlice(rho, 0, threads), part.step),
+            );
+          }
+        }
+      } else applyDensityStep(rho, steps[i]);
+      control.tick(i + 1);
     }
-    control.tick(i + 1);
+  } finally {
+    shared?.detach();
   }
   control.finish();
   return rho;

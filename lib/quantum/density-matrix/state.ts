@@ -8,16 +8,36 @@
  */
 import type { DensityMatrix, StateVector } from "../types";
 
-/** ρ = |0…0⟩⟨0…0| on n qubits. */
-export function createZeroDensity(n: number): DensityMatrix {
+/** ρ = |0…0⟩⟨0…0| on n qubits; in SharedArrayBuffers for engine threads when `shared`. */
+export function createZeroDensity(n: number, shared = false): DensityMatrix {
   if (!Number.isInteger(n) || n < 0 || n > 15) {
     throw new RangeError(`createZeroDensity: qubit count must be an integer in [0, 15], got ${n}`);
   }
   const size = 4 ** n;
-  const re = new Float64Array(size);
-  const im = new Float64Array(size);
+  const make = (): Float64Array =>
+    shared ? new Float64Array(new SharedArrayBuffer(8 * size)) : new Float64Array(size);
+  const re = make();
+  const im = make();
+  if (shared) {
+    // pages written before the kernels read them (see parallel/kernel-pool.ts, "Pages")
+    re.fill(0);
+    im.fill(0);
+  }
   re[0] = 1;
   return { n, re, im };
+}
+
+/**
+ * Slice `index` of `parts` of ρ (the entries whose top log2(parts) row bits equal index): a
+ * DensityMatrix view the kernels treat as a whole ρ for steps on qubits below those bits.
+ */
+export function densitySlice(rho: DensityMatrix, index: number, parts: number): DensityMatrix {
+  const len = rho.re.length / parts;
+  return {
+    n: rho.n,
+    re: rho.re.subarray(index * len, (index + 1) * len),
+    im: rho.im.subarray(index * len, (index + 1) * len),
+  };
 }
 
 /** The diagonal ρ_ii (the Born probabilities, real for a Hermitian ρ), index bit k = qubit k. */

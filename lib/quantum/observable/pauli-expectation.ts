@@ -20,29 +20,67 @@ import { LOW_BITS, type MaskTerm, SignTables, maskPassOnState, yCount } from "./
 import { walshHadamardInPlace } from "./walsh-hadamard";
 import { wasmMaskPass } from "../wasm/pauli";
 import { wasmBinding } from "../wasm/runtime";
+import { engineThreads, threadsFor } from "../parallel/config";
+import { ParallelState } from "../parallel/kernel-pool";
+import { dealGroups, type MaskGroup } from "./pauli-threads";
 
 /**
  * Per-term ⟨P_i⟩ on a normalised statevector: terms grouped by flip mask x, one pass over
  * the state per mask (pauli-mask-pass.ts); a mask shared by many terms (and the diagonal
  * group when large) goes through Walsh–Hadamard transforms instead (maskByTransform).
+ * On engine threads (`threads`, default engineThreads(); states from PARALLEL_MIN_QUBITS in
+ * shared memory) the mask groups are dealt to the threads (pauli-threads.ts): bit-identical.
  * `lowBits` sets the block split (tests exercise small values).
  */
 export function pauliExpectationsOnState(
   state: StateVector,
   sum: PauliSum,
   lowBits = LOW_BITS,
+  threads = engineThreads(),
 ): Float64Array {
-  const out = new Float64Array(sum.terms.length);
   const n = state.n;
+  const groups = [...groupByMask(sum)];
+  const parts = Math.min(threadsFor(n, threads), groups.length);
+  if (parts > 1) {
+    const shared = new ParallelState(n, pow2Floor(parts), state);
+    try {
+      if (shared.parallel) {
+        const out = new Float64Array(new SharedArrayBuffer(8 * sum.terms.length));
+        const dealt = dealGroups(groups, shared.threads, transformThreshold(n));
+        const payloads = dealt.slice(1).map((g) => ({ groups: g, out: out.buffer, lowBits }));
+        shared.runJobs("pauli", payloads, () =>
+          runMaskGroups(state.re, state.im, n, dealt[0], out, lowBits),
+        );
+        return out;
+      }
+    } finally {
+      shared.detach();
+    }
+  }
+  const out = new Float64Array(sum.terms.length);
+  runMaskGroups(state.re, state.im, n, groups, out, lowBits);
+  return out;
+}
+
+const pow2Floor = (x: number): number => 2 ** Math.floor(Math.log2(x));
+
+/** ⟨P_t⟩ into out[t.index] for the terms of the given mask groups, one thread. */
+export function runMaskGroups(
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  groups: readonly MaskGroup[],
+  out: Float64Array,
+  lowBits = LOW_BITS,
+): void {
   const signs = new SignTables(Math.min(n, lowBits));
   // amplitudes in a kernel memory: the SIMD pass (WebAssembly), else the JavaScript one
-  const w = n >= 3 ? wasmBinding(state.re, state.im) : undefined;
-  for (const [x, terms] of groupByMask(sum)) {
-    if (terms.length > transformThreshold(n)) maskByTransform(state.re, state.im, x, terms, out);
-    else if (w) wasmMaskPass(w, state.re, state.im, x, terms, out);
-    else maskPassOnState(state.re, state.im, x, terms, signs, out);
+  const w = n >= 3 ? wasmBinding(re, im) : undefined;
+  for (const [x, terms] of groups) {
+    if (terms.length > transformThreshold(n)) maskByTransform(re, im, x, terms, out);
+    else if (w) wasmMaskPass(w, re, im, x, terms, out);
+    else maskPassOnState(re, im, x, terms, signs, out);
   }
-  return out;
 }
 
 /** Terms by flip mask x (insertion order), with their Y count. */

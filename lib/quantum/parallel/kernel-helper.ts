@@ -5,18 +5,21 @@
  * stage's tiles (with its own tile buffer), until told to detach. Pure computation on
  * shared memory; no I/O.
  */
-import { parentPort } from "node:worker_threads";
+import { type MessagePort, parentPort, receiveMessageOnPort } from "node:worker_threads";
 import { applyToAmplitudes } from "../statevector/dispatch";
 import { applyStageTiles, tileCount } from "../statevector/tiling";
 import { bindMemory } from "../wasm/runtime";
+import { KERNEL_JOBS } from "./kernel-jobs";
 import { readStage } from "./stage-codec";
 import { shareOf } from "./shares";
 import {
   type AttachMessage,
   CMD_DETACH,
   CMD_GATE,
+  CMD_JOB,
   CMD_STAGE,
   DONE,
+  ERR,
   K,
   KIND,
   Q0,
@@ -24,6 +27,8 @@ import {
   SEQ,
 } from "./protocol";
 
+/** Longest wait for a job's payload after its command (it is posted first: normally none). */
+const JOB_WAIT_MS = 5_000;
 const port = parentPort;
 if (!port) throw new Error("kernel-helper.ts must run in a worker thread");
 
@@ -37,10 +42,13 @@ function serve(m: AttachMessage): void {
   const stageBuf = new Float64Array(m.stage);
   const re = allRe.subarray(m.index * len, (m.index + 1) * len);
   const im = allIm.subarray(m.index * len, (m.index + 1) * len);
-  // write (not read) every page of the slice first: a first read maps the shared zero page and
-  // the kernel's store then replaces it, flushing the TLB of every thread on the state
-  re.fill(0);
-  im.fill(0);
+  if (m.fresh) {
+    // write (not read) every page of the slice first: a first read maps the shared zero page
+    // and the kernel's store then replaces it, flushing the TLB of every thread on the state
+    re.fill(0);
+    im.fill(0);
+  }
+  const ctx = { re: allRe, im: allIm, n: m.n, index: m.index, parts: m.parts };
   let seen = Atomics.load(ctrl, SEQ);
   Atomics.add(ctrl, READY, 1);
   Atomics.notify(ctrl, READY);
@@ -48,19 +56,37 @@ function serve(m: AttachMessage): void {
     Atomics.wait(ctrl, SEQ, seen);
     seen = Atomics.load(ctrl, SEQ);
     const kind = Atomics.load(ctrl, KIND);
-    if (kind === CMD_GATE) {
-      const k = ctrl[K];
-      const qubits = Array.from({ length: k }, (_, j) => ctrl[Q0 + j]);
-      applyToAmplitudes(re, im, qubits, mat.subarray(0, 2 * 4 ** k));
-    } else if (kind === CMD_STAGE) {
-      const stage = readStage(stageBuf);
-      const [from, to] = shareOf(tileCount(m.n, stage), m.index, m.parts);
-      applyStageTiles(allRe, allIm, m.n, stage, from, to, m.index);
+    try {
+      if (kind === CMD_GATE) {
+        const k = ctrl[K];
+        const qubits = Array.from({ length: k }, (_, j) => ctrl[Q0 + j]);
+        applyToAmplitudes(re, im, qubits, mat.subarray(0, 2 * 4 ** k));
+      } else if (kind === CMD_STAGE) {
+        const stage = readStage(stageBuf);
+        const [from, to] = shareOf(tileCount(m.n, stage), m.index, m.parts);
+        applyStageTiles(allRe, allIm, m.n, stage, from, to, m.index);
+      } else if (kind === CMD_JOB) {
+        const job = nextJob(m.jobs);
+        KERNEL_JOBS[job.kind](ctx, job.payload as never);
+      }
+    } catch {
+      Atomics.store(ctrl, ERR, 1); // the caller throws; this thread stays usable
     }
     Atomics.add(ctrl, DONE, 1);
     Atomics.notify(ctrl, DONE);
     if (kind === CMD_DETACH) return;
   }
+}
+
+/** The job posted just before the command (the post happens before the wake-up). */
+function nextJob(jobs: MessagePort): { kind: string; payload: unknown } {
+  const pause = new Int32Array(new SharedArrayBuffer(4));
+  for (let waited = 0; waited < JOB_WAIT_MS; waited++) {
+    const got = receiveMessageOnPort(jobs);
+    if (got) return got.message as { kind: string; payload: unknown };
+    Atomics.wait(pause, 0, 0, 1);
+  }
+  throw new Error("kernel helper: a job command arrived without its payload");
 }
 
 port.on("message", (m: AttachMessage) => {

@@ -22,7 +22,7 @@
  */
 import { join } from "node:path";
 import { pathToFileURL } from "node:url";
-import type { Worker } from "node:worker_threads";
+import type { MessageChannel, MessagePort, Worker } from "node:worker_threads";
 import { applyToAmplitudes } from "../statevector/dispatch";
 import {
   applyStageTiles,
@@ -33,7 +33,7 @@ import {
   tileTailBytes,
   type Stage,
 } from "../statevector/tiling";
-import { bindMemory, createKernelMemory, stateViews } from "../wasm/runtime";
+import { bindMemory, createKernelMemory, kernelMemoryOf, stateViews } from "../wasm/runtime";
 import { engineWasm } from "./config";
 import { shareOf } from "./shares";
 import { STAGE_DOUBLES, writeStage } from "./stage-codec";
@@ -41,9 +41,11 @@ import {
   type AttachMessage,
   CMD_DETACH,
   CMD_GATE,
+  CMD_JOB,
   CMD_STAGE,
   CONTROL_INTS,
   DONE,
+  ERR,
   K,
   KIND,
   MATRIX_DOUBLES,
@@ -62,6 +64,8 @@ const bootPath = (): string => join(process.cwd(), ...PARALLEL_DIR, "helper-boot
 const entryUrl = (): string =>
   pathToFileURL(join(process.cwd(), ...PARALLEL_DIR, "kernel-helper.ts")).href;
 const workerClass = (): typeof Worker => process.getBuiltinModule("node:worker_threads").Worker;
+const channelClass = (): typeof MessageChannel =>
+  process.getBuiltinModule("node:worker_threads").MessageChannel;
 /** Longest wait for helpers to start or attach before the run falls back to one thread. */
 const ATTACH_TIMEOUT_MS = 20_000;
 
@@ -104,22 +108,37 @@ export class ParallelState {
   private readonly splitBit: number;
   private readonly parts: number;
   private attached = false;
+  /** Per helper: the port its jobs (payloads of CMD_JOB commands) arrive on. */
+  private jobs: MessagePort[] = [];
 
-  /** 2^n amplitudes split over `threads` (a power of two ≥ 2) threads. */
+  /**
+   * 2^n amplitudes split over `threads` (a power of two ≥ 2) threads: a fresh |0…0⟩-ready
+   * zero state, or the helpers attached to an `existing` state in shared memory (a kernel
+   * memory or SharedArrayBuffers; else the instance stays on the calling thread).
+   */
   constructor(
     readonly n: number,
     threads: number,
+    existing?: { re: Float64Array; im: Float64Array },
   ) {
     this.parts = threads;
     this.splitBit = n - Math.log2(threads);
-    // amplitudes in a kernel memory (WebAssembly SIMD kernels on every thread) when enabled,
-    // else in two SharedArrayBuffers
-    const memory = engineWasm() ? createKernelMemory(n, tileTailBytes(n, threads)) : null;
-    if (memory && bindMemory(memory, 0)) {
-      ({ re: this.re, im: this.im } = stateViews(memory, n));
+    let memory: WebAssembly.Memory | null | undefined = null;
+    if (existing) {
+      ({ re: this.re, im: this.im } = existing);
+      memory = kernelMemoryOf(this.re.buffer);
+      const shared = this.re.buffer instanceof SharedArrayBuffer;
+      if (!shared || !(this.im.buffer instanceof SharedArrayBuffer)) threads = 1;
     } else {
-      this.re = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
-      this.im = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
+      // amplitudes in a kernel memory (WebAssembly SIMD kernels on every thread) when enabled,
+      // else in two SharedArrayBuffers
+      memory = engineWasm() ? createKernelMemory(n, tileTailBytes(n, threads)) : null;
+      if (memory && bindMemory(memory, 0)) {
+        ({ re: this.re, im: this.im } = stateViews(memory, n));
+      } else {
+        this.re = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
+        this.im = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
+      }
     }
     const reBuf = this.re.buffer as SharedArrayBuffer;
     const imBuf = this.im.buffer as SharedArrayBuffer;
@@ -129,8 +148,11 @@ export class ParallelState {
     this.ctrl = new Int32Array(control);
     this.mat = new Float64Array(matrix);
     this.stageBuf = new Float64Array(stage);
-    if (!ensureHelpers(threads - 1)) return;
+    if (threads < 2 || !ensureHelpers(threads - 1)) return;
+    this.jobs = [];
     for (let i = 1; i < threads; i++) {
+      const channel = new (channelClass())();
+      this.jobs.push(channel.port1);
       const m: AttachMessage = {
         type: "attach",
         re: reBuf,
@@ -142,16 +164,20 @@ export class ParallelState {
         control,
         matrix,
         stage,
+        jobs: channel.port2,
+        fresh: !existing,
         n,
         index: i,
         parts: threads,
       };
-      helpers[i - 1].postMessage(m);
+      helpers[i - 1].postMessage(m, [channel.port2]);
     }
-    // the caller writes its own slice while the helpers write theirs (see kernel-helper.ts)
-    const own = this.re.length / threads;
-    this.re.fill(0, 0, own);
-    this.im.fill(0, 0, own);
+    if (!existing) {
+      // the caller writes its own slice while the helpers write theirs (see kernel-helper.ts)
+      const own = this.re.length / threads;
+      this.re.fill(0, 0, own);
+      this.im.fill(0, 0, own);
+    }
     const deadline = performance.now() + ATTACH_TIMEOUT_MS;
     for (;;) {
       const ready = Atomics.load(this.ctrl, READY);
@@ -208,24 +234,51 @@ export class ParallelState {
     });
   }
 
+  /**
+   * Runs job `kind` on every thread: helper i receives `payloads[i − 1]` (structured-cloned;
+   * results go to shared memory the payload names) while the caller runs `own()`.
+   */
+  runJobs(kind: string, payloads: readonly unknown[], own: () => void): void {
+    if (!this.attached) throw new Error("runJobs needs attached helpers");
+    this.jobs.forEach((port, i) => port.postMessage({ kind, payload: payloads[i] }));
+    this.command(CMD_JOB, own);
+  }
+
+  /** Number of threads sharing the work (1 when the helpers are not attached). */
+  get threads(): number {
+    return this.attached ? this.parts : 1;
+  }
+
   /** Releases the helpers (they return to idle); the arrays stay valid. */
   detach(): void {
     if (!this.attached) return;
     this.command(CMD_DETACH, () => {});
     this.attached = false;
+    for (const port of this.jobs) port.close();
+    this.jobs = [];
   }
 
   private command(kind: number, own: () => void): void {
     const ctrl = this.ctrl;
     Atomics.store(ctrl, DONE, 0);
+    Atomics.store(ctrl, ERR, 0);
     Atomics.store(ctrl, KIND, kind);
     Atomics.add(ctrl, SEQ, 1);
     Atomics.notify(ctrl, SEQ);
-    own();
+    let failed: { error: unknown } | null = null;
+    try {
+      own();
+    } catch (error) {
+      failed = { error }; // thrown once the helpers are done with the state
+    }
     const want = this.parts - 1;
     for (;;) {
       const done = Atomics.load(ctrl, DONE);
-      if (done >= want) return;
+      if (done >= want) {
+        if (failed) throw failed.error;
+        if (Atomics.load(ctrl, ERR) !== 0) throw new Error("an engine thread failed its share");
+        return;
+      }
       Atomics.wait(ctrl, DONE, done, 1000);
     }
   }

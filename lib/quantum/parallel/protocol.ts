@@ -7,6 +7,8 @@
  * - KIND, K, Q0…: the command (apply a gate on k ≤ MAX_K qubits, apply the tiling stage in
  *   the stage buffer (stage-codec.ts) to this thread's share of its tiles, or detach).
  */
+import type { MessagePort } from "node:worker_threads";
+
 export const SEQ = 0;
 export const DONE = 1;
 export const READY = 2;
@@ -14,13 +16,17 @@ export const KIND = 3;
 export const K = 4;
 export const Q0 = 5;
 export const MAX_K = 2;
-export const CONTROL_INTS = Q0 + MAX_K;
+/** Set to 1 by a helper whose share of a command threw (the caller then throws). */
+export const ERR = Q0 + MAX_K;
+export const CONTROL_INTS = ERR + 1;
 /** Interleaved 2^k × 2^k matrix, k ≤ MAX_K. */
 export const MATRIX_DOUBLES = 2 * 4 ** MAX_K;
 
 export const CMD_GATE = 1;
 export const CMD_DETACH = 2;
 export const CMD_STAGE = 3;
+/** A job (named work with a payload, kernel-jobs.ts) posted on the helper's job port. */
+export const CMD_JOB = 4;
 
 /**
  * Message that attaches a helper to a state: its share is chunk `index` of `parts` of the
@@ -39,6 +45,10 @@ export interface AttachMessage {
   matrix: SharedArrayBuffer;
   /** Command buffer of tiling stages (STAGE_DOUBLES doubles). */
   stage: SharedArrayBuffer;
+  /** Port on which the payloads of CMD_JOB commands arrive (read synchronously). */
+  jobs: MessagePort;
+  /** True for a new state: the helper writes zeros over its slice first. */
+  fresh: boolean;
   /** Qubits of the state (dim = 2^n). */
   n: number;
   index: number;

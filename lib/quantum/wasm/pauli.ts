@@ -5,7 +5,7 @@
  * for all four). Terms go through the memory's Pauli table (runtime.ts).
  */
 import type { MaskTerm } from "../observable/pauli-mask-pass";
-import { PAULI_OUT_AT, PAULI_SIGNS_AT, PAULI_TABLE_AT, type WasmBinding } from "./runtime";
+import { PAULI_OUT, PAULI_SIGNS, type WasmBinding } from "./runtime";
 
 interface PauliViews {
   table: Int32Array;
@@ -17,8 +17,8 @@ function viewsOf(w: WasmBinding): PauliViews {
   let v = views.get(w);
   if (!v) {
     v = {
-      table: new Int32Array(w.buffer, PAULI_TABLE_AT, 8),
-      sums: new Float64Array(w.buffer, PAULI_OUT_AT, 4),
+      table: new Int32Array(w.buffer, w.pauliAt, 8),
+      sums: new Float64Array(w.buffer, w.pauliAt + PAULI_OUT, 4),
     };
     views.set(w, v);
   }
@@ -55,7 +55,7 @@ export function wasmMaskPass(
       table[2 * t] = term.z;
       table[2 * t + 1] = term.k & 1;
     }
-    w.k.pauliTerms4(a, b, x, run, stride, len, PAULI_TABLE_AT, PAULI_OUT_AT);
+    w.k.pauliTerms4(a, b, x, run, stride, len, w.pauliAt, w.pauliAt + PAULI_OUT);
     for (let t = 0; t < g; t++) put(terms[i + t], sums[t]);
     i += g;
   }
@@ -65,7 +65,7 @@ export function wasmMaskPass(
       t,
       x === 0
         ? w.k.pauliDiagonal(a, b, len, t.z)
-        : w.k.pauliTerm(a, b, x, run, stride, len, t.z, t.k & 1, PAULI_SIGNS_AT),
+        : w.k.pauliTerm(a, b, x, run, stride, len, t.z, t.k & 1, w.pauliAt + PAULI_SIGNS),
     );
   }
 }

@@ -7,8 +7,8 @@
  * from the bytes, once per thread; an instance is made per memory and thread.
  *
  * Memory head (RESERVED_BYTES): 16 scratch slots of SLOT_BYTES (gate matrices and the 2-qubit
- * kernel's coefficient table; slot i belongs to engine thread i of the state), then the Pauli
- * term table of the owning thread.
+ * kernel's coefficient table; slot i belongs to engine thread i of the state), then one Pauli
+ * area per slot (term tables and sums of that thread's Pauli passes).
  */
 import { KERNELS_WASM_BASE64 } from "./kernels-binary";
 
@@ -62,12 +62,15 @@ export interface KernelExports {
 const PAGE = 65536;
 export const SLOT_BYTES = 2048;
 export const MAX_SLOTS = 16;
-/** Pauli tables of the owning thread: four (z, odd) pairs and their lane patterns, then four sums. */
-export const PAULI_TABLE_AT = SLOT_BYTES * MAX_SLOTS;
-export const PAULI_OUT_AT = PAULI_TABLE_AT + 512;
-/** Room for a single term's sign table (8 KiB). */
-export const PAULI_SIGNS_AT = PAULI_TABLE_AT + 1024;
-export const RESERVED_BYTES = 2 * PAGE;
+/**
+ * Pauli area of each slot (engine thread), after the scratch slots: at +0 four (z, odd) pairs
+ * and their lane patterns, at PAULI_OUT four sums, at PAULI_SIGNS a single term's sign table.
+ */
+export const PAULI_AREA_AT = SLOT_BYTES * MAX_SLOTS;
+export const PAULI_OUT = 512;
+export const PAULI_SIGNS = 1024;
+export const PAULI_AREA_BYTES = PAULI_SIGNS + 8192;
+export const RESERVED_BYTES = 3 * PAGE;
 /**
  * Gap between re and im: 17 cache lines, so re[i] and im[i] never share their low 12 address
  * bits (a store to one and a load of the other would alias in the core's 4 KiB load/store
@@ -82,6 +85,8 @@ export interface WasmBinding {
   readonly k: KernelExports;
   /** Byte offset and view of this thread's scratch slot. */
   readonly scratchAt: number;
+  /** Byte offset of this thread's Pauli area. */
+  readonly pauliAt: number;
   readonly scratch: Float64Array;
   /** The memory's bytes (Pauli tables are written through views of it). */
   readonly buffer: ArrayBufferLike;
@@ -118,6 +123,7 @@ export function bindMemory(memory: WebAssembly.Memory, slot: number): WasmBindin
   const b: WasmBinding = {
     k: inst.exports as unknown as KernelExports,
     scratchAt,
+    pauliAt: PAULI_AREA_AT + slot * PAULI_AREA_BYTES,
     scratch: new Float64Array(buffer, scratchAt, SLOT_BYTES / 8),
     buffer,
   };
@@ -129,6 +135,13 @@ export function bindMemory(memory: WebAssembly.Memory, slot: number): WasmBindin
 export function wasmBinding(re: Float64Array, im: Float64Array): WasmBinding | undefined {
   const buf = re.buffer;
   return buf === im.buffer ? bindings.get(buf) : undefined;
+}
+
+const memories = new WeakMap<ArrayBufferLike, WebAssembly.Memory>();
+
+/** The kernel memory (made in this thread) whose bytes `buffer` is, else undefined. */
+export function kernelMemoryOf(buffer: ArrayBufferLike): WebAssembly.Memory | undefined {
+  return memories.get(buffer);
 }
 
 /** End (bytes) of the state part of a kernel memory of 2^n amplitudes: the tail starts here. */
@@ -146,7 +159,9 @@ export function createKernelMemory(n: number, tailBytes = 0): WebAssembly.Memory
   if (bytes > 2 ** 32) return null;
   const pages = Math.ceil(bytes / PAGE);
   try {
-    return new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+    const memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+    memories.set(memory.buffer, memory);
+    return memory;
   } catch {
     return null; // no address space (or no shared memory): the caller uses plain arrays
   }

@@ -2,7 +2,8 @@
  * Density-matrix row: 10 qubits (ρ has 4^10 entries = the size of a 20-qubit state), 100
  * noisy gates (ry on qubit i, then cx(i, i+1), alternating) with every channel switched on.
  * Reported as time ÷ (100 × one baseline pass over ρ): the number of memcpy-equivalent
- * passes one noisy gate costs (unitary + depolarizing + damping on each qubit).
+ * passes one noisy gate costs (unitary + depolarizing + damping on each qubit), on one engine
+ * thread (the threads rows measure it on several).
  */
 import { simulateDensityMatrix } from "@/lib/quantum/density-matrix/simulate";
 import type { Circuit, CircuitOp } from "@/lib/quantum/types";
@@ -12,7 +13,7 @@ import { type BenchRow, fmtClocks, fmtMs, paired, ratioResult } from "../bench-k
 const N = 10;
 const GATES = 100;
 
-function noisyCircuit(): Circuit {
+export function noisyCircuit(): Circuit {
   const ops: CircuitOp[] = [];
   for (let g = 0; g < GATES; g++) {
     const q = (g >> 1) % N;
@@ -48,15 +49,20 @@ function noisyCircuit(): Circuit {
   };
 }
 
+/** Every channel switched on. */
+export const BENCH_NOISE = {
+  depolarizing1q: 0.001,
+  depolarizing2q: 0.01,
+  amplitudeDamping: 0.002,
+  phaseDamping: 0.003,
+};
+
 export const densityRow: BenchRow = (ctx) => {
   const circuit = noisyCircuit();
-  const noise = {
-    depolarizing1q: 0.001,
-    depolarizing2q: 0.01,
-    amplitudeDamping: 0.002,
-    phaseDamping: 0.003,
-  };
-  const p = paired(() => simulateDensityMatrix(circuit, noise), ctx.copy(2 * N));
+  const p = paired(
+    () => simulateDensityMatrix(circuit, BENCH_NOISE, { threads: 1 }),
+    ctx.copy(2 * N),
+  );
   const per = {
     ...p,
     ratio: { median: p.ratio.median / GATES, min: p.ratio.min / GATES, max: p.ratio.max / GATES },

@@ -7,10 +7,54 @@
 import { availableParallelism } from "node:os";
 import { closeKernelPool } from "@/lib/quantum/parallel";
 import { simulateStatevector } from "@/lib/quantum/statevector/simulate";
+import {
+  pauliExpectationsOnState,
+  weightedTotal,
+} from "@/lib/quantum/observable/pauli-expectation";
+import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
+import { padPauliSum } from "@/lib/quantum/observable/pauli-word";
+import { simulateDensityMatrix } from "@/lib/quantum/density-matrix/simulate";
 import { layeredAnsatz } from "../ansatz";
+import { BENCH_NOISE, noisyCircuit } from "./density";
+import { randomPauliText, randomState } from "./observables";
 import { type BenchRow, type RowResult, fmtClocks, paired, ratioResult } from "../bench-kit";
 
 const N = 22;
+const PAULI_N = 20;
+const PAULI_TERMS = 1000;
+
+/** The density-matrix row's circuit (10 qubits, 100 noisy gates): one thread ÷ all, wall time. */
+function densityThreadsRow(all: number): RowResult {
+  const circuit = noisyCircuit();
+  const run = (threads: number) => (): void =>
+    void simulateDensityMatrix(circuit, BENCH_NOISE, { threads });
+  const p = paired(run(all), run(1), { clock: "wall" });
+  return ratioResult(
+    p,
+    `one engine thread ÷ all = ${all} threads, density matrix n=10, 100 noisy gates, wall time`,
+    `${all} threads ${fmtClocks(p.row)}; 1 thread ${fmtClocks(p.base)}`,
+    "",
+    undefined,
+    true,
+  );
+}
+
+/** Exact ⟨A⟩ of a random 1,000-term Pauli sum on a 20-qubit state: one thread ÷ all, wall time. */
+function pauliThreadsRow(all: number): RowResult {
+  const state = randomState(PAULI_N, 1);
+  const sum = padPauliSum(parsePauliSum(randomPauliText(PAULI_N, PAULI_TERMS, 2)), PAULI_N);
+  const run = (threads: number) => (): void =>
+    void weightedTotal(sum, pauliExpectationsOnState(state, sum, undefined, threads));
+  const p = paired(run(all), run(1), { clock: "wall" });
+  return ratioResult(
+    p,
+    `one engine thread ÷ all = ${all} threads, exact ⟨A⟩ of ${PAULI_TERMS} Pauli terms, n=${PAULI_N}, wall time`,
+    `${all} threads ${fmtClocks(p.row)}; 1 thread ${fmtClocks(p.base)}`,
+    "",
+    undefined,
+    true,
+  );
+}
 const LAYERS = 6;
 
 export const threadRows: BenchRow = async () => {
@@ -34,6 +78,7 @@ export const threadRows: BenchRow = async () => {
       ),
     );
   }
+  out.push(pauliThreadsRow(all), densityThreadsRow(all));
   await closeKernelPool();
   return out;
 };

@@ -1,0 +1,46 @@
+/**
+ * The Pauli-sum expectation on engine threads: the flip-mask groups are dealt to the threads
+ * (each group whole to one thread, so every term is computed by exactly the code and order of
+ * the single-thread pass: results are bit-identical), balanced by their cost in passes over
+ * the state. Every thread reads the whole (shared) state and writes its terms' values into a
+ * shared output array.
+ */
+import type { MaskTerm } from "./pauli-mask-pass";
+
+/** One flip mask and its terms. */
+export type MaskGroup = [x: number, terms: MaskTerm[]];
+
+export interface PauliJob {
+  groups: MaskGroup[];
+  out: SharedArrayBuffer;
+  lowBits: number;
+}
+
+/** Passes over the state a group costs (four terms share a SIMD pass; many share transforms). */
+export function groupCost(terms: readonly MaskTerm[], transformAbove: number): number {
+  return terms.length > transformAbove ? 4 : Math.ceil(terms.length / 4);
+}
+
+/**
+ * Deals the groups to `parts` threads: largest cost first, each to the least-loaded thread
+ * (ties to the lowest index); every thread keeps the groups in their original order.
+ */
+export function dealGroups(
+  groups: readonly MaskGroup[],
+  parts: number,
+  transformAbove: number,
+): MaskGroup[][] {
+  const order = groups.map((g, i) => ({ i, cost: groupCost(g[1], transformAbove) }));
+  order.sort((a, b) => b.cost - a.cost || a.i - b.i);
+  const load = new Array<number>(parts).fill(0);
+  const owner = new Array<number>(groups.length);
+  for (const { i, cost } of order) {
+    let best = 0;
+    for (let p = 1; p < parts; p++) if (load[p] < load[best]) best = p;
+    owner[i] = best;
+    load[best] += cost;
+  }
+  const out: MaskGroup[][] = Array.from({ length: parts }, () => []);
+  groups.forEach((g, i) => out[owner[i]].push(g));
+  return out;
+}
