@@ -35,6 +35,8 @@ import type { NormalisedRequest } from "./validate-request";
 
 /** Default work budget of a preview's state-aware plan: 2^25 amplitude updates (≈ 0.5 s on a 2-vCPU VM; measured 1.6 s for 10^8). */
 export const DEFAULT_PREVIEW_WORK_BUDGET = 2 ** 25;
+/** Previews run on the web process's preview threads: never with engine threads of their own. */
+const ONE_THREAD = { threads: 1 };
 
 export interface PreviewOptions {
   /** Amplitude updates the preview may spend simulating states for the plan (0: never simulate). */
@@ -101,8 +103,8 @@ export function planPreviewShots(
     const circuit = circuits(k);
     const state: PreparedState =
       req.method === "statevector"
-        ? { kind: "statevector", state: simulateStatevector(circuit) }
-        : { kind: "density_matrix", rho: simulateDensityMatrix(circuit, req.noise) };
+        ? { kind: "statevector", state: simulateStatevector(circuit, ONE_THREAD) }
+        : { kind: "density_matrix", rho: simulateDensityMatrix(circuit, req.noise, ONE_THREAD) };
     const specs = buildSpecs(state, prepared, { readout: req.readout, mitigate: req.mitigate });
     const plan = targetPlan(
       eps,

@@ -11,9 +11,19 @@ import type { StateVector } from "../types";
 import { allocateAmplitudes } from "../statevector/state";
 
 export function applyObservable(obs: PreparedObservable, psi: StateVector): StateVector {
-  const len = psi.re.length;
   // like the state: in a kernel memory when the engine uses them (the sweep's SIMD kernels)
   const { re, im } = allocateAmplitudes(psi.n);
+  applyObservableInto(obs, psi, re, im);
+  return { n: psi.n, re, im };
+}
+
+/** λ = A·ψ into zeroed arrays (re, im) of ψ's size, on the calling thread. */
+export function applyObservableInto(
+  obs: PreparedObservable,
+  psi: StateVector,
+  re: Float64Array,
+  im: Float64Array,
+): void {
   if (obs.kind === "matrix") {
     const { dim: d, re: hr, im: hi } = obs.matrix;
     for (let i = 0; i < d; i++) {
@@ -28,11 +38,34 @@ export function applyObservable(obs: PreparedObservable, psi: StateVector): Stat
       re[i] = sr;
       im[i] = si;
     }
-    return { n: psi.n, re, im };
+    return;
   }
+  pauliLambdaRange(obs.sum.terms, psi, re, im, 0, re.length);
+}
+
+/** A Pauli term as λ needs it: flip and phase masks, coefficient. */
+export interface LambdaTerm {
+  xMask: number;
+  zMask: number;
+  coefficient: number;
+}
+
+/**
+ * λ[o] for the outputs o in [from, to) of a Pauli sum (λ zeroed there before): every output
+ * only reads ψ, so engine threads fill disjoint ranges; each output accumulates the mask
+ * groups in the same order whatever the range, so the result does not depend on the split.
+ */
+export function pauliLambdaRange(
+  sumTerms: readonly LambdaTerm[],
+  psi: StateVector,
+  re: Float64Array,
+  im: Float64Array,
+  from: number,
+  to: number,
+): void {
   // Terms with the same flip mask x share one pass: f(b) = Σ_t c_t·i^{k_t}·(−1)^{|b & z_t|}.
   const groups = new Map<number, { cr: number; ci: number; z: number }[]>();
-  for (const t of obs.sum.terms) {
+  for (const t of sumTerms) {
     const k = popcount(t.xMask & t.zMask) & 3;
     const cr = k === 0 ? t.coefficient : k === 2 ? -t.coefficient : 0;
     const ci = k === 1 ? t.coefficient : k === 3 ? -t.coefficient : 0;
@@ -45,7 +78,6 @@ export function applyObservable(obs: PreparedObservable, psi: StateVector): Stat
   // amplitude), so a group costs two lookups per amplitude whatever its size.
   const lowBits = Math.ceil(psi.n / 2);
   const loMask = (1 << lowBits) - 1;
-  const run = 1 << lowBits;
   for (const [x, terms] of groups) {
     const lo = termTable(
       terms.filter((t) => (t.z & ~loMask) === 0),
@@ -62,30 +94,25 @@ export function applyObservable(obs: PreparedObservable, psi: StateVector): Stat
     const zs = Int32Array.from(across, (t) => t.z);
     const crs = Float64Array.from(across, (t) => t.cr);
     const cis = Float64Array.from(across, (t) => t.ci);
-    for (let start = 0, h = 0; start < len; start += run, h++) {
-      const hiRe = hi.re[h];
-      const hiIm = hi.im[h];
-      for (let l = 0, b = start; l < run && b < len; l++, b++) {
-        let fr = lo.re[l] + hiRe;
-        let fi = lo.im[l] + hiIm;
-        for (let t = 0; t < m; t++) {
-          if (parity(b & zs[t])) {
-            fr -= crs[t];
-            fi -= cis[t];
-          } else {
-            fr += crs[t];
-            fi += cis[t];
-          }
+    for (let o = from; o < to; o++) {
+      const b = o ^ x;
+      let fr = lo.re[b & loMask] + hi.re[b >>> lowBits];
+      let fi = lo.im[b & loMask] + hi.im[b >>> lowBits];
+      for (let t = 0; t < m; t++) {
+        if (parity(b & zs[t])) {
+          fr -= crs[t];
+          fi -= cis[t];
+        } else {
+          fr += crs[t];
+          fi += cis[t];
         }
-        const ar = psi.re[b];
-        const ai = psi.im[b];
-        const o = b ^ x;
-        re[o] += fr * ar - fi * ai;
-        im[o] += fr * ai + fi * ar;
       }
+      const ar = psi.re[b];
+      const ai = psi.im[b];
+      re[o] += fr * ar - fi * ai;
+      im[o] += fr * ai + fi * ar;
     }
   }
-  return { n: psi.n, re, im };
 }
 
 /** Σ_t c_t·(−1)^{|v & (z_t >> shift)|} for every v < 2^bits (split re/im). */

@@ -48,7 +48,19 @@ function serve(m: AttachMessage): void {
     re.fill(0);
     im.fill(0);
   }
-  const ctx = { re: allRe, im: allIm, n: m.n, index: m.index, parts: m.parts };
+  const c = m.companion;
+  if (c?.memory) bindMemory(c.memory, m.index);
+  const ctx = {
+    re: allRe,
+    im: allIm,
+    n: m.n,
+    index: m.index,
+    parts: m.parts,
+    companion: c && {
+      re: new Float64Array(c.re, c.reAt, m.dim),
+      im: new Float64Array(c.im, c.imAt, m.dim),
+    },
+  };
   let seen = Atomics.load(ctrl, SEQ);
   Atomics.add(ctrl, READY, 1);
   Atomics.notify(ctrl, READY);

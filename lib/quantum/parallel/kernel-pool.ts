@@ -98,6 +98,9 @@ export async function closeKernelPool(): Promise<void> {
   await Promise.all(all.map((w) => w.terminate()));
 }
 
+const isShared = (s: { re: Float64Array; im: Float64Array }): boolean =>
+  s.re.buffer instanceof SharedArrayBuffer && s.im.buffer instanceof SharedArrayBuffer;
+
 /** A statevector's amplitudes in shared memory, with the helpers attached to it. */
 export class ParallelState {
   readonly re: Float64Array;
@@ -105,7 +108,8 @@ export class ParallelState {
   private readonly ctrl: Int32Array;
   private readonly mat: Float64Array;
   private readonly stageBuf: Float64Array;
-  private readonly splitBit: number;
+  /** Gates on qubits below this bit act inside every thread's contiguous slice. */
+  readonly splitBit: number;
   private readonly parts: number;
   private attached = false;
   /** Per helper: the port its jobs (payloads of CMD_JOB commands) arrive on. */
@@ -114,12 +118,14 @@ export class ParallelState {
   /**
    * 2^n amplitudes split over `threads` (a power of two ≥ 2) threads: a fresh |0…0⟩-ready
    * zero state, or the helpers attached to an `existing` state in shared memory (a kernel
-   * memory or SharedArrayBuffers; else the instance stays on the calling thread).
+   * memory or SharedArrayBuffers; else the instance stays on the calling thread). Jobs also
+   * see a `companion` state of the same size in shared memory (the adjoint gradient's λ).
    */
   constructor(
     readonly n: number,
     threads: number,
     existing?: { re: Float64Array; im: Float64Array },
+    companion?: { re: Float64Array; im: Float64Array },
   ) {
     this.parts = threads;
     this.splitBit = n - Math.log2(threads);
@@ -127,8 +133,7 @@ export class ParallelState {
     if (existing) {
       ({ re: this.re, im: this.im } = existing);
       memory = kernelMemoryOf(this.re.buffer);
-      const shared = this.re.buffer instanceof SharedArrayBuffer;
-      if (!shared || !(this.im.buffer instanceof SharedArrayBuffer)) threads = 1;
+      if (![existing, companion].every((s) => s === undefined || isShared(s))) threads = 1;
     } else {
       // amplitudes in a kernel memory (WebAssembly SIMD kernels on every thread) when enabled,
       // else in two SharedArrayBuffers
@@ -166,6 +171,13 @@ export class ParallelState {
         stage,
         jobs: channel.port2,
         fresh: !existing,
+        companion: companion && {
+          re: companion.re.buffer as SharedArrayBuffer,
+          im: companion.im.buffer as SharedArrayBuffer,
+          reAt: companion.re.byteOffset,
+          imAt: companion.im.byteOffset,
+          memory: kernelMemoryOf(companion.re.buffer),
+        },
         n,
         index: i,
         parts: threads,

@@ -49,6 +49,14 @@ export interface AttachMessage {
   jobs: MessagePort;
   /** True for a new state: the helper writes zeros over its slice first. */
   fresh: boolean;
+  /** A second state of the same size the jobs see (at byte offsets of its buffers). */
+  companion?: {
+    re: SharedArrayBuffer;
+    im: SharedArrayBuffer;
+    reAt: number;
+    imAt: number;
+    memory?: WebAssembly.Memory;
+  };
   /** Qubits of the state (dim = 2^n). */
   n: number;
   index: number;

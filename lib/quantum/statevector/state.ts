@@ -18,9 +18,13 @@ export const WASM_MIN_QUBITS = 10;
 
 /**
  * Zero-filled re and im arrays of 2^n amplitudes: in a WebAssembly kernel memory (the SIMD
- * kernels run on them) when enabled and n ≥ WASM_MIN_QUBITS, else plain Float64Arrays.
+ * kernels run on them) when enabled and n ≥ WASM_MIN_QUBITS, else plain Float64Arrays
+ * (over SharedArrayBuffers when `shared`: engine threads will work on them).
  */
-export function allocateAmplitudes(n: number): { re: Float64Array; im: Float64Array } {
+export function allocateAmplitudes(
+  n: number,
+  shared = false,
+): { re: Float64Array; im: Float64Array } {
   if (n >= WASM_MIN_QUBITS && engineWasm()) {
     const memory = createKernelMemory(n, tileTailBytes(n, 1));
     if (memory && bindMemory(memory, 0)) {
@@ -33,6 +37,12 @@ export function allocateAmplitudes(n: number): { re: Float64Array; im: Float64Ar
     }
   }
   const dim = 2 ** n;
+  if (shared) {
+    return {
+      re: new Float64Array(new SharedArrayBuffer(8 * dim)),
+      im: new Float64Array(new SharedArrayBuffer(8 * dim)),
+    };
+  }
   return { re: new Float64Array(dim), im: new Float64Array(dim) };
 }
 

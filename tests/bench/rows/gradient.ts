@@ -15,35 +15,43 @@ import {
   pauliExpectationsOnState,
   weightedTotal,
 } from "@/lib/quantum/observable/pauli-expectation";
+import type { PreparedObservable } from "@/lib/quantum/sampling/sample-observable";
 import { simulateStatevector } from "@/lib/quantum/statevector/simulate";
 import { type BenchRow, fmtClocks, paired, ratioResult } from "../bench-kit";
 
 const N = 16;
 const LAYERS = 10;
 const PS = [2, 5, 10, 20, 40];
+/** The cost ratio is a single-thread figure (the threads rows time the gradient on several). */
+const ONE = { threads: 1 };
 
-function source(p: number): string {
-  const lines = ["OPENQASM 3.0;", 'include "stdgates.inc";', `qubit[${N}] q;`];
+export function source(p: number, n = N): string {
+  const lines = ["OPENQASM 3.0;", 'include "stdgates.inc";', `qubit[${n}] q;`];
   for (let k = 0; k < p; k++) lines.push(`input float t${k};`);
   let g = 0;
   for (let l = 0; l < LAYERS; l++) {
     for (const gate of ["ry", "rz"]) {
-      for (let q = 0; q < N; q++, g++) {
+      for (let q = 0; q < n; q++, g++) {
         const t = `t${g % p}`;
         lines.push(`${gate}(${g % 2 === 0 ? `0.5*${t}+0.1` : `sin(${t})`}) q[${q}];`);
       }
     }
-    for (let q = 0; q + 1 < N; q++) lines.push(`cx q[${q}], q[${q + 1}];`);
+    for (let q = 0; q + 1 < n; q++) lines.push(`cx q[${q}], q[${q + 1}];`);
   }
   return lines.join("\n");
 }
 
-export const gradientRows: BenchRow = () => {
+/** Σ Z_i Z_{i+1} + 0.5 Σ X_i on n qubits. */
+export function benchObservable(n = N): PreparedObservable {
   const terms = [
-    ...Array.from({ length: N - 1 }, (_, i) => `Z${i} Z${i + 1}`),
-    ...Array.from({ length: N }, (_, i) => `0.5 X${i}`),
+    ...Array.from({ length: n - 1 }, (_, i) => `Z${i} Z${i + 1}`),
+    ...Array.from({ length: n }, (_, i) => `0.5 X${i}`),
   ].join(" + ");
-  const obs = prepareObservable({ format: "pauli", terms }, N);
+  return prepareObservable({ format: "pauli", terms }, n);
+}
+
+export const gradientRows: BenchRow = () => {
+  const obs = benchObservable();
   if (obs.kind !== "pauli") throw new Error("expected a Pauli sum");
   return PS.map((p) => {
     const program = parseProgram("qasm3", source(p));
@@ -51,12 +59,12 @@ export const gradientRows: BenchRow = () => {
       Array.from({ length: p }, (_, k) => [`t${k}`, 0.1 + 0.03 * k]),
     );
     const forward = () => {
-      const psi = simulateStatevector(program.bind(params));
-      return weightedTotal(obs.sum, pauliExpectationsOnState(psi, obs.sum));
+      const psi = simulateStatevector(program.bind(params), ONE);
+      return weightedTotal(obs.sum, pauliExpectationsOnState(psi, obs.sum, undefined, 1));
     };
     const gradient = () => {
-      const psi = simulateStatevector(program.bind(params));
-      return adjointGradient(buildTape(program, params), psi, obs);
+      const psi = simulateStatevector(program.bind(params), ONE);
+      return adjointGradient(buildTape(program, params), psi, obs, ONE);
     };
     // Paired repetitions: gradient ÷ forward per repetition, median and range (bench-kit.ts).
     const pr = paired(

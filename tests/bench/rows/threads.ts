@@ -13,15 +13,43 @@ import {
 } from "@/lib/quantum/observable/pauli-expectation";
 import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
 import { padPauliSum } from "@/lib/quantum/observable/pauli-word";
+import { parseProgram } from "@/lib/quantum/circuit";
 import { simulateDensityMatrix } from "@/lib/quantum/density-matrix/simulate";
+import { adjointGradient } from "@/lib/quantum/gradient/adjoint";
+import { buildTape } from "@/lib/quantum/gradient/tape";
 import { layeredAnsatz } from "../ansatz";
 import { BENCH_NOISE, noisyCircuit } from "./density";
+import { benchObservable, source } from "./gradient";
 import { randomPauliText, randomState } from "./observables";
 import { type BenchRow, type RowResult, fmtClocks, paired, ratioResult } from "../bench-kit";
 
 const N = 22;
 const PAULI_N = 20;
 const PAULI_TERMS = 1000;
+
+/** The gradient rows' ansatz at 20 qubits, P = 10: forward + adjoint, one thread ÷ all, wall time. */
+function gradientThreadsRow(all: number): RowResult {
+  const n = 20;
+  const program = parseProgram("qasm3", source(10, n));
+  const params = Object.fromEntries(
+    Array.from({ length: 10 }, (_, k) => [`t${k}`, 0.1 + 0.03 * k]),
+  );
+  const obs = benchObservable(n);
+  const tape = buildTape(program, params);
+  const run = (threads: number) => (): void =>
+    void adjointGradient(tape, simulateStatevector(program.bind(params), { threads }), obs, {
+      threads,
+    });
+  const p = paired(run(all), run(1), { clock: "wall" });
+  return ratioResult(
+    p,
+    `one engine thread ÷ all = ${all} threads, gradient n=${n} P=10 (forward + adjoint), wall time`,
+    `${all} threads ${fmtClocks(p.row)}; 1 thread ${fmtClocks(p.base)}`,
+    "",
+    undefined,
+    true,
+  );
+}
 
 /** The density-matrix row's circuit (10 qubits, 100 noisy gates): one thread ÷ all, wall time. */
 function densityThreadsRow(all: number): RowResult {
@@ -78,7 +106,7 @@ export const threadRows: BenchRow = async () => {
       ),
     );
   }
-  out.push(pauliThreadsRow(all), densityThreadsRow(all));
+  out.push(pauliThreadsRow(all), densityThreadsRow(all), gradientThreadsRow(all));
   await closeKernelPool();
   return out;
 };
