@@ -10,12 +10,11 @@
 import { EngineError } from "../errors";
 import type { Circuit, GateApplication, StateVector } from "../types";
 import { checkCircuit } from "./circuit-check";
-import { applyToAmplitudes } from "./dispatch";
 import { GateFuser } from "./fusion";
 import { assertStatevectorFits, type MemoryLimits } from "./memory";
 import { RunControl, type RunOptions } from "./run-control";
 import { createZeroState } from "./state";
-import { applyStageTiles, planSteps, TILE_MIN_QUBITS_ONE_THREAD, tileCount } from "./tiling";
+import { runGates } from "./run-gates";
 import { engineThreads, threadsFor } from "../parallel/config";
 import { ParallelState } from "../parallel/kernel-pool";
 
@@ -84,29 +83,21 @@ export function simulateStatevector(circuit: Circuit, opts: StatevectorOptions =
   const control = new RunControl(opts, gates.length, "simulate");
   const n = circuit.numQubits;
   const threads = threadsFor(n, opts.threads ?? engineThreads());
-  const steps = planSteps(gates, n, threads > 1 || n >= TILE_MIN_QUBITS_ONE_THREAD);
-  let done = 0;
+  const tick = (done: number): void => control.tick(done);
   if (threads > 1) {
     const shared = new ParallelState(n, threads);
     shared.re[0] = 1;
+    const state = { n, re: shared.re, im: shared.im };
     try {
-      for (const step of steps) {
-        if ("gate" in step) shared.apply(step.gate.qubits, step.gate.matrix);
-        else shared.applyStage(step.stage);
-        control.tick((done += step.count));
-      }
+      runGates(state, gates, shared, tick);
     } finally {
       shared.detach();
     }
     control.finish();
-    return { n, re: shared.re, im: shared.im };
+    return state;
   }
   const state = createZeroState(n);
-  for (const step of steps) {
-    if ("gate" in step) applyToAmplitudes(state.re, state.im, step.gate.qubits, step.gate.matrix);
-    else applyStageTiles(state.re, state.im, n, step.stage, 0, tileCount(n, step.stage));
-    control.tick((done += step.count));
-  }
+  runGates(state, gates, null, tick);
   control.finish();
   return state;
 }

@@ -19,20 +19,26 @@ export const WASM_MIN_QUBITS = 10;
 /**
  * Zero-filled re and im arrays of 2^n amplitudes: in a WebAssembly kernel memory (the SIMD
  * kernels run on them) when enabled and n ≥ WASM_MIN_QUBITS, else plain Float64Arrays
- * (over SharedArrayBuffers when `shared`: engine threads will work on them).
+ * (over SharedArrayBuffers when `shared`: engine threads will work on them). A kernel memory
+ * has room for the tile buffers of `threads` threads (tiling.ts). `zeroFill: false` skips
+ * writing its pages first, for a caller that overwrites every amplitude at once (a copy).
  */
 export function allocateAmplitudes(
   n: number,
   shared = false,
+  threads = 1,
+  zeroFill = true,
 ): { re: Float64Array; im: Float64Array } {
   if (n >= WASM_MIN_QUBITS && engineWasm()) {
-    const memory = createKernelMemory(n, tileTailBytes(n, 1));
+    const memory = createKernelMemory(n, tileTailBytes(n, threads));
     if (memory && bindMemory(memory, 0)) {
       const views = stateViews(memory, n);
       // write every page once: a kernel's first read would map the shared zero page and its
       // store then replace it (a TLB flush per page, sent to every thread of the process)
-      views.re.fill(0);
-      views.im.fill(0);
+      if (zeroFill) {
+        views.re.fill(0);
+        views.im.fill(0);
+      }
       return views;
     }
   }
