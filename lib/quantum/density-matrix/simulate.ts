@@ -125,7 +125,7 @@ export function simulateDensityMatrix(
   const n = circuit.numQubits;
   const threads = threadsFor(2 * n, opts.threads ?? engineThreads());
   const rho = createZeroDensity(n, threads > 1);
-  const shared = threads > 1 ? new ParallelState(2 * n, threads, rho) : null;
+  const shared = threads > 1 ? new ParallelState(2 * n, threads, { existing: rho }) : null;
   try {
     // slices of ρ: the top log2(threads) row bits select the thread; steps on lower qubits
     // act inside every slice

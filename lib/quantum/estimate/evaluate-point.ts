@@ -87,7 +87,10 @@ export async function evaluatePoint(
   let state: PreparedState;
   let ideal: number | null = null;
   if (req.method === "statevector") {
-    state = { kind: "statevector", state: simulateStatevector(circuit, simOpts) };
+    // with a gradient to follow, the state's memory also holds λ (adjoint.ts: one SIMD pass
+    // reads both for every block's cross matrix)
+    const companion = differentiate !== null;
+    state = { kind: "statevector", state: simulateStatevector(circuit, { ...simOpts, companion }) };
   } else {
     const noisy = hasStateNoise(req.noise);
     state = { kind: "density_matrix", rho: simulateDensityMatrix(circuit, req.noise, simOpts) };

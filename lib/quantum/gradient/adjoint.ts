@@ -25,6 +25,7 @@ import type { StateVector } from "../types";
 import { engineThreads, threadsFor } from "../parallel/config";
 import { shareOf, sliceOf } from "../parallel/shares";
 import { allocateAmplitudes } from "../statevector/state";
+import { companionOf } from "../wasm/runtime";
 import { ParallelState } from "../parallel/kernel-pool";
 import { applyObservableInto, pauliLambdaRange, type LambdaTerm } from "./apply-observable";
 import { nonZeroPattern } from "./backward-step";
@@ -55,8 +56,18 @@ export function adjointGradient(
   const threads =
     psi.n < GRADIENT_MIN_PARALLEL_QUBITS ? 1 : threadsFor(psi.n, opts.threads ?? engineThreads());
   const phi = psi;
-  const lambda: StateVector = { n: psi.n, ...allocateAmplitudes(psi.n, threads > 1) };
-  const shared = threads > 1 ? new ParallelState(psi.n, threads, lambda, phi) : null;
+  // λ in the state's own kernel memory when the forward reserved it (one SIMD pass reads both)
+  const companion = companionOf(psi.re);
+  if (companion) {
+    companion.re.fill(0);
+    companion.im.fill(0);
+  }
+  const lambda: StateVector = {
+    n: psi.n,
+    ...(companion ?? allocateAmplitudes(psi.n, threads > 1)),
+  };
+  const shared =
+    threads > 1 ? new ParallelState(psi.n, threads, { existing: lambda, companion: phi }) : null;
   try {
     // λ = A·ψ: by output slices on the engine threads when there are several
     if (shared?.parallel && obs.kind === "pauli") {

@@ -94,10 +94,28 @@ export function pauliLambdaRange(
     const zs = Int32Array.from(across, (t) => t.z);
     const crs = Float64Array.from(across, (t) => t.cr);
     const cis = Float64Array.from(across, (t) => t.ci);
+    const pr = psi.re;
+    const pi = psi.im;
+    if (terms.every((t) => t.z === 0)) {
+      // f is the same for every b (e.g. a lone X or Y word): no tables
+      const fr = lo.re[0] + hi.re[0];
+      const fi = lo.im[0] + hi.im[0];
+      for (let o = from; o < to; o++) {
+        const ar = pr[o ^ x];
+        const ai = pi[o ^ x];
+        re[o] += fr * ar - fi * ai;
+        im[o] += fr * ai + fi * ar;
+      }
+      continue;
+    }
+    const loRe = lo.re;
+    const loIm = lo.im;
+    const hiRe = hi.re;
+    const hiIm = hi.im;
     for (let o = from; o < to; o++) {
       const b = o ^ x;
-      let fr = lo.re[b & loMask] + hi.re[b >>> lowBits];
-      let fi = lo.im[b & loMask] + hi.im[b >>> lowBits];
+      let fr = loRe[b & loMask] + hiRe[b >>> lowBits];
+      let fi = loIm[b & loMask] + hiIm[b >>> lowBits];
       for (let t = 0; t < m; t++) {
         if (parity(b & zs[t])) {
           fr -= crs[t];
@@ -107,8 +125,8 @@ export function pauliLambdaRange(
           fi += cis[t];
         }
       }
-      const ar = psi.re[b];
-      const ai = psi.im[b];
+      const ar = pr[b];
+      const ai = pi[b];
       re[o] += fr * ar - fi * ai;
       im[o] += fr * ai + fi * ar;
     }

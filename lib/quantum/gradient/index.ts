@@ -72,7 +72,7 @@ export async function gradientAtPoint(
   } else if (pure && !hasStateNoise(input.noise)) {
     exact = adjointGradient(
       tape,
-      simulateStatevector(input.circuit, { signal: input.signal }),
+      simulateStatevector(input.circuit, { signal: input.signal, companion: true }),
       input.obs,
       { signal: input.signal },
     );

@@ -6,6 +6,7 @@
  * indices, so the threads' partial matrices add up to it (threadedSweepStep).
  */
 import { applyToAmplitudes } from "../statevector/dispatch";
+import { wasmCross } from "../wasm/cross";
 import { wasmBinding } from "../wasm/runtime";
 import { backwardStep, crossOnly } from "./backward-step";
 import { crossLocal } from "./local-cross";
@@ -34,17 +35,20 @@ export function sweepStep(lambda: Vec, phi: Vec, step: SweepStep): Float64Array 
     if (updateLambda) applyToAmplitudes(lambda.re, lambda.im, qubits, udag);
     return null;
   }
-  const simd =
-    wasmBinding(phi.re, phi.im) !== undefined && wasmBinding(lambda.re, lambda.im) !== undefined;
-  if (qubits.length <= 2 && !simd) {
+  const wPhi = wasmBinding(phi.re, phi.im);
+  const wLambda = wasmBinding(lambda.re, lambda.im);
+  if (qubits.length <= 2 && (!wPhi || !wLambda)) {
     return backwardStep(lambda.re, lambda.im, phi.re, phi.im, qubits, udag, needed, updateLambda);
   }
-  // in kernel memories B† goes through the SIMD kernels and R is a separate pass
+  // in kernel memories B† goes through the SIMD kernels and R is a separate pass: SIMD too
+  // when λ and φ share one memory (the forward reserved λ as the state's companion)
   applyToAmplitudes(phi.re, phi.im, qubits, udag);
   const r =
-    qubits.length <= 2
-      ? crossOnly(lambda.re, lambda.im, phi.re, phi.im, qubits, needed)
-      : crossLocal(lambda.re, lambda.im, phi.re, phi.im, qubits);
+    qubits.length > 2
+      ? crossLocal(lambda.re, lambda.im, phi.re, phi.im, qubits)
+      : wPhi && wPhi === wLambda
+        ? wasmCross(wPhi, lambda.re, lambda.im, phi.re, phi.im, qubits, needed)
+        : crossOnly(lambda.re, lambda.im, phi.re, phi.im, qubits, needed);
   if (updateLambda) applyToAmplitudes(lambda.re, lambda.im, qubits, udag);
   return r;
 }

@@ -42,7 +42,7 @@ export function pauliExpectationsOnState(
   const groups = [...groupByMask(sum)];
   const parts = Math.min(threadsFor(n, threads), groups.length);
   if (parts > 1) {
-    const shared = new ParallelState(n, pow2Floor(parts), state);
+    const shared = new ParallelState(n, pow2Floor(parts), { existing: state });
     try {
       if (shared.parallel) {
         const out = new Float64Array(new SharedArrayBuffer(8 * sum.terms.length));

@@ -124,9 +124,14 @@ export class ParallelState {
   constructor(
     readonly n: number,
     threads: number,
-    existing?: { re: Float64Array; im: Float64Array },
-    companion?: { re: Float64Array; im: Float64Array },
+    opts: {
+      existing?: { re: Float64Array; im: Float64Array };
+      companion?: { re: Float64Array; im: Float64Array };
+      /** A fresh state's memory also holds a companion state (wasm/runtime.ts companionOf). */
+      reserveCompanion?: boolean;
+    } = {},
   ) {
+    const { existing, companion } = opts;
     this.parts = threads;
     this.splitBit = n - Math.log2(threads);
     let memory: WebAssembly.Memory | null | undefined = null;
@@ -137,7 +142,9 @@ export class ParallelState {
     } else {
       // amplitudes in a kernel memory (WebAssembly SIMD kernels on every thread) when enabled,
       // else in two SharedArrayBuffers
-      memory = engineWasm() ? createKernelMemory(n, tileTailBytes(n, threads)) : null;
+      memory = engineWasm()
+        ? createKernelMemory(n, tileTailBytes(n, threads), opts.reserveCompanion)
+        : null;
       if (memory && bindMemory(memory, 0)) {
         ({ re: this.re, im: this.im } = stateViews(memory, n));
       } else {

@@ -26,6 +26,11 @@ export interface StatevectorOptions extends RunOptions, MemoryLimits {
    * 1 = the single-thread path. States below PARALLEL_MIN_QUBITS always use one thread.
    */
   threads?: number;
+  /**
+   * Also reserve a companion state in the state's kernel memory (wasm/runtime.ts companionOf):
+   * the adjoint gradient keeps λ there and reads λ and φ with one SIMD kernel.
+   */
+  companion?: boolean;
 }
 
 function unsupported(circuit: Circuit, what: string, qubit: number, line: number): never {
@@ -85,7 +90,7 @@ export function simulateStatevector(circuit: Circuit, opts: StatevectorOptions =
   const threads = threadsFor(n, opts.threads ?? engineThreads());
   const tick = (done: number): void => control.tick(done);
   if (threads > 1) {
-    const shared = new ParallelState(n, threads);
+    const shared = new ParallelState(n, threads, { reserveCompanion: opts.companion });
     shared.re[0] = 1;
     const state = { n, re: shared.re, im: shared.im };
     try {
@@ -96,7 +101,7 @@ export function simulateStatevector(circuit: Circuit, opts: StatevectorOptions =
     control.finish();
     return state;
   }
-  const state = createZeroState(n);
+  const state = createZeroState(n, opts.companion);
   runGates(state, gates, null, tick);
   control.finish();
   return state;

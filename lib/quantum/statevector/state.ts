@@ -28,9 +28,10 @@ export function allocateAmplitudes(
   shared = false,
   threads = 1,
   zeroFill = true,
+  companion = false,
 ): { re: Float64Array; im: Float64Array } {
   if (n >= WASM_MIN_QUBITS && engineWasm()) {
-    const memory = createKernelMemory(n, tileTailBytes(n, threads));
+    const memory = createKernelMemory(n, tileTailBytes(n, threads), companion);
     if (memory && bindMemory(memory, 0)) {
       const views = stateViews(memory, n);
       // write every page once: a kernel's first read would map the shared zero page and its
@@ -52,12 +53,12 @@ export function allocateAmplitudes(
   return { re: new Float64Array(dim), im: new Float64Array(dim) };
 }
 
-/** |0…0⟩ on n qubits: amplitude 1 at index 0. */
-export function createZeroState(n: number): StateVector {
+/** |0…0⟩ on n qubits: amplitude 1 at index 0 (with a companion state: wasm/runtime.ts companionOf). */
+export function createZeroState(n: number, companion = false): StateVector {
   if (!Number.isInteger(n) || n < 0 || n > 30) {
     throw new RangeError(`createZeroState: qubit count must be an integer in [0, 30], got ${n}`);
   }
-  const { re, im } = allocateAmplitudes(n);
+  const { re, im } = allocateAmplitudes(n, false, 1, true, companion);
   re[0] = 1;
   return { n, re, im };
 }

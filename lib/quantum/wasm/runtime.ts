@@ -48,6 +48,28 @@ export interface KernelExports {
     runs: number,
     runBytes: number,
   ): void;
+  cross1q(
+    lre: number,
+    lim: number,
+    pre: number,
+    pim: number,
+    len: number,
+    q: number,
+    out: number,
+    acc: number,
+  ): void;
+  cross2q(
+    lre: number,
+    lim: number,
+    pre: number,
+    pim: number,
+    len: number,
+    first: number,
+    second: number,
+    needed: number,
+    out: number,
+    acc: number,
+  ): void;
   scatterTile(
     re: number,
     im: number,
@@ -149,18 +171,47 @@ export function stateEndByte(n: number): number {
   return RESERVED_BYTES + 16 * 2 ** n + IM_GAP_BYTES;
 }
 
+/** Bytes of a companion state (re, gap, im) after a kernel memory's tail. */
+export function companionBytes(n: number): number {
+  return 16 * 2 ** n + IM_GAP_BYTES;
+}
+
+const companions = new WeakMap<ArrayBufferLike, { re: Float64Array; im: Float64Array }>();
+
+/**
+ * The companion state of the kernel memory whose bytes hold `re` (made in this thread with
+ * `companion`): a second 2^n-amplitude state in the same memory, so kernels that read two
+ * states at once (the adjoint sweep's cross matrix) can run on both. Not zero-filled.
+ */
+export function companionOf(re: Float64Array): { re: Float64Array; im: Float64Array } | undefined {
+  return companions.get(re.buffer);
+}
+
 /**
  * A kernel memory holding a 2^n-amplitude state (zero-filled) and `tailBytes` more after it
- * (the per-thread tile buffers of statevector/tiling.ts), or null when it cannot exist.
+ * (the per-thread tile buffers of statevector/tiling.ts), then a companion state when asked
+ * (companionOf), or null when it cannot exist.
  */
-export function createKernelMemory(n: number, tailBytes = 0): WebAssembly.Memory | null {
+export function createKernelMemory(
+  n: number,
+  tailBytes = 0,
+  companion = false,
+): WebAssembly.Memory | null {
   if (n > WASM_MAX_QUBITS || !kernelModule()) return null;
-  const bytes = stateEndByte(n) + tailBytes;
+  const bytes = stateEndByte(n) + tailBytes + (companion ? companionBytes(n) : 0);
   if (bytes > 2 ** 32) return null;
   const pages = Math.ceil(bytes / PAGE);
   try {
     const memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
     memories.set(memory.buffer, memory);
+    if (companion) {
+      const at = stateEndByte(n) + tailBytes;
+      const dim = 2 ** n;
+      companions.set(memory.buffer, {
+        re: new Float64Array(memory.buffer, at, dim),
+        im: new Float64Array(memory.buffer, at + 8 * dim + IM_GAP_BYTES, dim),
+      });
+    }
     return memory;
   } catch {
     return null; // no address space (or no shared memory): the caller uses plain arrays

@@ -4,3 +4,4 @@ export { general2q } from "./kernels-2q";
 export { twoBlock } from "./kernels-two-block";
 export { pauliDiagonal, pauliTerm, pauliTerms4 } from "./pauli-mask";
 export { gatherTile, scatterTile } from "./tile-copy";
+export { cross1q, cross2q } from "./cross";

@@ -17,6 +17,8 @@ import { applyObservable } from "@/lib/quantum/gradient/apply-observable";
 import { matrixDerivative } from "@/lib/quantum/gradient/shift-rules";
 import { buildTape, dagger, type Tape } from "@/lib/quantum/gradient/tape";
 import { applyDense } from "@/lib/quantum/statevector/dispatch";
+import { companionOf } from "@/lib/quantum/wasm/runtime";
+import { engineWasm } from "@/lib/quantum/parallel/config";
 import { simulateStatevector } from "@/lib/quantum/statevector/simulate";
 import type { PreparedObservable } from "@/lib/quantum/sampling/sample-observable";
 import type { StateVector } from "@/lib/quantum/types";
@@ -84,12 +86,14 @@ function randomSource(n: number, length: number, inputs: number, rand: () => num
 
 describe("fused adjoint gradient", () => {
   // n = 11: states in a WebAssembly kernel memory when the engine uses them (other sweep path)
+  // companion: λ in the state's own kernel memory (the SIMD cross-matrix pass)
   it.each([
-    [5, 30],
-    [11, 4],
+    [5, 30, false],
+    [11, 4, false],
+    [11, 4, true],
   ])(
-    "equals the per-gate sweep on random %i-qubit circuits (%i) to 1e-10 (seed 1207)",
-    (n, circuits) => {
+    "equals the per-gate sweep on random %i-qubit circuits (%i, λ as companion: %s) to 1e-10 (seed 1207)",
+    (n, circuits, companion) => {
       const rand = mulberry32(1207);
       const obs = prepareObservable(
         { format: "pauli", terms: "0.8 Z0 Z1 + 0.5 X2 - 0.3 Y3 Y4 + 0.2 X0 Y1 Z4" },
@@ -103,7 +107,9 @@ describe("fused adjoint gradient", () => {
         );
         const tape = buildTape(program, params);
         const want = perGateGradient(tape, simulateStatevector(program.bind(params)), obs);
-        const got = adjointGradient(tape, simulateStatevector(program.bind(params)), obs);
+        const psi = simulateStatevector(program.bind(params), { companion });
+        expect(companionOf(psi.re) !== undefined).toBe(companion && engineWasm()); // none on plain arrays
+        const got = adjointGradient(tape, psi, obs);
         expect(got.length).toBe(inputs);
         for (let i = 0; i < inputs; i++) expect(Math.abs(got[i] - want[i])).toBeLessThan(1e-10);
       }
@@ -129,7 +135,8 @@ describe("adjoint gradient on engine threads", () => {
       const params = { t0: 0.3, t1: -1.1, t2: 0.7 };
       const tape = buildTape(program, params);
       // the state as a threaded run has it (bit-identical for any thread count; shared memory)
-      const state = (threads: number) => simulateStatevector(program.bind(params), { threads });
+      const state = (threads: number) =>
+        simulateStatevector(program.bind(params), { threads, companion: true });
       const one = adjointGradient(tape, state(1), obs, { threads: 1 });
       const scale = Math.max(...Array.from(one, Math.abs));
       expect(scale).toBeGreaterThan(1e-3); // a gradient that is not trivially zero
