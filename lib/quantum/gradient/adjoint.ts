@@ -11,7 +11,8 @@
  * block B = G_m ⋯ G_1, φ ← B†φ, the local cross matrix R of λ and φ on the block's
  * qubits, λ ← B†λ — for blocks on one or two qubits all three in ONE pass over both
  * vectors (backward-step.ts), except in kernel memories (WebAssembly), where B† goes
- * through the SIMD kernels and R is a separate pass; otherwise three (local-cross.ts) — and every
+ * through the SIMD kernels and R is a separate pass (SIMD too when λ is the state's
+ * companion in the same memory, wasm/cross.ts); otherwise three (local-cross.ts) — and every
  * angle θ of a member G_j costs only a small matrix product:
  *   ∂⟨A⟩/∂θ = 2·Re Σ_{a,b} (S_j · ∂G_j/∂θ · P_j)[a][b] · R[a][b],
  * P_j = G_{j−1} ⋯ G_1 and S_j = G_m ⋯ G_{j+1} embedded on the block's qubits. Blocks
