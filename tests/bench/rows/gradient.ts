@@ -24,6 +24,8 @@ const LAYERS = 10;
 const PS = [2, 5, 10, 20, 40];
 /** The cost ratio is a single-thread figure (the threads rows time the gradient on several). */
 const ONE = { threads: 1 };
+/** As a run with a gradient simulates: λ reserved as the state's companion (one SIMD cross pass). */
+const ONE_WITH_LAMBDA = { threads: 1, companion: true };
 
 export function source(p: number, n = N): string {
   const lines = ["OPENQASM 3.0;", 'include "stdgates.inc";', `qubit[${n}] q;`];
@@ -63,7 +65,7 @@ export const gradientRows: BenchRow = () => {
       return weightedTotal(obs.sum, pauliExpectationsOnState(psi, obs.sum, undefined, 1));
     };
     const gradient = () => {
-      const psi = simulateStatevector(program.bind(params), ONE);
+      const psi = simulateStatevector(program.bind(params), ONE_WITH_LAMBDA);
       return adjointGradient(buildTape(program, params), psi, obs, ONE);
     };
     // Paired repetitions: gradient ÷ forward per repetition, median and range (bench-kit.ts).

@@ -37,9 +37,12 @@ function gradientThreadsRow(all: number): RowResult {
   const obs = benchObservable(n);
   const tape = buildTape(program, params);
   const run = (threads: number) => (): void =>
-    void adjointGradient(tape, simulateStatevector(program.bind(params), { threads }), obs, {
-      threads,
-    });
+    void adjointGradient(
+      tape,
+      simulateStatevector(program.bind(params), { threads, companion: true }),
+      obs,
+      { threads },
+    );
   const p = paired(run(all), run(1), { clock: "wall" });
   return ratioResult(
     p,
