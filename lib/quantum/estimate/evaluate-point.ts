@@ -28,6 +28,7 @@ import {
 } from "../sampling/sample-observable";
 import type { ParsedProgram } from "../circuit";
 import { gradientAtPoint, type GradientResult } from "../gradient";
+import { reserveLambda } from "../gradient/adjoint";
 import {
   groundWeightOnDensity,
   groundWeightOnState,
@@ -89,7 +90,7 @@ export async function evaluatePoint(
   if (req.method === "statevector") {
     // with a gradient to follow, the state's memory also holds λ (adjoint.ts: one SIMD pass
     // reads both for every block's cross matrix)
-    const companion = differentiate !== null;
+    const companion = differentiate !== null && reserveLambda(circuit.numQubits);
     state = { kind: "statevector", state: simulateStatevector(circuit, { ...simOpts, companion }) };
   } else {
     const noisy = hasStateNoise(req.noise);

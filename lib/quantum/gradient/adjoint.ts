@@ -41,6 +41,17 @@ import { dagger, type Tape, type TapeAngle, type TapePart } from "./tape";
  */
 export const GRADIENT_MIN_PARALLEL_QUBITS = 18;
 
+/**
+ * Up to this many qubits a run with a gradient reserves λ as the state's companion at
+ * simulation time (the SIMD cross pass). Beyond it λ is allocated when the sweep starts, so a
+ * 25- or 26-qubit run does not hold a third state-sized array through its sampling (the
+ * rotated copy) — the JavaScript cross pass then reads λ and φ from two memories.
+ */
+export const COMPANION_MAX_QUBITS = 24;
+
+/** Whether a state simulated for a gradient should reserve λ beside it. */
+export const reserveLambda = (n: number): boolean => n <= COMPANION_MAX_QUBITS;
+
 export interface AdjointOptions extends RunOptions {
   /** Engine threads (default engineThreads()); 1 = the single-thread path. */
   threads?: number;

@@ -13,7 +13,7 @@ import type {
 } from "../sampling/sample-observable";
 import { simulateStatevector } from "../statevector/simulate";
 import type { Circuit, NoiseModel } from "../types";
-import { adjointGradient } from "./adjoint";
+import { adjointGradient, reserveLambda } from "./adjoint";
 import { densityGradient } from "./density-tangent";
 import { sampledGradient, shiftedCircuitCount, shiftTerms } from "./shift-sampling";
 import { buildTape } from "./tape";
@@ -72,7 +72,10 @@ export async function gradientAtPoint(
   } else if (pure && !hasStateNoise(input.noise)) {
     exact = adjointGradient(
       tape,
-      simulateStatevector(input.circuit, { signal: input.signal, companion: true }),
+      simulateStatevector(input.circuit, {
+        signal: input.signal,
+        companion: reserveLambda(input.circuit.numQubits),
+      }),
       input.obs,
       { signal: input.signal },
     );

@@ -22,8 +22,11 @@ export function groupCost(terms: readonly MaskTerm[], transformAbove: number): n
 }
 
 /**
- * Deals the groups to `parts` threads: largest cost first, each to the least-loaded thread
- * (ties to the lowest index); every thread keeps the groups in their original order.
+ * Deals the groups to `parts` threads: groups that go through Walsh–Hadamard transforms (more
+ * than `transformAbove` terms; each allocates one or two state-sized arrays) all to thread 0,
+ * so the threads never hold several of those at once; then the others, largest cost first,
+ * each to the least-loaded thread (ties to the lowest index). Every thread keeps the groups
+ * in their original order.
  */
 export function dealGroups(
   groups: readonly MaskGroup[],
@@ -35,6 +38,13 @@ export function dealGroups(
   const load = new Array<number>(parts).fill(0);
   const owner = new Array<number>(groups.length);
   for (const { i, cost } of order) {
+    if (groups[i][1].length > transformAbove) {
+      owner[i] = 0;
+      load[0] += cost;
+    }
+  }
+  for (const { i, cost } of order) {
+    if (groups[i][1].length > transformAbove) continue;
     let best = 0;
     for (let p = 1; p < parts; p++) if (load[p] < load[best]) best = p;
     owner[i] = best;

@@ -6,6 +6,7 @@
  * PARALLEL_MIN_QUBITS stay on one thread (synchronising per gate costs more than it saves).
  */
 import { availableParallelism } from "node:os";
+import { MAX_SLOTS } from "../wasm/runtime";
 
 /** Measured crossover (npm run bench, threads rows): below 2^16 amplitudes one thread wins. */
 export const PARALLEL_MIN_QUBITS = 16;
@@ -33,5 +34,6 @@ export function engineThreads(concurrentRuns = 1): number {
 /** Threads for an n-qubit state: 1 below the crossover, and never more than 2^(n−1) slices. */
 export function threadsFor(n: number, requested: number): number {
   if (n < PARALLEL_MIN_QUBITS || requested <= 1) return 1;
-  return Math.min(pow2Floor(requested), 2 ** (n - 1));
+  // at most MAX_SLOTS threads: each has a scratch slot and a Pauli area in a kernel memory's head
+  return Math.min(pow2Floor(requested), 2 ** (n - 1), MAX_SLOTS);
 }

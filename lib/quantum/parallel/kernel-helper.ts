@@ -20,6 +20,7 @@ import {
   CMD_STAGE,
   DONE,
   ERR,
+  JOINED,
   K,
   KIND,
   Q0,
@@ -42,6 +43,12 @@ function serve(m: AttachMessage): void {
   const stageBuf = new Float64Array(m.stage);
   const re = allRe.subarray(m.index * len, (m.index + 1) * len);
   const im = allIm.subarray(m.index * len, (m.index + 1) * len);
+  // join unless the caller already gave up on this state (then leave it alone)
+  for (;;) {
+    const joined = Atomics.load(ctrl, JOINED);
+    if (joined < 0) return;
+    if (Atomics.compareExchange(ctrl, JOINED, joined, joined + 1) === joined) break;
+  }
   if (m.fresh) {
     // write (not read) every page of the slice first: a first read maps the shared zero page
     // and the kernel's store then replaces it, flushing the TLB of every thread on the state
@@ -81,8 +88,10 @@ function serve(m: AttachMessage): void {
         const job = nextJob(m.jobs);
         KERNEL_JOBS[job.kind](ctx, job.payload as never);
       }
-    } catch {
-      Atomics.store(ctrl, ERR, 1); // the caller throws; this thread stays usable
+    } catch (error) {
+      // the caller throws with this message; this thread stays usable
+      m.jobs.postMessage({ error: error instanceof Error ? error.message : String(error) });
+      Atomics.store(ctrl, ERR, 1);
     }
     Atomics.add(ctrl, DONE, 1);
     Atomics.notify(ctrl, DONE);

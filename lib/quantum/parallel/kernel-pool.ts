@@ -46,6 +46,7 @@ import {
   CONTROL_INTS,
   DONE,
   ERR,
+  JOINED,
   K,
   KIND,
   MATRIX_DOUBLES,
@@ -70,19 +71,29 @@ const channelClass = (): typeof MessageChannel =>
 const ATTACH_TIMEOUT_MS = 20_000;
 
 let helpers: Worker[] = [];
+/** Per helper: a shared word its boot file sets to −1 when loading the helper failed. */
+let bootWords: Int32Array[] = [];
 let broken = false;
 
 function ensureHelpers(count: number): boolean {
   if (broken) return false;
   while (helpers.length < count) {
-    const w = new (workerClass())(bootPath(), { workerData: { entry: entryUrl() } });
+    const boot = new SharedArrayBuffer(4);
+    const w = new (workerClass())(bootPath(), { workerData: { entry: entryUrl(), boot } });
     w.unref();
     w.on("error", () => {
       broken = true;
     });
     helpers.push(w);
+    bootWords.push(new Int32Array(boot));
   }
   return true;
+}
+
+/** True once any helper reported a failed boot (seen without the event loop). */
+function bootFailed(): boolean {
+  if (bootWords.some((w) => Atomics.load(w, 0) < 0)) broken = true;
+  return broken;
 }
 
 /** Helper threads started in this thread, and whether any failed (then runs stay on one thread). */
@@ -94,6 +105,7 @@ export function kernelPoolStatus(): { helpers: number; broken: boolean } {
 export async function closeKernelPool(): Promise<void> {
   const all = helpers;
   helpers = [];
+  bootWords = [];
   broken = false;
   await Promise.all(all.map((w) => w.terminate()));
 }
@@ -202,10 +214,45 @@ export class ParallelState {
       const ready = Atomics.load(this.ctrl, READY);
       if (ready >= threads - 1) break;
       const left = deadline - performance.now();
-      if (left <= 0 || broken) return; // helpers unavailable: stay on one thread
+      if (left <= 0 || bootFailed()) {
+        this.abandon(); // helpers unavailable: stay on one thread
+        return;
+      }
       Atomics.wait(this.ctrl, READY, ready, Math.min(left, 100));
     }
     this.attached = true;
+  }
+
+  /**
+   * Gives up on the helpers that have not joined (a late one then leaves the state alone) and
+   * releases those that did, once they are ready — before the caller uses the state alone.
+   */
+  private abandon(): void {
+    const ctrl = this.ctrl;
+    let joined: number;
+    for (;;) {
+      joined = Atomics.load(ctrl, JOINED);
+      if (Atomics.compareExchange(ctrl, JOINED, joined, -1) === joined) break;
+    }
+    if (joined <= 0) return;
+    const wait = (slot: number, want: number): void => {
+      const deadline = performance.now() + ATTACH_TIMEOUT_MS;
+      for (;;) {
+        const v = Atomics.load(ctrl, slot);
+        if (v >= want) return;
+        if (performance.now() > deadline) {
+          broken = true; // a joined helper stopped answering: no engine threads from now on
+          throw new Error("an engine thread stopped answering");
+        }
+        Atomics.wait(ctrl, slot, v, 100);
+      }
+    };
+    wait(READY, joined);
+    Atomics.store(ctrl, DONE, 0);
+    Atomics.store(ctrl, KIND, CMD_DETACH);
+    Atomics.add(ctrl, SEQ, 1);
+    Atomics.notify(ctrl, SEQ);
+    wait(DONE, joined);
   }
 
   /** True when the helpers are attached (otherwise every gate runs on the calling thread). */
@@ -268,6 +315,18 @@ export class ParallelState {
     return this.attached ? this.parts : 1;
   }
 
+  /** The message a failing helper posted on its job port. */
+  private helperError(): string {
+    const receive = process.getBuiltinModule("node:worker_threads").receiveMessageOnPort;
+    for (const port of this.jobs) {
+      for (let got = receive(port); got; got = receive(port)) {
+        const message = got.message as { error?: string };
+        if (message.error) return `an engine thread failed its share: ${message.error}`;
+      }
+    }
+    return "an engine thread failed its share";
+  }
+
   /** Releases the helpers (they return to idle); the arrays stay valid. */
   detach(): void {
     if (!this.attached) return;
@@ -295,7 +354,7 @@ export class ParallelState {
       const done = Atomics.load(ctrl, DONE);
       if (done >= want) {
         if (failed) throw failed.error;
-        if (Atomics.load(ctrl, ERR) !== 0) throw new Error("an engine thread failed its share");
+        if (Atomics.load(ctrl, ERR) !== 0) throw new Error(this.helperError());
         return;
       }
       Atomics.wait(ctrl, DONE, done, 1000);

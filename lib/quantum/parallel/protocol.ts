@@ -3,7 +3,7 @@
  * One Int32Array control block per pool, one Float64Array for the gate matrix:
  * - SEQ: bumped by the coordinator for every command; helpers wait on it (Atomics.wait).
  * - DONE: helpers add 1 when their share of the command is finished; the coordinator waits.
- * - READY: helpers add 1 once attached to a state.
+ * - JOINED, READY: helpers join a state (see JOINED), then add 1 to READY once attached.
  * - KIND, K, Q0…: the command (apply a gate on k ≤ MAX_K qubits, apply the tiling stage in
  *   the stage buffer (stage-codec.ts) to this thread's share of its tiles, or detach).
  */
@@ -18,7 +18,12 @@ export const Q0 = 5;
 export const MAX_K = 2;
 /** Set to 1 by a helper whose share of a command threw (the caller then throws). */
 export const ERR = Q0 + MAX_K;
-export const CONTROL_INTS = ERR + 1;
+/**
+ * Helpers that joined the state (each adds 1 before touching it), or −1 once the caller gave
+ * up waiting: a helper that arrives after that leaves the state alone.
+ */
+export const JOINED = ERR + 1;
+export const CONTROL_INTS = JOINED + 1;
 /** Interleaved 2^k × 2^k matrix, k ≤ MAX_K. */
 export const MATRIX_DOUBLES = 2 * 4 ** MAX_K;
 

@@ -67,4 +67,17 @@ describe("Pauli expectation on engine threads", () => {
     const loads = dealt.map((p) => p.reduce((a, g) => a + groupCost(g[1], 48), 0));
     expect(Math.max(...loads) - Math.min(...loads)).toBeLessThanOrEqual(3);
   });
+
+  it("sends every transform group (state-sized scratch arrays) to the calling thread", () => {
+    const big = (x: number): MaskGroup => [
+      x,
+      Array.from({ length: 60 }, (_, t) => ({ index: 100 * x + t, z: t, k: 0 })),
+    ];
+    const small = (x: number): MaskGroup => [x, [{ index: 100 * x, z: 0, k: 0 }]];
+    const groups = [big(1), small(2), big(3), small(4), small(5), big(6), small(7)];
+    const dealt = dealGroups(groups, 2, 48);
+    expect(dealt[0].filter((g) => g[1].length > 48).map((g) => g[0])).toEqual([1, 3, 6]);
+    expect(dealt[1].every((g) => g[1].length <= 48)).toBe(true);
+    expect(dealt.flat()).toHaveLength(groups.length);
+  });
 });

@@ -6,6 +6,7 @@
 import { afterAll, afterEach, describe, expect, it } from "vitest";
 import {
   PARALLEL_MIN_QUBITS,
+  ParallelState,
   closeKernelPool,
   engineThreads,
   kernelPoolStatus,
@@ -39,6 +40,23 @@ describe("statevector on several engine threads", () => {
       expect(kernelPoolStatus()).toEqual({ helpers: 3, broken: false });
     },
   );
+
+  it("a helper's failure reaches the caller with its message; the state stays usable", () => {
+    const shared = new ParallelState(PARALLEL_MIN_QUBITS, 2);
+    try {
+      expect(shared.parallel).toBe(true);
+      expect(() => shared.runJobs("no-such-job", [null], () => {})).toThrow(
+        /an engine thread failed its share: .+/,
+      );
+      shared.re[0] = 1;
+      const h = Math.SQRT1_2;
+      shared.apply([0], Float64Array.of(h, 0, h, 0, h, 0, -h, 0));
+      expect(shared.re[0]).toBeCloseTo(h, 15);
+      expect(shared.re[1]).toBeCloseTo(h, 15);
+    } finally {
+      shared.detach();
+    }
+  });
 
   it("a canceled run still releases the helpers (the next run works)", { timeout: 60_000 }, () => {
     const rng = makeRng(77);
@@ -78,5 +96,7 @@ describe("thread count", () => {
     expect(threadsFor(PARALLEL_MIN_QUBITS - 1, 8)).toBe(1);
     expect(threadsFor(PARALLEL_MIN_QUBITS, 8)).toBe(8);
     expect(threadsFor(24, 1)).toBe(1);
+    // never more threads than kernel-memory slots (16)
+    expect(threadsFor(24, 64)).toBe(16);
   });
 });
