@@ -7,6 +7,7 @@
  * row qubit k is bit k + n. The kernels use this view (ρ as a "vectorised" 2n-qubit state).
  */
 import type { DensityMatrix, StateVector } from "../types";
+import { sliceOf } from "../parallel/shares";
 
 /** ρ = |0…0⟩⟨0…0| on n qubits; in SharedArrayBuffers for engine threads when `shared`. */
 export function createZeroDensity(n: number, shared = false): DensityMatrix {
@@ -32,12 +33,7 @@ export function createZeroDensity(n: number, shared = false): DensityMatrix {
  * DensityMatrix view the kernels treat as a whole ρ for steps on qubits below those bits.
  */
 export function densitySlice(rho: DensityMatrix, index: number, parts: number): DensityMatrix {
-  const len = rho.re.length / parts;
-  return {
-    n: rho.n,
-    re: rho.re.subarray(index * len, (index + 1) * len),
-    im: rho.im.subarray(index * len, (index + 1) * len),
-  };
+  return { n: rho.n, re: sliceOf(rho.re, index, parts), im: sliceOf(rho.im, index, parts) };
 }
 
 /** The diagonal ρ_ii (the Born probabilities, real for a Hermitian ρ), index bit k = qubit k. */

@@ -11,7 +11,7 @@ import { applyStageTiles, tileCount } from "../statevector/tiling";
 import { bindMemory } from "../wasm/runtime";
 import { KERNEL_JOBS } from "./kernel-jobs";
 import { readStage } from "./stage-codec";
-import { shareOf } from "./shares";
+import { shareOf, sliceOf } from "./shares";
 import {
   type AttachMessage,
   CMD_DETACH,
@@ -36,13 +36,12 @@ if (!port) throw new Error("kernel-helper.ts must run in a worker thread");
 function serve(m: AttachMessage): void {
   const ctrl = new Int32Array(m.control);
   const mat = new Float64Array(m.matrix);
-  const len = m.dim / m.parts;
   if (m.memory) bindMemory(m.memory, m.index); // else (no SIMD here) the JavaScript kernels run
   const allRe = new Float64Array(m.re, m.reAt, m.dim);
   const allIm = new Float64Array(m.im, m.imAt, m.dim);
   const stageBuf = new Float64Array(m.stage);
-  const re = allRe.subarray(m.index * len, (m.index + 1) * len);
-  const im = allIm.subarray(m.index * len, (m.index + 1) * len);
+  const re = sliceOf(allRe, m.index, m.parts);
+  const im = sliceOf(allIm, m.index, m.parts);
   // join unless the caller already gave up on this state (then leave it alone)
   for (;;) {
     const joined = Atomics.load(ctrl, JOINED);

@@ -255,9 +255,9 @@ export function applyStageTiles(
       const base = 8 * deposit(t, outerBits);
       const r0 = re.byteOffset + base;
       const i0 = im.byteOffset + base;
-      w.k.gatherTile(r0, i0, tr, ti, tab, runs, runBytes);
+      w.k.copyTile(r0, i0, tr, ti, tab, runs, runBytes, 1);
       for (const g of gates) applyWithShape(tile.re, tile.im, g.bits, g.matrix, g.shape);
-      w.k.scatterTile(r0, i0, tr, ti, tab, runs, runBytes);
+      w.k.copyTile(r0, i0, tr, ti, tab, runs, runBytes, 0);
     }
     return;
   }

@@ -39,7 +39,7 @@ export interface KernelExports {
     table: number,
     out: number,
   ): void;
-  gatherTile(
+  copyTile(
     re: number,
     im: number,
     tileRe: number,
@@ -47,6 +47,7 @@ export interface KernelExports {
     runAt: number,
     runs: number,
     runBytes: number,
+    gather: number,
   ): void;
   cross1q(
     lre: number,
@@ -69,15 +70,6 @@ export interface KernelExports {
     needed: number,
     out: number,
     acc: number,
-  ): void;
-  scatterTile(
-    re: number,
-    im: number,
-    tileRe: number,
-    tileIm: number,
-    runAt: number,
-    runs: number,
-    runBytes: number,
   ): void;
 }
 

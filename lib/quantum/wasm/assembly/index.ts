@@ -3,5 +3,5 @@ export { general1q, real1q } from "./kernels-1q";
 export { general2q } from "./kernels-2q";
 export { twoBlock } from "./kernels-two-block";
 export { pauliDiagonal, pauliTerm, pauliTerms4 } from "./pauli-mask";
-export { gatherTile, scatterTile } from "./tile-copy";
+export { copyTile } from "./tile-copy";
 export { cross1q, cross2q } from "./cross";
