@@ -18,7 +18,7 @@ import type { DensityMatrix, PauliSum, StateVector } from "../types";
 import { POPCOUNT16 } from "./bits";
 import { LOW_BITS, type MaskTerm, SignTables, maskPassOnState, yCount } from "./pauli-mask-pass";
 import { walshHadamardInPlace } from "./walsh-hadamard";
-import { wasmMaskPass } from "../wasm/pauli";
+import { pairKey, pairable, wasmMaskPass, wasmPairPass } from "../wasm/pauli";
 import { wasmBinding } from "../wasm/runtime";
 import { engineThreads, threadsFor } from "../parallel/config";
 import { ParallelState } from "../parallel/kernel-pool";
@@ -76,11 +76,21 @@ export function runMaskGroups(
   const signs = new SignTables(Math.min(n, lowBits));
   // amplitudes in a kernel memory: the SIMD pass (WebAssembly), else the JavaScript one
   const w = n >= 3 ? wasmBinding(re, im) : undefined;
+  // single terms waiting for a partner mask (same pairKey): two of them share one pass
+  const waiting = new Map<number, [number, MaskTerm]>();
   for (const [x, terms] of groups) {
     if (terms.length > transformThreshold(n)) maskByTransform(re, im, x, terms, out);
-    else if (w) wasmMaskPass(w, re, im, x, terms, out);
+    else if (w && terms.length === 1 && pairable(x)) {
+      const key = pairKey(x);
+      const other = waiting.get(key);
+      if (other) {
+        waiting.delete(key);
+        wasmPairPass(w, re, im, other[0], other[1], x, terms[0], out);
+      } else waiting.set(key, [x, terms[0]]);
+    } else if (w) wasmMaskPass(w, re, im, x, terms, out);
     else maskPassOnState(re, im, x, terms, signs, out);
   }
+  if (w) for (const [x, t] of waiting.values()) wasmMaskPass(w, re, im, x, [t], out);
 }
 
 /** Terms by flip mask x (insertion order), with their Y count. */

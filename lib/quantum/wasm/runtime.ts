@@ -27,8 +27,21 @@ export interface KernelExports {
     len: number,
     z: number,
     odd: number,
-    tbl: number,
   ): number;
+  pauliPair(
+    re: number,
+    im: number,
+    xA: number,
+    xB: number,
+    run: number,
+    stride: number,
+    len: number,
+    zA: number,
+    zB: number,
+    oddA: number,
+    oddB: number,
+    area: number,
+  ): void;
   pauliTerms4(
     re: number,
     im: number,
@@ -78,13 +91,14 @@ export const SLOT_BYTES = 2048;
 export const MAX_SLOTS = 16;
 /**
  * Pauli area of each slot (engine thread), after the scratch slots: at +0 four (z, odd) pairs
- * and their lane patterns, at PAULI_OUT four sums, at PAULI_SIGNS a single term's sign table.
+ * and their lane patterns, at PAULI_OUT four sums, at PAULI_PAIR the two-mask kernel's sums.
  */
 export const PAULI_AREA_AT = SLOT_BYTES * MAX_SLOTS;
 export const PAULI_OUT = 512;
-export const PAULI_SIGNS = 1024;
-export const PAULI_AREA_BYTES = PAULI_SIGNS + 8192;
-export const RESERVED_BYTES = 3 * PAGE;
+export const PAULI_PAIR = 576;
+export const PAULI_AREA_BYTES = 1024;
+/** The head: scratch slots and Pauli areas (48 KiB) in one page. */
+export const RESERVED_BYTES = PAGE;
 /**
  * Gap between re and im: 17 cache lines, so re[i] and im[i] never share their low 12 address
  * bits (a store to one and a load of the other would alias in the core's 4 KiB load/store

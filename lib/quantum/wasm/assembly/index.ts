@@ -3,5 +3,6 @@ export { general1q, real1q } from "./kernels-1q";
 export { general2q } from "./kernels-2q";
 export { twoBlock } from "./kernels-two-block";
 export { pauliDiagonal, pauliTerm, pauliTerms4 } from "./pauli-mask";
+export { pauliPair } from "./pauli-pair";
 export { copyTile } from "./tile-copy";
 export { cross1q, cross2q } from "./cross";

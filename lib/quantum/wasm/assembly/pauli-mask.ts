@@ -10,21 +10,7 @@
 // len every b is (x < 8; the host doubles or not accordingly). Each kernel returns or writes
 // Σ_b s_z(b)·Re f(b) (Im f when the term has an odd number of Y factors), f(b) = conj(ψ_c) ψ_b.
 
-@inline
-function signBit(v: i32): i64 {
-  return <i64>(popcnt<i32>(v) & 1) << 63;
-}
-
-// lane pattern of vector v (lanes 2v, 2v+1 of the group) for the Z mask z
-@inline
-function pattern(z: i32, v: i32): v128 {
-  return i64x2(signBit((2 * v) & z), signBit((2 * v + 1) & z));
-}
-
-@inline
-function swapLanes(a: v128): v128 {
-  return v128.shuffle<f64>(a, a, 1, 0);
-}
+import { addSigned, groupSum, laneTotal, partner, pattern, product, storePatterns } from "./pauli-lanes";
 
 /** Σ_b s_z(b)·|ψ_b|² over all b (diagonal terms, x = 0). */
 export function pauliDiagonal(re: usize, im: usize, len: i32, z: i32): f64 {
@@ -47,26 +33,55 @@ export function pauliDiagonal(re: usize, im: usize, len: i32, z: i32): f64 {
       f1 = v128.xor(f64x2.add(f64x2.mul(r1, r1), f64x2.mul(i1, i1)), p1),
       f2 = v128.xor(f64x2.add(f64x2.mul(r2, r2), f64x2.mul(i2, i2)), p2),
       f3 = v128.xor(f64x2.add(f64x2.mul(r3, r3), f64x2.mul(i3, i3)), p3);
-    const s = i64x2.splat(signBit(<i32>(b >> 3) & z));
-    acc = f64x2.add(acc, v128.xor(f64x2.add(f64x2.add(f0, f1), f64x2.add(f2, f3)), s));
+    acc = addSigned(acc, f64x2.add(f64x2.add(f0, f1), f64x2.add(f2, f3)), <i32>(b >> 3), z);
   }
-  return f64x2.extract_lane(acc, 0) + f64x2.extract_lane(acc, 1);
+  return laneTotal(acc);
 }
 
-// Sign table of the low `bits` index bits for Z mask z: entry e (16 bytes) holds the lane
-// sign bits of amplitudes 2e and 2e + 1, so the entry of amplitude b sits at byte
-// (b & (2^bits − 1))·8 — the byte offset of b within its block of 2^bits amplitudes.
-function fillSigns(tbl: usize, bits: i32, z: i32): void {
-  const entries = 1 << (bits - 1);
-  for (let e = 0; e < entries; e++) {
-    v128.store(tbl + (<usize>e << 4), i64x2(signBit((2 * e) & z), signBit((2 * e + 1) & z)));
+// One term, its swap (bit 0 of x) and odd (Y count) fixed: the loop nest shared by the four
+// specialisations of pauliTerm.
+@inline
+function termLoop(
+  re: usize,
+  im: usize,
+  total: usize,
+  runB: usize,
+  strideB: usize,
+  xHigh: usize,
+  v: usize,
+  z: i32,
+  swap: bool,
+  odd: bool,
+): f64 {
+  const c0 = v << 4,
+    c1 = (v ^ 1) << 4,
+    c2 = (v ^ 2) << 4,
+    c3 = (v ^ 3) << 4;
+  const p0 = pattern(z, 0),
+    p1 = pattern(z, 1),
+    p2 = pattern(z, 2),
+    p3 = pattern(z, 3);
+  let acc = f64x2.splat(0);
+  for (let o: usize = 0; o < total; o += strideB) {
+    for (let b = o, e = o + runB; b < e; b += 64) {
+      const c = b ^ xHigh;
+      const h0 = product(partner(re + c + c0, swap), partner(im + c + c0, swap), v128.load(re + b), v128.load(im + b), odd),
+        h1 = product(partner(re + c + c1, swap), partner(im + c + c1, swap), v128.load(re + b, 16), v128.load(im + b, 16), odd),
+        h2 = product(partner(re + c + c2, swap), partner(im + c + c2, swap), v128.load(re + b, 32), v128.load(im + b, 32), odd),
+        h3 = product(partner(re + c + c3, swap), partner(im + c + c3, swap), v128.load(re + b, 48), v128.load(im + b, 48), odd);
+      const sum = f64x2.add(
+        f64x2.add(v128.xor(h0, p0), v128.xor(h1, p1)),
+        f64x2.add(v128.xor(h2, p2), v128.xor(h3, p3)),
+      );
+      acc = addSigned(acc, sum, <i32>(b >> 3), z);
+    }
   }
+  return laneTotal(acc);
 }
 
 /**
- * One term with flip mask x ≠ 0 and Z mask z; `tbl` is room for the sign table (8 KiB).
- * Blocks of 2^bits amplitudes (bits = min(log2 len, 10)) take their low signs from the table
- * and one parity for their high bits.
+ * One term with flip mask x ≠ 0 and Z mask z: Σ over the visited b of s_z(b)·(Re or Im) f(b).
+ * The loop is specialised on bit 0 of x and on odd, so neither is tested per group.
  */
 export function pauliTerm(
   re: usize,
@@ -77,110 +92,20 @@ export function pauliTerm(
   len: i32,
   z: i32,
   odd: bool,
-  tbl: usize,
 ): f64 {
-  const bits = min(10, 31 - clz<i32>(len));
-  fillSigns(tbl, bits, z);
-  const blockB = <usize>8 << bits,
-    lowB = blockB - 1;
   const total = <usize>len << 3;
-  const h = 31 - clz<i32>(x);
-  // runs of the visited half inside a block (h < bits), else whole blocks
-  const inner = h < bits && run < len;
-  const runB = inner ? <usize>run << 3 : blockB,
-    strideB = inner ? <usize>stride << 3 : blockB;
-  const skipBit = !inner && run < len ? <usize>run << 3 : 0; // blocks with bit h set are skipped
-  const zHigh = z >> bits;
+  const runB = <usize>run << 3,
+    strideB = <usize>stride << 3;
   const xHigh = <usize>(x & ~7) << 3;
-  const v = (x >> 1) & 3;
-  const c0 = <usize>v << 4,
-    c1 = <usize>(v ^ 1) << 4,
-    c2 = <usize>(v ^ 2) << 4,
-    c3 = <usize>(v ^ 3) << 4;
-  const swap = (x & 1) != 0;
-  let acc = f64x2.splat(0);
-  for (let blk: usize = 0; blk < total; blk += blockB) {
-    if (blk & skipBit) continue;
-    let part = f64x2.splat(0);
-    for (let r0 = blk, re0 = blk + blockB; r0 < re0; r0 += strideB) {
-      for (let b = r0, e = r0 + runB; b < e; b += 64) {
-        const cb = b ^ xHigh;
-        const t = tbl + (b & lowB);
-        const br0 = v128.load(re + b),
-          br1 = v128.load(re + b, 16),
-          br2 = v128.load(re + b, 32),
-          br3 = v128.load(re + b, 48);
-        const bi0 = v128.load(im + b),
-          bi1 = v128.load(im + b, 16),
-          bi2 = v128.load(im + b, 32),
-          bi3 = v128.load(im + b, 48);
-        let cr0 = v128.load(re + cb + c0),
-          cr1 = v128.load(re + cb + c1),
-          cr2 = v128.load(re + cb + c2),
-          cr3 = v128.load(re + cb + c3);
-        let ci0 = v128.load(im + cb + c0),
-          ci1 = v128.load(im + cb + c1),
-          ci2 = v128.load(im + cb + c2),
-          ci3 = v128.load(im + cb + c3);
-        if (swap) {
-          cr0 = swapLanes(cr0);
-          cr1 = swapLanes(cr1);
-          cr2 = swapLanes(cr2);
-          cr3 = swapLanes(cr3);
-          ci0 = swapLanes(ci0);
-          ci1 = swapLanes(ci1);
-          ci2 = swapLanes(ci2);
-          ci3 = swapLanes(ci3);
-        }
-        let f0: v128, f1: v128, f2: v128, f3: v128;
-        if (odd) {
-          f0 = f64x2.sub(f64x2.mul(cr0, bi0), f64x2.mul(ci0, br0));
-          f1 = f64x2.sub(f64x2.mul(cr1, bi1), f64x2.mul(ci1, br1));
-          f2 = f64x2.sub(f64x2.mul(cr2, bi2), f64x2.mul(ci2, br2));
-          f3 = f64x2.sub(f64x2.mul(cr3, bi3), f64x2.mul(ci3, br3));
-        } else {
-          f0 = f64x2.add(f64x2.mul(cr0, br0), f64x2.mul(ci0, bi0));
-          f1 = f64x2.add(f64x2.mul(cr1, br1), f64x2.mul(ci1, bi1));
-          f2 = f64x2.add(f64x2.mul(cr2, br2), f64x2.mul(ci2, bi2));
-          f3 = f64x2.add(f64x2.mul(cr3, br3), f64x2.mul(ci3, bi3));
-        }
-        part = f64x2.add(
-          part,
-          f64x2.add(
-            f64x2.add(v128.xor(f0, v128.load(t, 0)), v128.xor(f1, v128.load(t, 16))),
-            f64x2.add(v128.xor(f2, v128.load(t, 32)), v128.xor(f3, v128.load(t, 48))),
-          ),
-        );
-      }
-    }
-    acc = f64x2.add(acc, v128.xor(part, i64x2.splat(signBit(<i32>(blk >> (bits + 3)) & zHigh))));
+  const v = <usize>((x >> 1) & 3);
+  if (x & 1) {
+    return odd
+      ? termLoop(re, im, total, runB, strideB, xHigh, v, z, true, true)
+      : termLoop(re, im, total, runB, strideB, xHigh, v, z, true, false);
   }
-  return f64x2.extract_lane(acc, 0) + f64x2.extract_lane(acc, 1);
-}
-
-// Σ over the four vectors of the term's lane-signed f (f = Re parts, g = Im parts);
-// the term's lane patterns are at pat … pat+63.
-@inline
-function termSum(
-  f0: v128,
-  f1: v128,
-  f2: v128,
-  f3: v128,
-  g0: v128,
-  g1: v128,
-  g2: v128,
-  g3: v128,
-  odd: bool,
-  pat: usize,
-): v128 {
-  const h0 = odd ? g0 : f0,
-    h1 = odd ? g1 : f1,
-    h2 = odd ? g2 : f2,
-    h3 = odd ? g3 : f3;
-  return f64x2.add(
-    f64x2.add(v128.xor(h0, v128.load(pat, 0)), v128.xor(h1, v128.load(pat, 16))),
-    f64x2.add(v128.xor(h2, v128.load(pat, 32)), v128.xor(h3, v128.load(pat, 48))),
-  );
+  return odd
+    ? termLoop(re, im, total, runB, strideB, xHigh, v, z, false, true)
+    : termLoop(re, im, total, runB, strideB, xHigh, v, z, false, false);
 }
 
 /**
@@ -216,17 +141,14 @@ export function pauliTerms4(
     oc = load<i32>(table, 20) != 0,
     od = load<i32>(table, 28) != 0;
   const pat = table + 64;
-  for (let t = 0; t < 4; t++) {
-    const z = load<i32>(table + (<usize>t << 3));
-    for (let v = 0; v < 4; v++) v128.store(pat + (<usize>t << 6) + (<usize>v << 4), pattern(z, v));
-  }
+  for (let t = 0; t < 4; t++) storePatterns(pat + (<usize>t << 6), load<i32>(table + (<usize>t << 3)));
   let aa = f64x2.splat(0),
     ab = f64x2.splat(0),
     ac = f64x2.splat(0),
     ad = f64x2.splat(0);
   for (let o: usize = 0; o < total; o += strideB) {
     for (let b = o, e = o + runB; b < e; b += 64) {
-      const cb = b ^ xHigh;
+      const c = b ^ xHigh;
       const br0 = v128.load(re + b),
         br1 = v128.load(re + b, 16),
         br2 = v128.load(re + b, 32),
@@ -235,41 +157,31 @@ export function pauliTerms4(
         bi1 = v128.load(im + b, 16),
         bi2 = v128.load(im + b, 32),
         bi3 = v128.load(im + b, 48);
-      let cr0 = v128.load(re + cb + c0),
-        cr1 = v128.load(re + cb + c1),
-        cr2 = v128.load(re + cb + c2),
-        cr3 = v128.load(re + cb + c3);
-      let ci0 = v128.load(im + cb + c0),
-        ci1 = v128.load(im + cb + c1),
-        ci2 = v128.load(im + cb + c2),
-        ci3 = v128.load(im + cb + c3);
-      if (swap) {
-        cr0 = swapLanes(cr0);
-        cr1 = swapLanes(cr1);
-        cr2 = swapLanes(cr2);
-        cr3 = swapLanes(cr3);
-        ci0 = swapLanes(ci0);
-        ci1 = swapLanes(ci1);
-        ci2 = swapLanes(ci2);
-        ci3 = swapLanes(ci3);
-      }
-      const f0 = f64x2.add(f64x2.mul(cr0, br0), f64x2.mul(ci0, bi0)),
-        f1 = f64x2.add(f64x2.mul(cr1, br1), f64x2.mul(ci1, bi1)),
-        f2 = f64x2.add(f64x2.mul(cr2, br2), f64x2.mul(ci2, bi2)),
-        f3 = f64x2.add(f64x2.mul(cr3, br3), f64x2.mul(ci3, bi3));
-      const g0 = f64x2.sub(f64x2.mul(cr0, bi0), f64x2.mul(ci0, br0)),
-        g1 = f64x2.sub(f64x2.mul(cr1, bi1), f64x2.mul(ci1, br1)),
-        g2 = f64x2.sub(f64x2.mul(cr2, bi2), f64x2.mul(ci2, br2)),
-        g3 = f64x2.sub(f64x2.mul(cr3, bi3), f64x2.mul(ci3, br3));
+      const cr0 = partner(re + c + c0, swap),
+        cr1 = partner(re + c + c1, swap),
+        cr2 = partner(re + c + c2, swap),
+        cr3 = partner(re + c + c3, swap);
+      const ci0 = partner(im + c + c0, swap),
+        ci1 = partner(im + c + c1, swap),
+        ci2 = partner(im + c + c2, swap),
+        ci3 = partner(im + c + c3, swap);
+      const f0 = product(cr0, ci0, br0, bi0, false),
+        f1 = product(cr1, ci1, br1, bi1, false),
+        f2 = product(cr2, ci2, br2, bi2, false),
+        f3 = product(cr3, ci3, br3, bi3, false);
+      const g0 = product(cr0, ci0, br0, bi0, true),
+        g1 = product(cr1, ci1, br1, bi1, true),
+        g2 = product(cr2, ci2, br2, bi2, true),
+        g3 = product(cr3, ci3, br3, bi3, true);
       const p = <i32>(b >> 3);
-      aa = f64x2.add(aa, v128.xor(termSum(f0, f1, f2, f3, g0, g1, g2, g3, oa, pat + 0), i64x2.splat(signBit(p & za))));
-      ab = f64x2.add(ab, v128.xor(termSum(f0, f1, f2, f3, g0, g1, g2, g3, ob, pat + 64), i64x2.splat(signBit(p & zb))));
-      ac = f64x2.add(ac, v128.xor(termSum(f0, f1, f2, f3, g0, g1, g2, g3, oc, pat + 128), i64x2.splat(signBit(p & zc))));
-      ad = f64x2.add(ad, v128.xor(termSum(f0, f1, f2, f3, g0, g1, g2, g3, od, pat + 192), i64x2.splat(signBit(p & zd))));
+      aa = addSigned(aa, oa ? groupSum(g0, g1, g2, g3, pat) : groupSum(f0, f1, f2, f3, pat), p, za);
+      ab = addSigned(ab, ob ? groupSum(g0, g1, g2, g3, pat + 64) : groupSum(f0, f1, f2, f3, pat + 64), p, zb);
+      ac = addSigned(ac, oc ? groupSum(g0, g1, g2, g3, pat + 128) : groupSum(f0, f1, f2, f3, pat + 128), p, zc);
+      ad = addSigned(ad, od ? groupSum(g0, g1, g2, g3, pat + 192) : groupSum(f0, f1, f2, f3, pat + 192), p, zd);
     }
   }
-  store<f64>(out, f64x2.extract_lane(aa, 0) + f64x2.extract_lane(aa, 1), 0);
-  store<f64>(out, f64x2.extract_lane(ab, 0) + f64x2.extract_lane(ab, 1), 8);
-  store<f64>(out, f64x2.extract_lane(ac, 0) + f64x2.extract_lane(ac, 1), 16);
-  store<f64>(out, f64x2.extract_lane(ad, 0) + f64x2.extract_lane(ad, 1), 24);
+  store<f64>(out, laneTotal(aa), 0);
+  store<f64>(out, laneTotal(ab), 8);
+  store<f64>(out, laneTotal(ac), 16);
+  store<f64>(out, laneTotal(ad), 24);
 }

@@ -3,7 +3,8 @@
  * on small registers, against a dense mathjs computation (reference: mathjs kron/multiply,
  * ⟨ψ|A|ψ⟩ with A built from Kronecker products of the Pauli matrices). Sums mix diagonal
  * words, masks below 4 (lane permutations only) and higher masks, single terms and groups
- * of terms sharing a mask.
+ * of terms sharing a mask. Every kernel (one term, four terms, two masks in one pass) must give
+ * a term the same bits, so results do not depend on how terms were grouped or dealt to threads.
  */
 import { describe, expect, it } from "vitest";
 import { parsePauliSum } from "@/lib/quantum/observable/pauli-parse";
@@ -59,5 +60,18 @@ describe("WebAssembly Pauli pass", () => {
   it("matches the JavaScript pass on 11 and 14 qubits (hundreds of masks)", () => {
     check(11, 300, 77);
     check(14, 200, 78);
+  });
+
+  it("gives every term the same bits alone as paired with another mask in one pass", () => {
+    const n = 12;
+    // random words: distinct masks, most of them paired (same highest bit and bit 0)
+    const sum = padPauliSum(parsePauliSum(randomPauliText(n, 120, mulberry32(5))), n);
+    const w = randomKernelState(n, 6);
+    const state = { n, re: w.re, im: w.im };
+    const together = pauliExpectationsOnState(state, sum, undefined, 1);
+    sum.terms.forEach((t, i) => {
+      const alone = pauliExpectationsOnState(state, { ...sum, terms: [t] }, undefined, 1);
+      expect(Object.is(alone[0], together[i])).toBe(true);
+    });
   });
 });
