@@ -6,7 +6,7 @@
  * indices, so the threads' partial matrices add up to it (threadedSweepStep).
  */
 import { applyToAmplitudes } from "../statevector/dispatch";
-import { wasmCross } from "../wasm/cross";
+import { wasmCross, wasmTwoBlockStep } from "../wasm/cross";
 import { wasmBinding } from "../wasm/runtime";
 import { backwardStep, crossOnly } from "./backward-step";
 import { crossLocal } from "./local-cross";
@@ -40,8 +40,24 @@ export function sweepStep(lambda: Vec, phi: Vec, step: SweepStep): Float64Array 
   if (qubits.length <= 2 && (!wPhi || !wLambda)) {
     return backwardStep(lambda.re, lambda.im, phi.re, phi.im, qubits, udag, needed, updateLambda);
   }
-  // in kernel memories B† goes through the SIMD kernels and R is a separate pass: SIMD too
-  // when λ and φ share one memory (the forward reserved λ as the state's companion)
+  // λ and φ in one memory (the forward reserved λ as the state's companion): a two-block B†
+  // (a cx fused with gates on its target) is ONE SIMD pass for the whole step
+  if (wPhi && wPhi === wLambda) {
+    const r = wasmTwoBlockStep(
+      wPhi,
+      lambda.re,
+      lambda.im,
+      phi.re,
+      phi.im,
+      qubits,
+      udag,
+      needed,
+      updateLambda,
+    );
+    if (r) return r;
+  }
+  // otherwise B† goes through the SIMD kernels and R is a separate pass: SIMD too when λ and
+  // φ share one memory
   applyToAmplitudes(phi.re, phi.im, qubits, udag);
   const r =
     qubits.length > 2

@@ -72,6 +72,30 @@ export interface KernelExports {
     out: number,
     acc: number,
   ): void;
+  lambdaTerm(
+    lre: number,
+    lim: number,
+    pre: number,
+    pim: number,
+    from: number,
+    to: number,
+    x: number,
+    z: number,
+    cr: number,
+    ci: number,
+  ): void;
+  twoBlockStep(
+    lre: number,
+    lim: number,
+    pre: number,
+    pim: number,
+    len: number,
+    ctrl: number,
+    tgt: number,
+    m: number,
+    out: number,
+    lambda: number,
+  ): void;
   cross2q(
     lre: number,
     lim: number,

@@ -204,23 +204,73 @@ export function cross2q(lre: usize, lim: usize, pre: usize, pim: usize, len: i32
     put(out, 15, s15r, s15i);
     return;
   }
-  // one operand is bit 0: scalar sums (each group's four indices read once)
-  for (let e = 0; e < 32; e++) store<f64>(out + (<usize>e << 3), 0);
-  for (let i0: usize = 0; i0 < total; i0 += sHi << 1) {
-    for (let b = i0, e = i0 + sHi; b < e; b += 16) {
-      // b: base with bits lo (= 0) and hi clear
-      const offs0 = b, offs1 = b | o1, offs2 = b | o2, offs3 = b | o3;
-      for (let a = 0; a < 4; a++) {
-        const oa = a == 0 ? offs0 : a == 1 ? offs1 : a == 2 ? offs2 : offs3;
-        const lr = load<f64>(lre + oa), li = load<f64>(lim + oa);
-        for (let c = 0; c < 4; c++) {
-          const oc = c == 0 ? offs0 : c == 1 ? offs1 : c == 2 ? offs2 : offs3;
-          const pr = load<f64>(pre + oc), pi = load<f64>(pim + oc);
-          const w = out + (<usize>(a * 4 + c) << 4);
-          store<f64>(w, load<f64>(w) + (lr * pr + li * pi));
-          store<f64>(w, load<f64>(w, 8) + (lr * pi - li * pr), 8);
-        }
-      }
+  // one operand is bit 0: a vector holds the pair (bit 0 clear, set) of one group; products
+  // of equal lanes give the entries with equal bit 0, products with φ's lanes swapped the others
+  cross2qBit0(lre, lim, pre, pim, total, (<usize>1 << hi) << 3, first == 0, needed, out);
+}
+
+// Local index (first operand = most significant bit) of the amplitude with high bit h and bit 0 = j.
+@inline
+function local0(h: i32, j: i32, firstIsBit0: bool): i32 {
+  return firstIsBit0 ? 2 * j + h : 2 * h + j;
+}
+
+// Writes the lane sums of one (λ half hA, φ half hC) product: lane j of `same` is entry
+// (hA j, hC j), lane j of `swapped` entry (hA j, hC 1−j); entries outside `needed` stay 0.
+@inline
+function putPair(out: usize, hA: i32, hC: i32, sr: v128, si: v128, xr: v128, xi: v128, firstIsBit0: bool, needed: i32): void {
+  for (let j = 0; j < 2; j++) {
+    const a = local0(hA, j, firstIsBit0);
+    const e1 = 4 * a + local0(hC, j, firstIsBit0);
+    const e2 = 4 * a + local0(hC, 1 - j, firstIsBit0);
+    if ((needed >> e1) & 1) {
+      store<f64>(out + (<usize>e1 << 4), j == 0 ? f64x2.extract_lane(sr, 0) : f64x2.extract_lane(sr, 1));
+      store<f64>(out + (<usize>e1 << 4), j == 0 ? f64x2.extract_lane(si, 0) : f64x2.extract_lane(si, 1), 8);
+    }
+    if ((needed >> e2) & 1) {
+      store<f64>(out + (<usize>e2 << 4), j == 0 ? f64x2.extract_lane(xr, 0) : f64x2.extract_lane(xr, 1));
+      store<f64>(out + (<usize>e2 << 4), j == 0 ? f64x2.extract_lane(xi, 0) : f64x2.extract_lane(xi, 1), 8);
     }
   }
+}
+
+// conj(l)·p lane-wise, added to (accR, accI)
+@inline
+function macR(acc: v128, lr: v128, li: v128, pr: v128, pi: v128): v128 {
+  return f64x2.add(acc, f64x2.add(f64x2.mul(lr, pr), f64x2.mul(li, pi)));
+}
+@inline
+function macI(acc: v128, lr: v128, li: v128, pr: v128, pi: v128): v128 {
+  return f64x2.add(acc, f64x2.sub(f64x2.mul(lr, pi), f64x2.mul(li, pr)));
+}
+
+/** cross2q with one operand on bit 0; `o` = byte offset of the other operand's bit. */
+function cross2qBit0(lre: usize, lim: usize, pre: usize, pim: usize, total: usize, o: usize, firstIsBit0: bool, needed: i32, out: usize): void {
+  for (let e = 0; e < 32; e++) store<f64>(out + (<usize>e << 3), 0);
+  let s00r = f64x2.splat(0), s00i = f64x2.splat(0), x00r = f64x2.splat(0), x00i = f64x2.splat(0);
+  let s01r = f64x2.splat(0), s01i = f64x2.splat(0), x01r = f64x2.splat(0), x01i = f64x2.splat(0);
+  let s10r = f64x2.splat(0), s10i = f64x2.splat(0), x10r = f64x2.splat(0), x10i = f64x2.splat(0);
+  let s11r = f64x2.splat(0), s11i = f64x2.splat(0), x11r = f64x2.splat(0), x11i = f64x2.splat(0);
+  for (let blk: usize = 0; blk < total; blk += o << 1) {
+    for (let b = blk, e = blk + o; b < e; b += 16) {
+      const l0r = v128.load(lre + b), l0i = v128.load(lim + b);
+      const l1r = v128.load(lre + b + o), l1i = v128.load(lim + b + o);
+      const p0r = v128.load(pre + b), p0i = v128.load(pim + b);
+      const p1r = v128.load(pre + b + o), p1i = v128.load(pim + b + o);
+      const q0r = v128.shuffle<f64>(p0r, p0r, 1, 0), q0i = v128.shuffle<f64>(p0i, p0i, 1, 0);
+      const q1r = v128.shuffle<f64>(p1r, p1r, 1, 0), q1i = v128.shuffle<f64>(p1i, p1i, 1, 0);
+      s00r = macR(s00r, l0r, l0i, p0r, p0i); s00i = macI(s00i, l0r, l0i, p0r, p0i);
+      x00r = macR(x00r, l0r, l0i, q0r, q0i); x00i = macI(x00i, l0r, l0i, q0r, q0i);
+      s01r = macR(s01r, l0r, l0i, p1r, p1i); s01i = macI(s01i, l0r, l0i, p1r, p1i);
+      x01r = macR(x01r, l0r, l0i, q1r, q1i); x01i = macI(x01i, l0r, l0i, q1r, q1i);
+      s10r = macR(s10r, l1r, l1i, p0r, p0i); s10i = macI(s10i, l1r, l1i, p0r, p0i);
+      x10r = macR(x10r, l1r, l1i, q0r, q0i); x10i = macI(x10i, l1r, l1i, q0r, q0i);
+      s11r = macR(s11r, l1r, l1i, p1r, p1i); s11i = macI(s11i, l1r, l1i, p1r, p1i);
+      x11r = macR(x11r, l1r, l1i, q1r, q1i); x11i = macI(x11i, l1r, l1i, q1r, q1i);
+    }
+  }
+  putPair(out, 0, 0, s00r, s00i, x00r, x00i, firstIsBit0, needed);
+  putPair(out, 0, 1, s01r, s01i, x01r, x01i, firstIsBit0, needed);
+  putPair(out, 1, 0, s10r, s10i, x10r, x10i, firstIsBit0, needed);
+  putPair(out, 1, 1, s11r, s11i, x11r, x11i, firstIsBit0, needed);
 }

@@ -6,3 +6,5 @@ export { pauliDiagonal, pauliTerm, pauliTerms4 } from "./pauli-mask";
 export { pauliPair } from "./pauli-pair";
 export { copyTile } from "./tile-copy";
 export { cross1q, cross2q } from "./cross";
+export { twoBlockStep } from "./two-block-step";
+export { lambdaTerm } from "./lambda-term";
