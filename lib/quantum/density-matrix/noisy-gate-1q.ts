@@ -4,6 +4,8 @@
  * γ, λ — the formulas of noise/channels.ts (noiseAfter1q), N&C §8.3.4–8.3.6.
  */
 import type { DensityMatrix } from "../types";
+import { wasmNoisy1q } from "../wasm/kernels";
+import { wasmBinding } from "../wasm/runtime";
 import type { GateNoise } from "./noisy-gate";
 
 /**
@@ -37,7 +39,14 @@ export function noisy1qDense(
     er = m[6],
     ei = m[7];
   const count = re.length >>> 2;
-  if (ai === 0 && bi === 0 && ci === 0 && ei === 0) {
+  const real = ai === 0 && bi === 0 && ci === 0 && ei === 0;
+  // ρ in a kernel memory: the SIMD kernel (bit-identical; qubit 0 pairs inside a vector stay here)
+  const w = q >= 1 ? wasmBinding(re, im) : undefined;
+  if (w) {
+    wasmNoisy1q(w, re, im, rho.n, q, m, real, [keep, mix, gamma, pop, coh]);
+    return;
+  }
+  if (real) {
     noisy1qReal(rho, q, ar, br, cr, er, keep, mix, gamma, pop, coh);
     return;
   }

@@ -8,19 +8,22 @@
  */
 import type { DensityMatrix, StateVector } from "../types";
 import { sliceOf } from "../parallel/shares";
+import { allocateAmplitudes } from "../statevector/state";
+import { wasmBinding } from "../wasm/runtime";
 
-/** ρ = |0…0⟩⟨0…0| on n qubits; in SharedArrayBuffers for engine threads when `shared`. */
+/**
+ * ρ = |0…0⟩⟨0…0| on n qubits: in a WebAssembly kernel memory like a 2n-qubit state when the
+ * engine uses them (statevector/state.ts allocateAmplitudes), else in SharedArrayBuffers for
+ * engine threads when `shared`, else plain arrays.
+ */
 export function createZeroDensity(n: number, shared = false): DensityMatrix {
   if (!Number.isInteger(n) || n < 0 || n > 15) {
     throw new RangeError(`createZeroDensity: qubit count must be an integer in [0, 15], got ${n}`);
   }
-  const size = 4 ** n;
-  const make = (): Float64Array =>
-    shared ? new Float64Array(new SharedArrayBuffer(8 * size)) : new Float64Array(size);
-  const re = make();
-  const im = make();
-  if (shared) {
-    // pages written before the kernels read them (see parallel/kernel-pool.ts, "Pages")
+  // like a 2n-qubit state: in a kernel memory (the SIMD noisy-gate kernel) when the engine
+  // uses them, pages written before the kernels read them (parallel/kernel-pool.ts, "Pages")
+  const { re, im } = allocateAmplitudes(2 * n, shared, 0);
+  if (shared && !wasmBinding(re, im)) {
     re.fill(0);
     im.fill(0);
   }

@@ -46,3 +46,22 @@ export function wasmTwoBlock(
   w.scratch.set(B.subarray(0, 8), 8);
   w.k.twoBlock(re.byteOffset, im.byteOffset, re.length, ctrl, tgt, w.scratchAt);
 }
+
+/**
+ * A noisy 1-qubit gate on ρ (or a slice of it) bound to a kernel memory, qubit q ≥ 1
+ * (density-matrix/noisy-gate-1q.ts): U (interleaved 2 × 2), then the channel's numbers.
+ */
+export function wasmNoisy1q(
+  w: WasmBinding,
+  re: Float64Array,
+  im: Float64Array,
+  n: number,
+  q: number,
+  m: Float64Array,
+  real: boolean,
+  channel: readonly [keep: number, mix: number, gamma: number, pop: number, coh: number],
+): void {
+  w.scratch.set(m.subarray(0, 8));
+  w.scratch.set(channel, 8);
+  w.k.noisy1q(re.byteOffset, im.byteOffset, re.length, n, q, w.scratchAt, real ? 1 : 0);
+}

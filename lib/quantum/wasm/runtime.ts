@@ -84,6 +84,7 @@ export interface KernelExports {
     cr: number,
     ci: number,
   ): void;
+  noisy1q(re: number, im: number, len: number, n: number, q: number, m: number, real: number): void;
   twoBlockStep(
     lre: number,
     lim: number,

@@ -8,3 +8,4 @@ export { copyTile } from "./tile-copy";
 export { cross1q, cross2q } from "./cross";
 export { twoBlockStep } from "./two-block-step";
 export { lambdaTerm } from "./lambda-term";
+export { noisy1q } from "./noisy-1q";
