@@ -62,7 +62,9 @@ export interface LambdaTerm {
 /**
  * λ[o] for the outputs o in [from, to) of a Pauli sum (λ zeroed there before): every output
  * only reads ψ, so engine threads fill disjoint ranges; each output accumulates the mask
- * groups in the same order whatever the range, so the result does not depend on the split.
+ * groups in the same order whatever the range, so the result does not depend on the split
+ * (ranges aligned to 8, as the threads' are: an unaligned range takes the JavaScript pass
+ * for masks the SIMD pass would take, equal to 1e-12).
  */
 export function pauliLambdaRange(
   sumTerms: readonly LambdaTerm[],

@@ -20,6 +20,7 @@
  *
  * Pure computation: the helpers load their own module and touch only shared memory.
  */
+import { noteSharedAllocation } from "./memory-pressure";
 import { join } from "node:path";
 import { pathToFileURL } from "node:url";
 import type { MessageChannel, MessagePort, Worker } from "node:worker_threads";
@@ -160,6 +161,7 @@ export class ParallelState {
       if (memory && bindMemory(memory, 0)) {
         ({ re: this.re, im: this.im } = stateViews(memory, n));
       } else {
+        noteSharedAllocation(16 * 2 ** n);
         this.re = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
         this.im = new Float64Array(new SharedArrayBuffer(8 * 2 ** n));
       }

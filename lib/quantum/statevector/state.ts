@@ -2,6 +2,7 @@
  * Statevector storage: split real/imaginary Float64Arrays of
  * length 2^n; amplitude index bit k is qubit k (little-endian in the index).
  */
+import { noteSharedAllocation } from "../parallel/memory-pressure";
 import type { StateVector } from "../types";
 import { engineWasm } from "../parallel/config";
 import { bindMemory, createKernelMemory, stateViews } from "../wasm/runtime";
@@ -45,6 +46,7 @@ export function allocateAmplitudes(
   }
   const dim = 2 ** n;
   if (shared) {
+    noteSharedAllocation(16 * dim);
     return {
       re: new Float64Array(new SharedArrayBuffer(8 * dim)),
       im: new Float64Array(new SharedArrayBuffer(8 * dim)),

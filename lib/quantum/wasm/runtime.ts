@@ -11,6 +11,7 @@
  * area per slot (term tables and sums of that thread's Pauli passes).
  */
 import { KERNELS_WASM_BASE64 } from "./kernels-binary";
+import { noteSharedAllocation } from "../parallel/memory-pressure";
 
 export interface KernelExports {
   general1q(re: number, im: number, len: number, q: number, m: number): void;
@@ -234,6 +235,7 @@ export function createKernelMemory(
   const pages = Math.ceil(bytes / PAGE);
   try {
     const memory = new WebAssembly.Memory({ initial: pages, maximum: pages, shared: true });
+    noteSharedAllocation(pages * PAGE);
     memories.set(memory.buffer, memory);
     if (companion) {
       const at = stateEndByte(n) + tailBytes;

@@ -80,4 +80,26 @@ describe("Pauli expectation on engine threads", () => {
     expect(dealt[1].every((g) => g[1].length <= 48)).toBe(true);
     expect(dealt.flat()).toHaveLength(groups.length);
   });
+
+  it("keeps two single terms that share a pass (same highest bit and bit 0) on one thread", () => {
+    // single-term masks 8…63: keys pair e.g. 8 with 10, 9 with 11 (highest bit 3, bit 0 equal)
+    const groups: MaskGroup[] = Array.from({ length: 56 }, (_, i) => [
+      i + 8,
+      [{ index: i, z: i, k: 0 }],
+    ]);
+    const dealt = dealGroups(groups, 4, 48);
+    expect(dealt.flat()).toHaveLength(groups.length);
+    const threadOf = new Map<number, number>();
+    dealt.forEach((part, t) => part.forEach(([x]) => threadOf.set(x, t)));
+    const byKey = new Map<number, number[]>();
+    for (const [x] of groups) {
+      const key = ((31 - Math.clz32(x)) << 1) | (x & 1);
+      byKey.set(key, [...(byKey.get(key) ?? []), x]);
+    }
+    for (const xs of byKey.values())
+      for (let j = 0; j + 1 < xs.length; j += 2)
+        expect(threadOf.get(xs[j])).toBe(threadOf.get(xs[j + 1]));
+    const counts = dealt.map((p) => p.length);
+    expect(Math.max(...counts) - Math.min(...counts)).toBeLessThanOrEqual(2);
+  });
 });
