@@ -56,8 +56,9 @@ function runInVector(re: usize, im: usize, from: usize, to: usize, AC: v128, AIC
   }
 }
 
+/** Entry j of the f64 array at m in both lanes. */
 @inline
-function splatAt(m: usize, j: i32): v128 {
+export function splatAt(m: usize, j: i32): v128 {
   return f64x2.splat(load<f64>(m + (<usize>j << 3)));
 }
 

@@ -6,10 +6,7 @@
 // JavaScript expression in its order: bit-identical results. `m` holds U (8 numbers,
 // interleaved) then keep, mix, γ, pop, coh.
 
-@inline
-function splatAt(m: usize, j: i32): v128 {
-  return f64x2.splat(load<f64>(m + (<usize>j << 3)));
-}
+import { splatAt } from "./kernels-two-block";
 
 // the channel after B' = U B U† (y0 … y3), stored at the four members
 @inline

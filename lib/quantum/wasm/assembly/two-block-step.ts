@@ -7,10 +7,7 @@
 // bits (the same expression per lane, kernels-two-block.ts); `out` receives S_0 then S_1,
 // each 2 × 2 interleaved (re, im), row-major.
 
-@inline
-function splatAt(m: usize, j: i32): v128 {
-  return f64x2.splat(load<f64>(m + (<usize>j << 3)));
-}
+import { splatAt } from "./kernels-two-block";
 
 // The sector pass for ctrl bit c: pairs (i, i + st) over every index with ctrl = c, tgt = 0.
 @inline

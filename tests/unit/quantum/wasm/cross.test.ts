@@ -7,33 +7,11 @@
 import { describe, expect, it } from "vitest";
 import { crossLocal } from "@/lib/quantum/gradient/local-cross";
 import { wasmCross } from "@/lib/quantum/wasm/cross";
-import {
-  bindMemory,
-  companionOf,
-  createKernelMemory,
-  stateViews,
-} from "@/lib/quantum/wasm/runtime";
-import { makeRng } from "../statevector/support/random-gates";
-
-function pair(n: number, seed: number) {
-  const memory = createKernelMemory(n, 0, true);
-  const w = memory && bindMemory(memory, 0);
-  if (!memory || !w) throw new Error("WebAssembly kernels unavailable");
-  const phi = stateViews(memory, n);
-  const lambda = companionOf(phi.re);
-  if (!lambda) throw new Error("no companion state");
-  const rng = makeRng(seed);
-  for (const v of [phi, lambda])
-    for (let i = 0; i < v.re.length; i++) {
-      v.re[i] = rng.float() - 0.5;
-      v.im[i] = rng.float() - 0.5;
-    }
-  return { w, phi, lambda };
-}
+import { randomCompanionPair } from "./support";
 
 describe("wasmCross", () => {
   const n = 9;
-  const { w, phi, lambda } = pair(n, 2024);
+  const { w, phi, lambda } = randomCompanionPair(n, 2024);
   const cases: number[][] = [[0], [3], [8], [0, 1], [1, 0], [5, 0], [0, 7], [2, 6], [8, 4], [4, 5]];
 
   it.each(cases)("bits %j: every entry equals the JavaScript cross matrix to 1e-12", (...bits) => {

@@ -1,6 +1,7 @@
 /** A state in a fresh kernel memory (WebAssembly kernels), filled with seeded random amplitudes. */
 import {
   bindMemory,
+  companionOf,
   createKernelMemory,
   stateViews,
   wasmBinding,
@@ -25,4 +26,24 @@ export function randomKernelState(n: number, seed: number): { re: Float64Array; 
     im[i] *= f;
   }
   return { re, im };
+}
+
+/**
+ * A kernel memory with a companion state (the adjoint sweep's λ beside φ), both filled with
+ * seeded random values (not normalised); `rng` continues the same stream.
+ */
+export function randomCompanionPair(n: number, seed: number) {
+  const memory = createKernelMemory(n, 0, true);
+  const w = memory && bindMemory(memory, 0);
+  if (!memory || !w) throw new Error("WebAssembly kernels unavailable");
+  const phi = stateViews(memory, n);
+  const lambda = companionOf(phi.re);
+  if (!lambda) throw new Error("no companion state");
+  const rng = makeRng(seed);
+  for (const v of [phi, lambda])
+    for (let i = 0; i < v.re.length; i++) {
+      v.re[i] = rng.float() - 0.5;
+      v.im[i] = rng.float() - 0.5;
+    }
+  return { w, phi, lambda, rng };
 }

@@ -11,13 +11,7 @@ import { crossLocal } from "@/lib/quantum/gradient/local-cross";
 import { applyToAmplitudes } from "@/lib/quantum/statevector/dispatch";
 import { embedMatrix, multiplyMatrices } from "@/lib/quantum/statevector/matrix-ops";
 import { wasmTwoBlockStep } from "@/lib/quantum/wasm/cross";
-import {
-  bindMemory,
-  companionOf,
-  createKernelMemory,
-  stateViews,
-} from "@/lib/quantum/wasm/runtime";
-import { makeRng } from "../statevector/support/random-gates";
+import { randomCompanionPair } from "./support";
 
 const CX = Float64Array.from([
   1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 0, 0, 1, 0, 0, 0,
@@ -53,22 +47,6 @@ function twoBlockU(rng: { float(): number }, ctrl: 0 | 1): Float64Array {
   return multiplyMatrices(embedMatrix(randomU2(rng), [1 - ctrl], [0, 1]), cx, 4);
 }
 
-function setup(n: number, seed: number) {
-  const memory = createKernelMemory(n, 0, true);
-  const w = memory && bindMemory(memory, 0);
-  if (!memory || !w) throw new Error("WebAssembly kernels unavailable");
-  const phi = stateViews(memory, n);
-  const lambda = companionOf(phi.re);
-  if (!lambda) throw new Error("no companion state");
-  const rng = makeRng(seed);
-  for (const v of [phi, lambda])
-    for (let i = 0; i < v.re.length; i++) {
-      v.re[i] = rng.float() - 0.5;
-      v.im[i] = rng.float() - 0.5;
-    }
-  return { w, phi, lambda, rng };
-}
-
 describe("wasmTwoBlockStep", () => {
   const n = 9;
   const cases: [number, number, 0 | 1][] = [
@@ -81,7 +59,7 @@ describe("wasmTwoBlockStep", () => {
   ];
 
   it.each(cases)("bits [%i, %i], ctrl operand %i: φ, λ bit-identical, R to 1e-12", (a, b, ctrl) => {
-    const { w, phi, lambda, rng } = setup(n, 100 + 10 * a + b);
+    const { w, phi, lambda, rng } = randomCompanionPair(n, 100 + 10 * a + b);
     const u = twoBlockU(rng, ctrl);
     for (const updateLambda of [true, false]) {
       const ref = {
@@ -120,7 +98,7 @@ describe("wasmTwoBlockStep", () => {
   });
 
   it("declines bit 0, a dense U and entries between ctrl values, touching nothing", () => {
-    const { w, phi, lambda, rng } = setup(n, 7);
+    const { w, phi, lambda, rng } = randomCompanionPair(n, 7);
     const before = phi.re.slice();
     const lambdaBefore = lambda.re.slice();
     const u = twoBlockU(rng, 0);
